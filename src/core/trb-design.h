@@ -4,6 +4,8 @@
 
 #include <glib.h>
 
+#include "trb-beam.h"
+#include "trb-section.h"
 #include "trb-types.h"
 #include "trb-units.h"
 
@@ -23,6 +25,51 @@ typedef struct
   double       x;                /* where it governs, m from the left end */
   char         detail[96];       /* the inputs that explain it: "Lb = 8.00 ft, Cb = 1.00" */
 } TrbCheck;
+
+/* One load combination as the design methods see it: its name, its case factors (for the NDS
+ * load-duration factor) and the member's response to it, self-weight of the section included. */
+typedef struct
+{
+  char           name[64];               /* "ASD 2: D + L", "LRFD 2: 1.2D + 1.6L (L on span 1)" */
+  double         factors[TRB_N_CASES];   /* the case factors it applies */
+  TrbBeamResult *result;                 /* not owned */
+} TrbDemandCombo;
+
+typedef enum
+{
+  TRB_BRACING_CONTINUOUS,  /* deck or sheathing holds the compression flange or edge throughout */
+  TRB_BRACING_POINTS,      /* braced at the supports and at brace_x only */
+} TrbBracing;
+
+/* Everything a design method needs to check one section on one member. */
+typedef struct
+{
+  const TrbSection *section;
+  double            length;
+  const TrbSupport *supports;        /* sorted by x */
+  guint             n_supports;
+  TrbBracing        bracing;
+  const double     *brace_x;         /* discrete brace points besides the supports, sorted */
+  guint             n_braces;
+
+  /* the strength combinations of the method (ASD, LRFD, or the service set for the
+   * allowable-stress method) */
+  const TrbDemandCombo *combos;
+  guint                 n_combos;
+
+  /* deflection, with this section's E and I: the live-load response (worst pattern) and the
+   * total-load response; NULL where there is no such load */
+  const TrbBeamResult *live;
+  const TrbBeamResult *total;
+  double               live_limit;   /* span ratio denominator: 360 for L/360; 0 for none */
+  double               total_limit;
+} TrbDesignInput;
+
+/* The deflection checks every method shares: the live and total limits as span ratios on each
+ * span between supports, cantilevers judged on twice their length (IBC 2021 Table 1604.3,
+ * footnote i). Appends to checks (GArray of TrbCheck). */
+void trb_design_check_deflection (const TrbDesignInput *input,
+                                  GArray               *checks);
 
 void trb_check_set (TrbCheck     *check,
                     const char   *name,
