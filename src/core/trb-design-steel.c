@@ -2,3 +2,817 @@
  * SPDX-License-Identifier: GPL-3.0-or-later */
 
 #include "config.h"
+
+#include "trb-design-steel.h"
+
+#include "trb-beam.h"
+#include "trb-units.h"
+
+#include <math.h>
+#include <string.h>
+
+/* ASTM minimum yield and tensile stresses; E and G as AISC 360-16 Section B4 / the Manual use
+ * them for all structural steel. */
+static const TrbSteelGrade steel_grades[] = {
+  { "A992", 50 * TRB_KSI, 65 * TRB_KSI, 29000 * TRB_KSI, 11200 * TRB_KSI,
+    "ASTM A992; AISC Manual Table 2-4 (from memory)" },
+  { "A36", 36 * TRB_KSI, 58 * TRB_KSI, 29000 * TRB_KSI, 11200 * TRB_KSI,
+    "ASTM A36; AISC Manual Table 2-4 (from memory)" },
+  { "A572 Gr 50", 50 * TRB_KSI, 65 * TRB_KSI, 29000 * TRB_KSI, 11200 * TRB_KSI,
+    "ASTM A572 Grade 50; AISC Manual Table 2-4 (from memory)" },
+};
+
+const TrbSteelGrade *
+trb_design_steel_get_grades (guint *n_grades)
+{
+  if (n_grades != NULL)
+    *n_grades = G_N_ELEMENTS (steel_grades);
+  return steel_grades;
+}
+
+/* "A572 Gr 50", "a572-50" and "A572 GR.50" all name the same grade: compare the letters and
+ * digits, with the word "GR" left out. */
+static char *
+normalize_grade_name (const char *name)
+{
+  GString *out = g_string_new (NULL);
+
+  for (const char *p = name; *p != '\0'; p++)
+    {
+      if (g_ascii_isalnum (*p))
+        g_string_append_c (out, g_ascii_toupper (*p));
+    }
+  for (char *gr; (gr = strstr (out->str, "GR")) != NULL;)
+    g_string_erase (out, gr - out->str, 2);
+
+  return g_string_free (out, FALSE);
+}
+
+/**
+ * trb_design_steel_lookup_grade:
+ * @name: a grade name such as "A992", "A36" or "A572 Gr 50"
+ *
+ * Returns: (nullable): the grade, or %NULL when it is not one this module knows
+ */
+const TrbSteelGrade *
+trb_design_steel_lookup_grade (const char *name)
+{
+  g_autofree char *want = NULL;
+
+  g_return_val_if_fail (name != NULL, NULL);
+
+  want = normalize_grade_name (name);
+  for (guint i = 0; i < G_N_ELEMENTS (steel_grades); i++)
+    {
+      g_autofree char *have = normalize_grade_name (steel_grades[i].name);
+
+      if (g_strcmp0 (want, have) == 0)
+        return &steel_grades[i];
+    }
+
+  return NULL;
+}
+
+/* The properties of a doubly symmetric I shape that F2, F3 and G2 use, with what the
+ * catalog does not carry derived from what it does. */
+typedef struct
+{
+  double d, tw, Zx, Sx, ry, J, ho, rts, lambda_f, h_tw;
+} IProps;
+
+static gboolean
+positive (double v)
+{
+  return isfinite (v) && v > 0;
+}
+
+static gboolean
+get_i_props (const TrbSection *s,
+             IProps           *p)
+{
+  if (s->kind != TRB_SHAPE_W && s->kind != TRB_SHAPE_S && s->kind != TRB_SHAPE_CUSTOM)
+    return FALSE;
+
+  p->d = s->d;
+  p->tw = s->tw;
+  p->Zx = s->Zx;
+  p->Sx = s->Sx;
+  p->ry = s->ry;
+  p->J = s->J;
+
+  p->ho = s->ho;
+  if (!positive (p->ho) && positive (s->d) && positive (s->tf))
+    p->ho = s->d - s->tf;
+
+  /* rts^2 = sqrt(Iy Cw) / Sx (F2-7) */
+  p->rts = s->rts;
+  if (!positive (p->rts) && positive (s->Iy) && positive (s->Cw) && positive (s->Sx))
+    p->rts = sqrt (sqrt (s->Iy * s->Cw) / s->Sx);
+
+  p->lambda_f = s->bf_2tf;
+  if (!positive (p->lambda_f) && positive (s->bf) && positive (s->tf))
+    p->lambda_f = s->bf / (2 * s->tf);
+
+  /* h is the clear distance between flanges less the fillets: d - 2 kdes for rolled shapes */
+  p->h_tw = s->h_tw;
+  if (!positive (p->h_tw) && positive (s->d) && positive (s->kdes) && positive (s->tw))
+    p->h_tw = (s->d - 2 * s->kdes) / s->tw;
+
+  /* A custom section is taken as an I shape only when it has flanges and a warping constant:
+   * a rectangle or a tube with the same moduli would otherwise be checked by the wrong
+   * chapter. */
+  if (s->kind == TRB_SHAPE_CUSTOM
+      && !(positive (s->bf) && positive (s->tf) && positive (s->Cw)))
+    return FALSE;
+
+  return positive (p->d) && positive (p->tw) && positive (p->Zx) && positive (p->Sx)
+         && positive (p->ry) && positive (p->J) && positive (p->ho) && positive (p->rts)
+         && positive (p->lambda_f) && positive (p->h_tw);
+}
+
+/**
+ * trb_design_steel_covers:
+ * @section: a section
+ *
+ * Whether the section is a doubly symmetric I shape with every property F2, F3 and G2 need:
+ * W and S shapes, and custom I sections. Channels, tubes and anything else are not designed
+ * by this module.
+ *
+ * Returns: %TRUE when trb_design_steel_check() can check it
+ */
+gboolean
+trb_design_steel_covers (const TrbSection *section)
+{
+  IProps p;
+
+  g_return_val_if_fail (section != NULL, FALSE);
+
+  return get_i_props (section, &p);
+}
+
+/**
+ * trb_design_steel_rts:
+ * @section: a section
+ *
+ * The effective radius of gyration rts: the tabulated value, or sqrt(sqrt(Iy Cw) / Sx)
+ * (AISC 360-16 Eq. F2-7) when there is none.
+ *
+ * Returns: rts in m, or NAN
+ */
+double
+trb_design_steel_rts (const TrbSection *section)
+{
+  IProps p;
+
+  g_return_val_if_fail (section != NULL, NAN);
+
+  if (!get_i_props (section, &p))
+    return NAN;
+  return p.rts;
+}
+
+static double
+lp_of (const IProps        *p,
+       const TrbSteelGrade *g)
+{
+  /* F2-5 */
+  return 1.76 * p->ry * sqrt (g->E / g->Fy);
+}
+
+static double
+lr_of (const IProps        *p,
+       const TrbSteelGrade *g)
+{
+  /* F2-6, with c = 1 for doubly symmetric I shapes (F2-8a) */
+  double jc = p->J / (p->Sx * p->ho);
+  double r = 0.7 * g->Fy / g->E;
+
+  return 1.95 * p->rts * (g->E / (0.7 * g->Fy)) * sqrt (jc + sqrt (jc * jc + 6.76 * r * r));
+}
+
+/**
+ * trb_design_steel_lp:
+ * @section: a W, S or custom I section
+ * @grade: its steel
+ *
+ * Returns: Lp = 1.76 ry sqrt(E / Fy) (AISC 360-16 Eq. F2-5) in m, NAN for other sections
+ */
+double
+trb_design_steel_lp (const TrbSection    *section,
+                     const TrbSteelGrade *grade)
+{
+  IProps p;
+
+  g_return_val_if_fail (section != NULL && grade != NULL, NAN);
+
+  if (!get_i_props (section, &p))
+    return NAN;
+  return lp_of (&p, grade);
+}
+
+/**
+ * trb_design_steel_lr:
+ * @section: a W, S or custom I section
+ * @grade: its steel
+ *
+ * Returns: Lr (AISC 360-16 Eq. F2-6, c = 1) in m, NAN for other sections
+ */
+double
+trb_design_steel_lr (const TrbSection    *section,
+                     const TrbSteelGrade *grade)
+{
+  IProps p;
+
+  g_return_val_if_fail (section != NULL && grade != NULL, NAN);
+
+  if (!get_i_props (section, &p))
+    return NAN;
+  return lr_of (&p, grade);
+}
+
+/**
+ * trb_design_steel_mp:
+ * @section: a section with Zx
+ * @grade: its steel
+ *
+ * Returns: Mp = Fy Zx (AISC 360-16 Eq. F2-1) in N*m
+ */
+double
+trb_design_steel_mp (const TrbSection    *section,
+                     const TrbSteelGrade *grade)
+{
+  g_return_val_if_fail (section != NULL && grade != NULL, NAN);
+
+  return grade->Fy * section->Zx;
+}
+
+/**
+ * trb_design_steel_cb:
+ * @m_max: the largest moment in the unbraced segment
+ * @m_a: the moment at its quarter point
+ * @m_b: the moment at its centre
+ * @m_c: the moment at its three-quarter point
+ *
+ * The lateral-torsional buckling modification factor of AISC 360-16 Eq. F1-1,
+ * Cb = 12.5 Mmax / (2.5 Mmax + 3 MA + 4 MB + 3 MC), on absolute values. A segment without
+ * moment gets 1.
+ *
+ * Returns: Cb
+ */
+double
+trb_design_steel_cb (double m_max,
+                     double m_a,
+                     double m_b,
+                     double m_c)
+{
+  double mx = fabs (m_max);
+  double den;
+
+  /* Mmax is the segment's largest moment by definition; a caller's rounding must not make a
+   * quarter-point value exceed it. */
+  mx = MAX (mx, MAX (fabs (m_a), MAX (fabs (m_b), fabs (m_c))));
+  den = 2.5 * mx + 3 * fabs (m_a) + 4 * fabs (m_b) + 3 * fabs (m_c);
+  if (!(mx > 0) || !(den > 0))
+    return 1.0;
+
+  return 12.5 * mx / den;
+}
+
+/**
+ * trb_design_steel_flexure:
+ * @section: a W, S or custom I section
+ * @grade: its steel
+ * @Lb: the unbraced length of the compression flange, m (0: braced throughout)
+ * @Cb: the moment gradient factor (F1-1; 1 is conservative)
+ * @out: (out): the nominal strength and what governs it
+ *
+ * The nominal flexural strength about the major axis: lateral-torsional buckling by F2.2
+ * (F2-1 to F2-4), and flange local buckling by F3 (F3-1, F3-2) when the flanges are not
+ * compact (bf/2tf > 0.38 sqrt(E/Fy)); the lesser governs. Webs must be compact
+ * (h/tw <= 3.76 sqrt(E/Fy), Table B4.1b case 15): F4 and F5 are not implemented.
+ *
+ * Returns: %FALSE (and @out zeroed) when the section is not one F2 or F3 covers
+ */
+gboolean
+trb_design_steel_flexure (const TrbSection    *section,
+                          const TrbSteelGrade *grade,
+                          double               Lb,
+                          double               Cb,
+                          TrbSteelFlexure     *out)
+{
+  IProps p;
+  double E, Fy, Mp, Mn, lam_pf, lam_rf, My70;
+  const char *eq;
+
+  g_return_val_if_fail (section != NULL, FALSE);
+  g_return_val_if_fail (grade != NULL, FALSE);
+  g_return_val_if_fail (out != NULL, FALSE);
+
+  memset (out, 0, sizeof *out);
+  if (!get_i_props (section, &p))
+    return FALSE;
+
+  E = grade->E;
+  Fy = grade->Fy;
+  if (p.h_tw > 3.76 * sqrt (E / Fy))
+    return FALSE;
+
+  Lb = MAX (Lb, 0);
+  if (!(Cb > 0))
+    Cb = 1.0;
+
+  Mp = Fy * p.Zx;
+  My70 = 0.7 * Fy * p.Sx;
+  out->Mp = Mp;
+  out->Lp = lp_of (&p, grade);
+  out->Lr = lr_of (&p, grade);
+  out->Lb = Lb;
+  out->Cb = Cb;
+  out->lambda_f = p.lambda_f;
+
+  /* Lateral-torsional buckling, F2.2; where Cb lifts the buckling strength past Mp,
+   * yielding (F2-1) is what governs. */
+  if (Lb <= out->Lp)
+    {
+      Mn = Mp;
+      eq = "F2-1";
+    }
+  else if (Lb <= out->Lr)
+    {
+      Mn = Cb * (Mp - (Mp - My70) * (Lb - out->Lp) / (out->Lr - out->Lp));
+      eq = "F2-2";
+    }
+  else
+    {
+      double jc = p.J / (p.Sx * p.ho);
+      double s = Lb / p.rts;
+      double Fcr = Cb * G_PI * G_PI * E / (s * s) * sqrt (1 + 0.078 * jc * s * s);
+
+      Mn = Fcr * p.Sx;
+      eq = "F2-3";
+    }
+  if (Mn >= Mp)
+    {
+      Mn = Mp;
+      eq = "F2-1";
+    }
+
+  /* Flange local buckling, F3.2: rolled shapes with noncompact or slender flanges. */
+  lam_pf = 0.38 * sqrt (E / Fy);
+  lam_rf = 1.0 * sqrt (E / Fy);
+  if (p.lambda_f > lam_pf)
+    {
+      double Mflb;
+      const char *eq_flb;
+
+      if (p.lambda_f <= lam_rf)
+        {
+          Mflb = Mp - (Mp - My70) * (p.lambda_f - lam_pf) / (lam_rf - lam_pf);
+          eq_flb = "F3-1";
+        }
+      else
+        {
+          double kc = CLAMP (4 / sqrt (p.h_tw), 0.35, 0.76);
+
+          Mflb = 0.9 * E * kc * p.Sx / (p.lambda_f * p.lambda_f);
+          eq_flb = "F3-2";
+        }
+      if (Mflb < Mn)
+        {
+          Mn = Mflb;
+          eq = eq_flb;
+        }
+    }
+
+  out->Mn = Mn;
+  out->equation = eq;
+  return TRUE;
+}
+
+/**
+ * trb_design_steel_shear:
+ * @section: a W, S or custom I section
+ * @grade: its steel
+ * @out: (out): the nominal shear strength and its factors
+ *
+ * Vn = 0.6 Fy Aw Cv1 (AISC 360-16 Eq. G2-1), Aw = d tw. Webs of rolled I shapes with
+ * h/tw <= 2.24 sqrt(E/Fy) take Cv1 = 1, phi 1.00, Omega 1.50 (G2.1(a)); all others phi 0.90,
+ * Omega 1.67 and Cv1 by G2-3 or G2-4 with kv = 5.34 (unstiffened webs, G2.1(b)(2)).
+ *
+ * Returns: %FALSE (and @out zeroed) when the section is not one G2 covers here
+ */
+gboolean
+trb_design_steel_shear (const TrbSection    *section,
+                        const TrbSteelGrade *grade,
+                        TrbSteelShear       *out)
+{
+  IProps p;
+  double E, Fy;
+  gboolean rolled;
+
+  g_return_val_if_fail (section != NULL, FALSE);
+  g_return_val_if_fail (grade != NULL, FALSE);
+  g_return_val_if_fail (out != NULL, FALSE);
+
+  memset (out, 0, sizeof *out);
+  if (!get_i_props (section, &p))
+    return FALSE;
+
+  E = grade->E;
+  Fy = grade->Fy;
+  rolled = section->kind == TRB_SHAPE_W || section->kind == TRB_SHAPE_S;
+  out->Aw = p.d * p.tw;
+  out->h_tw = p.h_tw;
+
+  if (rolled && p.h_tw <= 2.24 * sqrt (E / Fy))
+    {
+      out->Cv1 = 1.0;
+      out->phi = 1.00;
+      out->omega = 1.50;
+      out->provision = "G2.1(a)";
+    }
+  else
+    {
+      const double kv = 5.34;
+      double lim = 1.10 * sqrt (kv * E / Fy);
+
+      out->phi = 0.90;
+      out->omega = 1.67;
+      if (p.h_tw <= lim)
+        {
+          out->Cv1 = 1.0;
+          out->provision = "G2.1(b), Eq. G2-3";
+        }
+      else
+        {
+          out->Cv1 = lim / p.h_tw;
+          out->provision = "G2.1(b), Eq. G2-4";
+        }
+    }
+
+  out->Vn = 0.6 * Fy * out->Aw * out->Cv1;
+  return TRUE;
+}
+
+/* ---- the member check ---- */
+
+static double
+abs_moment_at (const TrbBeamResult *result,
+               double               x)
+{
+  TrbBeamValues left, right;
+
+  /* An applied moment makes M jump; take the side that gives the smaller, safer Cb. */
+  trb_beam_result_eval (result, x, TRB_SIDE_LEFT, &left);
+  trb_beam_result_eval (result, x, TRB_SIDE_RIGHT, &right);
+  return MAX (fabs (left.M), fabs (right.M));
+}
+
+static int
+compare_double (gconstpointer a,
+                gconstpointer b)
+{
+  double da = *(const double *) a;
+  double db = *(const double *) b;
+
+  return (da > db) - (da < db);
+}
+
+static gboolean
+is_braced_at (const TrbDesignInput *input,
+              double                x,
+              double                tol)
+{
+  for (guint i = 0; i < input->n_supports; i++)
+    if (fabs (input->supports[i].x - x) <= tol)
+      return TRUE;
+  for (guint i = 0; i < input->n_braces; i++)
+    if (fabs (input->brace_x[i] - x) <= tol)
+      return TRUE;
+  return FALSE;
+}
+
+/* The ends of the unbraced segments: both member ends, every support and every brace point,
+ * sorted, without repeats. */
+static GArray *
+segment_points (const TrbDesignInput *input,
+                double                tol)
+{
+  GArray *pts = g_array_new (FALSE, FALSE, sizeof (double));
+  GArray *out = g_array_new (FALSE, FALSE, sizeof (double));
+  double zero = 0;
+
+  g_array_append_val (pts, zero);
+  g_array_append_val (pts, input->length);
+  for (guint i = 0; i < input->n_supports; i++)
+    g_array_append_val (pts, input->supports[i].x);
+  for (guint i = 0; i < input->n_braces; i++)
+    {
+      double x = CLAMP (input->brace_x[i], 0, input->length);
+
+      g_array_append_val (pts, x);
+    }
+  g_array_sort (pts, compare_double);
+
+  for (guint i = 0; i < pts->len; i++)
+    {
+      double x = g_array_index (pts, double, i);
+
+      if (out->len == 0 || x - g_array_index (out, double, out->len - 1) > tol)
+        g_array_append_val (out, x);
+    }
+
+  g_array_free (pts, TRUE);
+  return out;
+}
+
+/* One candidate for the governing flexure check. */
+typedef struct
+{
+  gboolean        have;
+  double          ratio;
+  double          demand;
+  double          capacity;
+  double          x;
+  gboolean        braced;   /* the compression flange braced throughout (Lb = 0) */
+  TrbSteelFlexure flex;
+  const char     *combination;
+} FlexureCandidate;
+
+static void
+consider_flexure (FlexureCandidate      *best,
+                  double                 demand,
+                  double                 x,
+                  const TrbSteelFlexure *flex,
+                  gboolean               braced,
+                  TrbDesignBasis         basis,
+                  const char            *combination)
+{
+  double capacity = basis == TRB_DESIGN_BASIS_LRFD
+                    ? TRB_STEEL_PHI_B * flex->Mn
+                    : flex->Mn / TRB_STEEL_OMEGA_B;
+  double ratio = capacity > 0 ? demand / capacity : (demand > 0 ? INFINITY : 0);
+
+  if (best->have && !(ratio > best->ratio))
+    return;
+
+  best->have = TRUE;
+  best->ratio = ratio;
+  best->demand = demand;
+  best->capacity = capacity;
+  best->x = x;
+  best->braced = braced;
+  best->flex = *flex;
+  best->combination = combination;
+}
+
+static void
+check_flexure (const TrbDesignInput *input,
+               const TrbSteelGrade  *grade,
+               TrbDesignBasis        basis,
+               GArray               *checks)
+{
+  const TrbSection *section = input->section;
+  const double tol = 1e-9 * MAX (input->length, 1.0);
+  gboolean si = input->units == TRB_UNIT_SYSTEM_SI;
+  const char *len_unit = si ? "m" : "ft";
+  g_autoptr(GArray) pts = NULL;
+  FlexureCandidate best = { 0, };
+  TrbSteelFlexure braced_flex;
+  TrbCheck check;
+  char clause[48];
+  char lb[24], lp[24], lr[24], mn[24];
+
+  if (!trb_design_steel_flexure (section, grade, 0, 1, &braced_flex))
+    {
+      trb_check_append_not_checked (checks, "AISC 360-16 F4, F5",
+                                    "Flexure: web not compact for flexure (F4, F5 not "
+                                    "implemented)");
+      return;
+    }
+
+  pts = segment_points (input, tol);
+  for (guint i = 0; i + 1 < pts->len; i++)
+    {
+      double a = g_array_index (pts, double, i);
+      double b = g_array_index (pts, double, i + 1);
+      double Lb = b - a;
+      /* An end that is neither supported nor braced is the free end of a cantilever: Cb = 1
+       * there (Specification Commentary to F1), since F1-1 assumes both ends are braced. */
+      gboolean free_end = !is_braced_at (input, a, tol) || !is_braced_at (input, b, tol);
+
+      for (guint c = 0; c < input->n_combos; c++)
+        {
+          const TrbDemandCombo *combo = &input->combos[c];
+          TrbBeamExtremes ext;
+          double m_pos, m_neg, m_abs, x_abs, Cb;
+          TrbSteelFlexure flex;
+
+          if (combo->result == NULL)
+            continue;
+
+          trb_beam_result_extremes (combo->result, a, b, &ext);
+          m_pos = MAX (ext.M_max, 0);
+          m_neg = MAX (-ext.M_min, 0);
+          m_abs = MAX (m_pos, m_neg);
+          /* round-off at a pinned end is not hogging */
+          if (m_neg <= 1e-9 * m_abs)
+            m_neg = 0;
+          x_abs = m_pos >= m_neg ? ext.M_max_x : ext.M_min_x;
+
+          if (free_end)
+            Cb = 1.0;
+          else
+            Cb = trb_design_steel_cb (m_abs,
+                                      abs_moment_at (combo->result, a + 0.25 * Lb),
+                                      abs_moment_at (combo->result, a + 0.50 * Lb),
+                                      abs_moment_at (combo->result, a + 0.75 * Lb));
+
+          if (input->bracing == TRB_BRACING_POINTS)
+            {
+              trb_design_steel_flexure (section, grade, Lb, Cb, &flex);
+              consider_flexure (&best, m_abs, x_abs, &flex, FALSE, basis, combo->name);
+            }
+          else
+            {
+              /* Deck or sheathing on the top flange braces it throughout: sagging moment
+               * (top flange in compression) meets Lb = 0. Hogging moment puts the bottom
+               * flange in compression, and that is held only at supports and brace points:
+               * it meets the full segment length, with Cb of the segment's own diagram. */
+              consider_flexure (&best, m_pos, ext.M_max_x, &braced_flex, TRUE, basis,
+                                combo->name);
+              if (m_neg > 0)
+                {
+                  trb_design_steel_flexure (section, grade, Lb, Cb, &flex);
+                  consider_flexure (&best, m_neg, ext.M_min_x, &flex, FALSE, basis,
+                                    combo->name);
+                }
+            }
+        }
+    }
+
+  if (!best.have)
+    {
+      trb_check_append_not_checked (checks, "AISC 360-16 Ch. F",
+                                    "Flexure: no load combination to check");
+      return;
+    }
+
+  g_snprintf (clause, sizeof clause, "AISC 360-16 Eq. %s", best.flex.equation);
+  trb_check_set (&check, "Flexure", clause, TRB_DIM_MOMENT, best.demand, best.capacity,
+                 best.combination, best.x);
+
+  trb_design_format (lp, sizeof lp, best.flex.Lp, len_unit);
+  trb_design_format (lr, sizeof lr, best.flex.Lr, len_unit);
+  trb_design_format (mn, sizeof mn, best.flex.Mn, si ? "kN-m" : "kip-ft");
+  if (best.braced)
+    g_snprintf (check.detail, sizeof check.detail,
+                "Lb = 0 (braced), Lp = %s, Lr = %s, Mn = %s", lp, lr, mn);
+  else
+    g_snprintf (check.detail, sizeof check.detail,
+                "Lb = %s, Cb = %.2f, Lp = %s, Lr = %s, Mn = %s",
+                trb_design_format (lb, sizeof lb, best.flex.Lb, len_unit), best.flex.Cb,
+                lp, lr, mn);
+  if (g_str_has_prefix (best.flex.equation, "F3"))
+    {
+      char flange[24];
+
+      g_snprintf (flange, sizeof flange, ", bf/2tf = %.2f", best.flex.lambda_f);
+      g_strlcat (check.detail, flange, sizeof check.detail);
+    }
+
+  g_array_append_val (checks, check);
+}
+
+static void
+check_shear (const TrbDesignInput *input,
+             const TrbSteelGrade  *grade,
+             TrbDesignBasis        basis,
+             GArray               *checks)
+{
+  gboolean si = input->units == TRB_UNIT_SYSTEM_SI;
+  TrbSteelShear shear;
+  TrbCheck check;
+  double capacity;
+  double best_v = -1, best_x = 0;
+  const char *best_combo = NULL;
+  char clause[48];
+  char vn[24], aw[24];
+
+  if (!trb_design_steel_shear (input->section, grade, &shear))
+    {
+      trb_check_append_not_checked (checks, "AISC 360-16 G2", "Shear: not an I shape");
+      return;
+    }
+  capacity = basis == TRB_DESIGN_BASIS_LRFD ? shear.phi * shear.Vn : shear.Vn / shear.omega;
+
+  for (guint c = 0; c < input->n_combos; c++)
+    {
+      const TrbDemandCombo *combo = &input->combos[c];
+      TrbBeamExtremes ext;
+      double v, x;
+
+      if (combo->result == NULL)
+        continue;
+      trb_beam_result_extremes (combo->result, 0, input->length, &ext);
+      if (fabs (ext.V_max) >= fabs (ext.V_min))
+        {
+          v = fabs (ext.V_max);
+          x = ext.V_max_x;
+        }
+      else
+        {
+          v = fabs (ext.V_min);
+          x = ext.V_min_x;
+        }
+      if (v > best_v)
+        {
+          best_v = v;
+          best_x = x;
+          best_combo = combo->name;
+        }
+    }
+
+  if (best_combo == NULL)
+    {
+      trb_check_append_not_checked (checks, "AISC 360-16 G2",
+                                    "Shear: no load combination to check");
+      return;
+    }
+
+  g_snprintf (clause, sizeof clause, "AISC 360-16 Eq. G2-1, %s", shear.provision);
+  trb_check_set (&check, "Shear", clause, TRB_DIM_FORCE, best_v, capacity, best_combo,
+                 best_x);
+  g_snprintf (check.detail, sizeof check.detail,
+              "Vn = %s, Aw = d tw = %s, h/tw = %.1f, Cv1 = %.2f",
+              trb_design_format (vn, sizeof vn, shear.Vn, si ? "kN" : "kip"),
+              trb_design_format (aw, sizeof aw, shear.Aw, si ? "mm2" : "in2"),
+              shear.h_tw, shear.Cv1);
+  g_array_append_val (checks, check);
+}
+
+/**
+ * trb_design_steel_check:
+ * @input: the member, its section and its responses
+ * @grade: the steel
+ * @basis: ASD (the combinations are service-level, capacities Rn / Omega) or LRFD (factored
+ *   combinations, capacities phi Rn)
+ * @checks: (element-type TrbCheck): where the checks are appended
+ *
+ * Checks a W, S or custom I section to AISC 360-16: "Flexure" (F2, F3) over every unbraced
+ * segment and combination, "Shear" (G2.1) over every combination, each reported once where
+ * its ratio is highest; then the deflection checks (trb_design_check_deflection()).
+ *
+ * Unbraced segments run between supports and brace points. With %TRB_BRACING_CONTINUOUS the
+ * top flange is held throughout, so sagging moment meets Lb = 0; hogging moment (over
+ * interior supports, on overhangs) puts the bottom flange in compression, braced only at
+ * supports and brace points. Cb is F1-1 on each segment's own diagram, 1.0 on a segment
+ * that ends at an unbraced free end.
+ *
+ * Other sections (channels, tubes, timber) get a "Not checked" entry: never a pass.
+ *
+ * Returns: %TRUE when every strength check was made, %FALSE when the section (or part of
+ * it) is not designed by this method
+ */
+gboolean
+trb_design_steel_check (const TrbDesignInput *input,
+                        const TrbSteelGrade  *grade,
+                        TrbDesignBasis        basis,
+                        GArray               *checks)
+{
+  guint n_before;
+  gboolean designed = TRUE;
+
+  g_return_val_if_fail (input != NULL, FALSE);
+  g_return_val_if_fail (input->section != NULL, FALSE);
+  g_return_val_if_fail (input->n_combos == 0 || input->combos != NULL, FALSE);
+  g_return_val_if_fail (input->n_supports == 0 || input->supports != NULL, FALSE);
+  g_return_val_if_fail (input->n_braces == 0 || input->brace_x != NULL, FALSE);
+  g_return_val_if_fail (grade != NULL, FALSE);
+  g_return_val_if_fail (checks != NULL, FALSE);
+  g_return_val_if_fail (g_array_get_element_size (checks) == sizeof (TrbCheck), FALSE);
+
+  n_before = checks->len;
+  if (!trb_design_steel_covers (input->section))
+    {
+      char detail[96];
+
+      g_snprintf (detail, sizeof detail,
+                  "%s: only W, S and I shapes are designed to AISC 360 here",
+                  input->section->designation[0] != '\0'
+                  ? input->section->designation : "this section");
+      trb_check_append_not_checked (checks, "AISC 360-16 Ch. F, G", detail);
+      designed = FALSE;
+    }
+  else
+    {
+      check_flexure (input, grade, basis, checks);
+      check_shear (input, grade, basis, checks);
+      for (guint i = n_before; i < checks->len; i++)
+        if (isnan (g_array_index (checks, TrbCheck, i).ratio))
+          designed = FALSE;
+    }
+
+  trb_design_check_deflection (input, checks);
+  return designed;
+}

@@ -3,10 +3,10 @@
 
 #include "config.h"
 
+#include "trb-design.h"
+
 #include <math.h>
 #include <string.h>
-
-#include "trb-design.h"
 
 void
 trb_check_set (TrbCheck     *check,
@@ -33,4 +33,257 @@ trb_check_set (TrbCheck     *check,
     check->ratio = demand == 0 ? 0 : INFINITY;
   g_strlcpy (check->combination, combination != NULL ? combination : "", sizeof check->combination);
   check->x = x;
+}
+
+void
+trb_check_append_not_checked (GArray     *checks,
+                              const char *clause,
+                              const char *detail)
+{
+  TrbCheck check;
+
+  g_return_if_fail (checks != NULL);
+
+  trb_check_set (&check, "Not checked", clause != NULL ? clause : "", TRB_DIM_MOMENT,
+                 NAN, NAN, "", 0);
+  /* NAN compares false with every limit; whoever reads this entry must see "not checked",
+   * never a number that could pass. */
+  check.ratio = NAN;
+  g_strlcpy (check.detail, detail != NULL ? detail : "", sizeof check.detail);
+  g_array_append_val (checks, check);
+}
+
+typedef struct
+{
+  const char *name;
+  const char *text;    /* as printed */
+  double      factor;  /* SI per unit */
+} DetailUnit;
+
+static const DetailUnit detail_units[] = {
+  { "ft", "ft", TRB_FT },
+  { "in", "in", TRB_IN },
+  { "in2", "in²", TRB_IN * TRB_IN },
+  { "in3", "in³", TRB_IN * TRB_IN * TRB_IN },
+  { "in4", "in⁴", TRB_IN * TRB_IN * TRB_IN * TRB_IN },
+  { "lb", "lb", TRB_LBF },
+  { "kip", "kips", TRB_KIP },
+  { "kip-ft", "kip-ft", TRB_KIP_FT },
+  { "ksi", "ksi", TRB_KSI },
+  { "psi", "psi", TRB_PSI },
+  { "m", "m", 1.0 },
+  { "mm", "mm", 1e-3 },
+  { "mm2", "mm²", 1e-6 },
+  { "mm3", "mm³", 1e-9 },
+  { "mm4", "mm⁴", 1e-12 },
+  { "kN", "kN", 1e3 },
+  { "kN-m", "kN·m", 1e3 },
+  { "MPa", "MPa", 1e6 },
+};
+
+/* Three significant figures, as the trade's tables print them: 5.83, 16.9, 379, 1060. */
+static void
+format_3sf (char   *buf,
+            gsize   size,
+            double  v)
+{
+  int decimals;
+
+  if (!isfinite (v))
+    {
+      g_strlcpy (buf, isnan (v) ? "-" : "inf", size);
+      return;
+    }
+  if (v == 0)
+    {
+      g_strlcpy (buf, "0", size);
+      return;
+    }
+  decimals = 2 - (int) floor (log10 (fabs (v)));
+  if (decimals <= 0)
+    {
+      double step = pow (10, -decimals);
+
+      g_snprintf (buf, size, "%.0f", round (v / step) * step);
+      return;
+    }
+  g_snprintf (buf, size, "%.*f", decimals, v);
+  /* rounding may carry into another digit (9.996 -> "10.00"): print again with one less */
+  if (fabs (g_ascii_strtod (buf, NULL)) >= pow (10, 3 - decimals) && decimals > 0)
+    g_snprintf (buf, size, "%.*f", decimals - 1, v);
+}
+
+const char *
+trb_design_format (char       *buf,
+                   gsize       size,
+                   double      value,
+                   const char *unit)
+{
+  char num[48];
+
+  g_return_val_if_fail (buf != NULL && size > 0, buf);
+  g_return_val_if_fail (unit != NULL, buf);
+
+  for (guint i = 0; i < G_N_ELEMENTS (detail_units); i++)
+    {
+      if (g_strcmp0 (detail_units[i].name, unit) != 0)
+        continue;
+      format_3sf (num, sizeof num, value / detail_units[i].factor);
+      g_snprintf (buf, size, "%s %s", num, detail_units[i].text);
+      return buf;
+    }
+
+  g_critical ("%s: unknown unit “%s”", G_STRFUNC, unit);
+  format_3sf (num, sizeof num, value);
+  g_strlcpy (buf, num, size);
+  return buf;
+}
+
+/* One span or overhang as the deflection limits see it. */
+typedef struct
+{
+  double a, b;        /* its extent on the member */
+  double judged;      /* the length the limit applies to: the span, or twice an overhang */
+  gboolean overhang;
+  char label[32];
+} DeflectionSpan;
+
+static guint
+collect_spans (const TrbDesignInput *input,
+               DeflectionSpan       *spans,
+               guint                 max_spans)
+{
+  const double tol = 1e-9 * MAX (input->length, 1.0);
+  guint n = 0;
+  guint n_sup = input->n_supports;
+
+  if (n_sup == 0)
+    return 0;
+
+  if (input->supports[0].x > tol && n < max_spans)
+    {
+      DeflectionSpan *s = &spans[n++];
+
+      s->a = 0;
+      s->b = input->supports[0].x;
+      s->judged = 2 * (s->b - s->a);
+      s->overhang = TRUE;
+      g_strlcpy (s->label, n_sup == 1 ? "cantilever" : "left overhang", sizeof s->label);
+    }
+
+  for (guint i = 0; i + 1 < n_sup && n < max_spans; i++)
+    {
+      DeflectionSpan *s;
+
+      if (input->supports[i + 1].x - input->supports[i].x <= tol)
+        continue;
+      s = &spans[n++];
+      s->a = input->supports[i].x;
+      s->b = input->supports[i + 1].x;
+      s->judged = s->b - s->a;
+      s->overhang = FALSE;
+      g_snprintf (s->label, sizeof s->label, "span %u", i + 1);
+    }
+
+  if (input->length - input->supports[n_sup - 1].x > tol && n < max_spans)
+    {
+      DeflectionSpan *s = &spans[n++];
+
+      s->a = input->supports[n_sup - 1].x;
+      s->b = input->length;
+      s->judged = 2 * (s->b - s->a);
+      s->overhang = TRUE;
+      g_strlcpy (s->label, n_sup == 1 ? "cantilever" : "right overhang", sizeof s->label);
+    }
+
+  return n;
+}
+
+static void
+check_deflection_one (const TrbDesignInput *input,
+                      const TrbBeamResult  *result,
+                      double                limit,
+                      const char           *name,
+                      const char           *combination,
+                      GArray               *checks)
+{
+  g_autofree DeflectionSpan *sp = NULL;
+  guint n;
+  gboolean have = FALSE;
+  TrbCheck best;
+  const DeflectionSpan *best_span = NULL;
+  const char *span_unit = input->units == TRB_UNIT_SYSTEM_SI ? "m" : "ft";
+  char len_text[32];
+  char actual[32];
+
+  /* No result, or limit 0 (none): nothing is checked and nothing is claimed. */
+  if (result == NULL || !(limit > 0))
+    return;
+
+  sp = g_new0 (DeflectionSpan, input->n_supports + 1);
+  n = collect_spans (input, sp, input->n_supports + 1);
+
+  for (guint i = 0; i < n; i++)
+    {
+      const DeflectionSpan *s = &sp[i];
+      TrbBeamExtremes ext;
+      double defl, x;
+      TrbCheck check;
+
+      trb_beam_result_extremes (result, s->a, s->b, &ext);
+      /* Supports do not move, so within a span the deflection is measured from the chord;
+       * over an overhang it is the absolute movement, largest at the tip in practice (the
+       * whole overhang is searched so an upward-and-back shape is not missed). */
+      if (ext.defl_down >= ext.defl_up)
+        {
+          defl = ext.defl_down;
+          x = ext.defl_down_x;
+        }
+      else
+        {
+          defl = ext.defl_up;
+          x = ext.defl_up_x;
+        }
+
+      trb_check_set (&check, name,
+                     s->overhang ? "IBC 2021 Table 1604.3, note i" : "IBC 2021 Table 1604.3",
+                     TRB_DIM_LENGTH, defl, s->judged / limit, combination, x);
+      if (!have || check.ratio > best.ratio)
+        {
+          best = check;
+          best_span = s;
+          have = TRUE;
+        }
+    }
+
+  if (!have)
+    return;
+
+  if (best.demand > 0)
+    g_snprintf (actual, sizeof actual, "L/%.0f", floor (best_span->judged / best.demand));
+  else
+    g_strlcpy (actual, "no deflection", sizeof actual);
+  trb_design_format (len_text, sizeof len_text, best_span->b - best_span->a, span_unit);
+  if (best_span->overhang)
+    g_snprintf (best.detail, sizeof best.detail, "%s, limit L/%.0f; %s, L = 2 × %s",
+                actual, limit, best_span->label, len_text);
+  else
+    g_snprintf (best.detail, sizeof best.detail, "%s, limit L/%.0f; %s, L = %s",
+                actual, limit, best_span->label, len_text);
+
+  g_array_append_val (checks, best);
+}
+
+void
+trb_design_check_deflection (const TrbDesignInput *input,
+                             GArray               *checks)
+{
+  g_return_if_fail (input != NULL);
+  g_return_if_fail (checks != NULL);
+  g_return_if_fail (input->n_supports == 0 || input->supports != NULL);
+
+  check_deflection_one (input, input->live, input->live_limit, "Live deflection", "Live",
+                        checks);
+  check_deflection_one (input, input->total, input->total_limit, "Total deflection", "Total",
+                        checks);
 }

@@ -35,6 +35,15 @@ typedef struct
   TrbBeamResult *result;                 /* not owned */
 } TrbDemandCombo;
 
+/* The two ways a method may set capacities against loads: allowable strength (ASD, service
+ * combinations, Rn / Omega) and load and resistance factors (LRFD, factored combinations,
+ * phi Rn). */
+typedef enum
+{
+  TRB_DESIGN_BASIS_ASD,
+  TRB_DESIGN_BASIS_LRFD,
+} TrbDesignBasis;
+
 typedef enum
 {
   TRB_BRACING_CONTINUOUS,  /* deck or sheathing holds the compression flange or edge throughout */
@@ -63,21 +72,38 @@ typedef struct
   const TrbBeamResult *total;
   double               live_limit;   /* span ratio denominator: 360 for L/360; 0 for none */
   double               total_limit;
+
+  /* the unit system of the detail texts ("Lb = 12.0 ft"); US when zero-initialised */
+  TrbUnitSystem        units;
 } TrbDesignInput;
 
 /* The deflection checks every method shares: the live and total limits as span ratios on each
  * span between supports, cantilevers judged on twice their length (IBC 2021 Table 1604.3,
  * footnote i). Appends to checks (GArray of TrbCheck). */
-void trb_design_check_deflection (const TrbDesignInput *input,
-                                  GArray               *checks);
+void        trb_design_check_deflection (const TrbDesignInput *input,
+                                         GArray               *checks);
 
-void trb_check_set (TrbCheck     *check,
-                    const char   *name,
-                    const char   *clause,
-                    TrbDimension  dimension,
-                    double        demand,
-                    double        capacity,
-                    const char   *combination,
-                    double        x);
+void        trb_check_set               (TrbCheck             *check,
+                                         const char           *name,
+                                         const char           *clause,
+                                         TrbDimension          dimension,
+                                         double                demand,
+                                         double                capacity,
+                                         const char           *combination,
+                                         double                x);
+
+/* Appends the entry a method gives for what it cannot check: named "Not checked", ratio NAN,
+ * never a pass. */
+void        trb_check_append_not_checked (GArray              *checks,
+                                          const char          *clause,
+                                          const char          *detail);
+
+/* Formats an SI value in one of the units the detail texts use, to three significant figures:
+ * "ft", "in", "in2", "in3", "in4", "kip", "kip-ft", "ksi", "psi", "lb", "m", "mm", "mm2",
+ * "mm3", "mm4", "kN", "kN-m", "MPa". Returns buf. */
+const char *trb_design_format           (char                 *buf,
+                                         gsize                 size,
+                                         double                value,
+                                         const char           *unit);
 
 G_END_DECLS
