@@ -29,8 +29,9 @@ int                trb_design_allowable_lightest     (const TrbSection     *sect
                                                       double                S_required);
 
 /* The largest unbraced length at which a compact shape may take Fb = 0.66 Fy in the 1989
- * allowable-stress specification (AISC ASD 9th ed. F1.1, from memory): the lesser of 76 bf / sqrt(Fy) and
- * 20,000 / ((d / Af) Fy), in the specification's ksi and inch units, returned in m. */
+ * allowable-stress specification (AISC ASD 9th ed. F1.1, from memory): the lesser of
+ * 76 bf / sqrt(Fy) and 20,000 / ((d / Af) Fy), in the specification's ksi and inch units,
+ * returned in m. */
 double             trb_design_allowable_lc           (const TrbSection     *section,
                                                       double                Fy);
 
