@@ -45,6 +45,28 @@ TrbCatalog         *trb_catalog_new_from_csv    (const char        *csv_text,
                                                  GError           **error);
 void                trb_catalog_free            (TrbCatalog        *catalog);
 
+/* An empty catalog, and the loaders that fill one; a loader adds all rows or, on error,
+ * none. Designations must be unique within a catalog. */
+TrbCatalog         *trb_catalog_new             (void);
+gboolean            trb_catalog_add_csv         (TrbCatalog        *catalog,
+                                                 const char        *csv_text,
+                                                 const char        *source_name,
+                                                 TrbFamily          family,
+                                                 GError           **error);
+gboolean            trb_catalog_add_grades_csv  (TrbCatalog        *catalog,
+                                                 const char        *csv_text,
+                                                 const char        *source_name,
+                                                 GError           **error);
+/* A project's own sections (docs/catalog.md): the W-shape columns, or the rectangle form
+ * "designation,kind,b_in,d_in,...". */
+gboolean            trb_catalog_add_project_csv (TrbCatalog        *catalog,
+                                                 const char        *csv_text,
+                                                 const char        *source_name,
+                                                 GError           **error);
+TrbCatalog         *trb_catalog_new_from_project_csv (const char   *csv_text,
+                                                      const char   *source_name,
+                                                      GError      **error);
+
 /* Sections of one family, sorted by weight, then depth. */
 const TrbSection   *trb_catalog_get_family      (const TrbCatalog  *catalog,
                                                  TrbFamily          family,
@@ -59,6 +81,12 @@ const TrbWoodGrade *trb_catalog_lookup_grade    (const TrbCatalog  *catalog,
                                                  const TrbSection  *section);
 const TrbWoodGrade *trb_catalog_get_grades      (const TrbCatalog  *catalog,
                                                  guint             *n_grades);
+
+/* Designations that start with prefix (same normalisation as the lookup), by family and then
+ * in family order; at most max of them (0: all). A GPtrArray of newly allocated strings. */
+GPtrArray          *trb_catalog_complete        (const TrbCatalog  *catalog,
+                                                 const char        *prefix,
+                                                 guint              max);
 
 G_DEFINE_AUTOPTR_CLEANUP_FUNC (TrbCatalog, trb_catalog_free)
 

@@ -41,12 +41,17 @@ typedef struct
   char         size_class[24];   /* "dimension", "beams_and_stringers", "posts_and_timbers" */
 
   double       E;                /* custom sections: modulus given with the section; else NAN */
+
+  /* sawn lumber: size factors CF of NDS Supplement Table 4A as lumber.csv carries them
+   * (on Fb, Ft, Fc); NAN where the table gives none (timbers, glulam, steel) */
+  double       CF_Fb, CF_Ft, CF_Fc;
 } TrbSection;
 
 void     trb_section_init_unknown   (TrbSection       *section);
 
 /* Properties from dimensions: a doubly symmetric I shape with flange-to-web fillets of
- * radius r (from kdes - tf), and a solid rectangle of `plies` plies of width b each. */
+ * radius r (from kdes - tf), and a solid rectangle of `plies` plies of width b each.
+ * Both overwrite every field of out (designation empty). */
 void     trb_section_compute_i      (double            d,
                                      double            bf,
                                      double            tw,
@@ -57,5 +62,9 @@ void     trb_section_compute_rect   (double            b,
                                      double            d,
                                      int               plies,
                                      TrbSection       *out);
+
+/* Saint-Venant torsion constant of a solid rectangle, sides a and b in either order. */
+double   trb_section_rect_torsion_j (double            a,
+                                     double            b);
 
 G_END_DECLS
