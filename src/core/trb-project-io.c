@@ -2,3 +2,984 @@
  * SPDX-License-Identifier: GPL-3.0-or-later */
 
 #include "config.h"
+
+#include <gio/gio.h>
+#include <libxml/parser.h>
+#include <libxml/parserInternals.h>
+#include <libxml/tree.h>
+#include <math.h>
+#include <stdarg.h>
+#include <string.h>
+
+#include "trb-combos.h"
+#include "trb-error.h"
+#include "trb-project-io.h"
+#include "trb-units.h"
+
+G_DEFINE_AUTOPTR_CLEANUP_FUNC (xmlDoc, xmlFreeDoc)
+G_DEFINE_AUTOPTR_CLEANUP_FUNC (xmlParserCtxt, xmlFreeParserCtxt)
+
+typedef struct
+{
+  const char *name;      /* for messages: the path as given, or a caller's name */
+  GError    **error;
+} Loader;
+
+/* What the DOCTYPE guard saw; reached from the parser context's _private. */
+typedef struct
+{
+  gboolean doctype;
+  int      line;
+} Guard;
+
+static gboolean G_GNUC_PRINTF (4, 5)
+fail_at (Loader     *ld,
+         int         line,
+         TrbError    code,
+         const char *format,
+         ...)
+{
+  g_autofree char *msg = NULL;
+  va_list args;
+
+  va_start (args, format);
+  msg = g_strdup_vprintf (format, args);
+  va_end (args);
+
+  if (line > 0)
+    g_set_error (ld->error, TRB_ERROR, code, "%s:%d: %s", ld->name, line, msg);
+  else
+    g_set_error (ld->error, TRB_ERROR, code, "%s: %s", ld->name, msg);
+  return FALSE;
+}
+
+static int
+node_line (xmlNode *node)
+{
+  long line = xmlGetLineNo (node);
+
+  return line > 0 && line < G_MAXINT ? (int) line : 0;
+}
+
+#define NAME(node) ((const char *) (node)->name)
+
+static char *
+get_attr (xmlNode    *node,
+          const char *attr)
+{
+  xmlChar *v = xmlGetNoNsProp (node, (const xmlChar *) attr);
+  char *copy;
+
+  if (v == NULL)
+    return NULL;
+  copy = g_strdup ((const char *) v);
+  xmlFree (v);
+  return copy;
+}
+
+static gboolean
+has_attr (xmlNode    *node,
+          const char *attr)
+{
+  return xmlHasNsProp (node, (const xmlChar *) attr, NULL) != NULL;
+}
+
+/* Every attribute must be one this element knows: a misspelt attribute would otherwise be
+ * dropped in silence, and with it a load or a limit the engineer meant. */
+static gboolean
+check_attributes (Loader             *ld,
+                  xmlNode            *node,
+                  const char * const *allowed)
+{
+  for (xmlAttr *a = node->properties; a != NULL; a = a->next)
+    {
+      if (a->ns != NULL)
+        return fail_at (ld, node_line (node), TRB_ERROR_INVALID,
+                        "unknown attribute \"%s:%s\" on <%s>",
+                        (const char *) a->ns->prefix, (const char *) a->name, NAME (node));
+      if (!g_strv_contains (allowed, (const char *) a->name))
+        return fail_at (ld, node_line (node), TRB_ERROR_INVALID,
+                        "unknown attribute \"%s\" on <%s>", (const char *) a->name, NAME (node));
+    }
+  return TRUE;
+}
+
+static gboolean
+require_attr (Loader      *ld,
+              xmlNode     *node,
+              const char  *attr,
+              char       **out)
+{
+  *out = get_attr (node, attr);
+  if (*out == NULL)
+    return fail_at (ld, node_line (node), TRB_ERROR_INVALID,
+                    "<%s> is missing the required attribute \"%s\"", NAME (node), attr);
+  return TRUE;
+}
+
+/* Reads a quantity attribute. Absent: an error if required, else *value is left alone.
+ * The units module's message is kept whole, after the attribute's name. */
+static gboolean
+get_quantity (Loader       *ld,
+              xmlNode      *node,
+              const char   *attr,
+              TrbDimension  dim,
+              gboolean      required,
+              double       *value,
+              char        **text_out)
+{
+  g_autofree char *text = get_attr (node, attr);
+  g_autoptr(GError) local = NULL;
+  double v;
+
+  if (text == NULL)
+    {
+      if (required)
+        return fail_at (ld, node_line (node), TRB_ERROR_INVALID,
+                        "<%s> is missing the required attribute \"%s\"", NAME (node), attr);
+      return TRUE;
+    }
+
+  if (!trb_units_parse (text, dim, &v, &local))
+    {
+      TrbError code = local->domain == TRB_ERROR ? (TrbError) local->code : TRB_ERROR_UNIT;
+
+      return fail_at (ld, node_line (node), code, "attribute \"%s\": %s", attr, local->message);
+    }
+  /* The units module refuses NaN and Inf; this guards the model whatever it does. */
+  if (!isfinite (v))
+    return fail_at (ld, node_line (node), TRB_ERROR_UNIT,
+                    "attribute \"%s\": \"%s\" is not a finite number", attr, text);
+
+  *value = v;
+  if (text_out != NULL)
+    *text_out = g_steal_pointer (&text);
+  return TRUE;
+}
+
+static gboolean
+get_positive_quantity (Loader       *ld,
+                       xmlNode      *node,
+                       const char   *attr,
+                       TrbDimension  dim,
+                       gboolean      required,
+                       double       *value)
+{
+  g_autofree char *text = NULL;
+  double v = NAN;
+
+  if (!get_quantity (ld, node, attr, dim, required, &v, &text))
+    return FALSE;
+  if (text == NULL)
+    return TRUE;
+  if (!(v > 0))
+    return fail_at (ld, node_line (node), TRB_ERROR_INVALID,
+                    "attribute \"%s\" = \"%s\" must be greater than zero", attr, text);
+  *value = v;
+  return TRUE;
+}
+
+static gboolean
+get_choice (Loader             *ld,
+            xmlNode            *node,
+            const char         *attr,
+            const char * const *choices,
+            int                *index)
+{
+  g_autofree char *text = get_attr (node, attr);
+  g_autofree char *list = NULL;
+
+  if (text == NULL)
+    return TRUE;
+  for (guint i = 0; choices[i] != NULL; i++)
+    {
+      if (strcmp (text, choices[i]) == 0)
+        {
+          *index = i;
+          return TRUE;
+        }
+    }
+  list = g_strjoinv ("|", (char **) choices);
+  return fail_at (ld, node_line (node), TRB_ERROR_INVALID,
+                  "attribute \"%s\" = \"%s\": expected one of %s", attr, text, list);
+}
+
+static gboolean
+get_yes_no (Loader     *ld,
+            xmlNode    *node,
+            const char *attr,
+            gboolean   *value)
+{
+  static const char * const yes_no[] = { "no", "yes", NULL };
+  int i = *value ? 1 : 0;
+
+  if (!get_choice (ld, node, attr, yes_no, &i))
+    return FALSE;
+  *value = i == 1;
+  return TRUE;
+}
+
+static gboolean
+parse_int (const char *text,
+           gint64      min,
+           gint64      max,
+           gint64     *out)
+{
+  return g_ascii_string_to_signed (text, 10, min, max, out, NULL);
+}
+
+/* "L/360" (or "l/360") gives 360; "none" gives 0. */
+static gboolean
+get_deflection_limit (Loader     *ld,
+                      xmlNode    *node,
+                      const char *attr,
+                      double     *value)
+{
+  g_autofree char *text = get_attr (node, attr);
+  const char *p;
+  char *end = NULL;
+  double v;
+
+  if (text == NULL)
+    return TRUE;
+  if (strcmp (text, "none") == 0)
+    {
+      *value = 0;
+      return TRUE;
+    }
+  p = text;
+  if ((p[0] == 'L' || p[0] == 'l') && p[1] == '/')
+    {
+      p += 2;
+      v = g_ascii_strtod (p, &end);
+      if (end != p && *end == '\0' && isfinite (v) && v > 0 && g_ascii_isdigit (*p))
+        {
+          *value = v;
+          return TRUE;
+        }
+    }
+  return fail_at (ld, node_line (node), TRB_ERROR_INVALID,
+                  "attribute \"%s\" = \"%s\": expected a span ratio such as \"L/360\", or \"none\"",
+                  attr, text);
+}
+
+/* A position on the member: within [0, L], with a billionth of L of slack so that "312 in"
+ * on a "26 ft" member is the end, then clamped. */
+static gboolean
+get_position (Loader      *ld,
+              xmlNode     *node,
+              const char  *what,
+              const char  *attr,
+              double       length,
+              const char  *length_text,
+              double      *x)
+{
+  g_autofree char *text = NULL;
+  double tol = 1e-9 * length;
+
+  if (!get_quantity (ld, node, attr, TRB_DIM_LENGTH, TRUE, x, &text))
+    return FALSE;
+  if (*x < -tol || *x > length + tol)
+    return fail_at (ld, node_line (node), TRB_ERROR_INVALID,
+                    "%s \"%s\" = \"%s\" lies outside the member (length %s)",
+                    what, attr, text, length_text);
+  *x = CLAMP (*x, 0.0, length);
+  return TRUE;
+}
+
+/* Text inside an element is never meaningful in this format: refuse it, like an unknown
+ * element, rather than drop it. */
+static gboolean
+check_no_text (Loader  *ld,
+               xmlNode *child,
+               xmlNode *parent)
+{
+  if (child->type == XML_TEXT_NODE)
+    {
+      const char *s = (const char *) child->content;
+
+      for (; s != NULL && *s != '\0'; s++)
+        if (!g_ascii_isspace (*s))
+          return fail_at (ld, node_line (child) > 0 ? node_line (child) : node_line (parent),
+                          TRB_ERROR_INVALID, "unexpected text inside <%s>", NAME (parent));
+      return TRUE;
+    }
+  if (child->type == XML_CDATA_SECTION_NODE || child->type == XML_ENTITY_REF_NODE)
+    return fail_at (ld, node_line (parent), TRB_ERROR_INVALID,
+                    "unexpected text inside <%s>", NAME (parent));
+  return TRUE;
+}
+
+/* Walks the element children of node; returns FALSE on text. */
+#define FOR_EACH_CHILD(child, node) \
+  for (xmlNode *child = (node)->children; child != NULL; child = child->next)
+
+static gboolean
+is_element (xmlNode    *node,
+            const char *name)
+{
+  return node->type == XML_ELEMENT_NODE && node->ns == NULL && strcmp (NAME (node), name) == 0;
+}
+
+static gboolean
+check_leaf (Loader  *ld,
+            xmlNode *node)
+{
+  FOR_EACH_CHILD (child, node)
+    {
+      if (child->type == XML_ELEMENT_NODE)
+        return fail_at (ld, node_line (child), TRB_ERROR_INVALID,
+                        "unknown element <%s> inside <%s>", NAME (child), NAME (node));
+      if (!check_no_text (ld, child, node))
+        return FALSE;
+    }
+  return TRUE;
+}
+
+static gboolean
+load_settings (Loader      *ld,
+               xmlNode     *node,
+               TrbSettings *s)
+{
+  static const char * const attrs[] = {
+    "method", "fb-allow", "fv-allow", "steel-grade", "self-weight", "live-patterns",
+    "deflection-live", "deflection-total", "units", NULL
+  };
+  static const char * const methods[] = { "asd", "lrfd", "allowable", NULL };
+  static const char * const include[] = { "exclude", "include", NULL };
+  static const char * const on_off[] = { "off", "on", NULL };
+  static const char * const units[] = { "us", "si", NULL };
+  g_autofree char *grade = NULL;
+  int method = s->method;
+  int sw = s->self_weight ? 1 : 0;
+  int pat = s->live_patterns ? 1 : 0;
+  int u = s->units == TRB_UNIT_SYSTEM_SI ? 1 : 0;
+
+  G_STATIC_ASSERT (TRB_METHOD_ASD == 0 && TRB_METHOD_LRFD == 1 && TRB_METHOD_ALLOWABLE == 2);
+
+  if (!check_attributes (ld, node, attrs) || !check_leaf (ld, node))
+    return FALSE;
+  if (!get_choice (ld, node, "method", methods, &method) ||
+      !get_positive_quantity (ld, node, "fb-allow", TRB_DIM_STRESS, FALSE, &s->fb_allow) ||
+      !get_positive_quantity (ld, node, "fv-allow", TRB_DIM_STRESS, FALSE, &s->fv_allow) ||
+      !get_choice (ld, node, "self-weight", include, &sw) ||
+      !get_choice (ld, node, "live-patterns", on_off, &pat) ||
+      !get_deflection_limit (ld, node, "deflection-live", &s->deflection_live) ||
+      !get_deflection_limit (ld, node, "deflection-total", &s->deflection_total) ||
+      !get_choice (ld, node, "units", units, &u))
+    return FALSE;
+
+  grade = get_attr (node, "steel-grade");
+  if (grade != NULL)
+    {
+      if (*g_strstrip (grade) == '\0')
+        return fail_at (ld, node_line (node), TRB_ERROR_INVALID,
+                        "attribute \"steel-grade\" is empty");
+      g_free (s->steel_grade);
+      s->steel_grade = g_steal_pointer (&grade);
+    }
+
+  s->method = method;
+  s->self_weight = sw == 1;
+  s->live_patterns = pat == 1;
+  s->units = u == 1 ? TRB_UNIT_SYSTEM_SI : TRB_UNIT_SYSTEM_US;
+  s->line = node_line (node);
+  return TRUE;
+}
+
+static gboolean
+load_support (Loader     *ld,
+              xmlNode    *node,
+              TrbMember  *m,
+              const char *length_text)
+{
+  static const char * const attrs[] = { "at", "type", NULL };
+  g_autofree char *type = NULL;
+  TrbMemberSupport s = { { 0 } };
+
+  if (!check_attributes (ld, node, attrs) || !check_leaf (ld, node))
+    return FALSE;
+  if (!require_attr (ld, node, "type", &type))
+    return FALSE;
+  if (!trb_support_type_from_name (type, &s.support.type))
+    return fail_at (ld, node_line (node), TRB_ERROR_INVALID,
+                    "unknown support type \"%s\" (expected pin, roller or fixed)", type);
+  if (!get_position (ld, node, "support", "at", m->length, length_text, &s.support.x))
+    return FALSE;
+  s.line = node_line (node);
+  g_array_append_val (m->supports, s);
+  return TRUE;
+}
+
+static gboolean
+load_load (Loader     *ld,
+           xmlNode    *node,
+           TrbMember  *m,
+           const char *length_text)
+{
+  static const char * const point_attrs[] = { "case", "type", "at", "p", NULL };
+  static const char * const uniform_attrs[] = { "case", "type", "from", "to", "w", NULL };
+  static const char * const linear_attrs[] = { "case", "type", "from", "to", "w1", "w2", NULL };
+  static const char * const moment_attrs[] = { "case", "type", "at", "m", NULL };
+  static const char * const any_attrs[] = {
+    "case", "type", "at", "p", "from", "to", "w", "w1", "w2", "m", NULL
+  };
+  g_autofree char *type = NULL;
+  g_autofree char *lcase = NULL;
+  TrbMemberLoad l = { 0 };
+  const char * const *attrs = NULL;
+
+  /* Names first (a typo is reported as such), then type, then what the type needs. */
+  if (!check_attributes (ld, node, any_attrs) || !check_leaf (ld, node))
+    return FALSE;
+  if (!require_attr (ld, node, "type", &type))
+    return FALSE;
+  if (!trb_load_kind_from_name (type, &l.load.kind))
+    return fail_at (ld, node_line (node), TRB_ERROR_INVALID,
+                    "unknown load type \"%s\" (expected point, uniform, linear or moment)", type);
+  switch (l.load.kind)
+    {
+    case TRB_LOAD_POINT:
+      attrs = point_attrs;
+      break;
+    case TRB_LOAD_UNIFORM:
+      attrs = uniform_attrs;
+      break;
+    case TRB_LOAD_LINEAR:
+      attrs = linear_attrs;
+      break;
+    case TRB_LOAD_MOMENT:
+      attrs = moment_attrs;
+      break;
+    default:
+      g_assert_not_reached ();
+    }
+  for (xmlAttr *a = node->properties; a != NULL; a = a->next)
+    if (!g_strv_contains (attrs, (const char *) a->name))
+      return fail_at (ld, node_line (node), TRB_ERROR_INVALID,
+                      "attribute \"%s\" does not belong on a %s load",
+                      (const char *) a->name, type);
+
+  if (!require_attr (ld, node, "case", &lcase))
+    return FALSE;
+  if (!trb_load_case_from_name (lcase, &l.lcase))
+    return fail_at (ld, node_line (node), TRB_ERROR_INVALID,
+                    "unknown load case \"%s\" (expected D, L, Lr or S)", lcase);
+
+  switch (l.load.kind)
+    {
+    case TRB_LOAD_POINT:
+      if (!get_position (ld, node, "load", "at", m->length, length_text, &l.load.a) ||
+          !get_quantity (ld, node, "p", TRB_DIM_FORCE, TRUE, &l.load.w1, NULL))
+        return FALSE;
+      l.load.b = l.load.a;
+      break;
+    case TRB_LOAD_MOMENT:
+      if (!get_position (ld, node, "load", "at", m->length, length_text, &l.load.a) ||
+          !get_quantity (ld, node, "m", TRB_DIM_MOMENT, TRUE, &l.load.w1, NULL))
+        return FALSE;
+      l.load.b = l.load.a;
+      break;
+    case TRB_LOAD_UNIFORM:
+    case TRB_LOAD_LINEAR:
+      {
+        g_autofree char *from = get_attr (node, "from");
+        g_autofree char *to = get_attr (node, "to");
+
+        if (!get_position (ld, node, "load", "from", m->length, length_text, &l.load.a) ||
+            !get_position (ld, node, "load", "to", m->length, length_text, &l.load.b))
+          return FALSE;
+        if (l.load.a > l.load.b)
+          return fail_at (ld, node_line (node), TRB_ERROR_INVALID,
+                          "load \"from\" = \"%s\" is beyond \"to\" = \"%s\"", from, to);
+        if (!(l.load.b - l.load.a > 1e-9 * m->length))
+          return fail_at (ld, node_line (node), TRB_ERROR_INVALID,
+                          "load \"from\" = \"%s\" and \"to\" = \"%s\" are the same point; "
+                          "use a point load", from, to);
+        if (l.load.kind == TRB_LOAD_UNIFORM)
+          {
+            if (!get_quantity (ld, node, "w", TRB_DIM_LINE_LOAD, TRUE, &l.load.w1, NULL))
+              return FALSE;
+            l.load.w2 = l.load.w1;
+          }
+        else if (!get_quantity (ld, node, "w1", TRB_DIM_LINE_LOAD, TRUE, &l.load.w1, NULL) ||
+                 !get_quantity (ld, node, "w2", TRB_DIM_LINE_LOAD, TRUE, &l.load.w2, NULL))
+          return FALSE;
+      }
+      break;
+    default:
+      g_assert_not_reached ();
+    }
+
+  l.line = node_line (node);
+  g_array_append_val (m->loads, l);
+  return TRUE;
+}
+
+static gboolean
+load_brace (Loader     *ld,
+            xmlNode    *node,
+            TrbMember  *m,
+            const char *length_text)
+{
+  static const char * const attrs[] = { "at", NULL };
+  TrbMemberBrace b = { 0 };
+
+  if (!check_attributes (ld, node, attrs) || !check_leaf (ld, node))
+    return FALSE;
+  if (!get_position (ld, node, "brace", "at", m->length, length_text, &b.x))
+    return FALSE;
+  b.line = node_line (node);
+  g_array_append_val (m->braces, b);
+  return TRUE;
+}
+
+static int
+compare_brace (gconstpointer a,
+               gconstpointer b)
+{
+  const TrbMemberBrace *ba = a;
+  const TrbMemberBrace *bb = b;
+
+  if (ba->x != bb->x)
+    return (ba->x > bb->x) - (ba->x < bb->x);
+  return ba->line - bb->line;
+}
+
+static const char * const custom_attrs[] = { "E", "I", "S", "A", "d", "tw", "weight", NULL };
+static const char * const wood_attrs[] = {
+  "species", "grade", "wet-service", "incised", "repetitive", "bearing-length", NULL
+};
+
+static gboolean
+load_beam (Loader     *ld,
+           xmlNode    *node,
+           TrbProject *project)
+{
+  static const char * const attrs[] = {
+    "id", "length", "material", "section",
+    "E", "I", "S", "A", "d", "tw", "weight",
+    "method", "fb-allow", "fv-allow", "steel-grade", "deflection-live", "deflection-total",
+    "bracing", "max-depth", "min-depth", "allowed", "max-plies",
+    "species", "grade", "wet-service", "incised", "repetitive", "bearing-length",
+    NULL
+  };
+  static const char * const methods[] = { "asd", "lrfd", "allowable", NULL };
+  static const char * const bracings[] = { "continuous", "supports", NULL };
+  g_autoptr(TrbMember) m = NULL;
+  g_autofree char *id = NULL;
+  g_autofree char *length_text = NULL;
+  g_autofree char *material = NULL;
+  g_autofree char *section = NULL;
+  g_autofree char *allowed = NULL;
+  g_autofree char *plies = NULL;
+  TrbMember *other;
+  int method = -1;
+  int bracing = -1;
+
+  if (!check_attributes (ld, node, attrs))
+    return FALSE;
+
+  if (!require_attr (ld, node, "id", &id))
+    return FALSE;
+  if (*id == '\0')
+    return fail_at (ld, node_line (node), TRB_ERROR_INVALID, "beam \"id\" is empty");
+  other = trb_project_find_member (project, id);
+  if (other != NULL)
+    return fail_at (ld, node_line (node), TRB_ERROR_INVALID,
+                    "duplicate beam id \"%s\" (first at line %d)", id, other->line);
+
+  m = trb_member_new (id);
+  m->line = node_line (node);
+
+  if (!get_quantity (ld, node, "length", TRB_DIM_LENGTH, TRUE, &m->length, &length_text))
+    return FALSE;
+  if (!(m->length > 0))
+    return fail_at (ld, node_line (node), TRB_ERROR_INVALID,
+                    "beam \"length\" = \"%s\" must be greater than zero", length_text);
+
+  if (!require_attr (ld, node, "material", &material))
+    return FALSE;
+  if (!trb_material_from_name (material, &m->material))
+    return fail_at (ld, node_line (node), TRB_ERROR_INVALID,
+                    "unknown material \"%s\" (expected steel, wood or custom)", material);
+
+  section = get_attr (node, "section");
+  if (section != NULL)
+    {
+      g_strstrip (section);
+      if (*section == '\0')
+        return fail_at (ld, node_line (node), TRB_ERROR_INVALID, "attribute \"section\" is empty");
+      g_free (m->section);
+      m->section = g_steal_pointer (&section);
+    }
+
+  if (trb_member_is_custom (m))
+    {
+      if (!get_positive_quantity (ld, node, "E", TRB_DIM_STRESS, TRUE, &m->E) ||
+          !get_positive_quantity (ld, node, "I", TRB_DIM_INERTIA, TRUE, &m->I) ||
+          !get_positive_quantity (ld, node, "S", TRB_DIM_SECTION_MODULUS, FALSE, &m->S) ||
+          !get_positive_quantity (ld, node, "A", TRB_DIM_AREA, FALSE, &m->A) ||
+          !get_positive_quantity (ld, node, "d", TRB_DIM_LENGTH, FALSE, &m->d) ||
+          !get_positive_quantity (ld, node, "tw", TRB_DIM_LENGTH, FALSE, &m->tw) ||
+          !get_quantity (ld, node, "weight", TRB_DIM_WEIGHT_PER_LENGTH, FALSE, &m->weight, NULL))
+        return FALSE;
+      if (m->weight < 0)
+        return fail_at (ld, node_line (node), TRB_ERROR_INVALID,
+                        "attribute \"weight\" must not be negative");
+    }
+  else
+    {
+      for (guint i = 0; custom_attrs[i] != NULL; i++)
+        if (has_attr (node, custom_attrs[i]))
+          return fail_at (ld, node_line (node), TRB_ERROR_INVALID,
+                          "attribute \"%s\" belongs only with section=\"custom\"",
+                          custom_attrs[i]);
+    }
+
+  if (m->material != TRB_MATERIAL_WOOD)
+    for (guint i = 0; wood_attrs[i] != NULL; i++)
+      if (has_attr (node, wood_attrs[i]))
+        return fail_at (ld, node_line (node), TRB_ERROR_INVALID,
+                        "attribute \"%s\" belongs only with material=\"wood\"", wood_attrs[i]);
+  if (m->material != TRB_MATERIAL_STEEL && has_attr (node, "steel-grade"))
+    return fail_at (ld, node_line (node), TRB_ERROR_INVALID,
+                    "attribute \"steel-grade\" belongs only with material=\"steel\"");
+
+  if (!get_choice (ld, node, "method", methods, &method) ||
+      !get_positive_quantity (ld, node, "fb-allow", TRB_DIM_STRESS, FALSE, &m->fb_allow) ||
+      !get_positive_quantity (ld, node, "fv-allow", TRB_DIM_STRESS, FALSE, &m->fv_allow) ||
+      !get_deflection_limit (ld, node, "deflection-live", &m->deflection_live) ||
+      !get_deflection_limit (ld, node, "deflection-total", &m->deflection_total) ||
+      !get_choice (ld, node, "bracing", bracings, &bracing) ||
+      !get_positive_quantity (ld, node, "max-depth", TRB_DIM_LENGTH, FALSE, &m->max_depth) ||
+      !get_positive_quantity (ld, node, "min-depth", TRB_DIM_LENGTH, FALSE, &m->min_depth) ||
+      !get_yes_no (ld, node, "wet-service", &m->wet_service) ||
+      !get_yes_no (ld, node, "incised", &m->incised) ||
+      !get_yes_no (ld, node, "repetitive", &m->repetitive) ||
+      !get_positive_quantity (ld, node, "bearing-length", TRB_DIM_LENGTH, FALSE,
+                              &m->bearing_length))
+    return FALSE;
+  if (method >= 0)
+    {
+      m->has_method = TRUE;
+      m->method = method;
+    }
+  if (m->min_depth > m->max_depth)
+    return fail_at (ld, node_line (node), TRB_ERROR_INVALID,
+                    "\"min-depth\" is greater than \"max-depth\"");
+
+  m->steel_grade = get_attr (node, "steel-grade");
+  if (m->steel_grade != NULL && *g_strstrip (m->steel_grade) == '\0')
+    return fail_at (ld, node_line (node), TRB_ERROR_INVALID, "attribute \"steel-grade\" is empty");
+  m->species = get_attr (node, "species");
+  if (m->species != NULL && *g_strstrip (m->species) == '\0')
+    return fail_at (ld, node_line (node), TRB_ERROR_INVALID, "attribute \"species\" is empty");
+  m->grade = get_attr (node, "grade");
+  if (m->grade != NULL && *g_strstrip (m->grade) == '\0')
+    return fail_at (ld, node_line (node), TRB_ERROR_INVALID, "attribute \"grade\" is empty");
+
+  allowed = get_attr (node, "allowed");
+  if (allowed != NULL)
+    {
+      g_auto(GStrv) parts = g_strsplit_set (allowed, " \t\r\n", -1);
+      g_autoptr(GPtrArray) list = g_ptr_array_new ();
+
+      for (guint i = 0; parts[i] != NULL; i++)
+        if (parts[i][0] != '\0')
+          g_ptr_array_add (list, g_strdup (parts[i]));
+      if (list->len == 0)
+        return fail_at (ld, node_line (node), TRB_ERROR_INVALID,
+                        "attribute \"allowed\" names no section");
+      g_ptr_array_add (list, NULL);
+      m->allowed = (char **) g_ptr_array_steal (list, NULL);
+    }
+
+  plies = get_attr (node, "max-plies");
+  if (plies != NULL)
+    {
+      gint64 v;
+
+      if (!parse_int (plies, 1, 99, &v))
+        return fail_at (ld, node_line (node), TRB_ERROR_INVALID,
+                        "attribute \"max-plies\" = \"%s\": expected a whole number from 1 to 99",
+                        plies);
+      m->max_plies = (int) v;
+    }
+
+  FOR_EACH_CHILD (child, node)
+    {
+      if (child->type != XML_ELEMENT_NODE)
+        {
+          if (!check_no_text (ld, child, node))
+            return FALSE;
+          continue;
+        }
+      if (is_element (child, "support"))
+        {
+          if (!load_support (ld, child, m, length_text))
+            return FALSE;
+        }
+      else if (is_element (child, "load"))
+        {
+          if (!load_load (ld, child, m, length_text))
+            return FALSE;
+        }
+      else if (is_element (child, "brace"))
+        {
+          if (!load_brace (ld, child, m, length_text))
+            return FALSE;
+        }
+      else
+        return fail_at (ld, node_line (child), TRB_ERROR_INVALID,
+                        "unknown element <%s> inside <beam>", NAME (child));
+    }
+
+  if (m->braces->len > 0)
+    {
+      if (bracing == 0)
+        return fail_at (ld, g_array_index (m->braces, TrbMemberBrace, 0).line,
+                        TRB_ERROR_INVALID,
+                        "<brace> on a beam with bracing=\"continuous\"; "
+                        "use bracing=\"supports\" for discrete braces");
+      bracing = 1;
+    }
+  m->bracing = bracing == 1 ? TRB_BRACING_POINTS : TRB_BRACING_CONTINUOUS;
+  g_array_sort (m->braces, compare_brace);
+
+  trb_project_add_member (project, g_steal_pointer (&m));
+  return TRUE;
+}
+
+static gboolean
+load_root (Loader     *ld,
+           xmlNode    *root,
+           TrbProject *project)
+{
+  static const char * const attrs[] = { "format", NULL };
+  g_autofree char *format = NULL;
+  gint64 fmt;
+  int settings_line = 0;
+
+  if (!is_element (root, "trabeate-project"))
+    return fail_at (ld, node_line (root), TRB_ERROR_INVALID,
+                    "the root element is <%s>; a project file starts with <trabeate-project>",
+                    NAME (root));
+
+  /* The format comes first: a newer file may hold anything, and deserves the newer-format
+   * message, not a complaint about what it holds. */
+  if (!require_attr (ld, root, "format", &format))
+    return FALSE;
+  if (!parse_int (format, G_MININT, G_MAXINT, &fmt))
+    return fail_at (ld, node_line (root), TRB_ERROR_INVALID,
+                    "attribute \"format\" = \"%s\" is not a whole number", format);
+  if (fmt > TRB_PROJECT_FORMAT)
+    return fail_at (ld, node_line (root), TRB_ERROR_NEWER_FORMAT,
+                    "made by a newer version of Trabeate (format %" G_GINT64_FORMAT "); "
+                    "this version reads format %d", fmt, TRB_PROJECT_FORMAT);
+  if (fmt < 1)
+    return fail_at (ld, node_line (root), TRB_ERROR_INVALID,
+                    "unknown format %" G_GINT64_FORMAT " (this version reads format %d)",
+                    fmt, TRB_PROJECT_FORMAT);
+  project->format = (int) fmt;
+
+  if (!check_attributes (ld, root, attrs))
+    return FALSE;
+
+  FOR_EACH_CHILD (child, root)
+    {
+      if (child->type != XML_ELEMENT_NODE)
+        {
+          if (!check_no_text (ld, child, root))
+            return FALSE;
+          continue;
+        }
+      if (is_element (child, "settings"))
+        {
+          if (settings_line > 0)
+            return fail_at (ld, node_line (child), TRB_ERROR_INVALID,
+                            "a second <settings> (the first is at line %d)", settings_line);
+          if (!load_settings (ld, child, &project->settings))
+            return FALSE;
+          settings_line = node_line (child);
+        }
+      else if (is_element (child, "beam"))
+        {
+          if (!load_beam (ld, child, project))
+            return FALSE;
+        }
+      else
+        return fail_at (ld, node_line (child), TRB_ERROR_INVALID,
+                        "unknown element <%s> inside <trabeate-project>", NAME (child));
+    }
+  return TRUE;
+}
+
+/* Called by the parser on "<!DOCTYPE name ...", before any internal subset is read: stopping
+ * here means no entity is ever declared, so none can be expanded or fetched. */
+static void
+on_internal_subset (void          *ctx,
+                    const xmlChar *name,
+                    const xmlChar *external_id,
+                    const xmlChar *system_id)
+{
+  xmlParserCtxt *ctxt = ctx;
+  Guard *guard = ctxt->_private;
+
+  guard->doctype = TRUE;
+  guard->line = ctxt->input != NULL ? ctxt->input->line : 0;
+  xmlStopParser (ctxt);
+}
+
+/**
+ * trb_project_load_data:
+ * @data: (array length=length): the file's bytes
+ * @length: how many; at most %TRB_PROJECT_MAX_FILE_SIZE
+ * @display_name: the name to put before ":line:" in messages
+ * @error: return location for a #TRB_ERROR
+ *
+ * Parses and validates a project. libxml2 runs without network access, entity substitution
+ * or DTD loading, and any DOCTYPE is refused before its contents are read.
+ *
+ * Returns: (transfer full): the project, or %NULL with @error set to a message of the form
+ *   "<name>:<line>: <what is wrong>".
+ */
+TrbProject *
+trb_project_load_data (const char  *data,
+                       gsize        length,
+                       const char  *display_name,
+                       GError     **error)
+{
+  g_autoptr(xmlParserCtxt) ctxt = NULL;
+  g_autoptr(xmlDoc) doc = NULL;
+  g_autoptr(TrbProject) project = NULL;
+  Loader ld = { display_name != NULL ? display_name : "(project)", error };
+  Guard guard = { FALSE, 0 };
+  xmlNode *root;
+  int rc;
+
+  g_return_val_if_fail (data != NULL || length == 0, NULL);
+  g_return_val_if_fail (error == NULL || *error == NULL, NULL);
+
+  if (length > TRB_PROJECT_MAX_FILE_SIZE)
+    {
+      fail_at (&ld, 0, TRB_ERROR_IO, "the file is larger than %d MiB",
+               TRB_PROJECT_MAX_FILE_SIZE / (1024 * 1024));
+      return NULL;
+    }
+  if (length == 0)
+    {
+      fail_at (&ld, 1, TRB_ERROR_PARSE, "malformed XML: the file is empty");
+      return NULL;
+    }
+
+  ctxt = xmlCreateMemoryParserCtxt (data, (int) length);
+  if (ctxt == NULL)
+    {
+      fail_at (&ld, 0, TRB_ERROR_PARSE, "malformed XML: cannot start the parser");
+      return NULL;
+    }
+  /* Never XML_PARSE_NOENT, DTDLOAD, DTDATTR, XINCLUDE or HUGE. */
+  xmlCtxtUseOptions (ctxt, XML_PARSE_NONET | XML_PARSE_NOERROR | XML_PARSE_NOWARNING |
+                           XML_PARSE_BIG_LINES);
+  ctxt->_private = &guard;
+  ctxt->sax->internalSubset = on_internal_subset;
+  ctxt->sax->externalSubset = NULL;
+
+  rc = xmlParseDocument (ctxt);
+  doc = g_steal_pointer (&ctxt->myDoc);
+
+  if (guard.doctype)
+    {
+      fail_at (&ld, guard.line, TRB_ERROR_PARSE, "a DOCTYPE is not allowed");
+      return NULL;
+    }
+  if (rc != 0 || !ctxt->wellFormed || doc == NULL)
+    {
+      const xmlError *e = xmlCtxtGetLastError (ctxt);
+      g_autofree char *msg = g_strdup (e != NULL && e->message != NULL ? e->message
+                                                                       : "not well-formed");
+
+      fail_at (&ld, e != NULL ? e->line : 0, TRB_ERROR_PARSE, "malformed XML: %s",
+               g_strstrip (msg));
+      return NULL;
+    }
+  if (doc->intSubset != NULL || doc->extSubset != NULL)
+    {
+      fail_at (&ld, 1, TRB_ERROR_PARSE, "a DOCTYPE is not allowed");
+      return NULL;
+    }
+
+  root = xmlDocGetRootElement (doc);
+  if (root == NULL)
+    {
+      fail_at (&ld, 1, TRB_ERROR_PARSE, "malformed XML: no root element");
+      return NULL;
+    }
+
+  project = trb_project_new ();
+  project->name = g_strdup (ld.name);
+  if (!load_root (&ld, root, project))
+    return NULL;
+  return g_steal_pointer (&project);
+}
+
+/**
+ * trb_project_load_file:
+ * @filename: a path
+ * @error: return location for a #TRB_ERROR
+ *
+ * Reads at most %TRB_PROJECT_MAX_FILE_SIZE bytes (a larger file, or a device that never ends,
+ * is refused) and parses them with trb_project_load_data(), naming the file as given in every
+ * message. Never writes anything.
+ *
+ * Returns: (transfer full): the project, or %NULL with @error set.
+ */
+TrbProject *
+trb_project_load_file (const char  *filename,
+                       GError     **error)
+{
+  g_autoptr(GFile) file = NULL;
+  g_autoptr(GFileInputStream) in = NULL;
+  g_autoptr(GByteArray) bytes = NULL;
+  g_autoptr(GError) local = NULL;
+  g_autofree char *display = NULL;
+  guint8 chunk[65536];
+
+  g_return_val_if_fail (filename != NULL, NULL);
+  g_return_val_if_fail (error == NULL || *error == NULL, NULL);
+
+  display = g_filename_display_name (filename);
+  file = g_file_new_for_path (filename);
+  in = g_file_read (file, NULL, &local);
+  if (in == NULL)
+    {
+      g_set_error (error, TRB_ERROR, TRB_ERROR_IO, "%s: cannot open: %s", display,
+                   local->message);
+      return NULL;
+    }
+
+  bytes = g_byte_array_new ();
+  for (;;)
+    {
+      gssize n = g_input_stream_read (G_INPUT_STREAM (in), chunk, sizeof chunk, NULL, &local);
+
+      if (n < 0)
+        {
+          g_set_error (error, TRB_ERROR, TRB_ERROR_IO, "%s: cannot read: %s", display,
+                       local->message);
+          return NULL;
+        }
+      if (n == 0)
+        break;
+      if (bytes->len + (gsize) n > TRB_PROJECT_MAX_FILE_SIZE)
+        {
+          g_set_error (error, TRB_ERROR, TRB_ERROR_IO, "%s: the file is larger than %d MiB",
+                       display, TRB_PROJECT_MAX_FILE_SIZE / (1024 * 1024));
+          return NULL;
+        }
+      g_byte_array_append (bytes, chunk, (guint) n);
+    }
+
+  return trb_project_load_data ((const char *) bytes->data, bytes->len, display, error);
+}

@@ -1,0 +1,157 @@
+/* SPDX-FileCopyrightText: 2026 The Trabeate developers
+ * SPDX-License-Identifier: GPL-3.0-or-later */
+#pragma once
+
+#include <glib.h>
+
+#include "trb-beam.h"
+#include "trb-design.h"
+#include "trb-types.h"
+
+G_BEGIN_DECLS
+
+/* The project as loaded: settings and standalone beams. Plain structs owned by the project;
+ * everything SI. Floors (plan geometry, joist runs, area loads) come later as further fields
+ * of TrbProject; the solve works on TrbMember, which a floor's members will also become. */
+
+typedef enum
+{
+  TRB_METHOD_ASD,        /* AISC 360 / NDS allowable strength with ASCE 7 ASD combinations */
+  TRB_METHOD_LRFD,       /* AISC 360 load and resistance factor design */
+  TRB_METHOD_ALLOWABLE,  /* classic allowable stress: fb = M/S <= Fb, service loads */
+} TrbMethod;
+
+typedef enum
+{
+  TRB_MATERIAL_STEEL,
+  TRB_MATERIAL_WOOD,
+  TRB_MATERIAL_CUSTOM,   /* properties given with a custom section, no catalog */
+} TrbMaterial;
+
+typedef struct
+{
+  TrbMethod     method;            /* default asd */
+  double        fb_allow;          /* Pa; NAN when not given */
+  double        fv_allow;          /* Pa; NAN when not given */
+  char         *steel_grade;       /* default "A992" */
+  gboolean      self_weight;       /* default TRUE */
+  gboolean      live_patterns;     /* default TRUE */
+  double        deflection_live;   /* denominator n of L/n; 0 for no limit; default 360 */
+  double        deflection_total;  /* default 240 */
+  TrbUnitSystem units;             /* display units, default US */
+  int           line;              /* of <settings>; 0 when the file has none */
+} TrbSettings;
+
+typedef struct
+{
+  TrbSupport support;
+  int        line;
+} TrbMemberSupport;
+
+typedef struct
+{
+  TrbLoadCase lcase;
+  TrbLoad     load;
+  int         line;
+} TrbMemberLoad;
+
+typedef struct
+{
+  double x;
+  int    line;
+} TrbMemberBrace;
+
+typedef struct
+{
+  char        *id;
+  int          line;
+  double       length;
+  TrbMaterial  material;
+  char        *section;      /* a catalog designation, "auto" or "custom" */
+
+  /* section="custom": given properties, NAN when absent (E and I are required) */
+  double       E, I, S, A, d, tw;
+  double       weight;       /* self-weight per length, N/m; NAN when not given */
+
+  GArray      *supports;     /* TrbMemberSupport, file order */
+  GArray      *loads;        /* TrbMemberLoad, file order */
+
+  /* Design attributes. Those that override the project's settings are unset (has_method
+   * FALSE, NAN, NULL) when the beam does not give them: use the trb_member_get_*() helpers. */
+  gboolean     has_method;
+  TrbMethod    method;
+  double       fb_allow;
+  double       fv_allow;
+  char        *steel_grade;
+  double       deflection_live;   /* NAN: the project's; 0: none */
+  double       deflection_total;
+  TrbBracing   bracing;           /* default continuous (points when <brace> is given) */
+  GArray      *braces;            /* TrbMemberBrace, sorted by x */
+  double       max_depth;         /* m, NAN when not given */
+  double       min_depth;
+  char       **allowed;           /* designations to choose from; NULL for the whole catalog */
+  int          max_plies;         /* 0 when not given */
+
+  /* wood */
+  char        *species;           /* NULL when not given */
+  char        *grade;
+  gboolean     wet_service;       /* default FALSE */
+  gboolean     incised;           /* default FALSE */
+  gboolean     repetitive;        /* default FALSE */
+  double       bearing_length;    /* m, NAN when not given */
+} TrbMember;
+
+typedef struct
+{
+  int          format;
+  char        *name;         /* the file's display name, for messages; may be NULL */
+  TrbSettings  settings;
+  GPtrArray   *members;      /* TrbMember, standalone beams in file order */
+} TrbProject;
+
+const char  *trb_method_name               (TrbMethod          method);
+gboolean     trb_method_from_name          (const char        *name,
+                                            TrbMethod         *method);
+const char  *trb_material_name             (TrbMaterial        material);
+gboolean     trb_material_from_name        (const char        *name,
+                                            TrbMaterial       *material);
+const char  *trb_support_type_name         (TrbSupportType     type);
+gboolean     trb_support_type_from_name    (const char        *name,
+                                            TrbSupportType    *type);
+const char  *trb_load_kind_name            (TrbLoadKind        kind);
+gboolean     trb_load_kind_from_name       (const char        *name,
+                                            TrbLoadKind       *kind);
+
+void         trb_settings_init_defaults    (TrbSettings       *settings);
+void         trb_settings_clear            (TrbSettings       *settings);
+
+TrbMember   *trb_member_new                (const char        *id);
+void         trb_member_free               (TrbMember         *member);
+gboolean     trb_member_is_custom          (const TrbMember   *member);
+gboolean     trb_member_is_auto            (const TrbMember   *member);
+TrbMethod    trb_member_get_method         (const TrbMember   *member,
+                                            const TrbSettings *settings);
+double       trb_member_get_fb_allow       (const TrbMember   *member,
+                                            const TrbSettings *settings);
+double       trb_member_get_fv_allow       (const TrbMember   *member,
+                                            const TrbSettings *settings);
+const char  *trb_member_get_steel_grade    (const TrbMember   *member,
+                                            const TrbSettings *settings);
+double       trb_member_get_deflection_live  (const TrbMember   *member,
+                                              const TrbSettings *settings);
+double       trb_member_get_deflection_total (const TrbMember   *member,
+                                              const TrbSettings *settings);
+gboolean     trb_member_has_case           (const TrbMember   *member,
+                                            TrbLoadCase        lcase);
+
+TrbProject  *trb_project_new               (void);
+void         trb_project_free              (TrbProject        *project);
+void         trb_project_add_member        (TrbProject        *project,
+                                            TrbMember         *member);
+TrbMember   *trb_project_find_member       (const TrbProject  *project,
+                                            const char        *id);
+
+G_DEFINE_AUTOPTR_CLEANUP_FUNC (TrbMember, trb_member_free)
+G_DEFINE_AUTOPTR_CLEANUP_FUNC (TrbProject, trb_project_free)
+
+G_END_DECLS
