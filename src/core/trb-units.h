@@ -65,4 +65,11 @@ double      trb_units_to_display    (double         value,
                                      TrbDimension   dim,
                                      TrbUnitSystem  system);
 
+int         trb_units_display_decimals (double        display_value,
+                                        TrbDimension  dim,
+                                        TrbUnitSystem system);
+
+char       *trb_units_format_small_length (double        meters,
+                                           TrbUnitSystem system);
+
 G_END_DECLS
