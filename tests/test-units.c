@@ -417,8 +417,8 @@ test_errors (void)
     { "74 kg/m",            TRB_DIM_LINE_LOAD, "\"74 kg/m\" is a weight per length" },
     { "800 in4",            TRB_DIM_SECTION_MODULUS, "\"800 in4\" is a moment of inertia" },
     { "12 ft",              TRB_DIM_MOMENT,    "\"12 ft\" is a length" },
-    { "12 xyz",             TRB_DIM_LENGTH,    "unknown unit \"xyz\" in \"12 xyz\": a length takes" },
-    { "12 kn",              TRB_DIM_FORCE,     "unknown unit \"kn\" in \"12 kn\": did you mean \"kN\"?" },
+    { "12 xyz", TRB_DIM_LENGTH, "unknown unit \"xyz\" in \"12 xyz\": a length takes" },
+    { "12 kn", TRB_DIM_FORCE, "unknown unit \"kn\" in \"12 kn\": did you mean \"kN\"?" },
     { "345 mPa",            TRB_DIM_STRESS,    "did you mean \"MPa\"?" },
     { "345 MPA",            TRB_DIM_STRESS,    "did you mean \"MPa\"?" },
     { "12 KN",              TRB_DIM_LENGTH,    "unknown unit \"KN\" in \"12 KN\": a length takes" },
@@ -429,13 +429,13 @@ test_errors (void)
     { "12'-6",              TRB_DIM_LENGTH,    "expected inches after the feet in \"12'-6\"" },
     { "12'-6 mm",           TRB_DIM_LENGTH,    "expected inches after the feet in \"12'-6 mm\"" },
     { "12'-14\"",           TRB_DIM_LENGTH,    "the inches in \"12'-14\"\" must be less than 12" },
-    { "12 m 6 mm",          TRB_DIM_LENGTH,    "unexpected \"6 mm\" after \"12 m\" at character 6" },
+    { "12 m 6 mm", TRB_DIM_LENGTH, "unexpected \"6 mm\" after \"12 m\" at character 6" },
     { "6\" 3'",             TRB_DIM_LENGTH,    "unexpected \"3'\" after \"6\"\"" },
     { "1/0\"",              TRB_DIM_LENGTH,    "a fraction in \"1/0\"\" has a zero denominator" },
     { "12'-6 1/0\"",        TRB_DIM_LENGTH,    "zero denominator" },
     { "1,200 lb",           TRB_DIM_FORCE,     "unexpected \",\" in \"1,200 lb\" at character 2" },
     { "1,5 m",              TRB_DIM_LENGTH,    "unexpected \",\" in \"1,5 m\"" },
-    { "nan",                TRB_DIM_LENGTH,    "\"nan\" is not a finite number: expected a length" },
+    { "nan", TRB_DIM_LENGTH, "\"nan\" is not a finite number: expected a length" },
     { "NaN ft",             TRB_DIM_LENGTH,    "\"NaN ft\" is not a finite number" },
     { "inf kip",            TRB_DIM_FORCE,     "\"inf kip\" is not a finite number" },
     { "-inf kip",           TRB_DIM_FORCE,     "\"-inf kip\" is not a finite number" },
@@ -772,7 +772,8 @@ test_robust (void)
     "12'-6 1/2\"", "12 ft 6 1/2 in", "-3 kip*ft", "1.2e3 psi", "333 \xc3\x97" "10^6 mm^4",
     "2.4 kN/m\xc2\xb2", "12\xe2\x80\xb2-6\xe2\x80\xb3", "50 lb/ft", "\xe2\x88\x92" "1 kN\xc2\xb7m",
   };
-  static const char alphabet[] = "0123456789.-+eE/'\" ftinkipNmPa^*x,\xc3\x97\xc2\xb2\xe2\x80\xb2\xff";
+  static const char alphabet[] =
+    "0123456789.-+eE/'\" ftinkipNmPa^*x,\xc3\x97\xc2\xb2\xe2\x80\xb2\xff";
   g_autoptr(GRand) rand = g_rand_new_with_seed (20260101);
   char buf[24];
 
