@@ -922,7 +922,7 @@ check_shear (const WoodContext    *ctx,
 
           trb_beam_result_eval (combo->result, bb, TRB_SIDE_LEFT, &v);
           Vd = fabs (v.V - weighted_point_loads (combo->result, b, bb, FALSE, b, TRUE, d));
-          if (Vd > V)
+          if (Vd >= V)
             {
               V = Vd;
               Vx = bb;
