@@ -544,10 +544,10 @@ design (const TrbProject *project,
       g_strlcpy (r->section, m->section, sizeof r->section);
       if (trb_member_is_auto (m))
         set_status (r, TRB_STATUS_NOT_DESIGNED,
-                    "not designed: sizing from the catalog is not available in this version");
+                    "sizing from the catalog is not available in this version");
       else
         set_status (r, TRB_STATUS_NOT_DESIGNED,
-                    "not designed: catalog section %s is not checked in this version", m->section);
+                    "catalog section %s is not checked in this version", m->section);
       return;
     }
   if (!r->analysed)
@@ -631,7 +631,7 @@ design (const TrbProject *project,
   if (any_fail)
     set_status (r, TRB_STATUS_FAIL, "%s: ratio %.2f", r->governing, r->ratio);
   else if (!strength_checked || any_unchecked)
-    set_status (r, TRB_STATUS_NOT_DESIGNED, "not designed: some checks could not be made "
+    set_status (r, TRB_STATUS_NOT_DESIGNED, "some checks could not be made "
                                             "(see \"Not checked\")");
   else
     {
