@@ -445,7 +445,8 @@ test_bearing_factors (void)
   g_assert_cmpfloat_with_epsilon (trb_design_wood_cb (3.5 * TRB_IN, TRUE), 1.0, 1e-12);
   g_assert_cmpfloat_with_epsilon (trb_design_wood_cb (6 * TRB_IN, FALSE), 1.0, 1e-12);
 
-  /* The joist example below (NDS 2018 3.10.2): l_b,req = 466.7 / (1.5 x 625) = 0.50 in at the end. */
+  /* The joist example below (NDS 2018 3.10.2): l_b,req = 466.7 / (1.5 x 625) = 0.50 in at
+   * the end. */
   g_assert_cmpfloat_with_epsilon (trb_design_wood_required_bearing (466.7 * TRB_LBF,
                                                                      1.5 * TRB_IN,
                                                                      625 * TRB_PSI, TRUE)
@@ -722,7 +723,8 @@ test_joist_2x10 (void)
   g_assert_cmpfloat_with_epsilon (c->ratio * 3.5, 0.50, 0.005);
   g_assert_nonnull (strstr (c->detail, "l_b,req 0.498 in"));
 
-  /* Joist example: 5 w L^4 / (384 E I), live 0.291 in (L/577), total 0.364 in (L/461); limits 0.467 and 0.700 in. */
+  /* Joist example: 5 w L^4 / (384 E I), live 0.291 in (L/577), total 0.364 in (L/461);
+   * limits 0.467 and 0.700 in. */
   c = find_check (m.checks, "Live deflection");
   g_assert_nonnull (c);
   g_assert_cmpfloat_with_epsilon (c->demand / TRB_IN, 0.291, 0.0005);
@@ -815,7 +817,8 @@ test_roof_load_duration (void)
   };
   const double L = 12 * TRB_FT;
   const double xs[] = { 0, L };
-  /* The roof of the load-duration case above, D 15, Lr 20, S 30 psf, on 2x10 DF-L No.2 at 24 in: 30, 40, 60 plf. */
+  /* The roof of the load-duration case above, D 15, Lr 20, S 30 psf, on 2x10 DF-L No.2 at
+   * 24 in: 30, 40, 60 plf. */
   const CaseLoad loads[] = {
     { TRB_CASE_D, { TRB_LOAD_UNIFORM, 0, L, 30 * TRB_PLF, 30 * TRB_PLF } },
     { TRB_CASE_LR, { TRB_LOAD_UNIFORM, 0, L, 40 * TRB_PLF, 40 * TRB_PLF } },
@@ -835,7 +838,8 @@ test_roof_load_duration (void)
                 G_N_ELEMENTS (roof_combos));
   trb_design_wood_check (&m.input, &no2, &options, m.checks);
 
-  /* As in the load-duration case, D + S governs (load / C_D 39.1 psf against 28.0 for D + Lr). Worked here:
+  /* As in the load-duration case, D + S governs (load / C_D 39.1 psf against 28.0 for
+   * D + Lr). Worked here:
    * M = 90 x 12^2 / 8 = 1620 lb-ft = 19,440 lb-in, fb = 19,440 / 21.39 = 908.8 psi;
    * Fb' = 900 x C_D 1.15 x C_F 1.1 x C_r 1.15 = 1309.3 psi. */
   c = find_check (m.checks, "Flexure");
