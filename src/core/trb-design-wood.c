@@ -1027,6 +1027,8 @@ trb_design_wood_check (const TrbDesignInput *input,
   g_return_if_fail (options->bearing_length > 0);
 
   section = input->section;
+  g_return_if_fail (section->kind == TRB_SHAPE_SAWN || section->kind == TRB_SHAPE_GLULAM ||
+                    section->kind == TRB_SHAPE_CUSTOM);
   ctx.input = input;
   ctx.grade = grade;
   ctx.options = options;
