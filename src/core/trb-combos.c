@@ -228,9 +228,19 @@ expand_templates (const ComboTemplate *templates,
   return all;
 }
 
+static gboolean
+combo_is_zero (const TrbCombo *c)
+{
+  for (guint k = 0; k < TRB_N_CASES; k++)
+    if (c->factors[k] != 0)
+      return FALSE;
+  return TRUE;
+}
+
 /* Drops the combinations that add nothing: those equal to an earlier one, or dominated by
- * another, factor by factor. The first (1.4D, D) always stays: it is the combination in which
- * no live load acts, which a live-load pattern can never reproduce. */
+ * another, factor by factor. The first (1.4D, D) stays although the others cover it: it is
+ * the combination in which no live load acts, which a live-load pattern cannot reproduce.
+ * Only when the member has no dead load at all, and so the first is nothing, does it go. */
 static GArray *
 prune (GArray *all)
 {
@@ -254,6 +264,9 @@ prune (GArray *all)
             dropped[i] = TRUE;
         }
     }
+  for (guint i = 1; i < n && n > 0; i++)
+    if (!dropped[i] && combo_is_zero (&g_array_index (all, TrbCombo, 0)))
+      dropped[0] = TRUE;
   for (guint i = 0; i < n; i++)
     if (!dropped[i])
       g_array_append_val (kept, g_array_index (all, TrbCombo, i));
@@ -268,8 +281,8 @@ prune (GArray *all)
  *
  * The combinations of @set for a member carrying the cases in @present. "(Lr or S)" becomes
  * one combination per present case; terms of absent cases are left out of the factors and
- * the names; combinations that then add nothing are dropped, but the first is always kept
- * (the live-deflection set excepted, which is empty without live load).
+ * the names; combinations that then add nothing are dropped, but the first is kept unless it
+ * is empty and another remains (the live-deflection set is empty without live load).
  *
  * Returns: (transfer full): a #GArray of #TrbCombo.
  */
