@@ -600,6 +600,15 @@ test_member_f1_1a (void)
   g_assert_nonnull (c);
   g_assert_cmpfloat_with_epsilon (c->demand / TRB_KIP_FT, 183.75, 0.01);
   g_assert_cmpfloat_with_epsilon (c->capacity / TRB_KIP_FT, 252.0, 0.05);
+
+  /* The same detail in SI (NIST SP 811 factors): Lp = 5.828 ft * 0.3048 = 1.776 m,
+   * Lr = 16.946 ft * 0.3048 = 5.165 m, Mn = Mp = 420.83 kip-ft * 1.35582 = 570.6 kN*m */
+  g_array_set_size (checks, 0);
+  in.units = TRB_UNIT_SYSTEM_SI;
+  g_assert_true (trb_design_steel_check (&in, a992 (), TRB_DESIGN_BASIS_ASD, checks));
+  c = find_check (checks, "Flexure");
+  g_assert_nonnull (c);
+  g_assert_cmpstr (c->detail, ==, "Lb = 0 (braced), Lp = 1.78 m, Lr = 5.17 m, Mn = 571 kN·m");
   member_clear (&m);
 }
 
