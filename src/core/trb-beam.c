@@ -2,3 +2,1466 @@
  * SPDX-License-Identifier: GPL-3.0-or-later */
 
 #include "config.h"
+
+#include "trb-beam.h"
+#include "trb-error.h"
+
+#include <float.h>
+#include <math.h>
+#include <stdlib.h>
+#include <string.h>
+
+/* How the engine works (docs/beam-engine.md says it at length):
+ *
+ * Nodes sit at the supports. Every translation there is held, so the unknowns of the
+ * stiffness system are the rotations of the supports that are not fixed: a tridiagonal,
+ * diagonally dominant, symmetric positive definite matrix (4EI/l on the diagonal, 2EI/l
+ * beside it), factorised once as LDL^T in trb_beam_new. The free ends are nodes too, but an
+ * overhang is statically determinate, so its element is condensed out exactly: its load
+ * reaches the outermost support as a known shear and moment. That removes the only source of
+ * ill-conditioning (a short overhang would put 12EI/l^3 on the diagonal) and leaves nothing
+ * to fit.
+ *
+ * Each span gets its exact fixed-end moments and simple-beam reactions from closed-form
+ * integrals of its loads; after the rotations are solved, V and M at the start of every span
+ * follow from the slope-deflection equations, and V, M, theta and v are carried across the
+ * segments between break points as exact polynomials in a local coordinate t:
+ *   w(t) = w + dw t, V(t) = V - w t - dw t^2/2, M(t) = M + V t - w t^2/2 - dw t^3/6,
+ *   EI theta(t) = EI theta + M t + ..., EI v(t) = EI v + EI theta t + M t^2/2 + ...
+ * Internally v is the upward displacement; the public deflection is -v. */
+
+/* Positions this close outside the member (relative to its length) are taken as its end:
+ * plan geometry computed in floating point puts a support "at the end" within a few ulps. */
+#define END_TOLERANCE 1e-10
+
+/* A pivot this small against its diagonal means a mechanism. The matrix is diagonally
+ * dominant whenever it is regular, so every real pivot is at least half its diagonal. */
+#define PIVOT_TOLERANCE 1e-9
+
+/* Scratch kept on the stack for the usual member; larger load sets use the heap once. */
+#define STACK_DOUBLES 1024
+
+typedef struct
+{
+  double x;      /* start of the segment, m */
+  double w;      /* load intensity at the start, N/m, downward + */
+  double dw;     /* its slope, N/m^2 */
+  double V;      /* shear just right of x, N */
+  double M;      /* moment just right of x, N*m */
+  double theta;  /* rad, counter-clockwise + */
+  double v;      /* upward displacement, m */
+} TrbSegment;
+
+struct _TrbBeam
+{
+  double      length;
+  double      E;
+  double      I;
+  double      EI;
+  guint       n_supports;
+  TrbSupport *supports;  /* distinct, sorted */
+  double     *pivot;     /* LDL^T: D; 1 for a fixed support (its row is removed) */
+  double     *mult;      /* LDL^T: L between support i and i + 1 */
+};
+
+struct _TrbBeamResult
+{
+  gsize        size;      /* of the one allocation that holds everything below */
+  double       length;
+  double       EI;
+  guint        n_breaks;  /* >= 2; the segments number n_breaks - 1 */
+  guint        n_reactions;
+  TrbSegment  *segments;
+  double      *breaks;
+  TrbReaction *reactions;
+};
+
+/* ---- the beam ---- */
+
+static int
+support_strength (TrbSupportType type)
+{
+  switch (type)
+    {
+    case TRB_SUPPORT_FIXED:
+      return 2;
+    case TRB_SUPPORT_PIN:
+      return 1;
+    case TRB_SUPPORT_ROLLER:
+    default:
+      return 0;
+    }
+}
+
+static int
+compare_supports (const void *pa,
+                  const void *pb)
+{
+  const TrbSupport *a = pa;
+  const TrbSupport *b = pb;
+
+  return (a->x > b->x) - (a->x < b->x);
+}
+
+static gboolean
+is_finite_positive (double v)
+{
+  return isfinite (v) && v > 0;
+}
+
+/**
+ * trb_beam_new:
+ * @length: the member's length, m
+ * @E: modulus of elasticity, Pa
+ * @I: moment of inertia, m^4
+ * @supports: (array length=n_supports): the supports, in any order
+ * @n_supports: their number
+ * @error: return location for a #GError
+ *
+ * Sets up a member and factorises its stiffness once. A support within 1e-10 L outside the
+ * member is taken to be at its end.
+ *
+ * Returns: (transfer full): the beam, or %NULL with @error set (%TRB_ERROR_INVALID,
+ *   %TRB_ERROR_UNSTABLE)
+ */
+TrbBeam *
+trb_beam_new (double              length,
+              double              E,
+              double              I,
+              const TrbSupport   *supports,
+              guint               n_supports,
+              GError            **error)
+{
+  g_autofree TrbSupport *sorted = NULL;
+  TrbBeam *beam;
+  guint n = 0;
+  double tol;
+  char *mem;
+
+  g_return_val_if_fail (supports != NULL || n_supports == 0, NULL);
+  g_return_val_if_fail (error == NULL || *error == NULL, NULL);
+
+  if (!is_finite_positive (length))
+    {
+      g_set_error (error, TRB_ERROR, TRB_ERROR_INVALID,
+                   "The member length must be a positive number (got %g m)", length);
+      return NULL;
+    }
+  if (!is_finite_positive (E))
+    {
+      g_set_error (error, TRB_ERROR, TRB_ERROR_INVALID,
+                   "The modulus of elasticity must be a positive number (got %g Pa)", E);
+      return NULL;
+    }
+  if (!is_finite_positive (I))
+    {
+      g_set_error (error, TRB_ERROR, TRB_ERROR_INVALID,
+                   "The moment of inertia must be a positive number (got %g m^4)", I);
+      return NULL;
+    }
+  if (!is_finite_positive (E * I))
+    {
+      g_set_error (error, TRB_ERROR, TRB_ERROR_INVALID,
+                   "The bending stiffness E*I is out of range (E = %g Pa, I = %g m^4)", E, I);
+      return NULL;
+    }
+
+  tol = END_TOLERANCE * length;
+  sorted = g_new (TrbSupport, MAX (n_supports, 1));
+  for (guint i = 0; i < n_supports; i++)
+    {
+      double x = supports[i].x;
+
+      if (!isfinite (x) || x < -tol || x > length + tol)
+        {
+          g_set_error (error, TRB_ERROR, TRB_ERROR_INVALID,
+                       "Support %u at x = %g m is off the member (0 to %g m)", i + 1, x, length);
+          return NULL;
+        }
+      if (supports[i].type != TRB_SUPPORT_PIN && supports[i].type != TRB_SUPPORT_ROLLER &&
+          supports[i].type != TRB_SUPPORT_FIXED)
+        {
+          g_set_error (error, TRB_ERROR, TRB_ERROR_INVALID,
+                       "Support %u has an unknown type (%d)", i + 1, (int) supports[i].type);
+          return NULL;
+        }
+      sorted[i].x = CLAMP (x, 0.0, length);
+      sorted[i].type = supports[i].type;
+    }
+  qsort (sorted, n_supports, sizeof (TrbSupport), compare_supports);
+
+  /* merge supports at the same x; the stronger one wins */
+  for (guint i = 0; i < n_supports; i++)
+    {
+      if (n > 0 && sorted[n - 1].x == sorted[i].x)
+        {
+          if (support_strength (sorted[i].type) > support_strength (sorted[n - 1].type))
+            sorted[n - 1].type = sorted[i].type;
+        }
+      else
+        sorted[n++] = sorted[i];
+    }
+
+  /* The member is a rigid body with two degrees of freedom in this model (translation and
+   * rotation in the plane; there is no axial action, so rollers hold as well as pins). Two
+   * distinct supports, or one fixed support, hold it. Saying which case failed is kinder
+   * than pointing at a zero pivot. */
+  if (n == 0)
+    {
+      g_set_error (error, TRB_ERROR, TRB_ERROR_UNSTABLE,
+                   "The member has no support: it needs two supports, or one fixed support");
+      return NULL;
+    }
+  if (n == 1 && sorted[0].type != TRB_SUPPORT_FIXED)
+    {
+      g_set_error (error, TRB_ERROR, TRB_ERROR_UNSTABLE,
+                   "A single %s at x = %g m cannot hold the member against rotation: "
+                   "add a second support or make this one fixed",
+                   sorted[0].type == TRB_SUPPORT_PIN ? "pin" : "roller", sorted[0].x);
+      return NULL;
+    }
+
+  /* one allocation: the struct, the supports, the factors */
+  mem = g_malloc0 (sizeof (TrbBeam) + n * sizeof (TrbSupport) + 2 * n * sizeof (double));
+  beam = (TrbBeam *) mem;
+  beam->supports = (TrbSupport *) (mem + sizeof (TrbBeam));
+  beam->pivot = (double *) (mem + sizeof (TrbBeam) + n * sizeof (TrbSupport));
+  beam->mult = beam->pivot + n;
+  beam->length = length;
+  beam->E = E;
+  beam->I = I;
+  beam->EI = E * I;
+  beam->n_supports = n;
+  memcpy (beam->supports, sorted, n * sizeof (TrbSupport));
+
+  /* K / EI over the support rotations: diagonal 4/l of each adjacent span, off-diagonal 2/l.
+   * A fixed support's rotation is held: its row and column are removed, which in place means
+   * a unit pivot, no coupling, and a zero right-hand side at solve time. */
+  for (guint i = 0; i < n; i++)
+    {
+      gboolean held = beam->supports[i].type == TRB_SUPPORT_FIXED;
+      double diag = 0, coupling = 0;
+
+      if (i > 0)
+        diag += 4.0 / (beam->supports[i].x - beam->supports[i - 1].x);
+      if (i + 1 < n)
+        diag += 4.0 / (beam->supports[i + 1].x - beam->supports[i].x);
+
+      if (held)
+        {
+          beam->pivot[i] = 1.0;
+          if (i > 0)
+            beam->mult[i - 1] = 0;
+          continue;
+        }
+
+      if (i > 0 && beam->supports[i - 1].type != TRB_SUPPORT_FIXED)
+        {
+          coupling = 2.0 / (beam->supports[i].x - beam->supports[i - 1].x);
+          beam->mult[i - 1] = coupling / beam->pivot[i - 1];
+        }
+      else if (i > 0)
+        beam->mult[i - 1] = 0;
+
+      beam->pivot[i] = diag - (i > 0 ? beam->mult[i - 1] * coupling : 0);
+      if (!(beam->pivot[i] > PIVOT_TOLERANCE * diag) || !isfinite (beam->pivot[i]))
+        {
+          g_set_error (error, TRB_ERROR, TRB_ERROR_UNSTABLE,
+                       "The supports make a mechanism: nothing holds the member against "
+                       "rotation at x = %g m", beam->supports[i].x);
+          g_free (mem);
+          return NULL;
+        }
+    }
+
+  return beam;
+}
+
+void
+trb_beam_free (TrbBeam *beam)
+{
+  g_free (beam);
+}
+
+double
+trb_beam_get_length (const TrbBeam *beam)
+{
+  g_return_val_if_fail (beam != NULL, 0);
+
+  return beam->length;
+}
+
+const TrbSupport *
+trb_beam_get_supports (const TrbBeam *beam,
+                       guint         *n_supports)
+{
+  g_return_val_if_fail (beam != NULL, NULL);
+
+  if (n_supports != NULL)
+    *n_supports = beam->n_supports;
+  return beam->supports;
+}
+
+/* ---- exact integrals of a linearly varying load ---- */
+
+/* The integral over [0, 1] of the product of four linear functions, each given by its values
+ * at 0 and 1 (Bernstein form). Expanding the product in the basis (1-s)^(4-k) s^k keeps every
+ * term of one sign when the factors are, so nothing cancels; the basis integrals are
+ * k! (4-k)! / 5!. */
+static inline double
+bernstein4 (double p0, double p1,
+            double q0, double q1,
+            double r0, double r1,
+            double s0, double s1)
+{
+  double e0, e1, e2, e3, e4;
+
+  /* p * q */
+  e0 = p0 * q0;
+  e1 = p0 * q1 + p1 * q0;
+  e2 = p1 * q1;
+  /* * r */
+  e3 = e2 * r1;
+  e2 = e2 * r0 + e1 * r1;
+  e1 = e1 * r0 + e0 * r1;
+  e0 = e0 * r0;
+  /* * s */
+  e4 = e3 * s1;
+  e3 = e3 * s0 + e2 * s1;
+  e2 = e2 * s0 + e1 * s1;
+  e1 = e1 * s0 + e0 * s1;
+  e0 = e0 * s0;
+
+  return (e0 + e4) / 5.0 + (e1 + e3) / 20.0 + e2 / 30.0;
+}
+
+/* the same for two linear functions: (2 p0 q0 + p0 q1 + p1 q0 + 2 p1 q1) / 6 */
+static inline double
+bernstein2 (double p0, double p1,
+            double q0, double q1)
+{
+  return (2.0 * (p0 * q0 + p1 * q1) + p0 * q1 + p1 * q0) / 6.0;
+}
+
+/* ---- solving ---- */
+
+static gsize
+result_size (guint n_breaks,
+             guint n_reactions)
+{
+  return sizeof (TrbBeamResult) + (n_breaks - 1) * sizeof (TrbSegment) +
+         n_breaks * sizeof (double) + n_reactions * sizeof (TrbReaction);
+}
+
+static void
+result_set_pointers (TrbBeamResult *r)
+{
+  char *mem = (char *) r;
+
+  r->segments = (TrbSegment *) (mem + sizeof (TrbBeamResult));
+  r->breaks = (double *) (mem + sizeof (TrbBeamResult) + (r->n_breaks - 1) * sizeof (TrbSegment));
+  r->reactions = (TrbReaction *) (r->breaks + r->n_breaks);
+}
+
+static TrbBeamResult *
+result_alloc (double length,
+              double EI,
+              guint  n_breaks,
+              guint  n_reactions)
+{
+  gsize size = result_size (n_breaks, n_reactions);
+  TrbBeamResult *r = g_malloc0 (size);
+
+  r->size = size;
+  r->length = length;
+  r->EI = EI;
+  r->n_breaks = n_breaks;
+  r->n_reactions = n_reactions;
+  result_set_pointers (r);
+  return r;
+}
+
+static int
+compare_doubles (const void *pa,
+                 const void *pb)
+{
+  double a = *(const double *) pa;
+  double b = *(const double *) pb;
+
+  return (a > b) - (a < b);
+}
+
+static void
+sort_doubles (double *v,
+              guint   n)
+{
+  if (n > 24)
+    {
+      qsort (v, n, sizeof (double), compare_doubles);
+      return;
+    }
+  /* insertion sort: the usual member has a couple of dozen positions */
+  for (guint i = 1; i < n; i++)
+    {
+      double t = v[i];
+      guint j = i;
+
+      while (j > 0 && v[j - 1] > t)
+        {
+          v[j] = v[j - 1];
+          j--;
+        }
+      v[j] = t;
+    }
+}
+
+/* the index of x in the sorted, distinct breaks (x is one of them) */
+static inline guint
+find_break (const double *breaks,
+            guint         n,
+            double        x)
+{
+  guint lo = 0, hi = n - 1;
+
+  while (lo < hi)
+    {
+      guint mid = (lo + hi) / 2;
+
+      if (breaks[mid] < x)
+        lo = mid + 1;
+      else
+        hi = mid;
+    }
+  g_assert (breaks[lo] == x);
+  return lo;
+}
+
+/* the segment holding x: the last k with breaks[k] <= x (right side) or breaks[k] < x (left
+ * side), kept within 0 .. n_breaks - 2 */
+static inline guint
+find_segment (const TrbBeamResult *r,
+              double               x,
+              TrbSide              side)
+{
+  guint lo = 0, hi = r->n_breaks - 2;
+
+  while (lo < hi)
+    {
+      guint mid = (lo + hi + 1) / 2;
+      gboolean after = side == TRB_SIDE_LEFT ? r->breaks[mid] < x : r->breaks[mid] <= x;
+
+      if (after)
+        lo = mid;
+      else
+        hi = mid - 1;
+    }
+  return lo;
+}
+
+static inline double
+clamp_position (double x,
+                double length)
+{
+  return CLAMP (x, 0.0, length);
+}
+
+static gboolean
+check_loads (const TrbBeam  *beam,
+             const TrbLoad  *loads,
+             guint           n_loads,
+             GError        **error)
+{
+  double L = beam->length;
+  double tol = END_TOLERANCE * L;
+
+  for (guint i = 0; i < n_loads; i++)
+    {
+      const TrbLoad *ld = &loads[i];
+      gboolean spread = ld->kind == TRB_LOAD_UNIFORM || ld->kind == TRB_LOAD_LINEAR;
+
+      if (ld->kind != TRB_LOAD_POINT && ld->kind != TRB_LOAD_UNIFORM &&
+          ld->kind != TRB_LOAD_LINEAR && ld->kind != TRB_LOAD_MOMENT)
+        {
+          g_set_error (error, TRB_ERROR, TRB_ERROR_INVALID,
+                       "Load %u has an unknown kind (%d)", i + 1, (int) ld->kind);
+          return FALSE;
+        }
+      if (!isfinite (ld->a) || (spread && !isfinite (ld->b)) || !isfinite (ld->w1) ||
+          (ld->kind == TRB_LOAD_LINEAR && !isfinite (ld->w2)))
+        {
+          g_set_error (error, TRB_ERROR, TRB_ERROR_INVALID,
+                       "Load %u has a value that is not a finite number", i + 1);
+          return FALSE;
+        }
+      if (ld->a < -tol || ld->a > L + tol || (spread && (ld->b < -tol || ld->b > L + tol)))
+        {
+          g_set_error (error, TRB_ERROR, TRB_ERROR_INVALID,
+                       "Load %u is off the member (it must lie between 0 and %g m)", i + 1, L);
+          return FALSE;
+        }
+      if (spread && ld->a > ld->b)
+        {
+          g_set_error (error, TRB_ERROR, TRB_ERROR_INVALID,
+                       "Load %u starts after it ends (a = %g m > b = %g m)", i + 1, ld->a, ld->b);
+          return FALSE;
+        }
+    }
+  return TRUE;
+}
+
+/* carries the state at the start of a segment to its end (local coordinate h) */
+static inline void
+segment_advance (const TrbSegment *s,
+                 double            h,
+                 double            EI,
+                 double           *V,
+                 double           *M,
+                 double           *theta,
+                 double           *v)
+{
+  double w = s->w, dw = s->dw;
+
+  *V = s->V - h * (w + h * dw / 2.0);
+  *M = s->M + h * (s->V - h * (w / 2.0 + h * dw / 6.0));
+  *theta = s->theta + h * (s->M + h * (s->V / 2.0 - h * (w / 6.0 + h * dw / 24.0))) / EI;
+  *v = s->v + h * s->theta +
+       h * h * (s->M / 2.0 + h * (s->V / 6.0 - h * (w / 24.0 + h * dw / 120.0))) / EI;
+}
+
+/**
+ * trb_beam_solve:
+ * @beam: a beam
+ * @loads: (array length=n_loads): the loads of one load set
+ * @n_loads: their number
+ * @error: return location for a #GError
+ *
+ * Solves one load set exactly (to rounding) for the Euler-Bernoulli model. Positions within
+ * 1e-10 L outside the member are taken to be at its end.
+ *
+ * Returns: (transfer full): the result, or %NULL with %TRB_ERROR_INVALID naming the load
+ */
+TrbBeamResult *
+trb_beam_solve (const TrbBeam  *beam,
+                const TrbLoad  *loads,
+                guint           n_loads,
+                GError        **error)
+{
+  const double L = beam != NULL ? beam->length : 0;
+  const double EI = beam != NULL ? beam->EI : 0;
+  const TrbSupport *sup;
+  guint ns, nb_max, nb, nseg;
+  gsize n_scratch;
+  double stack[STACK_DOUBLES];
+  g_autofree double *heap = NULL;
+  double *scratch, *brk, *P, *m, *Ml, *Mr, *Vl, *Vr, *phi, *rhs, *RA, *RB, *FA, *FB;
+  guint *sidx;
+  double WL = 0, MoL = 0, WR = 0, MoR = 0;
+  TrbBeamResult *res;
+  TrbSegment *seg;
+
+  g_return_val_if_fail (beam != NULL, NULL);
+  g_return_val_if_fail (loads != NULL || n_loads == 0, NULL);
+  g_return_val_if_fail (error == NULL || *error == NULL, NULL);
+
+  if (!check_loads (beam, loads, n_loads, error))
+    return NULL;
+
+  sup = beam->supports;
+  ns = beam->n_supports;
+  nb_max = 2 + ns + 2 * n_loads;
+
+  /* scratch: positions and the jumps at each (3 nb_max), per-support quantities (10 ns) and
+   * the supports' break indices (ns guints, in the room of ns doubles) */
+  n_scratch = 3 * (gsize) nb_max + 11 * (gsize) ns;
+  if (n_scratch <= STACK_DOUBLES)
+    scratch = stack;
+  else
+    scratch = heap = g_new (double, n_scratch);
+  brk = scratch;
+  P = brk + nb_max;
+  m = P + nb_max;
+  Ml = m + nb_max;
+  Mr = Ml + ns;
+  Vl = Mr + ns;
+  Vr = Vl + ns;
+  phi = Vr + ns;
+  rhs = phi + ns;
+  RA = rhs + ns;
+  RB = RA + ns;
+  FA = RB + ns;
+  FB = FA + ns;
+  sidx = (guint *) (FB + ns);
+
+  /* the break points: the ends, the supports, every load's ends */
+  nb = 0;
+  brk[nb++] = 0;
+  brk[nb++] = L;
+  for (guint i = 0; i < ns; i++)
+    brk[nb++] = sup[i].x;
+  for (guint i = 0; i < n_loads; i++)
+    {
+      brk[nb++] = clamp_position (loads[i].a, L);
+      if (loads[i].kind == TRB_LOAD_UNIFORM || loads[i].kind == TRB_LOAD_LINEAR)
+        brk[nb++] = clamp_position (loads[i].b, L);
+    }
+  sort_doubles (brk, nb);
+  {
+    guint k = 1;
+
+    for (guint i = 1; i < nb; i++)
+      if (brk[i] != brk[k - 1])
+        brk[k++] = brk[i];
+    nb = k;
+  }
+  nseg = nb - 1;
+
+  res = result_alloc (L, EI, nb, ns);
+  memcpy (res->breaks, brk, nb * sizeof (double));
+  brk = res->breaks;
+  seg = res->segments;
+  for (guint k = 0; k < nseg; k++)
+    seg[k].x = brk[k];
+  memset (P, 0, nb * sizeof (double));
+  memset (m, 0, nb * sizeof (double));
+
+  /* loads onto the breaks (point forces, moments) and the segments (intensity, slope) */
+  for (guint i = 0; i < n_loads; i++)
+    {
+      const TrbLoad *ld = &loads[i];
+      double a = clamp_position (ld->a, L);
+
+      switch (ld->kind)
+        {
+        case TRB_LOAD_POINT:
+          P[find_break (brk, nb, a)] += ld->w1;
+          break;
+
+        case TRB_LOAD_MOMENT:
+          m[find_break (brk, nb, a)] += ld->w1;
+          break;
+
+        case TRB_LOAD_UNIFORM:
+        case TRB_LOAD_LINEAR:
+          {
+            double b = clamp_position (ld->b, L);
+            double w2 = ld->kind == TRB_LOAD_LINEAR ? ld->w2 : ld->w1;
+            double slope;
+
+            if (!(b > a))
+              break;  /* no length, no load */
+            slope = (w2 - ld->w1) / (b - a);
+            for (guint k = find_break (brk, nb, a); k < nseg && brk[k] < b; k++)
+              {
+                /* interpolated from the nearer end so that each end value is exact */
+                double wk = ld->w1;
+
+                if (slope != 0 && brk[k] != a)
+                  wk = (brk[k] - a <= b - brk[k]) ?
+                       ld->w1 + (w2 - ld->w1) * ((brk[k] - a) / (b - a)) :
+                       w2 - (w2 - ld->w1) * ((b - brk[k]) / (b - a));
+                seg[k].w += wk;
+                seg[k].dw += slope;
+              }
+          }
+          break;
+
+        default:
+          g_assert_not_reached ();
+        }
+    }
+
+  for (guint i = 0; i < ns; i++)
+    sidx[i] = find_break (brk, nb, sup[i].x);
+
+  /* The left overhang [0, s0): its load reaches s0 as a shear WL and a moment MoL = M(s0-). */
+  for (guint k = 0; k < sidx[0]; k++)
+    {
+      double s0 = sup[0].x;
+      double h = brk[k + 1] - brk[k];
+      double q0 = seg[k].w, q1 = seg[k].w + seg[k].dw * h;
+
+      WL += P[k];
+      MoL += m[k] - P[k] * (s0 - brk[k]);
+      if (q0 != 0 || q1 != 0)
+        {
+          WL += h * (q0 + q1) / 2.0;
+          MoL -= h * bernstein2 (q0, q1, s0 - brk[k], s0 - brk[k + 1]);
+        }
+    }
+
+  /* The right overhang (s_last, L]: WR = V(s_last+), MoR = M(s_last+). */
+  for (guint k = sidx[ns - 1] + 1; k < nb; k++)
+    {
+      double sn = sup[ns - 1].x;
+
+      WR += P[k];
+      MoR -= m[k] + P[k] * (brk[k] - sn);
+    }
+  for (guint k = sidx[ns - 1]; k < nseg; k++)
+    {
+      double sn = sup[ns - 1].x;
+      double h = brk[k + 1] - brk[k];
+      double q0 = seg[k].w, q1 = seg[k].w + seg[k].dw * h;
+
+      if (q0 != 0 || q1 != 0)
+        {
+          WR += h * (q0 + q1) / 2.0;
+          MoR -= h * bernstein2 (q0, q1, brk[k] - sn, brk[k + 1] - sn);
+        }
+    }
+
+  /* Each span: simple-beam reactions RA, RB (times l) and the fixed-end moments, sagging +,
+   * M_A = -FA / l^2 and M_B = -FB / l^2, from the closed forms
+   *   point P at a (u = l - a):  FA = P a u^2,  FB = P a^2 u;
+   *   clockwise moment m at a:   FA = -m u (2a - u),  FB = -m a (a - 2u);
+   *   intensity q over the span: FA = int q a u^2,  FB = int q a^2 u  (exact, see bernstein4). */
+  for (guint j = 0; j + 1 < ns; j++)
+    {
+      double xa = sup[j].x, xb = sup[j + 1].x;
+      double ra = 0, rb = 0, fa = 0, fb = 0;
+
+      for (guint k = sidx[j] + 1; k < sidx[j + 1]; k++)
+        {
+          double a = brk[k] - xa, u = xb - brk[k];
+
+          ra += P[k] * u - m[k];
+          rb += P[k] * a + m[k];
+          fa += P[k] * a * u * u - m[k] * u * (2.0 * a - u);
+          fb += P[k] * a * a * u - m[k] * a * (a - 2.0 * u);
+        }
+      for (guint k = sidx[j]; k < sidx[j + 1]; k++)
+        {
+          double h = brk[k + 1] - brk[k];
+          double q0 = seg[k].w, q1 = seg[k].w + seg[k].dw * h;
+          double a0, a1, u0, u1;
+
+          if (q0 == 0 && q1 == 0)
+            continue;
+          a0 = brk[k] - xa;
+          a1 = brk[k + 1] - xa;
+          u0 = xb - brk[k];
+          u1 = xb - brk[k + 1];
+          ra += h * bernstein2 (q0, q1, u0, u1);
+          rb += h * bernstein2 (q0, q1, a0, a1);
+          fa += h * bernstein4 (q0, q1, a0, a1, u0, u1, u0, u1);
+          fb += h * bernstein4 (q0, q1, a0, a1, a0, a1, u0, u1);
+        }
+      RA[j] = ra;
+      RB[j] = rb;
+      FA[j] = fa;
+      FB[j] = fb;
+    }
+
+  /* The rotations: K phi = rhs with phi = EI theta. At support i, equilibrium of moments is
+   * M(s_i-) - M(s_i+) + m_i = 0 (plus the support's couple if fixed), which in terms of the
+   * rotations reads 2/l' phi_(i-1) + (4/l' + 4/l) phi_i + 2/l phi_(i+1) = M_A - M_B' - m_i,
+   * M_B' the fixed-end moment at the right of the span on the left (or the left overhang's
+   * moment), M_A that at the left of the span on the right (or the right overhang's). */
+  for (guint i = 0; i < ns; i++)
+    {
+      double left, right;
+
+      if (sup[i].type == TRB_SUPPORT_FIXED)
+        {
+          rhs[i] = 0;
+          continue;
+        }
+      left = i > 0 ? -FB[i - 1] / ((sup[i].x - sup[i - 1].x) * (sup[i].x - sup[i - 1].x)) : MoL;
+      right = i + 1 < ns ? -FA[i] / ((sup[i + 1].x - sup[i].x) * (sup[i + 1].x - sup[i].x)) : MoR;
+      rhs[i] = right - left - m[sidx[i]];
+    }
+  for (guint i = 1; i < ns; i++)
+    rhs[i] -= beam->mult[i - 1] * rhs[i - 1];
+  for (guint i = 0; i < ns; i++)
+    phi[i] = rhs[i] / beam->pivot[i];
+  for (guint i = ns - 1; i-- > 0;)
+    phi[i] -= beam->mult[i] * phi[i + 1];
+  for (guint i = 0; i < ns; i++)
+    if (sup[i].type == TRB_SUPPORT_FIXED)
+      phi[i] = 0;
+
+  /* span end moments and shears from the slope-deflection equations */
+  for (guint j = 0; j + 1 < ns; j++)
+    {
+      double l = sup[j + 1].x - sup[j].x;
+      double d;
+
+      Ml[j] = -FA[j] / (l * l) - 2.0 * (2.0 * phi[j] + phi[j + 1]) / l;
+      Mr[j] = -FB[j] / (l * l) + 2.0 * (phi[j] + 2.0 * phi[j + 1]) / l;
+      /* At an outermost support that is not fixed the moment is known by statics alone;
+       * use that exact value rather than the solved one, equal to rounding. */
+      if (j == 0 && sup[0].type != TRB_SUPPORT_FIXED)
+        Ml[j] = MoL + m[sidx[0]];
+      if (j + 2 == ns && sup[ns - 1].type != TRB_SUPPORT_FIXED)
+        Mr[j] = MoR - m[sidx[ns - 1]];
+      d = (Mr[j] - Ml[j]) / l;
+      Vl[j] = RA[j] / l + d;
+      Vr[j] = -RB[j] / l + d;
+    }
+
+  /* reactions: the jump in V plus a point load right on the support; the couple of a fixed
+   * support from its moment equilibrium */
+  for (guint i = 0; i < ns; i++)
+    {
+      double Vminus = i > 0 ? Vr[i - 1] : -WL;
+      double Vplus = i + 1 < ns ? Vl[i] : WR;
+      TrbReaction *r = &res->reactions[i];
+
+      r->x = sup[i].x;
+      r->force = Vplus - Vminus + P[sidx[i]];
+      if (sup[i].type == TRB_SUPPORT_FIXED)
+        {
+          double Mminus = i > 0 ? Mr[i - 1] : MoL;
+          double Mplus = i + 1 < ns ? Ml[i] : MoR;
+
+          r->moment = Mminus - Mplus + m[sidx[i]];
+        }
+    }
+
+  /* the segments, swept left to right: the left overhang, each span, the right overhang */
+  {
+    double V = 0, M = 0, theta = 0, v = 0;
+    guint k0 = sidx[0];
+
+    /* left overhang: integrate with a provisional theta = v = 0 at x = 0, then shift so that
+     * v(s0) = 0 and theta(s0) matches the support */
+    for (guint k = 0; k < k0; k++)
+      {
+        V -= P[k];
+        M += m[k];
+        seg[k].V = V;
+        seg[k].M = M;
+        seg[k].theta = theta;
+        seg[k].v = v;
+        segment_advance (&seg[k], brk[k + 1] - brk[k], EI, &V, &M, &theta, &v);
+      }
+    if (k0 > 0)
+      {
+        double t0 = phi[0] / EI - theta;
+        double v_end = v;
+
+        for (guint k = 0; k < k0; k++)
+          {
+            seg[k].v = seg[k].v - v_end - t0 * (sup[0].x - brk[k]);
+            seg[k].theta += t0;
+          }
+      }
+
+    for (guint i = 0; i < ns; i++)
+      {
+        guint kend = i + 1 < ns ? sidx[i + 1] : nseg;
+
+        for (guint k = sidx[i]; k < kend; k++)
+          {
+            if (k == sidx[i])
+              {
+                V = i + 1 < ns ? Vl[i] : WR;
+                M = i + 1 < ns ? Ml[i] : MoR;
+                theta = phi[i] / EI;
+                v = 0;
+              }
+            else
+              {
+                V -= P[k];
+                M += m[k];
+              }
+            seg[k].V = V;
+            seg[k].M = M;
+            seg[k].theta = theta;
+            seg[k].v = v;
+            segment_advance (&seg[k], brk[k + 1] - brk[k], EI, &V, &M, &theta, &v);
+          }
+      }
+  }
+
+  return res;
+}
+
+/* ---- results ---- */
+
+/**
+ * trb_beam_result_combine:
+ * @results: (array length=n_results): results of the same beam
+ * @factors: (array length=n_results): their factors
+ * @n_results: their number, at least one
+ *
+ * Superposes results exactly: the break points are merged and the polynomials of each
+ * segment added with their factors. Results with a zero factor are left out.
+ *
+ * Returns: (transfer full): the combined result
+ */
+TrbBeamResult *
+trb_beam_result_combine (TrbBeamResult **results,
+                         const double   *factors,
+                         guint           n_results)
+{
+  guint cur_stack[16];
+  g_autofree guint *cur_heap = NULL;
+  guint *cur;
+  guint total = 0, nb = 0;
+  const TrbBeamResult *first;
+  TrbBeamResult *res;
+
+  g_return_val_if_fail (results != NULL && factors != NULL && n_results > 0, NULL);
+
+  first = results[0];
+  for (guint r = 0; r < n_results; r++)
+    {
+      g_return_val_if_fail (results[r] != NULL, NULL);
+      g_return_val_if_fail (results[r]->length == first->length, NULL);
+      g_return_val_if_fail (results[r]->n_reactions == first->n_reactions, NULL);
+      total += results[r]->n_breaks;
+    }
+
+  cur = n_results <= G_N_ELEMENTS (cur_stack) ? cur_stack : (cur_heap = g_new (guint, n_results));
+
+  /* count the merged breaks: a k-way merge over the results that count */
+  for (guint r = 0; r < n_results; r++)
+    cur[r] = 0;
+  for (;;)
+    {
+      double x = INFINITY;
+
+      for (guint r = 0; r < n_results; r++)
+        if (factors[r] != 0 && cur[r] < results[r]->n_breaks && results[r]->breaks[cur[r]] < x)
+          x = results[r]->breaks[cur[r]];
+      if (x == INFINITY)
+        break;
+      nb++;
+      for (guint r = 0; r < n_results; r++)
+        if (factors[r] != 0 && cur[r] < results[r]->n_breaks && results[r]->breaks[cur[r]] == x)
+          cur[r]++;
+    }
+  if (nb < 2)
+    {
+      /* every factor is zero: a zero result on the same breaks as the first */
+      res = result_alloc (first->length, first->EI, first->n_breaks, first->n_reactions);
+      memcpy (res->breaks, first->breaks, first->n_breaks * sizeof (double));
+      for (guint k = 0; k + 1 < first->n_breaks; k++)
+        res->segments[k].x = first->breaks[k];
+      for (guint i = 0; i < first->n_reactions; i++)
+        res->reactions[i].x = first->reactions[i].x;
+      return res;
+    }
+
+  res = result_alloc (first->length, first->EI, nb, first->n_reactions);
+  for (guint r = 0; r < n_results; r++)
+    cur[r] = 0;
+  nb = 0;
+  for (;;)
+    {
+      double x = INFINITY;
+
+      for (guint r = 0; r < n_results; r++)
+        if (factors[r] != 0 && cur[r] < results[r]->n_breaks && results[r]->breaks[cur[r]] < x)
+          x = results[r]->breaks[cur[r]];
+      if (x == INFINITY)
+        break;
+      res->breaks[nb++] = x;
+      for (guint r = 0; r < n_results; r++)
+        if (factors[r] != 0 && cur[r] < results[r]->n_breaks && results[r]->breaks[cur[r]] == x)
+          cur[r]++;
+    }
+
+  /* each merged segment: every result's state at its start (a Taylor shift of that result's
+   * own polynomials, which is exact), scaled and added */
+  for (guint r = 0; r < n_results; r++)
+    cur[r] = 0;
+  for (guint k = 0; k + 1 < nb; k++)
+    {
+      TrbSegment *s = &res->segments[k];
+      double x = res->breaks[k];
+
+      s->x = x;
+      for (guint r = 0; r < n_results; r++)
+        {
+          const TrbBeamResult *src = results[r];
+          const TrbSegment *ss;
+          double f = factors[r], t, V, M, theta, v;
+
+          if (f == 0)
+            continue;
+          while (cur[r] + 2 < src->n_breaks && src->breaks[cur[r] + 1] <= x)
+            cur[r]++;
+          ss = &src->segments[cur[r]];
+          t = x - src->breaks[cur[r]];
+          if (t == 0)
+            {
+              V = ss->V;
+              M = ss->M;
+              theta = ss->theta;
+              v = ss->v;
+            }
+          else
+            segment_advance (ss, t, src->EI, &V, &M, &theta, &v);
+          s->w += f * (ss->w + ss->dw * t);
+          s->dw += f * ss->dw;
+          s->V += f * V;
+          s->M += f * M;
+          s->theta += f * theta;
+          s->v += f * v;
+        }
+    }
+
+  for (guint i = 0; i < first->n_reactions; i++)
+    {
+      res->reactions[i].x = first->reactions[i].x;
+      for (guint r = 0; r < n_results; r++)
+        {
+          res->reactions[i].force += factors[r] * results[r]->reactions[i].force;
+          res->reactions[i].moment += factors[r] * results[r]->reactions[i].moment;
+        }
+    }
+
+  return res;
+}
+
+TrbBeamResult *
+trb_beam_result_copy (const TrbBeamResult *result)
+{
+  TrbBeamResult *copy;
+
+  g_return_val_if_fail (result != NULL, NULL);
+
+  copy = g_memdup2 (result, result->size);
+  result_set_pointers (copy);
+  return copy;
+}
+
+void
+trb_beam_result_free (TrbBeamResult *result)
+{
+  g_free (result);
+}
+
+const TrbReaction *
+trb_beam_result_get_reactions (const TrbBeamResult *result,
+                               guint               *n_reactions)
+{
+  g_return_val_if_fail (result != NULL, NULL);
+
+  if (n_reactions != NULL)
+    *n_reactions = result->n_reactions;
+  return result->reactions;
+}
+
+double
+trb_beam_result_get_length (const TrbBeamResult *result)
+{
+  g_return_val_if_fail (result != NULL, 0);
+
+  return result->length;
+}
+
+const double *
+trb_beam_result_get_breaks (const TrbBeamResult *result,
+                            guint               *n_breaks)
+{
+  g_return_val_if_fail (result != NULL, NULL);
+
+  if (n_breaks != NULL)
+    *n_breaks = result->n_breaks;
+  return result->breaks;
+}
+
+static inline void
+segment_eval (const TrbSegment *s,
+              double            t,
+              double            EI,
+              TrbBeamValues    *out)
+{
+  double V, M, theta, v;
+
+  segment_advance (s, t, EI, &V, &M, &theta, &v);
+  out->V = V;
+  out->M = M;
+  out->theta = theta;
+  out->defl = -v;
+}
+
+void
+trb_beam_result_eval (const TrbBeamResult *result,
+                      double               x,
+                      TrbSide              side,
+                      TrbBeamValues       *out)
+{
+  guint k;
+
+  g_return_if_fail (result != NULL);
+  g_return_if_fail (out != NULL);
+
+  if (!(x > 0))
+    x = 0;
+  if (x > result->length)
+    x = result->length;
+
+  k = find_segment (result, x, side);
+  segment_eval (&result->segments[k], x - result->breaks[k], result->EI, out);
+
+  /* beyond the ends no force passes: V and M are zero there, theta and v continue */
+  if ((x == 0 && side == TRB_SIDE_LEFT) || (x == result->length && side == TRB_SIDE_RIGHT))
+    {
+      out->V = 0;
+      out->M = 0;
+    }
+}
+
+void
+trb_beam_result_sample (const TrbBeamResult *result,
+                        guint                n,
+                        double              *x,
+                        TrbBeamValues       *values)
+{
+  guint k = 0;
+  double L;
+
+  g_return_if_fail (result != NULL);
+  g_return_if_fail (n >= 2);
+  g_return_if_fail (x != NULL && values != NULL);
+
+  L = result->length;
+  for (guint i = 0; i < n; i++)
+    {
+      double xi = i + 1 == n ? L : L * ((double) i / (double) (n - 1));
+
+      /* the right value at a jump; at L the left one, the only one on the member (the last
+       * segment ends at L, so it is never passed) */
+      while (k + 2 < result->n_breaks && result->breaks[k + 1] <= xi)
+        k++;
+      x[i] = xi;
+      segment_eval (&result->segments[k], xi - result->breaks[k], result->EI, &values[i]);
+    }
+}
+
+/* ---- extremes ---- */
+
+typedef struct
+{
+  TrbBeamExtremes e;
+  double          down;  /* the largest downward deflection seen, may be negative */
+  double          down_x;
+  double          up;    /* the largest upward deflection seen, may be negative */
+  double          up_x;
+} ExtremeAcc;
+
+static inline void
+acc_V (ExtremeAcc *acc, double V, double x)
+{
+  if (V > acc->e.V_max)
+    {
+      acc->e.V_max = V;
+      acc->e.V_max_x = x;
+    }
+  if (V < acc->e.V_min)
+    {
+      acc->e.V_min = V;
+      acc->e.V_min_x = x;
+    }
+}
+
+static inline void
+acc_M (ExtremeAcc *acc, double M, double x)
+{
+  if (M > acc->e.M_max)
+    {
+      acc->e.M_max = M;
+      acc->e.M_max_x = x;
+    }
+  if (M < acc->e.M_min)
+    {
+      acc->e.M_min = M;
+      acc->e.M_min_x = x;
+    }
+}
+
+static inline void
+acc_defl (ExtremeAcc *acc, double defl, double x)
+{
+  if (defl > acc->down)
+    {
+      acc->down = defl;
+      acc->down_x = x;
+    }
+  if (-defl > acc->up)
+    {
+      acc->up = -defl;
+      acc->up_x = x;
+    }
+}
+
+static inline void
+acc_values (ExtremeAcc *acc, const TrbBeamValues *val, double x)
+{
+  acc_V (acc, val->V, x);
+  acc_M (acc, val->M, x);
+  acc_defl (acc, val->defl, x);
+}
+
+/* the roots of c0 + c1 t + c2 t^2 strictly inside (lo, hi), sorted; returns their number */
+static guint
+quadratic_roots (double c0,
+                 double c1,
+                 double c2,
+                 double lo,
+                 double hi,
+                 double roots[2])
+{
+  double r[2];
+  guint n = 0, k = 0;
+
+  if (c2 == 0)
+    {
+      if (c1 != 0)
+        r[n++] = -c0 / c1;
+    }
+  else
+    {
+      double disc = c1 * c1 - 4.0 * c2 * c0;
+
+      if (disc >= 0)
+        {
+          /* the form without cancellation */
+          double q = -0.5 * (c1 + copysign (sqrt (disc), c1));
+
+          r[n++] = q / c2;
+          if (q != 0)
+            r[n++] = c0 / q;
+        }
+    }
+  if (n == 2 && r[0] > r[1])
+    {
+      double t = r[0];
+      r[0] = r[1];
+      r[1] = t;
+    }
+  for (guint i = 0; i < n; i++)
+    if (r[i] > lo && r[i] < hi && (k == 0 || r[i] > roots[k - 1]))
+      roots[k++] = r[i];
+  return k;
+}
+
+/* Local polynomials of one segment, for root finding. */
+typedef struct
+{
+  const TrbSegment *s;
+  double            EI;
+} SegPoly;
+
+static inline double
+poly_M (const SegPoly *p, double t)
+{
+  const TrbSegment *s = p->s;
+
+  return s->M + t * (s->V - t * (s->w / 2.0 + t * s->dw / 6.0));
+}
+
+static inline double
+poly_V (const SegPoly *p, double t)
+{
+  const TrbSegment *s = p->s;
+
+  return s->V - t * (s->w + t * s->dw / 2.0);
+}
+
+/* EI theta, so that its derivative is M */
+static inline double
+poly_EItheta (const SegPoly *p, double t)
+{
+  const TrbSegment *s = p->s;
+
+  return p->EI * s->theta + t * (s->M + t * (s->V / 2.0 - t * (s->w / 6.0 + t * s->dw / 24.0)));
+}
+
+/* The root of a monotone f on [lo, hi] with f(lo), f(hi) of strictly opposite signs:
+ * Newton steps kept inside a shrinking bracket, with a bisection whenever a step would leave
+ * the bracket or the bracket has not halved over two steps. Stops when a step is below the
+ * resolution of x (scale is the size of the global coordinate), or the bracket is. */
+static double
+bracketed_root (double (*f) (const SegPoly *, double),
+                double (*df) (const SegPoly *, double),
+                const SegPoly *p,
+                double lo,
+                double hi,
+                double flo,
+                double scale)
+{
+  double tol = 2.0 * DBL_EPSILON * scale;
+  double t = 0.5 * (lo + hi);
+  double width_before = 2.0 * (hi - lo);
+
+  for (int it = 0; it < 300; it++)
+    {
+      double ft = f (p, t);
+      double d, tn;
+
+      if (ft == 0)
+        return t;
+      if ((ft < 0) == (flo < 0))
+        {
+          lo = t;
+          flo = ft;
+        }
+      else
+        hi = t;
+      if (hi - lo <= tol)
+        return 0.5 * (lo + hi);
+
+      d = df (p, t);
+      tn = d != 0 ? t - ft / d : NAN;
+      if (!(tn > lo && tn < hi) || (it % 2 == 1 && hi - lo > 0.5 * width_before))
+        tn = 0.5 * (lo + hi);
+      else if (fabs (tn - t) <= tol)
+        return tn;
+      if (it % 2 == 1)
+        width_before = hi - lo;
+      t = tn;
+    }
+  return t;
+}
+
+/* One piece [t0, t1] of a segment, t0 < t1. The ends are counted by the caller. */
+static void
+piece_extremes (const TrbSegment *s,
+                double            x0,
+                double            t0,
+                double            t1,
+                double            EI,
+                ExtremeAcc       *acc)
+{
+  SegPoly p = { s, EI };
+  double vroots[2], cuts[4], mroots[3], mcuts[5];
+  guint nv, nc, nm = 0, nmc;
+
+  /* V: its extreme where the intensity w + dw t changes sign */
+  if (s->dw != 0)
+    {
+      double t = -s->w / s->dw;
+
+      if (t > t0 && t < t1)
+        acc_V (acc, poly_V (&p, t), x0 + t);
+    }
+
+  /* M: extremes at the roots of V, a quadratic, in closed form */
+  nv = quadratic_roots (s->V, -s->w, -s->dw / 2.0, t0, t1, vroots);
+  for (guint i = 0; i < nv; i++)
+    acc_M (acc, poly_M (&p, vroots[i]), x0 + vroots[i]);
+
+  /* deflection: extremes at the roots of theta, a quartic. Between consecutive roots of V,
+   * M is monotone and has at most one root; between consecutive roots of M, theta is
+   * monotone and has at most one root. Each is bracketed and polished to machine
+   * precision. */
+  nc = 0;
+  cuts[nc++] = t0;
+  for (guint i = 0; i < nv; i++)
+    cuts[nc++] = vroots[i];
+  cuts[nc++] = t1;
+  for (guint i = 0; i + 1 < nc; i++)
+    {
+      double a = cuts[i], b = cuts[i + 1];
+      double fa = poly_M (&p, a), fb = poly_M (&p, b);
+
+      if ((fa < 0 && fb > 0) || (fa > 0 && fb < 0))
+        mroots[nm++] = bracketed_root (poly_M, poly_V, &p, a, b, fa, fabs (x0) + t1);
+    }
+  nmc = 0;
+  mcuts[nmc++] = t0;
+  for (guint i = 0; i < nm; i++)
+    mcuts[nmc++] = mroots[i];
+  mcuts[nmc++] = t1;
+  for (guint i = 0; i + 1 < nmc; i++)
+    {
+      double a = mcuts[i], b = mcuts[i + 1];
+      double fa = poly_EItheta (&p, a), fb = poly_EItheta (&p, b);
+
+      if ((fa < 0 && fb > 0) || (fa > 0 && fb < 0))
+        {
+          double t = bracketed_root (poly_EItheta, poly_M, &p, a, b, fa, fabs (x0) + t1);
+          TrbBeamValues val;
+
+          segment_eval (s, t, EI, &val);
+          acc_defl (acc, val.defl, x0 + t);
+        }
+    }
+}
+
+void
+trb_beam_result_extremes (const TrbBeamResult *result,
+                          double               a,
+                          double               b,
+                          TrbBeamExtremes     *out)
+{
+  ExtremeAcc acc;
+  TrbBeamValues val;
+  double L;
+  guint k;
+
+  g_return_if_fail (result != NULL);
+  g_return_if_fail (out != NULL);
+
+  L = result->length;
+  a = isnan (a) ? 0 : CLAMP (a, 0.0, L);
+  b = isnan (b) ? L : CLAMP (b, 0.0, L);
+  if (b < a)
+    b = a;
+
+  /* seed with the value just inside a */
+  trb_beam_result_eval (result, a, a < L ? TRB_SIDE_RIGHT : TRB_SIDE_LEFT, &val);
+  acc.e.V_max = acc.e.V_min = val.V;
+  acc.e.V_max_x = acc.e.V_min_x = a;
+  acc.e.M_max = acc.e.M_min = val.M;
+  acc.e.M_max_x = acc.e.M_min_x = a;
+  acc.down = val.defl;
+  acc.up = -val.defl;
+  acc.down_x = acc.up_x = a;
+
+  if (a == b)
+    {
+      /* a single point: both sides of it, where they are on the member */
+      if (a > 0 && a < L)
+        {
+          trb_beam_result_eval (result, a, TRB_SIDE_LEFT, &val);
+          acc_values (&acc, &val, a);
+        }
+    }
+  else
+    {
+      for (k = find_segment (result, a, TRB_SIDE_RIGHT);
+           k + 1 < result->n_breaks && result->breaks[k] < b; k++)
+        {
+          const TrbSegment *s = &result->segments[k];
+          double x0 = result->breaks[k];
+          double xs = MAX (a, x0), xe = MIN (b, result->breaks[k + 1]);
+          double t0 = xs - x0, t1 = xe - x0;
+
+          if (!(t1 > t0))
+            continue;
+          segment_eval (s, t0, result->EI, &val);
+          acc_values (&acc, &val, xs);
+          segment_eval (s, t1, result->EI, &val);
+          acc_values (&acc, &val, xe);
+          piece_extremes (s, x0, t0, t1, result->EI, &acc);
+        }
+    }
+
+  *out = acc.e;
+  if (acc.down > 0)
+    {
+      out->defl_down = acc.down;
+      out->defl_down_x = acc.down_x;
+    }
+  else
+    {
+      out->defl_down = 0;
+      out->defl_down_x = a;
+    }
+  if (acc.up > 0)
+    {
+      out->defl_up = acc.up;
+      out->defl_up_x = acc.up_x;
+    }
+  else
+    {
+      out->defl_up = 0;
+      out->defl_up_x = a;
+    }
+}

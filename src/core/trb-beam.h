@@ -20,7 +20,12 @@ G_BEGIN_DECLS
  *   puts on the beam, positive counter-clockwise;
  * - V(x) is the sum of the upward forces left of x; M is positive sagging;
  * - theta is the slope of the upward displacement (counter-clockwise rotation positive);
- * - deflection is positive downward. */
+ * - deflection is positive downward.
+ *
+ * The model: Euler-Bernoulli bending, small deflections, no shear deformation and no axial
+ * action (so a roller holds the member exactly as a pin does, and two rollers make a stable
+ * member). Supports are rigid; there is no settlement. Positions within 1e-10 L outside the
+ * member (supports and loads) are taken to be at its end. */
 
 typedef enum
 {
@@ -41,6 +46,7 @@ typedef enum
   TRB_LOAD_UNIFORM,  /* [a, b], w1 = w (N/m, down +) */
   TRB_LOAD_LINEAR,   /* [a, b], w1 at a, w2 at b (N/m, down +) */
   TRB_LOAD_MOMENT,   /* a = position, w1 = m (N*m, clockwise +) */
+  /* b is read for UNIFORM and LINEAR only; w2 for LINEAR only. */
 } TrbLoadKind;
 
 typedef struct
@@ -110,30 +116,40 @@ TrbBeamResult    *trb_beam_solve             (const TrbBeam      *beam,
                                               guint               n_loads,
                                               GError            **error);
 
-/* factors[i] * results[i], summed: exact superposition of results of the same beam. */
+/* factors[i] * results[i], summed: exact superposition of results of the same beam
+ * (n_results >= 1; results with a zero factor add nothing, not even break points). */
 TrbBeamResult    *trb_beam_result_combine    (TrbBeamResult     **results,
                                               const double       *factors,
                                               guint               n_results);
 TrbBeamResult    *trb_beam_result_copy       (const TrbBeamResult *result);
 void              trb_beam_result_free       (TrbBeamResult      *result);
 
+double            trb_beam_result_get_length (const TrbBeamResult *result);
+
 /* One reaction per support, sorted by x. */
 const TrbReaction *trb_beam_result_get_reactions (const TrbBeamResult *result,
                                                   guint               *n_reactions);
 
+/* The values at x (clamped to [0, L]): the limit from the given side. V and M are zero beyond
+ * the ends (x = 0 from the left, x = L from the right), so a diagram drawn from break to break
+ * closes on its ends; theta and the deflection are continuous everywhere. */
 void              trb_beam_result_eval       (const TrbBeamResult *result,
                                               double               x,
                                               TrbSide              side,
                                               TrbBeamValues       *out);
 
 /* Extremes over [a, b] (a <= b, clamped to the member), counting the left and right values at
- * every jump inside the interval. */
+ * every jump inside the interval, and at its ends the values inside it (the right value at a,
+ * the left one at b; both where a == b, except beyond the member's ends). Interior extremes
+ * are the exact roots of the derivative: of w for V, of V (a quadratic) for M, of theta (a
+ * quartic) for the deflection. */
 void              trb_beam_result_extremes   (const TrbBeamResult *result,
                                               double               a,
                                               double               b,
                                               TrbBeamExtremes     *out);
 
-/* n >= 2 evenly spaced points from 0 to L inclusive, for drawing. */
+/* n >= 2 evenly spaced points from 0 to L inclusive, for drawing: at a jump the right value,
+ * at L the left one. Draw jumps from trb_beam_result_get_breaks. */
 void              trb_beam_result_sample     (const TrbBeamResult *result,
                                               guint                n,
                                               double              *x,
