@@ -25,11 +25,13 @@ typedef struct
   GError    **error;
 } Loader;
 
-/* What the DOCTYPE guard saw; reached from the parser context's _private. */
+/* What the DOCTYPE guard saw, and the parser's own element handler; reached from the parser
+ * context's _private. */
 typedef struct
 {
-  gboolean doctype;
-  int      line;
+  gboolean               doctype;
+  int                    line;
+  startElementNsSAX2Func start_element;
 } Guard;
 
 static gboolean G_GNUC_PRINTF (4, 5)
@@ -300,8 +302,16 @@ check_no_text (Loader  *ld,
 
       for (; s != NULL && *s != '\0'; s++)
         if (!g_ascii_isspace (*s))
-          return fail_at (ld, node_line (child) > 0 ? node_line (child) : node_line (parent),
-                          TRB_ERROR_INVALID, "unexpected text inside <%s>", NAME (parent));
+          {
+            /* a text node carries the line where it ends; count back to where it shows */
+            int line = node_line (child);
+
+            for (const char *t = s; *t != '\0'; t++)
+              if (*t == '\n')
+                line--;
+            return fail_at (ld, line > 0 ? line : node_line (parent), TRB_ERROR_INVALID,
+                            "unexpected text inside <%s>", NAME (parent));
+          }
       return TRUE;
     }
   if (child->type == XML_CDATA_SECTION_NODE || child->type == XML_ENTITY_REF_NODE)
@@ -831,6 +841,45 @@ on_internal_subset (void          *ctx,
   xmlStopParser (ctxt);
 }
 
+/* libxml2 gives an element the line where its start tag ends; a message about a tag written
+ * over several lines should point at the line where it starts. The parser is just past the
+ * tag's attributes here, and a well-formed tag holds no "<" (not even in its attribute
+ * values), so the nearest "<" behind is the tag's start. */
+static void
+on_start_element (void           *ctx,
+                  const xmlChar  *localname,
+                  const xmlChar  *prefix,
+                  const xmlChar  *uri,
+                  int             nb_namespaces,
+                  const xmlChar **namespaces,
+                  int             nb_attributes,
+                  int             nb_defaulted,
+                  const xmlChar **attributes)
+{
+  xmlParserCtxt *ctxt = ctx;
+  Guard *guard = ctxt->_private;
+  xmlParserInput *in = ctxt->input;
+
+  guard->start_element (ctx, localname, prefix, uri, nb_namespaces, namespaces, nb_attributes,
+                        nb_defaulted, attributes);
+
+  if (ctxt->node != NULL && in != NULL && in->cur != NULL && in->base != NULL &&
+      in->cur > in->base)
+    {
+      const xmlChar *p = in->cur;
+      unsigned int newlines = 0;
+
+      while (p > in->base && *p != '<')
+        {
+          p--;
+          if (*p == '\n')
+            newlines++;
+        }
+      if (*p == '<' && ctxt->node->line > newlines && ctxt->node->line < 65535)
+        ctxt->node->line -= newlines;
+    }
+}
+
 /**
  * trb_project_load_data:
  * @data: (array length=length): the file's bytes
@@ -854,7 +903,7 @@ trb_project_load_data (const char  *data,
   g_autoptr(xmlDoc) doc = NULL;
   g_autoptr(TrbProject) project = NULL;
   Loader ld = { display_name != NULL ? display_name : "(project)", error };
-  Guard guard = { FALSE, 0 };
+  Guard guard = { FALSE, 0, NULL };
   xmlNode *root;
   int rc;
 
@@ -885,6 +934,9 @@ trb_project_load_data (const char  *data,
   ctxt->_private = &guard;
   ctxt->sax->internalSubset = on_internal_subset;
   ctxt->sax->externalSubset = NULL;
+  guard.start_element = ctxt->sax->startElementNs;
+  if (guard.start_element != NULL && ctxt->sax->initialized == XML_SAX2_MAGIC)
+    ctxt->sax->startElementNs = on_start_element;
 
   rc = xmlParseDocument (ctxt);
   doc = g_steal_pointer (&ctxt->myDoc);
