@@ -514,7 +514,8 @@ table_reactions (GString               *out,
   for (guint i = 0; i < n; i++)
     fixed |= s[i].type == TRB_SUPPORT_FIXED;
 
-  g_string_append_printf (out, "  Reactions, up +%s\n", fixed ? " (moments counter-clockwise +)" : "");
+  g_string_append_printf (out, "  Reactions, up +%s\n",
+                          fixed ? " (M: moments, counter-clockwise +)" : "");
   g_string_append (out, "    case ");
   for (guint i = 0; i < n; i++)
     {
@@ -543,7 +544,7 @@ table_reactions (GString               *out,
       g_string_append_c (out, '\n');
       if (fixed)
         {
-          g_string_append (out, "         ");
+          g_string_append (out, "      M  ");
           for (guint i = 0; i < nr; i++)
             {
               g_autofree char *mo = s[i].type == TRB_SUPPORT_FIXED
@@ -598,8 +599,10 @@ table_envelope (GString                 *out,
     g_autofree char *dd = fmt_defl (e->defl_down, u);
     g_autofree char *du = fmt_defl (e->defl_up, u);
 
-    table_line (out, "deflection down", dd, e->defl_down_x, e->defl_down > 0 ? env->defl_down_by : "", u);
-    if (e->defl_up > 0)
+    /* below a nanometre is rounding, not a movement worth a line */
+    table_line (out, "deflection down", dd, e->defl_down_x,
+                e->defl_down > 1e-9 ? env->defl_down_by : "", u);
+    if (e->defl_up > 1e-9)
       table_line (out, "deflection up", du, e->defl_up_x, env->defl_up_by, u);
   }
 }
