@@ -499,7 +499,7 @@ check_loads (const TrbBeam  *beam,
                        "Load %u is off the member (it must lie between 0 and %g m)", i + 1, L);
           return FALSE;
         }
-      if (spread && ld->a > ld->b)
+      if (spread && ld->a > ld->b + tol)
         {
           g_set_error (error, TRB_ERROR, TRB_ERROR_INVALID,
                        "Load %u starts after it ends (a = %g m > b = %g m)", i + 1, ld->a, ld->b);
@@ -1122,7 +1122,8 @@ trb_beam_result_sample (const TrbBeamResult *result,
   L = result->length;
   for (guint i = 0; i < n; i++)
     {
-      double xi = i + 1 == n ? L : L * ((double) i / (double) (n - 1));
+      /* L i / (n - 1) in this order is exact whenever the point is representable */
+      double xi = i + 1 == n ? L : (L * (double) i) / (double) (n - 1);
 
       /* the right value at a jump; at L the left one, the only one on the member (the last
        * segment ends at L, so it is never passed) */
