@@ -771,6 +771,10 @@ load_root (Loader     *ld,
   gint64 fmt;
   int settings_line = 0;
 
+  if (root->ns != NULL && strcmp (NAME (root), "trabeate-project") == 0)
+    return fail_at (ld, node_line (root), TRB_ERROR_INVALID,
+                    "<trabeate-project> is in an XML namespace; format %d uses none",
+                    TRB_PROJECT_FORMAT);
   if (!is_element (root, "trabeate-project"))
     return fail_at (ld, node_line (root), TRB_ERROR_INVALID,
                     "the root element is <%s>; a project file starts with <trabeate-project>",
