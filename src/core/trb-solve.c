@@ -317,10 +317,16 @@ live_label (const TrbMemberResult *r)
   return r->has_case[TRB_CASE_L] ? "L" : "Lr";
 }
 
-/* The analysis: returns FALSE with the status set when the member cannot be analysed. */
+/* The analysis with a given stiffness and self-weight (N/m, added to D); with E or I NAN only
+ * the stability is checked. Returns FALSE, with the status set when something is wrong, when
+ * there is nothing more to do. The design step, once it sizes catalog sections, runs this
+ * for each section it tries, with that section's E, I and weight, on a fresh result. */
 static gboolean
 analyse (const TrbProject *project,
          const TrbMember  *m,
+         double            E,
+         double            I,
+         double            self_weight,
          TrbMemberResult  *r)
 {
   g_autoptr(GError) error = NULL;
@@ -329,7 +335,7 @@ analyse (const TrbProject *project,
   guint n_beam_supports;
   RegionResults rr = { { NULL } };
   gboolean use_patterns;
-  gboolean known = !isnan (m->E) && !isnan (m->I);
+  gboolean known = !isnan (E) && !isnan (I);
 
   supports = g_new0 (TrbSupport, MAX (m->supports->len, 1));
   for (guint i = 0; i < m->supports->len; i++)
@@ -343,7 +349,7 @@ analyse (const TrbProject *project,
 
   /* Stability does not depend on E and I, so a member whose section is not known yet is
    * still told that it is a mechanism. */
-  r->beam = trb_beam_new (m->length, known ? m->E : 1.0, known ? m->I : 1.0,
+  r->beam = trb_beam_new (m->length, known ? E : 1.0, known ? I : 1.0,
                           supports, m->supports->len, &error);
   if (r->beam == NULL)
     {
@@ -361,13 +367,9 @@ analyse (const TrbProject *project,
       g_clear_pointer (&r->beam, trb_beam_free);
       return FALSE;
     }
-  r->E = m->E;
-  r->I = m->I;
-
-  if (project->settings.self_weight)
-    r->self_weight = custom_self_weight (m, r->notes);
-  else
-    g_ptr_array_add (r->notes, g_strdup ("self-weight excluded by the project settings"));
+  r->E = E;
+  r->I = I;
+  r->self_weight = self_weight;
 
   for (guint c = 0; c < TRB_N_CASES; c++)
     {
@@ -655,11 +657,19 @@ trb_solve_member (const TrbProject *project,
                   const TrbMember  *member)
 {
   TrbMemberResult *r;
+  double self_weight = 0;
 
   g_return_val_if_fail (project != NULL && member != NULL, NULL);
 
   r = member_result_new (project, member);
-  if (!analyse (project, member, r))
+  if (!project->settings.self_weight)
+    g_ptr_array_add (r->notes, g_strdup ("self-weight excluded by the project settings"));
+  else if (trb_member_is_custom (member))
+    self_weight = custom_self_weight (member, r->notes);
+
+  /* A custom section brings its E and I; a catalog section or "auto" gets them from the
+   * design step, so here only its stability is known. */
+  if (!analyse (project, member, member->E, member->I, self_weight, r))
     {
       if (r->status == TRB_STATUS_NOT_DESIGNED)
         design (project, member, r);
