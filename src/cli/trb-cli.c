@@ -685,8 +685,9 @@ table_member (GString               *out,
 
   table_reactions (out, r);
   {
-    g_autofree char *title = g_strdup_printf ("Envelope of the %s%s", trb_combo_set_title (r->strength.set),
-                                              r->patterns->len > 0 ? ", with live-load patterns" : "");
+    g_autofree char *title =
+      g_strdup_printf ("Envelope of the %s%s", trb_combo_set_title (r->strength.set),
+                       r->patterns->len > 0 ? ", with live-load patterns" : "");
     table_envelope (out, &r->strength, TRUE, title, u);
   }
   table_envelope (out, &r->live, FALSE, "Live-load deflection (service)", u);

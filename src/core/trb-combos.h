@@ -18,7 +18,7 @@ typedef enum
 {
   TRB_COMBO_SET_LRFD,     /* ASCE 7-16 §2.3.1, strength design */
   TRB_COMBO_SET_ASD,      /* ASCE 7-16 §2.4.1, allowable strength design */
-  TRB_COMBO_SET_SERVICE,  /* unfactored D + L, D + Lr, D + S for the classic allowable-stress method */
+  TRB_COMBO_SET_SERVICE,  /* unfactored D + L, D + Lr, D + S: classic allowable stress */
   TRB_COMBO_SET_LIVE,     /* L, Lr, S alone: the live-load deflection */
   TRB_COMBO_SET_TOTAL,    /* D + L ... : the total-load deflection */
 } TrbComboSet;
