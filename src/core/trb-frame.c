@@ -161,7 +161,8 @@ axis_position (const Axis          *axis,
   double x, v;
 
   axis_to_local (axis, p, &x, &v);
-  return CLAMP (x, 0.0, axis->length);
+  /* + 0.0 turns -0 (a point on the start of a member running towards -x or -y) into 0 */
+  return CLAMP (x, 0.0, axis->length) + 0.0;
 }
 
 static gboolean
@@ -201,6 +202,250 @@ format_length (double metres)
   char buf[G_ASCII_DTOSTR_BUF_SIZE];
 
   return g_strdup (g_ascii_formatd (buf, sizeof buf, "%.3f", metres));
+}
+
+/* ---- a uniform grid over boxes, so that "what lies near here" does not scan the plan ---- */
+
+typedef struct
+{
+  double x0, y0, x1, y1;
+} Box;
+
+typedef struct
+{
+  double  ox, oy, cell;
+  guint   nx, ny;
+  guint  *start;   /* per cell, into items; nx * ny + 1 */
+  guint  *items;
+  guint  *stamp;   /* per item: the last query that saw it */
+  guint   n_items;
+  guint   query;
+} Grid;
+
+static Box
+segment_box (const TrbFramePoint *a,
+             const TrbFramePoint *b,
+             double               margin)
+{
+  Box box = { MIN (a->x, b->x) - margin, MIN (a->y, b->y) - margin,
+              MAX (a->x, b->x) + margin, MAX (a->y, b->y) + margin };
+
+  return box;
+}
+
+static void
+grid_cells (const Grid *grid,
+            const Box  *box,
+            guint      *cx0,
+            guint      *cy0,
+            guint      *cx1,
+            guint      *cy1)
+{
+  double fx0 = floor ((box->x0 - grid->ox) / grid->cell);
+  double fy0 = floor ((box->y0 - grid->oy) / grid->cell);
+  double fx1 = floor ((box->x1 - grid->ox) / grid->cell);
+  double fy1 = floor ((box->y1 - grid->oy) / grid->cell);
+
+  *cx0 = (guint) CLAMP (fx0, 0.0, grid->nx - 1.0);
+  *cy0 = (guint) CLAMP (fy0, 0.0, grid->ny - 1.0);
+  *cx1 = (guint) CLAMP (fx1, 0.0, grid->nx - 1.0);
+  *cy1 = (guint) CLAMP (fy1, 0.0, grid->ny - 1.0);
+}
+
+/* Cells of about the size that puts one item in each, never so many that they outnumber the
+ * items by much. */
+static void
+grid_init (Grid      *grid,
+           const Box *boxes,
+           guint      n)
+{
+  double x0 = INFINITY, y0 = INFINITY, x1 = -INFINITY, y1 = -INFINITY;
+  double w, h;
+  guint n_cells;
+
+  memset (grid, 0, sizeof *grid);
+  grid->n_items = n;
+  grid->stamp = g_new0 (guint, MAX (n, 1));
+  for (guint i = 0; i < n; i++)
+    {
+      x0 = MIN (x0, boxes[i].x0);
+      y0 = MIN (y0, boxes[i].y0);
+      x1 = MAX (x1, boxes[i].x1);
+      y1 = MAX (y1, boxes[i].y1);
+    }
+  if (n == 0)
+    x0 = y0 = x1 = y1 = 0.0;
+  w = x1 - x0;
+  h = y1 - y0;
+  grid->ox = x0;
+  grid->oy = y0;
+  grid->cell = sqrt (MAX (w * h, 1e-6) / MAX (n, 1));
+  grid->cell = MAX (grid->cell, MAX (w, h) / 4096.0);
+  grid->cell = MAX (grid->cell, 2.0 * TOL);
+  grid->nx = (guint) floor (w / grid->cell) + 1;
+  grid->ny = (guint) floor (h / grid->cell) + 1;
+  n_cells = grid->nx * grid->ny;
+
+  grid->start = g_new0 (guint, n_cells + 1);
+  for (guint i = 0; i < n; i++)
+    {
+      guint cx0, cy0, cx1, cy1;
+
+      grid_cells (grid, &boxes[i], &cx0, &cy0, &cx1, &cy1);
+      for (guint cy = cy0; cy <= cy1; cy++)
+        for (guint cx = cx0; cx <= cx1; cx++)
+          grid->start[cy * grid->nx + cx + 1]++;
+    }
+  for (guint c = 0; c < n_cells; c++)
+    grid->start[c + 1] += grid->start[c];
+  grid->items = g_new (guint, MAX (grid->start[n_cells], 1));
+  {
+    g_autofree guint *fill = g_memdup2 (grid->start, n_cells * sizeof (guint));
+
+    for (guint i = 0; i < n; i++)
+      {
+        guint cx0, cy0, cx1, cy1;
+
+        grid_cells (grid, &boxes[i], &cx0, &cy0, &cx1, &cy1);
+        for (guint cy = cy0; cy <= cy1; cy++)
+          for (guint cx = cx0; cx <= cx1; cx++)
+            grid->items[fill[cy * grid->nx + cx]++] = i;
+      }
+  }
+}
+
+static void
+grid_clear (Grid *grid)
+{
+  g_clear_pointer (&grid->start, g_free);
+  g_clear_pointer (&grid->items, g_free);
+  g_clear_pointer (&grid->stamp, g_free);
+}
+
+static int
+compare_guint (const void *a,
+               const void *b)
+{
+  guint x = *(const guint *) a;
+  guint y = *(const guint *) b;
+
+  return (x > y) - (x < y);
+}
+
+/* The items whose boxes may meet the box, each once; in ascending order if asked (for what
+ * must happen in plan order), else in an order fixed by the plan alone. */
+static void
+grid_query (Grid      *grid,
+            const Box *box,
+            gboolean   sorted,
+            GArray    *out)
+{
+  guint cx0, cy0, cx1, cy1;
+
+  g_array_set_size (out, 0);
+  if (grid->n_items == 0)
+    return;
+  if (++grid->query == 0)
+    {
+      memset (grid->stamp, 0, grid->n_items * sizeof (guint));
+      grid->query = 1;
+    }
+  grid_cells (grid, box, &cx0, &cy0, &cx1, &cy1);
+  for (guint cy = cy0; cy <= cy1; cy++)
+    for (guint cx = cx0; cx <= cx1; cx++)
+      {
+        guint c = cy * grid->nx + cx;
+
+        for (guint k = grid->start[c]; k < grid->start[c + 1]; k++)
+          {
+            guint i = grid->items[k];
+
+            if (grid->stamp[i] != grid->query)
+              {
+                grid->stamp[i] = grid->query;
+                g_array_append_val (out, i);
+              }
+          }
+      }
+  if (sorted)
+    qsort (out->data, out->len, sizeof (guint), compare_guint);
+}
+
+/* Whether the box takes in every cell of the grid. */
+static gboolean
+grid_covered (const Grid *grid,
+              const Box  *box)
+{
+  return box->x0 <= grid->ox && box->y0 <= grid->oy &&
+         box->x1 >= grid->ox + grid->nx * grid->cell &&
+         box->y1 >= grid->oy + grid->ny * grid->cell;
+}
+
+/* What the passes over the plan share. */
+typedef struct
+{
+  const TrbFramePlan *plan;
+  const Axis         *axes;
+  Grid                members;
+  Grid                columns;
+  Grid                wall_segments;
+  guint              *segment_wall;    /* per wall segment: its wall */
+  guint              *segment_index;   /* per wall segment: its index in the wall */
+  GArray             *found;           /* scratch for queries */
+} Context;
+
+static void
+context_init (Context            *ctx,
+              const TrbFramePlan *plan,
+              const Axis         *axes)
+{
+  g_autofree Box *boxes = NULL;
+  guint n_segments = 0, k = 0;
+
+  ctx->plan = plan;
+  ctx->axes = axes;
+  ctx->found = g_array_new (FALSE, FALSE, sizeof (guint));
+
+  boxes = g_new (Box, MAX (plan->n_members, 1));
+  for (guint m = 0; m < plan->n_members; m++)
+    boxes[m] = segment_box (&plan->members[m].start, &plan->members[m].end, 0.0);
+  grid_init (&ctx->members, boxes, plan->n_members);
+  g_free (boxes);
+
+  boxes = g_new (Box, MAX (plan->n_columns, 1));
+  for (guint c = 0; c < plan->n_columns; c++)
+    {
+      TrbFramePoint p = { plan->columns[c].x, plan->columns[c].y };
+
+      boxes[c] = segment_box (&p, &p, 0.0);
+    }
+  grid_init (&ctx->columns, boxes, plan->n_columns);
+  g_free (boxes);
+
+  for (guint w = 0; w < plan->n_walls; w++)
+    n_segments += plan->walls[w].n_points - 1;
+  boxes = g_new (Box, MAX (n_segments, 1));
+  ctx->segment_wall = g_new (guint, MAX (n_segments, 1));
+  ctx->segment_index = g_new (guint, MAX (n_segments, 1));
+  for (guint w = 0; w < plan->n_walls; w++)
+    for (guint i = 0; i + 1 < plan->walls[w].n_points; i++, k++)
+      {
+        boxes[k] = segment_box (&plan->walls[w].points[i], &plan->walls[w].points[i + 1], 0.0);
+        ctx->segment_wall[k] = w;
+        ctx->segment_index[k] = i;
+      }
+  grid_init (&ctx->wall_segments, boxes, n_segments);
+}
+
+static void
+context_clear (Context *ctx)
+{
+  grid_clear (&ctx->members);
+  grid_clear (&ctx->columns);
+  grid_clear (&ctx->wall_segments);
+  g_clear_pointer (&ctx->segment_wall, g_free);
+  g_clear_pointer (&ctx->segment_index, g_free);
+  g_clear_pointer (&ctx->found, g_array_unref);
 }
 
 /* ---- validation ---------------------------------------------------------------------------- */
@@ -443,7 +688,7 @@ add_candidate (GArray         *candidates,
                guint           index,
                guint           segment)
 {
-  Candidate c = { CLAMP (x, 0.0, length), kind, dist, index, segment };
+  Candidate c = { CLAMP (x, 0.0, length) + 0.0, kind, dist, index, segment };
 
   g_array_append_val (candidates, c);
 }
@@ -465,19 +710,23 @@ wall_position (const TrbFrameWall  *wall,
 }
 
 static void
-collect_candidates (const TrbFramePlan *plan,
-                    const Axis         *axes,
-                    guint               m,
-                    GArray             *candidates)
+collect_candidates (Context *ctx,
+                    guint    m,
+                    GArray  *candidates)
 {
+  const TrbFramePlan *plan = ctx->plan;
+  const Axis *axes = ctx->axes;
   const TrbFrameMember *member = &plan->members[m];
   const Axis *axis = &axes[m];
   double L = axis->length;
   TrbFramePoint ends[2] = { member->start, member->end };
+  Box near = segment_box (&member->start, &member->end, TOL);
 
   /* columns under the member anywhere along it, ends included */
-  for (guint c = 0; c < plan->n_columns; c++)
+  grid_query (&ctx->columns, &near, TRUE, ctx->found);
+  for (guint f = 0; f < ctx->found->len; f++)
     {
+      guint c = g_array_index (ctx->found, guint, f);
       TrbFramePoint p = { plan->columns[c].x, plan->columns[c].y };
       double d = axis_distance (axis, &p);
 
@@ -491,63 +740,59 @@ collect_candidates (const TrbFramePlan *plan,
     }
 
   /* walls: an end on a wall, or the member passing over one */
-  for (guint w = 0; w < plan->n_walls; w++)
+  grid_query (&ctx->wall_segments, &near, TRUE, ctx->found);
+  for (guint f = 0; f < ctx->found->len; f++)
     {
-      const TrbFrameWall *wall = &plan->walls[w];
+      guint ws = g_array_index (ctx->found, guint, f);
+      guint w = ctx->segment_wall[ws];
+      guint k = ctx->segment_index[ws];
+      const TrbFramePoint *p = &plan->walls[w].points[k];
+      const TrbFramePoint *q = &plan->walls[w].points[k + 1];
+      double seg = hypot (q->x - p->x, q->y - p->y);
+      double xp, vp, xq, vq;
 
-      for (guint k = 0; k + 1 < wall->n_points; k++)
-        {
-          const TrbFramePoint *p = &wall->points[k];
-          const TrbFramePoint *q = &wall->points[k + 1];
-          double seg = hypot (q->x - p->x, q->y - p->y);
-          double xp, vp, xq, vq;
-
-          if (seg <= 0)
-            continue;
-
-          for (guint e = 0; e < 2; e++)
-            {
-              double d = segment_distance (&ends[e], p, q, NULL);
-
-              if (d <= TOL)
-                add_candidate (candidates, e == 0 ? 0.0 : L, L, TRB_BEARING_WALL, d, w, k);
-            }
-
-          /* a wall running along the member carries it only where an end lies on it */
-          axis_to_local (axis, p, &xp, &vp);
-          axis_to_local (axis, q, &xq, &vq);
-          if (fabs (vp - vq) > seg * sin (TRB_FRAME_PARALLEL_ANGLE))
-            {
-              double t = vp / (vp - vq);
-              double x = xp + t * (xq - xp);
-
-              if (t >= -TOL / seg && t <= 1.0 + TOL / seg && x >= -TOL && x <= L + TOL)
-                add_candidate (candidates, x, L, TRB_BEARING_WALL, 0.0, w, k);
-            }
-        }
-    }
-
-  /* other members: only where an end, or a listed bearing point, lies on their line */
-  for (guint n = 0; n < plan->n_members; n++)
-    {
-      if (n == m || axes_parallel (axis, &axes[n]))
+      if (seg <= 0)
         continue;
 
       for (guint e = 0; e < 2; e++)
         {
-          double d = axis_distance (&axes[n], &ends[e]);
+          double d = segment_distance (&ends[e], p, q, NULL);
 
           if (d <= TOL)
-            add_candidate (candidates, e == 0 ? 0.0 : L, L, TRB_BEARING_MEMBER, d, n, 0);
+            add_candidate (candidates, e == 0 ? 0.0 : L, L, TRB_BEARING_WALL, d, w, k);
         }
 
-      for (guint k = 0; k < member->n_bearing_points; k++)
+      /* a wall running along the member carries it only where an end lies on it */
+      axis_to_local (axis, p, &xp, &vp);
+      axis_to_local (axis, q, &xq, &vq);
+      if (fabs (vp - vq) > seg * sin (TRB_FRAME_PARALLEL_ANGLE))
         {
-          const TrbFramePoint *p = &member->bearing_points[k];
-          double d = axis_distance (&axes[n], p);
+          double t = vp / (vp - vq);
+          double x = xp + t * (xq - xp);
 
+          if (t >= -TOL / seg && t <= 1.0 + TOL / seg && x >= -TOL && x <= L + TOL)
+            add_candidate (candidates, x, L, TRB_BEARING_WALL, 0.0, w, k);
+        }
+    }
+
+  /* other members: only where an end, or a listed bearing point, lies on their line */
+  for (guint k = 0; k < 2 + member->n_bearing_points; k++)
+    {
+      const TrbFramePoint *p = k < 2 ? &ends[k] : &member->bearing_points[k - 2];
+      double x = k == 0 ? 0.0 : k == 1 ? L : axis_position (axis, p);
+      Box box = segment_box (p, p, TOL);
+
+      grid_query (&ctx->members, &box, TRUE, ctx->found);
+      for (guint f = 0; f < ctx->found->len; f++)
+        {
+          guint n = g_array_index (ctx->found, guint, f);
+          double d;
+
+          if (n == m || axes_parallel (axis, &axes[n]))
+            continue;
+          d = axis_distance (&axes[n], p);
           if (d <= TOL)
-            add_candidate (candidates, axis_position (axis, p), L, TRB_BEARING_MEMBER, d, n, 0);
+            add_candidate (candidates, x, L, TRB_BEARING_MEMBER, d, n, 0);
         }
     }
 }
@@ -555,12 +800,13 @@ collect_candidates (const TrbFramePlan *plan,
 /* Candidates within the tolerance of each other make one support; the best of them is what
  * the member rests on there. A support within the tolerance of an end is at the end. */
 static void
-find_supports (const TrbFramePlan   *plan,
-               const Axis           *axes,
+find_supports (Context              *ctx,
                guint                 m,
                TrbFrame             *frame,
                TrbFrameMemberResult *out)
 {
+  const TrbFramePlan *plan = ctx->plan;
+  const Axis *axes = ctx->axes;
   const Axis *axis = &axes[m];
   double L = axis->length;
   g_autoptr(GArray) candidates = g_array_new (FALSE, FALSE, sizeof (Candidate));
@@ -569,7 +815,7 @@ find_supports (const TrbFramePlan   *plan,
   const TrbFrameMember *member = &plan->members[m];
   guint i = 0;
 
-  collect_candidates (plan, axes, m, candidates);
+  collect_candidates (ctx, m, candidates);
   qsort (candidates->data, candidates->len, sizeof (Candidate), compare_candidates);
 
   while (i < candidates->len)
@@ -759,16 +1005,6 @@ bearing_components (const TrbFrame *frame,
   g_array_append_val (comp_start, comp_nodes->len);
 }
 
-static int
-compare_guint (const void *a,
-               const void *b)
-{
-  guint x = *(const guint *) a;
-  guint y = *(const guint *) b;
-
-  return (x > y) - (x < y);
-}
-
 static void
 order_members (TrbFrame *frame)
 {
@@ -871,20 +1107,23 @@ neighbour_offset (const Neighbour *nb,
 }
 
 static void
-find_strips (const TrbFramePlan   *plan,
-             const Axis           *axes,
-             guint                 m,
-             TrbFrameMemberResult *out)
+strips_from (const Context *ctx,
+             guint          m,
+             const GArray  *found,
+             GArray        *strips)
 {
+  const TrbFramePlan *plan = ctx->plan;
+  const Axis *axes = ctx->axes;
   const Axis *axis = &axes[m];
   double L = axis->length;
   g_autoptr(GArray) neighbours = g_array_new (FALSE, FALSE, sizeof (Neighbour));
   g_autoptr(GArray) breaks = g_array_new (FALSE, FALSE, sizeof (double));
-  g_autoptr(GArray) strips = g_array_new (FALSE, FALSE, sizeof (TrbFrameStrip));
   double zero = 0.0;
 
-  for (guint n = 0; n < plan->n_members; n++)
+  g_array_set_size (strips, 0);
+  for (guint f = 0; f < found->len; f++)
     {
+      guint n = g_array_index (found, guint, f);
       Neighbour nb;
       double mid;
 
@@ -903,7 +1142,7 @@ find_strips (const TrbFramePlan   *plan,
       nb.b = MIN (nb.x1, L);
       if (nb.b - nb.a <= TOL)
         continue;
-      /* a member in line with this one (the next bay's) bounds nothing */
+      /* a member in line with this one bounds nothing */
       mid = neighbour_offset (&nb, 0.5 * (nb.a + nb.b));
       if (fabs (mid) <= TOL)
         continue;
@@ -951,6 +1190,75 @@ find_strips (const TrbFramePlan   *plan,
         }
       g_array_append_val (strips, strip);
     }
+}
+
+/* The strip looks for neighbours within a distance R of the member, widening R until each
+ * side of each piece has one within R (a nearer one cannot have been missed), or R/2 reaches
+ * past every area load on that side (a neighbour farther off changes no load: the strip runs
+ * out to the loads' edge), or R takes in the whole plan. */
+static void
+find_strips (Context              *ctx,
+             guint                 m,
+             TrbFrameMemberResult *out)
+{
+  const TrbFramePlan *plan = ctx->plan;
+  const TrbFrameMember *member = &plan->members[m];
+  g_autoptr(GArray) strips = g_array_new (FALSE, FALSE, sizeof (TrbFrameStrip));
+  double R = MAX (4.0 * ctx->members.cell, 1.0);
+  double reach_left = 0.0, reach_right = 0.0;
+
+  for (guint i = 0; i < plan->n_area_loads; i++)
+    for (guint k = 0; k < plan->area_loads[i].n_points; k++)
+      {
+        double x, v;
+
+        axis_to_local (&ctx->axes[m], &plan->area_loads[i].points[k], &x, &v);
+        reach_left = MAX (reach_left, v);
+        reach_right = MAX (reach_right, -v);
+      }
+
+  for (;;)
+    {
+      Box box = segment_box (&member->start, &member->end, R);
+      gboolean whole = grid_covered (&ctx->members, &box);
+      gboolean bounded = TRUE;
+
+      grid_query (&ctx->members, &box, FALSE, ctx->found);
+      strips_from (ctx, m, ctx->found, strips);
+      for (guint k = 0; k < strips->len && bounded; k++)
+        {
+          const TrbFrameStrip *s = &g_array_index (strips, TrbFrameStrip, k);
+
+          bounded = (s->left <= 0.5 * R || reach_left <= 0.5 * R) &&
+                    (s->right <= 0.5 * R || reach_right <= 0.5 * R);
+        }
+      if (bounded || whole)
+        break;
+      R *= 4.0;
+    }
+
+  /* past the loads' reach a side is open, whatever lies beyond: the same strip for the same
+   * loads however far the search went */
+  {
+    guint j = 0;
+
+    for (guint k = 0; k < strips->len; k++)
+      {
+        TrbFrameStrip *s = &g_array_index (strips, TrbFrameStrip, k);
+        TrbFrameStrip *last = &g_array_index (strips, TrbFrameStrip, j);
+
+        if (s->left >= reach_left)
+          s->left = INFINITY;
+        if (s->right >= reach_right)
+          s->right = INFINITY;
+        if (k > 0 && last->left == s->left && last->right == s->right)
+          last->b = s->b;
+        else if (k > 0)
+          g_array_index (strips, TrbFrameStrip, ++j) = *s;
+      }
+    if (strips->len > 0)
+      g_array_set_size (strips, j + 1);
+  }
 
   out->n_strips = strips->len;
   out->strips = (const TrbFrameStrip *) g_array_free (g_steal_pointer (&strips), FALSE);
@@ -1284,7 +1592,12 @@ area_loads (const TrbFramePlan   *plan,
             TrbLoad *last = open ? &g_array_index (dest, TrbLoad, dest->len - 1) : NULL;
             TrbLoad load;
 
-            if (fabs (p->wa) <= eps && fabs (p->wb) <= eps)
+            /* rounding leaves crumbs such as -0 or 1e-13 where the width ends at zero */
+            if (fabs (p->wa) <= eps)
+              p->wa = 0.0;
+            if (fabs (p->wb) <= eps)
+              p->wb = 0.0;
+            if (p->wa == 0.0 && p->wb == 0.0)
               {
                 open = FALSE;
                 continue;
@@ -1365,11 +1678,12 @@ interval_subtract (GArray   *covered,
 }
 
 static void
-line_loads (const TrbFramePlan *plan,
-            const Axis         *axes,
-            GArray            **loads,       /* [member * TRB_N_CASES + case] */
-            GArray             *unassigned)
+line_loads (Context  *ctx,
+            GArray  **loads,       /* [member * TRB_N_CASES + case] */
+            GArray   *unassigned)
 {
+  const TrbFramePlan *plan = ctx->plan;
+  const Axis *axes = ctx->axes;
   g_autoptr(GArray) covered = g_array_new (FALSE, FALSE, sizeof (Interval));
   g_autoptr(GArray) free_parts = g_array_new (FALSE, FALSE, sizeof (Interval));
 
@@ -1383,13 +1697,18 @@ line_loads (const TrbFramePlan *plan,
           Axis seg;
           double on = 0.0;
 
+          Box box = segment_box (&line->points[k], &line->points[k + 1], TOL);
+
           axis_init (&seg, &line->points[k], &line->points[k + 1]);
           if (seg.length <= 0)
             continue;
           g_array_set_size (covered, 0);
 
-          for (guint m = 0; m < plan->n_members; m++)
+          /* in plan order: where two members overlap under the load, the first takes it */
+          grid_query (&ctx->members, &box, TRUE, ctx->found);
+          for (guint f = 0; f < ctx->found->len; f++)
             {
+              guint m = g_array_index (ctx->found, guint, f);
               const Axis *axis = &axes[m];
               double xp, vp, xq, vq, cosine, x0, x1;
 
@@ -1447,20 +1766,26 @@ line_loads (const TrbFramePlan *plan,
 }
 
 static void
-point_loads (const TrbFramePlan *plan,
-             const Axis         *axes,
-             GArray            **loads,
-             GArray             *unassigned)
+point_loads (Context  *ctx,
+             GArray  **loads,
+             GArray   *unassigned)
 {
+  const TrbFramePlan *plan = ctx->plan;
+  const Axis *axes = ctx->axes;
+
   for (guint i = 0; i < plan->n_point_loads; i++)
     {
       const TrbFramePointLoad *pl = &plan->point_loads[i];
       TrbFramePoint p = { pl->x, pl->y };
+      Box box = segment_box (&p, &p, TOL);
       guint best = G_MAXUINT;
       double best_d = INFINITY;
 
-      for (guint m = 0; m < plan->n_members; m++)
+      /* the nearest member; of equally near ones, the first in plan order */
+      grid_query (&ctx->members, &box, TRUE, ctx->found);
+      for (guint f = 0; f < ctx->found->len; f++)
         {
+          guint m = g_array_index (ctx->found, guint, f);
           double d = axis_distance (&axes[m], &p);
 
           if (d <= TOL && d < best_d)
@@ -1517,6 +1842,7 @@ trb_frame_new (const TrbFramePlan  *plan,
 {
   g_autoptr(TrbFrame) frame = NULL;
   g_autofree Axis *axes = NULL;
+  Context ctx;
   GArray **loads;
   g_autoptr(GArray) unassigned_lines = NULL;
   g_autoptr(GArray) unassigned_points = NULL;
@@ -1551,8 +1877,9 @@ trb_frame_new (const TrbFramePlan  *plan,
       g_hash_table_insert (frame->member_index, frame->member_ids[m], GUINT_TO_POINTER (m + 1));
     }
 
+  context_init (&ctx, plan, axes);
   for (guint m = 0; m < n; m++)
-    find_supports (plan, axes, m, frame, &frame->members[m]);
+    find_supports (&ctx, m, frame, &frame->members[m]);
   order_members (frame);
 
   loads = g_new0 (GArray *, MAX (n, 1) * TRB_N_CASES);
@@ -1562,14 +1889,15 @@ trb_frame_new (const TrbFramePlan  *plan,
   for (guint m = 0; m < n; m++)
     if (plan->members[m].carries_deck)
       {
-        find_strips (plan, axes, m, &frame->members[m]);
+        find_strips (&ctx, m, &frame->members[m]);
         area_loads (plan, &axes[m], &frame->members[m], &loads[m * TRB_N_CASES]);
       }
 
   unassigned_lines = g_array_new (FALSE, FALSE, sizeof (TrbFrameUnassigned));
   unassigned_points = g_array_new (FALSE, FALSE, sizeof (guint));
-  line_loads (plan, axes, loads, unassigned_lines);
-  point_loads (plan, axes, loads, unassigned_points);
+  line_loads (&ctx, loads, unassigned_lines);
+  point_loads (&ctx, loads, unassigned_points);
+  context_clear (&ctx);
 
   for (guint m = 0; m < n; m++)
     for (int c = 0; c < TRB_N_CASES; c++)
