@@ -137,10 +137,11 @@ class ExitCodes(unittest.TestCase):
         self.assertIn('UNSUPPORTED', out)
 
     def test_not_designed(self):
-        # a catalog section, before the design step can check it
-        code, out, err = run('check', data('forever.trabeate'))
+        # checks the methods cannot make are never reported as passing
+        code, out, err = run('check', data('cli-not-designed.trabeate'))
         self.assertEqual(code, 1)
-        self.assertIn('not designed', out)
+        self.assertNotIn('passes', out)
+        self.assertEqual(out.count('not designed -'), 2)
 
     def test_member(self):
         code, out, err = run('check', data('cli-pass.trabeate'), '--member', 'FIXED')

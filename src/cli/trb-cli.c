@@ -430,9 +430,17 @@ json_member (GString               *out,
   g_string_append_c (out, '[');
   for (guint i = 0; i < r->shortlist->len; i++)
     {
+      const TrbShortlistEntry *e = &g_array_index (r->shortlist, TrbShortlistEntry, i);
+      gboolean efirst = TRUE;
+
       if (i > 0)
         g_string_append_c (out, ',');
-      json_string (out, g_ptr_array_index (r->shortlist, i));
+      g_string_append_c (out, '{');
+      json_key_string (out, &efirst, "section", e->section);
+      json_key_number (out, &efirst, "weight", e->weight);
+      json_key_number (out, &efirst, "ratio", e->ratio);
+      json_key_string (out, &efirst, "governing", e->governing);
+      g_string_append_c (out, '}');
     }
   g_string_append (out, "]}");
 }
@@ -648,6 +656,23 @@ table_checks (GString               *out,
 }
 
 static void
+table_shortlist (GString               *out,
+                 const TrbMemberResult *r)
+{
+  if (r->shortlist->len == 0)
+    return;
+  g_string_append (out, "  Passing sections, lightest first\n");
+  for (guint i = 0; i < r->shortlist->len; i++)
+    {
+      const TrbShortlistEntry *e = &g_array_index (r->shortlist, TrbShortlistEntry, i);
+      g_autofree char *w = fmt (e->weight, TRB_DIM_WEIGHT_PER_LENGTH, r->units);
+
+      g_string_append_printf (out, "    %-12s %12s  ratio %.3f  %s\n", e->section, w, e->ratio,
+                              e->governing);
+    }
+}
+
+static void
 table_member (GString               *out,
               const TrbProject      *project,
               const TrbMemberResult *r)
@@ -656,8 +681,15 @@ table_member (GString               *out,
   TrbUnitSystem u = r->units;
   g_autofree char *len = fmt (m->length, TRB_DIM_LENGTH, u);
 
+  g_autofree char *section = NULL;
+
+  /* A sized member shows what was chosen; a checked one shows what the engineer named. */
+  if (trb_member_is_auto (m) && r->section[0] != '\0' && g_strcmp0 (r->section, "auto") != 0)
+    section = g_strdup_printf ("%s (sized from \"auto\")", r->section);
+  else
+    section = g_strdup (m->section);
   g_string_append_printf (out, "\nMember %s (line %d): %s, section %s, length %s, method %s\n",
-                          m->id, m->line, trb_material_name (m->material), m->section, len,
+                          m->id, m->line, trb_material_name (m->material), section, len,
                           trb_method_name (r->method));
   g_string_append (out, "  Supports:");
   for (guint i = 0; i < m->supports->len; i++)
@@ -693,6 +725,26 @@ table_member (GString               *out,
   table_envelope (out, &r->live, FALSE, "Live-load deflection (service)", u);
   table_envelope (out, &r->total, FALSE, "Total-load deflection (service)", u);
   table_checks (out, r);
+  table_shortlist (out, r);
+}
+
+/* One line a member: what the engineer looks for first. */
+static void
+table_summary (GString   *out,
+               GPtrArray *results)
+{
+  g_string_append (out, "\nSummary\n  mark       section          status         ratio  governing\n");
+  for (guint i = 0; i < results->len; i++)
+    {
+      const TrbMemberResult *r = g_ptr_array_index (results, i);
+      g_autofree char *ratio = isnan (r->ratio) ? g_strdup ("-")
+                                                : g_strdup_printf ("%.3f", r->ratio);
+
+      g_string_append_printf (out, "  %-10s %-16s %-13s %6s  %s\n", r->member->id,
+                              r->section[0] != '\0' ? r->section : r->member->section,
+                              status_text (r->status), ratio,
+                              r->governing[0] != '\0' ? r->governing : "-");
+    }
 }
 
 static void
@@ -717,6 +769,7 @@ write_table (GString          *out,
                           counts[TRB_STATUS_PASS], counts[TRB_STATUS_FAIL],
                           counts[TRB_STATUS_UNSTABLE], counts[TRB_STATUS_UNSUPPORTED],
                           counts[TRB_STATUS_NOT_DESIGNED], counts[TRB_STATUS_ERROR]);
+  table_summary (out, results);
   g_string_append (out, "CAUTION: " CAUTION_1 "\n" CAUTION_2 "\n" CAUTION_3 "\n");
 }
 

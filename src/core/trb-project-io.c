@@ -745,15 +745,10 @@ load_beam (Loader     *ld,
                         "unknown element <%s> inside <beam>", NAME (child));
     }
 
-  if (m->braces->len > 0)
-    {
-      if (bracing == 0)
-        return fail_at (ld, g_array_index (m->braces, TrbMemberBrace, 0).line,
-                        TRB_ERROR_INVALID,
-                        "<brace> on a beam with bracing=\"continuous\"; "
-                        "use bracing=\"supports\" for discrete braces");
-      bracing = 1;
-    }
+  /* With continuous bracing the deck holds the top; braces then hold the bottom flange or
+   * edge, which is in compression over interior supports and on cantilevers. */
+  if (m->braces->len > 0 && bracing == -1)
+    bracing = 1;
   m->bracing = bracing == 1 ? TRB_BRACING_POINTS : TRB_BRACING_CONTINUOUS;
   g_array_sort (m->braces, compare_brace);
 

@@ -7,7 +7,10 @@
 #include <stdarg.h>
 #include <string.h>
 
+#include "trb-catalog.h"
 #include "trb-design-allowable.h"
+#include "trb-design-steel.h"
+#include "trb-design-wood.h"
 #include "trb-error.h"
 #include "trb-section.h"
 #include "trb-solve.h"
@@ -80,7 +83,7 @@ trb_member_result_free (TrbMemberResult *result)
   combo_set_clear (&result->live);
   combo_set_clear (&result->total);
   g_clear_pointer (&result->checks, g_array_unref);
-  g_clear_pointer (&result->shortlist, g_ptr_array_unref);
+  g_clear_pointer (&result->shortlist, g_array_unref);
   g_free (result);
 }
 
@@ -105,7 +108,7 @@ member_result_new (const TrbProject *project,
   combo_set_init (&r->total, TRB_COMBO_SET_TOTAL);
   r->checks = g_array_new (FALSE, TRUE, sizeof (TrbCheck));
   r->ratio = NAN;
-  r->shortlist = g_ptr_array_new_with_free_func (g_free);
+  r->shortlist = g_array_new (FALSE, TRUE, sizeof (TrbShortlistEntry));
   return r;
 }
 
@@ -520,97 +523,17 @@ check_deflection_set (TrbDesignInput          *input,
     g_array_append_val (checks, worst);
 }
 
-/* The design step. The design methods plug in here: for a catalog designation or "auto" the
- * sizing and catalog checks (steel, wood, allowable stress) replace the "not designed"
- * below, supplying E, I and the self-weight of the section and re-running the analysis until
- * the section is stable. Today only custom sections are checked: with the allowable-stress
- * method (the engineer's Fb and Fv) fully; with ASD or LRFD for deflection only, the strength
- * of a custom section needing the design module's section data. */
+/* The status from the checks made: fail when any ratio is above 1, not designed when a check
+ * could not be made, pass only when every check of the method was made and none fails. */
 static void
-design (const TrbProject *project,
-        const TrbMember  *m,
-        TrbMemberResult  *r)
+finish_status (TrbMemberResult *r,
+               gboolean         strength_checked)
 {
-  g_autoptr(GArray) demand = NULL;
-  g_autoptr(GArray) brace_x = NULL;
-  const TrbSettings *s = &project->settings;
-  TrbDesignInput input = { 0 };
-  TrbSection section;
-  gboolean strength_checked = FALSE;
   gboolean any_fail = FALSE;
   gboolean any_unchecked = FALSE;
   double worst = -INFINITY;
 
-  if (!trb_member_is_custom (m))
-    {
-      g_strlcpy (r->section, m->section, sizeof r->section);
-      if (trb_member_is_auto (m))
-        set_status (r, TRB_STATUS_NOT_DESIGNED,
-                    "sizing from the catalog is not available in this version");
-      else
-        set_status (r, TRB_STATUS_NOT_DESIGNED,
-                    "catalog section %s is not checked in this version", m->section);
-      return;
-    }
-  if (!r->analysed)
-    return;
-
-  trb_section_init_unknown (&section);
-  g_strlcpy (section.designation, "custom", sizeof section.designation);
-  section.kind = TRB_SHAPE_CUSTOM;
-  section.E = m->E;
-  section.Ix = m->I;
-  section.Sx = m->S;
-  section.A = m->A;
-  section.d = m->d;
-  section.tw = m->tw;
-  section.weight = r->self_weight;
-  g_strlcpy (r->section, "custom", sizeof r->section);
-
-  demand = g_array_new (FALSE, TRUE, sizeof (TrbDemandCombo));
-  for (guint i = 0; i < r->strength.entries->len; i++)
-    {
-      const TrbComboResult *c = &g_array_index (r->strength.entries, TrbComboResult, i);
-      TrbDemandCombo d = { { 0 } };
-
-      g_strlcpy (d.name, c->name, sizeof d.name);
-      memcpy (d.factors, c->combo.factors, sizeof d.factors);
-      d.result = c->result;
-      g_array_append_val (demand, d);
-    }
-  brace_x = g_array_new (FALSE, TRUE, sizeof (double));
-  for (guint i = 0; i < m->braces->len; i++)
-    g_array_append_val (brace_x, g_array_index (m->braces, TrbMemberBrace, i).x);
-
-  input.section = &section;
-  input.length = m->length;
-  input.supports = trb_beam_get_supports (r->beam, &input.n_supports);
-  input.bracing = m->bracing;
-  input.brace_x = (const double *) brace_x->data;
-  input.n_braces = brace_x->len;
-  input.combos = (const TrbDemandCombo *) demand->data;
-  input.n_combos = demand->len;
-  input.units = s->units;
-
-  if (r->method == TRB_METHOD_ALLOWABLE)
-    {
-      /* live and total are NULL here, so no deflection check is added: those come below,
-       * worst over every pattern. */
-      strength_checked = trb_design_allowable_check (&input, trb_member_get_fb_allow (m, s),
-                                                     trb_member_get_fv_allow (m, s),
-                                                     r->checks);
-    }
-  else
-    trb_check_append_not_checked (r->checks,
-                                  r->method == TRB_METHOD_LRFD ? "LRFD strength" : "ASD strength",
-                                  "Strength of a custom section: use method=\"allowable\" "
-                                  "with fb-allow and fv-allow");
-
-  check_deflection_set (&input, &r->live, TRUE, trb_member_get_deflection_live (m, s),
-                        r->checks);
-  check_deflection_set (&input, &r->total, FALSE, trb_member_get_deflection_total (m, s),
-                        r->checks);
-
+  r->governing[0] = '\0';
   for (guint i = 0; i < r->checks->len; i++)
     {
       const TrbCheck *ck = &g_array_index (r->checks, TrbCheck, i);
@@ -642,13 +565,436 @@ design (const TrbProject *project,
     }
 }
 
+static void
+wood_options_for (const TrbMember *m,
+                  TrbWoodOptions  *options)
+{
+  trb_design_wood_options_init (options);
+  options->wet_service = m->wet_service;
+  options->incised = m->incised;
+  /* A standalone member marked repetitive is one of three or more like members at 24 in or
+   * less tied by sheathing (NDS 2018 4.3.9); a floor's joist runs give their real spacing. */
+  if (m->repetitive)
+    options->repetitive_spacing = 24 * TRB_IN;
+  if (!isnan (m->bearing_length))
+    options->bearing_length = m->bearing_length;
+}
+
+/* Every check of the member's method on one analysed section. */
+static void
+design_checks (const TrbProject   *project,
+               const TrbMember    *m,
+               const TrbSection   *section,
+               const TrbWoodGrade *wood_grade,
+               TrbMemberResult    *r)
+{
+  g_autoptr(GArray) demand = NULL;
+  g_autoptr(GArray) brace_x = NULL;
+  const TrbSettings *s = &project->settings;
+  TrbDesignInput input = { 0 };
+  gboolean strength_checked = FALSE;
+
+  g_strlcpy (r->section, section->designation, sizeof r->section);
+  g_array_set_size (r->checks, 0);
+  if (!r->analysed)
+    return;
+
+  demand = g_array_new (FALSE, TRUE, sizeof (TrbDemandCombo));
+  for (guint i = 0; i < r->strength.entries->len; i++)
+    {
+      const TrbComboResult *c = &g_array_index (r->strength.entries, TrbComboResult, i);
+      TrbDemandCombo d = { { 0 } };
+
+      g_strlcpy (d.name, c->name, sizeof d.name);
+      memcpy (d.factors, c->combo.factors, sizeof d.factors);
+      d.result = c->result;
+      g_array_append_val (demand, d);
+    }
+  brace_x = g_array_new (FALSE, TRUE, sizeof (double));
+  for (guint i = 0; i < m->braces->len; i++)
+    g_array_append_val (brace_x, g_array_index (m->braces, TrbMemberBrace, i).x);
+
+  input.section = section;
+  input.length = m->length;
+  input.supports = trb_beam_get_supports (r->beam, &input.n_supports);
+  input.bracing = m->bracing;
+  input.brace_x = (const double *) brace_x->data;
+  input.n_braces = brace_x->len;
+  input.combos = (const TrbDemandCombo *) demand->data;
+  input.n_combos = demand->len;
+  input.units = s->units;
+
+  /* live and total stay NULL in the method checks, so they add no deflection check: those
+   * come below, worst over every combination and pattern. */
+  if (r->method == TRB_METHOD_ALLOWABLE)
+    {
+      strength_checked = trb_design_allowable_check (&input, trb_member_get_fb_allow (m, s),
+                                                     trb_member_get_fv_allow (m, s),
+                                                     r->checks);
+    }
+  else if (section->kind == TRB_SHAPE_CUSTOM)
+    trb_check_append_not_checked (r->checks,
+                                  r->method == TRB_METHOD_LRFD ? "LRFD strength" : "ASD strength",
+                                  "Strength of a custom section: use method=\"allowable\" "
+                                  "with fb-allow and fv-allow");
+  else if (m->material == TRB_MATERIAL_WOOD)
+    {
+      TrbWoodOptions options;
+
+      wood_options_for (m, &options);
+      if (r->method == TRB_METHOD_LRFD)
+        trb_check_append_not_checked (r->checks, "LRFD strength",
+                                      "Timber is designed by NDS 2018 ASD only: use "
+                                      "method=\"asd\"");
+      else if (wood_grade != NULL)
+        {
+          trb_design_wood_check (&input, wood_grade, &options, r->checks);
+          strength_checked = TRUE;
+        }
+    }
+  else
+    {
+      const TrbSteelGrade *grade =
+        trb_design_steel_lookup_grade (trb_member_get_steel_grade (m, s));
+
+      strength_checked = trb_design_steel_check (&input, grade,
+                                                 r->method == TRB_METHOD_LRFD
+                                                   ? TRB_DESIGN_BASIS_LRFD : TRB_DESIGN_BASIS_ASD,
+                                                 r->checks);
+    }
+
+  check_deflection_set (&input, &r->live, TRUE, trb_member_get_deflection_live (m, s),
+                        r->checks);
+  check_deflection_set (&input, &r->total, FALSE, trb_member_get_deflection_total (m, s),
+                        r->checks);
+  finish_status (r, strength_checked);
+}
+
+/* The custom section the engineer gave in the file. */
+static void
+custom_section (const TrbMember *m,
+                double           self_weight,
+                TrbSection      *section)
+{
+  trb_section_init_unknown (section);
+  g_strlcpy (section->designation, "custom", sizeof section->designation);
+  section->kind = TRB_SHAPE_CUSTOM;
+  section->E = m->E;
+  section->Ix = m->I;
+  section->Sx = m->S;
+  section->A = m->A;
+  section->d = m->d;
+  section->tw = m->tw;
+  section->weight = self_weight;
+}
+
+/* The wood grade for a section, or NULL with the reason in *why. */
+static const TrbWoodGrade *
+wood_grade_for (const TrbMember  *m,
+                const TrbSection *section,
+                char            **why)
+{
+  const TrbWoodGrade *grade;
+
+  if (m->species == NULL || m->grade == NULL)
+    {
+      *why = g_strdup ("a wood member needs species and grade");
+      return NULL;
+    }
+  grade = trb_catalog_lookup_grade (trb_catalog_get_default (), m->species, m->grade, section);
+  if (grade == NULL)
+    *why = g_strdup_printf ("no design values for %s %s in size %s", m->species, m->grade,
+                            section->designation);
+  return grade;
+}
+
+/* Analyses and checks the member with one catalog section: its E (steel grade, or the wood
+ * grade's E adjusted for service), its I and its self-weight. */
+static TrbMemberResult *
+solve_with_section (const TrbProject *project,
+                    const TrbMember  *m,
+                    const TrbSection *section)
+{
+  const TrbSettings *s = &project->settings;
+  TrbMemberResult *r = member_result_new (project, m);
+  const TrbWoodGrade *wood_grade = NULL;
+  double self_weight = s->self_weight ? section->weight : 0;
+  double E;
+
+  if (!s->self_weight)
+    g_ptr_array_add (r->notes, g_strdup ("self-weight excluded by the project settings"));
+  g_strlcpy (r->section, section->designation, sizeof r->section);
+
+  if (m->material == TRB_MATERIAL_WOOD)
+    {
+      g_autofree char *why = NULL;
+      TrbWoodOptions options;
+
+      if (section->kind != TRB_SHAPE_SAWN && section->kind != TRB_SHAPE_GLULAM)
+        {
+          set_status (r, TRB_STATUS_ERROR, "%s is not a timber section", section->designation);
+          return r;
+        }
+      wood_grade = wood_grade_for (m, section, &why);
+      if (wood_grade == NULL)
+        {
+          set_status (r, TRB_STATUS_ERROR, "%s", why);
+          return r;
+        }
+      wood_options_for (m, &options);
+      E = trb_design_wood_adjusted_e (section, wood_grade, &options, TRB_WOOD_E);
+    }
+  else
+    {
+      const TrbSteelGrade *grade =
+        trb_design_steel_lookup_grade (trb_member_get_steel_grade (m, s));
+
+      if (section->kind == TRB_SHAPE_SAWN || section->kind == TRB_SHAPE_GLULAM)
+        {
+          set_status (r, TRB_STATUS_ERROR, "%s is a timber section: give material=\"wood\" "
+                      "with a species and grade", section->designation);
+          return r;
+        }
+      if (grade == NULL)
+        {
+          set_status (r, TRB_STATUS_ERROR, "unknown steel grade \"%s\"",
+                      trb_member_get_steel_grade (m, s));
+          return r;
+        }
+      E = grade->E;
+    }
+
+  if (analyse (project, m, E, section->Ix, self_weight, r))
+    design_checks (project, m, section, wood_grade, r);
+  return r;
+}
+
+/* The catalog family a member is sized from. */
+static gboolean
+sizing_family (const TrbMember *m,
+               TrbFamily       *family)
+{
+  if (m->material == TRB_MATERIAL_WOOD)
+    {
+      /* The glulam layups are graded like "24F-V4"; sawn grades are not. */
+      *family = m->grade != NULL && g_ascii_isdigit (m->grade[0]) ? TRB_FAMILY_GLULAM
+                                                                  : TRB_FAMILY_SAWN;
+      return TRUE;
+    }
+  if (m->material == TRB_MATERIAL_STEEL)
+    {
+      *family = TRB_FAMILY_W;
+      return TRUE;
+    }
+  return FALSE;
+}
+
+static gboolean
+candidate_allowed (const TrbMember  *m,
+                   const TrbSection *section)
+{
+  if (!isnan (m->max_depth) && section->d > m->max_depth * (1 + 1e-9))
+    return FALSE;
+  if (!isnan (m->min_depth) && section->d < m->min_depth * (1 - 1e-9))
+    return FALSE;
+  if (m->max_plies > 0 && section->plies > m->max_plies)
+    return FALSE;
+  return TRUE;
+}
+
+static int
+compare_by_weight (gconstpointer a,
+                   gconstpointer b)
+{
+  const TrbSection *sa = a;
+  const TrbSection *sb = b;
+
+  if (sa->weight != sb->weight)
+    return sa->weight < sb->weight ? -1 : 1;
+  if (sa->d != sb->d)
+    return sa->d < sb->d ? -1 : 1;
+  return strcmp (sa->designation, sb->designation);
+}
+
+static int
+compare_by_weight_ptr (gconstpointer a,
+                       gconstpointer b)
+{
+  return compare_by_weight (*(const TrbSection * const *) a, *(const TrbSection * const *) b);
+}
+
+/* The candidates for sizing, lightest first: the allowed list when the member gives one,
+ * else its family of the catalog; depth and ply limits applied. */
+static GPtrArray *
+sizing_candidates (const TrbMember *m)
+{
+  const TrbCatalog *catalog = trb_catalog_get_default ();
+  GPtrArray *out = g_ptr_array_new ();
+  TrbFamily family;
+
+  if (m->allowed != NULL)
+    {
+      for (guint i = 0; m->allowed[i] != NULL; i++)
+        {
+          const TrbSection *section = trb_catalog_lookup (catalog, m->allowed[i]);
+
+          if (section != NULL && candidate_allowed (m, section))
+            g_ptr_array_add (out, (gpointer) section);
+        }
+      g_ptr_array_sort (out, compare_by_weight_ptr);
+      return out;
+    }
+  if (sizing_family (m, &family))
+    {
+      guint n;
+      const TrbSection *sections = trb_catalog_get_family (catalog, family, &n);
+
+      for (guint i = 0; i < n; i++)
+        if (candidate_allowed (m, &sections[i]))
+          g_ptr_array_add (out, (gpointer) &sections[i]);
+    }
+  return out;
+}
+
+/* Sizing: every candidate lightest first is analysed with its own self-weight and checked;
+ * the passing ones make the shortlist (up to shortlist_max), the lightest is chosen unless
+ * the engineer named one. Because each candidate carries its own self-weight, the chosen
+ * section is the one its own weight was computed with: nothing is left to iterate. */
+static TrbMemberResult *
+size_member (const TrbProject *project,
+             const TrbMember  *m,
+             const TrbSection *chosen,
+             guint             shortlist_max)
+{
+  g_autoptr(GPtrArray) candidates = sizing_candidates (m);
+  TrbMemberResult *best = NULL;
+  TrbMemberResult *closest = NULL;
+  g_autoptr(GArray) shortlist = g_array_new (FALSE, TRUE, sizeof (TrbShortlistEntry));
+
+  for (guint i = 0; i < candidates->len && shortlist->len < shortlist_max; i++)
+    {
+      const TrbSection *section = g_ptr_array_index (candidates, i);
+      TrbMemberResult *c = solve_with_section (project, m, section);
+
+      if (c->status == TRB_STATUS_PASS)
+        {
+          TrbShortlistEntry e = { { 0 } };
+
+          g_strlcpy (e.section, section->designation, sizeof e.section);
+          e.weight = section->weight;
+          e.ratio = c->ratio;
+          g_strlcpy (e.governing, c->governing, sizeof e.governing);
+          g_array_append_val (shortlist, e);
+          if (best == NULL && chosen == NULL)
+            {
+              best = c;
+              continue;
+            }
+        }
+      else if (chosen == NULL && c->status == TRB_STATUS_FAIL &&
+               (closest == NULL || c->ratio < closest->ratio))
+        {
+          g_clear_pointer (&closest, trb_member_result_free);
+          closest = c;
+          continue;
+        }
+      else if (c->status != TRB_STATUS_FAIL && c->status != TRB_STATUS_PASS && chosen == NULL &&
+               best == NULL && closest == NULL)
+        {
+          /* unstable, unsupported or an error: the same for every section */
+          best = c;
+          break;
+        }
+      trb_member_result_free (c);
+    }
+
+  if (chosen != NULL)
+    best = solve_with_section (project, m, chosen);
+  else if (best == NULL && closest != NULL)
+    {
+      best = g_steal_pointer (&closest);
+      set_status (best, TRB_STATUS_FAIL, "no section of the catalog passes; the closest is "
+                  "%s (%s ratio %.2f)", best->section, best->governing, best->ratio);
+    }
+  else if (best == NULL)
+    {
+      best = member_result_new (project, m);
+      g_strlcpy (best->section, m->section, sizeof best->section);
+      set_status (best, TRB_STATUS_NOT_DESIGNED, "no catalog section fits the member's limits "
+                  "(family, depth, plies, allowed list)");
+    }
+  g_clear_pointer (&closest, trb_member_result_free);
+  g_array_append_vals (best->shortlist, shortlist->data, shortlist->len);
+  return best;
+}
+
+/**
+ * trb_solve_member_full:
+ * @project: the project, for its settings
+ * @member: one of its members
+ * @shortlist_max: how many passing sections to list at most (G_MAXUINT for all)
+ *
+ * Analyses and designs one member: a custom section is checked as given; a catalog section
+ * is checked and gets a shortlist of the passing sections; "auto" is sized: the lightest
+ * passing section of its family is chosen. Never fails: a member that cannot be analysed gets
+ * the status that says why, and a message.
+ *
+ * Returns: (transfer full): the member's results; they point into @member.
+ */
+TrbMemberResult *
+trb_solve_member_full (const TrbProject *project,
+                       const TrbMember  *member,
+                       guint             shortlist_max)
+{
+  TrbMemberResult *r;
+  TrbSection section;
+  double self_weight = 0;
+
+  g_return_val_if_fail (project != NULL && member != NULL, NULL);
+
+  if (!trb_member_is_custom (member))
+    {
+      const TrbSection *chosen = NULL;
+
+      /* Stability and support do not depend on the section: say so once, not per section. */
+      r = member_result_new (project, member);
+      g_strlcpy (r->section, member->section, sizeof r->section);
+      if (!analyse (project, member, NAN, NAN, 0, r) && r->status != TRB_STATUS_NOT_DESIGNED)
+        return r;
+      trb_member_result_free (r);
+
+      if (!trb_member_is_auto (member))
+        {
+          chosen = trb_catalog_lookup (trb_catalog_get_default (), member->section);
+          if (chosen == NULL)
+            {
+              r = member_result_new (project, member);
+              g_strlcpy (r->section, member->section, sizeof r->section);
+              set_status (r, TRB_STATUS_ERROR, "unknown section \"%s\": not in the catalog",
+                          member->section);
+              return r;
+            }
+        }
+      return size_member (project, member, chosen, shortlist_max);
+    }
+
+  r = member_result_new (project, member);
+  if (!project->settings.self_weight)
+    g_ptr_array_add (r->notes, g_strdup ("self-weight excluded by the project settings"));
+  else
+    self_weight = custom_self_weight (member, r->notes);
+  custom_section (member, self_weight, &section);
+  if (analyse (project, member, member->E, member->I, self_weight, r))
+    design_checks (project, member, &section, NULL, r);
+  return r;
+}
+
 /**
  * trb_solve_member:
  * @project: the project, for its settings
  * @member: one of its members
  *
- * Analyses and designs one member. Never fails: a member that cannot be analysed gets the
- * status that says why, and a message.
+ * trb_solve_member_full() with a shortlist of at most %TRB_SHORTLIST_DEFAULT sections.
  *
  * Returns: (transfer full): the member's results; they point into @member.
  */
@@ -656,27 +1002,7 @@ TrbMemberResult *
 trb_solve_member (const TrbProject *project,
                   const TrbMember  *member)
 {
-  TrbMemberResult *r;
-  double self_weight = 0;
-
-  g_return_val_if_fail (project != NULL && member != NULL, NULL);
-
-  r = member_result_new (project, member);
-  if (!project->settings.self_weight)
-    g_ptr_array_add (r->notes, g_strdup ("self-weight excluded by the project settings"));
-  else if (trb_member_is_custom (member))
-    self_weight = custom_self_weight (member, r->notes);
-
-  /* A custom section brings its E and I; a catalog section or "auto" gets them from the
-   * design step, so here only its stability is known. */
-  if (!analyse (project, member, member->E, member->I, self_weight, r))
-    {
-      if (r->status == TRB_STATUS_NOT_DESIGNED)
-        design (project, member, r);
-      return r;
-    }
-  design (project, member, r);
-  return r;
+  return trb_solve_member_full (project, member, TRB_SHORTLIST_DEFAULT);
 }
 
 /**

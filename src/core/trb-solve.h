@@ -68,6 +68,18 @@ typedef struct
   TrbEnvelope  envelope;
 } TrbComboSetResult;
 
+/* A passing section of the shortlist. */
+typedef struct
+{
+  char   section[32];
+  double weight;         /* N/m */
+  double ratio;          /* the governing check's ratio */
+  char   governing[40];  /* the governing check's name */
+} TrbShortlistEntry;
+
+/* How many passing sections trb_solve_member() lists. */
+#define TRB_SHORTLIST_DEFAULT 10
+
 typedef struct
 {
   const TrbMember  *member;      /* not owned: the project outlives its results */
@@ -98,7 +110,8 @@ typedef struct
   GArray           *checks;      /* TrbCheck */
   double            ratio;       /* the largest check ratio; NAN when nothing was checked */
   char              governing[40];  /* the name of the check with that ratio */
-  GPtrArray        *shortlist;   /* char *: passing sections, lightest first (auto-sizing) */
+  GArray           *shortlist;   /* TrbShortlistEntry: passing sections, lightest first, ties
+                                  * by depth; for catalog and "auto" members */
 } TrbMemberResult;
 
 typedef struct
@@ -111,6 +124,9 @@ const char       *trb_status_name           (TrbStatus               status);
 
 TrbMemberResult  *trb_solve_member          (const TrbProject       *project,
                                              const TrbMember        *member);
+TrbMemberResult  *trb_solve_member_full     (const TrbProject       *project,
+                                             const TrbMember        *member,
+                                             guint                   shortlist_max);
 void              trb_member_result_free    (TrbMemberResult        *result);
 
 TrbProjectResult *trb_solve_project         (const TrbProject       *project);
