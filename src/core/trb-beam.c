@@ -69,6 +69,7 @@ struct _TrbBeamResult
   gsize        size;      /* of the one allocation that holds everything below */
   double       length;
   double       EI;
+  double       inv_EI;    /* multiplications are much cheaper than divisions when drawing */
   guint        n_breaks;  /* >= 2; the segments number n_breaks - 1 */
   guint        n_reactions;
   TrbSegment  *segments;
@@ -370,11 +371,13 @@ result_alloc (double length,
               guint  n_reactions)
 {
   gsize size = result_size (n_breaks, n_reactions);
-  TrbBeamResult *r = g_malloc0 (size);
+  /* not zeroed: every field is written by the caller */
+  TrbBeamResult *r = g_malloc (size);
 
   r->size = size;
   r->length = length;
   r->EI = EI;
+  r->inv_EI = 1.0 / EI;
   r->n_breaks = n_breaks;
   r->n_reactions = n_reactions;
   result_set_pointers (r);
@@ -509,11 +512,18 @@ check_loads (const TrbBeam  *beam,
   return TRUE;
 }
 
-/* carries the state at the start of a segment to its end (local coordinate h) */
+/* The factorials of the polynomials, as multipliers: a division costs several times a
+ * multiplication, and these run for every drawn point. */
+#define C2 0.5
+#define C6 (1.0 / 6.0)
+#define C24 (1.0 / 24.0)
+#define C120 (1.0 / 120.0)
+
+/* carries the state at the start of a segment to the local coordinate h */
 static inline void
 segment_advance (const TrbSegment *s,
                  double            h,
-                 double            EI,
+                 double            inv_EI,
                  double           *V,
                  double           *M,
                  double           *theta,
@@ -521,11 +531,11 @@ segment_advance (const TrbSegment *s,
 {
   double w = s->w, dw = s->dw;
 
-  *V = s->V - h * (w + h * dw / 2.0);
-  *M = s->M + h * (s->V - h * (w / 2.0 + h * dw / 6.0));
-  *theta = s->theta + h * (s->M + h * (s->V / 2.0 - h * (w / 6.0 + h * dw / 24.0))) / EI;
+  *V = s->V - h * (w + h * dw * C2);
+  *M = s->M + h * (s->V - h * (w * C2 + h * dw * C6));
+  *theta = s->theta + h * (s->M + h * (s->V * C2 - h * (w * C6 + h * dw * C24))) * inv_EI;
   *v = s->v + h * s->theta +
-       h * h * (s->M / 2.0 + h * (s->V / 6.0 - h * (w / 24.0 + h * dw / 120.0))) / EI;
+       h * h * (s->M * C2 + h * (s->V * C6 - h * (w * C24 + h * dw * C120))) * inv_EI;
 }
 
 /**
@@ -620,7 +630,11 @@ trb_beam_solve (const TrbBeam  *beam,
   brk = res->breaks;
   seg = res->segments;
   for (guint k = 0; k < nseg; k++)
-    seg[k].x = brk[k];
+    {
+      seg[k].x = brk[k];
+      seg[k].w = 0;
+      seg[k].dw = 0;
+    }
   memset (P, 0, nb * sizeof (double));
   memset (m, 0, nb * sizeof (double));
 
@@ -809,6 +823,7 @@ trb_beam_solve (const TrbBeam  *beam,
 
       r->x = sup[i].x;
       r->force = Vplus - Vminus + P[sidx[i]];
+      r->moment = 0;
       if (sup[i].type == TRB_SUPPORT_FIXED)
         {
           double Mminus = i > 0 ? Mr[i - 1] : MoL;
@@ -833,7 +848,7 @@ trb_beam_solve (const TrbBeam  *beam,
         seg[k].M = M;
         seg[k].theta = theta;
         seg[k].v = v;
-        segment_advance (&seg[k], brk[k + 1] - brk[k], EI, &V, &M, &theta, &v);
+        segment_advance (&seg[k], brk[k + 1] - brk[k], res->inv_EI, &V, &M, &theta, &v);
       }
     if (k0 > 0)
       {
@@ -869,7 +884,7 @@ trb_beam_solve (const TrbBeam  *beam,
             seg[k].M = M;
             seg[k].theta = theta;
             seg[k].v = v;
-            segment_advance (&seg[k], brk[k + 1] - brk[k], EI, &V, &M, &theta, &v);
+            segment_advance (&seg[k], brk[k + 1] - brk[k], res->inv_EI, &V, &M, &theta, &v);
           }
       }
   }
@@ -896,8 +911,11 @@ trb_beam_result_combine (TrbBeamResult **results,
                          guint           n_results)
 {
   guint cur_stack[16];
+  double brk_stack[512];
   g_autofree guint *cur_heap = NULL;
+  g_autofree double *brk_heap = NULL;
   guint *cur;
+  double *brk;
   guint total = 0, nb = 0;
   const TrbBeamResult *first;
   TrbBeamResult *res;
@@ -914,8 +932,9 @@ trb_beam_result_combine (TrbBeamResult **results,
     }
 
   cur = n_results <= G_N_ELEMENTS (cur_stack) ? cur_stack : (cur_heap = g_new (guint, n_results));
+  brk = total <= G_N_ELEMENTS (brk_stack) ? brk_stack : (brk_heap = g_new (double, total));
 
-  /* count the merged breaks: a k-way merge over the results that count */
+  /* the merged breaks: a k-way merge over the results that count */
   for (guint r = 0; r < n_results; r++)
     cur[r] = 0;
   for (;;)
@@ -927,41 +946,20 @@ trb_beam_result_combine (TrbBeamResult **results,
           x = results[r]->breaks[cur[r]];
       if (x == INFINITY)
         break;
-      nb++;
+      brk[nb++] = x;
       for (guint r = 0; r < n_results; r++)
         if (factors[r] != 0 && cur[r] < results[r]->n_breaks && results[r]->breaks[cur[r]] == x)
           cur[r]++;
     }
   if (nb < 2)
     {
-      /* every factor is zero: a zero result on the same breaks as the first */
-      res = result_alloc (first->length, first->EI, first->n_breaks, first->n_reactions);
-      memcpy (res->breaks, first->breaks, first->n_breaks * sizeof (double));
-      for (guint k = 0; k + 1 < first->n_breaks; k++)
-        res->segments[k].x = first->breaks[k];
-      for (guint i = 0; i < first->n_reactions; i++)
-        res->reactions[i].x = first->reactions[i].x;
-      return res;
+      /* every factor is zero: a zero result on the breaks of the first */
+      nb = first->n_breaks;
+      memcpy (brk, first->breaks, nb * sizeof (double));
     }
 
   res = result_alloc (first->length, first->EI, nb, first->n_reactions);
-  for (guint r = 0; r < n_results; r++)
-    cur[r] = 0;
-  nb = 0;
-  for (;;)
-    {
-      double x = INFINITY;
-
-      for (guint r = 0; r < n_results; r++)
-        if (factors[r] != 0 && cur[r] < results[r]->n_breaks && results[r]->breaks[cur[r]] < x)
-          x = results[r]->breaks[cur[r]];
-      if (x == INFINITY)
-        break;
-      res->breaks[nb++] = x;
-      for (guint r = 0; r < n_results; r++)
-        if (factors[r] != 0 && cur[r] < results[r]->n_breaks && results[r]->breaks[cur[r]] == x)
-          cur[r]++;
-    }
+  memcpy (res->breaks, brk, nb * sizeof (double));
 
   /* each merged segment: every result's state at its start (a Taylor shift of that result's
    * own polynomials, which is exact), scaled and added */
@@ -970,8 +968,9 @@ trb_beam_result_combine (TrbBeamResult **results,
   for (guint k = 0; k + 1 < nb; k++)
     {
       TrbSegment *s = &res->segments[k];
-      double x = res->breaks[k];
+      double x = brk[k];
 
+      memset (s, 0, sizeof *s);
       s->x = x;
       for (guint r = 0; r < n_results; r++)
         {
@@ -993,7 +992,7 @@ trb_beam_result_combine (TrbBeamResult **results,
               v = ss->v;
             }
           else
-            segment_advance (ss, t, src->EI, &V, &M, &theta, &v);
+            segment_advance (ss, t, src->inv_EI, &V, &M, &theta, &v);
           s->w += f * (ss->w + ss->dw * t);
           s->dw += f * ss->dw;
           s->V += f * V;
@@ -1005,11 +1004,17 @@ trb_beam_result_combine (TrbBeamResult **results,
 
   for (guint i = 0; i < first->n_reactions; i++)
     {
-      res->reactions[i].x = first->reactions[i].x;
+      TrbReaction *rr = &res->reactions[i];
+
+      rr->x = first->reactions[i].x;
+      rr->force = 0;
+      rr->moment = 0;
       for (guint r = 0; r < n_results; r++)
         {
-          res->reactions[i].force += factors[r] * results[r]->reactions[i].force;
-          res->reactions[i].moment += factors[r] * results[r]->reactions[i].moment;
+          if (factors[r] == 0)
+            continue;
+          rr->force += factors[r] * results[r]->reactions[i].force;
+          rr->moment += factors[r] * results[r]->reactions[i].moment;
         }
     }
 
@@ -1064,19 +1069,80 @@ trb_beam_result_get_breaks (const TrbBeamResult *result,
   return result->breaks;
 }
 
-static inline void
-segment_eval (const TrbSegment *s,
-              double            t,
-              double            EI,
-              TrbBeamValues    *out)
+/* A segment's four polynomials in the power basis of t, computed once per segment so that
+ * each point costs 14 multiply-adds (Horner). defl is the downward deflection. */
+typedef struct
 {
-  double V, M, theta, v;
+  double V[3];
+  double M[4];
+  double theta[5];
+  double defl[6];
+} SegCoeffs;
 
-  segment_advance (s, t, EI, &V, &M, &theta, &v);
-  out->V = V;
-  out->M = M;
-  out->theta = theta;
-  out->defl = -v;
+static inline void
+segment_coeffs (const TrbSegment *s,
+                double            inv_EI,
+                SegCoeffs        *c)
+{
+  c->V[0] = s->V;
+  c->V[1] = -s->w;
+  c->V[2] = -s->dw * C2;
+  c->M[0] = s->M;
+  c->M[1] = s->V;
+  c->M[2] = -s->w * C2;
+  c->M[3] = -s->dw * C6;
+  c->theta[0] = s->theta;
+  c->theta[1] = s->M * inv_EI;
+  c->theta[2] = s->V * C2 * inv_EI;
+  c->theta[3] = -s->w * C6 * inv_EI;
+  c->theta[4] = -s->dw * C24 * inv_EI;
+  c->defl[0] = -s->v;
+  c->defl[1] = -s->theta;
+  c->defl[2] = -s->M * C2 * inv_EI;
+  c->defl[3] = -s->V * C6 * inv_EI;
+  c->defl[4] = s->w * C24 * inv_EI;
+  c->defl[5] = s->dw * C120 * inv_EI;
+}
+
+static inline double
+coeffs_V (const SegCoeffs *c,
+          double           t)
+{
+  return c->V[0] + t * (c->V[1] + t * c->V[2]);
+}
+
+static inline double
+coeffs_M (const SegCoeffs *c,
+          double           t)
+{
+  return c->M[0] + t * (c->M[1] + t * (c->M[2] + t * c->M[3]));
+}
+
+static inline double
+coeffs_theta (const SegCoeffs *c,
+              double           t)
+{
+  return c->theta[0] + t * (c->theta[1] + t * (c->theta[2] + t * (c->theta[3] +
+                                                                  t * c->theta[4])));
+}
+
+static inline double
+coeffs_defl (const SegCoeffs *c,
+             double           t)
+{
+  return c->defl[0] + t * (c->defl[1] + t * (c->defl[2] + t * (c->defl[3] +
+                                                              t * (c->defl[4] + t * c->defl[5]))));
+}
+
+static inline void
+coeffs_eval (const SegCoeffs *c,
+             double           t,
+             TrbBeamValues   *out)
+{
+  out->V = coeffs_V (c, t);
+  out->M = coeffs_M (c, t);
+  out->theta = coeffs_theta (c, t);
+  out->defl = coeffs_defl (c, t);
 }
 
 void
@@ -1085,6 +1151,7 @@ trb_beam_result_eval (const TrbBeamResult *result,
                       TrbSide              side,
                       TrbBeamValues       *out)
 {
+  SegCoeffs c;
   guint k;
 
   g_return_if_fail (result != NULL);
@@ -1096,7 +1163,8 @@ trb_beam_result_eval (const TrbBeamResult *result,
     x = result->length;
 
   k = find_segment (result, x, side);
-  segment_eval (&result->segments[k], x - result->breaks[k], result->EI, out);
+  segment_coeffs (&result->segments[k], result->inv_EI, &c);
+  coeffs_eval (&c, x - result->breaks[k], out);
 
   /* beyond the ends no force passes: V and M are zero there, theta and v continue */
   if ((x == 0 && side == TRB_SIDE_LEFT) || (x == result->length && side == TRB_SIDE_RIGHT))
@@ -1112,6 +1180,7 @@ trb_beam_result_sample (const TrbBeamResult *result,
                         double              *x,
                         TrbBeamValues       *values)
 {
+  SegCoeffs c;
   guint k = 0;
   double L;
 
@@ -1120,6 +1189,7 @@ trb_beam_result_sample (const TrbBeamResult *result,
   g_return_if_fail (x != NULL && values != NULL);
 
   L = result->length;
+  segment_coeffs (&result->segments[0], result->inv_EI, &c);
   for (guint i = 0; i < n; i++)
     {
       /* L i / (n - 1) in this order is exact whenever the point is representable */
@@ -1127,10 +1197,15 @@ trb_beam_result_sample (const TrbBeamResult *result,
 
       /* the right value at a jump; at L the left one, the only one on the member (the last
        * segment ends at L, so it is never passed) */
-      while (k + 2 < result->n_breaks && result->breaks[k + 1] <= xi)
-        k++;
+      if (k + 2 < result->n_breaks && result->breaks[k + 1] <= xi)
+        {
+          do
+            k++;
+          while (k + 2 < result->n_breaks && result->breaks[k + 1] <= xi);
+          segment_coeffs (&result->segments[k], result->inv_EI, &c);
+        }
       x[i] = xi;
-      segment_eval (&result->segments[k], xi - result->breaks[k], result->EI, &values[i]);
+      coeffs_eval (&c, xi - result->breaks[k], &values[i]);
     }
 }
 
@@ -1146,7 +1221,9 @@ typedef struct
 } ExtremeAcc;
 
 static inline void
-acc_V (ExtremeAcc *acc, double V, double x)
+acc_V (ExtremeAcc *acc,
+       double      V,
+       double      x)
 {
   if (V > acc->e.V_max)
     {
@@ -1161,7 +1238,9 @@ acc_V (ExtremeAcc *acc, double V, double x)
 }
 
 static inline void
-acc_M (ExtremeAcc *acc, double M, double x)
+acc_M (ExtremeAcc *acc,
+       double      M,
+       double      x)
 {
   if (M > acc->e.M_max)
     {
@@ -1176,7 +1255,9 @@ acc_M (ExtremeAcc *acc, double M, double x)
 }
 
 static inline void
-acc_defl (ExtremeAcc *acc, double defl, double x)
+acc_defl (ExtremeAcc *acc,
+          double      defl,
+          double      x)
 {
   if (defl > acc->down)
     {
@@ -1191,7 +1272,9 @@ acc_defl (ExtremeAcc *acc, double defl, double x)
 }
 
 static inline void
-acc_values (ExtremeAcc *acc, const TrbBeamValues *val, double x)
+acc_values (ExtremeAcc          *acc,
+            const TrbBeamValues *val,
+            double               x)
 {
   acc_V (acc, val->V, x);
   acc_M (acc, val->M, x);
@@ -1241,97 +1324,105 @@ quadratic_roots (double c0,
   return k;
 }
 
-/* Local polynomials of one segment, for root finding. */
-typedef struct
-{
-  const TrbSegment *s;
-  double            EI;
-} SegPoly;
+/* A function of the local coordinate and its derivative, for root finding. */
+typedef double (*SegFunc) (const SegCoeffs *c,
+                           double           t);
 
+/* the derivative of theta, M / EI, from theta's own coefficients */
 static inline double
-poly_M (const SegPoly *p, double t)
+coeffs_M_over_EI (const SegCoeffs *c,
+                  double           t)
 {
-  const TrbSegment *s = p->s;
-
-  return s->M + t * (s->V - t * (s->w / 2.0 + t * s->dw / 6.0));
-}
-
-static inline double
-poly_V (const SegPoly *p, double t)
-{
-  const TrbSegment *s = p->s;
-
-  return s->V - t * (s->w + t * s->dw / 2.0);
-}
-
-/* EI theta, so that its derivative is M */
-static inline double
-poly_EItheta (const SegPoly *p, double t)
-{
-  const TrbSegment *s = p->s;
-
-  return p->EI * s->theta + t * (s->M + t * (s->V / 2.0 - t * (s->w / 6.0 + t * s->dw / 24.0)));
+  return c->theta[1] + t * (2.0 * c->theta[2] + t * (3.0 * c->theta[3] + t * 4.0 * c->theta[4]));
 }
 
 /* The root of a monotone f on [lo, hi] with f(lo), f(hi) of strictly opposite signs:
- * Newton steps kept inside a shrinking bracket, with a bisection whenever a step would leave
- * the bracket or the bracket has not halved over two steps. Stops when a step is below the
- * resolution of x (scale is the size of the global coordinate), or the bracket is. */
+ * Newton steps from the secant point, kept inside the shrinking bracket; a bisection instead
+ * whenever a step would leave the bracket or is not at least halving the previous one, so
+ * convergence is guaranteed and quadratic near the root. Stops when a step is below the
+ * resolution of x (scale is the size of the global coordinate). */
 static double
-bracketed_root (double (*f) (const SegPoly *, double),
-                double (*df) (const SegPoly *, double),
-                const SegPoly *p,
-                double lo,
-                double hi,
-                double flo,
-                double scale)
+bracketed_root (SegFunc          f,
+                SegFunc          df,
+                const SegCoeffs *c,
+                double           lo,
+                double           hi,
+                double           flo,
+                double           fhi,
+                double           scale)
 {
   double tol = 2.0 * DBL_EPSILON * scale;
-  double t = 0.5 * (lo + hi);
-  double width_before = 2.0 * (hi - lo);
+  double dx_old = hi - lo, dx = dx_old;
+  double t, ft, dft;
 
-  for (int it = 0; it < 300; it++)
+  /* orient so that f(lo) < 0 < f(hi) */
+  if (flo > 0)
     {
-      double ft = f (p, t);
-      double d, tn;
+      double tmp = lo;
+      lo = hi;
+      hi = tmp;
+      tmp = flo;
+      flo = fhi;
+      fhi = tmp;
+    }
+  t = lo - flo * (hi - lo) / (fhi - flo);
+  if (!(t > MIN (lo, hi) && t < MAX (lo, hi)))
+    t = 0.5 * (lo + hi);
+  ft = f (c, t);
+  dft = df (c, t);
 
+  for (int it = 0; it < 200; it++)
+    {
       if (ft == 0)
         return t;
-      if ((ft < 0) == (flo < 0))
-        {
-          lo = t;
-          flo = ft;
-        }
+      if (ft < 0)
+        lo = t;
       else
         hi = t;
-      if (hi - lo <= tol)
-        return 0.5 * (lo + hi);
 
-      d = df (p, t);
-      tn = d != 0 ? t - ft / d : NAN;
-      if (!(tn > lo && tn < hi) || (it % 2 == 1 && hi - lo > 0.5 * width_before))
-        tn = 0.5 * (lo + hi);
-      else if (fabs (tn - t) <= tol)
-        return tn;
-      if (it % 2 == 1)
-        width_before = hi - lo;
-      t = tn;
+      if ((((t - hi) * dft - ft) * ((t - lo) * dft - ft) > 0) ||
+          fabs (2.0 * ft) > fabs (dx_old * dft))
+        {
+          dx_old = dx;
+          dx = 0.5 * (hi - lo);
+          t = lo + dx;
+        }
+      else
+        {
+          dx_old = dx;
+          dx = ft / dft;
+          t -= dx;
+        }
+      if (fabs (dx) <= tol)
+        return t;
+      ft = f (c, t);
+      dft = df (c, t);
     }
   return t;
 }
 
-/* One piece [t0, t1] of a segment, t0 < t1. The ends are counted by the caller. */
+/* One piece [t0, t1] of a segment, t0 < t1, whose end values the caller has counted (V0, M0,
+ * th0 at t0; V1, M1, th1 at t1). Looks for the extremes inside it. */
 static void
 piece_extremes (const TrbSegment *s,
                 double            x0,
                 double            t0,
                 double            t1,
-                double            EI,
+                double            V0,
+                double            V1,
+                double            M0,
+                double            M1,
+                double            th0,
+                double            th1,
+                double            inv_EI,
                 ExtremeAcc       *acc)
 {
-  SegPoly p = { s, EI };
-  double vroots[2], cuts[4], mroots[3], mcuts[5];
+  double vroots[2], cuts[4], mcut[4], mroots[3], mcuts[5];
+  double scale = fabs (x0) + t1;
+  double max_M = 0;
+  gboolean m_changes = FALSE;
   guint nv, nc, nm = 0, nmc;
+  SegCoeffs c;
 
   /* V: its extreme where the intensity w + dw t changes sign */
   if (s->dw != 0)
@@ -1339,30 +1430,68 @@ piece_extremes (const TrbSegment *s,
       double t = -s->w / s->dw;
 
       if (t > t0 && t < t1)
-        acc_V (acc, poly_V (&p, t), x0 + t);
+        acc_V (acc, s->V - t * (s->w + t * s->dw * C2), x0 + t);
     }
 
-  /* M: extremes at the roots of V, a quadratic, in closed form */
-  nv = quadratic_roots (s->V, -s->w, -s->dw / 2.0, t0, t1, vroots);
-  for (guint i = 0; i < nv; i++)
-    acc_M (acc, poly_M (&p, vroots[i]), x0 + vroots[i]);
+  /* M: extremes at the roots of V, in closed form; with no slope of the load V is linear
+   * and has a root only where it changes sign */
+  if (s->dw == 0)
+    {
+      nv = 0;
+      if (((V0 < 0 && V1 > 0) || (V0 > 0 && V1 < 0)) && s->w != 0)
+        {
+          double t = s->V / s->w;
 
-  /* deflection: extremes at the roots of theta, a quartic. Between consecutive roots of V,
-   * M is monotone and has at most one root; between consecutive roots of M, theta is
-   * monotone and has at most one root. Each is bracketed and polished to machine
-   * precision. */
+          if (t > t0 && t < t1)
+            vroots[nv++] = t;
+        }
+    }
+  else
+    nv = quadratic_roots (s->V, -s->w, -s->dw * C2, t0, t1, vroots);
+  /* M at the cuts (the ends and the roots of V): between them M is monotone, so these give
+   * its exact range over the piece and every sign change */
   nc = 0;
-  cuts[nc++] = t0;
+  cuts[nc] = t0;
+  mcut[nc++] = M0;
   for (guint i = 0; i < nv; i++)
-    cuts[nc++] = vroots[i];
-  cuts[nc++] = t1;
+    {
+      double t = vroots[i];
+
+      cuts[nc] = t;
+      mcut[nc] = s->M + t * (s->V - t * (s->w * C2 + t * s->dw * C6));
+      acc_M (acc, mcut[nc], x0 + t);
+      nc++;
+    }
+  cuts[nc] = t1;
+  mcut[nc++] = M1;
+  for (guint i = 0; i < nc; i++)
+    {
+      max_M = MAX (max_M, fabs (mcut[i]));
+      if (i > 0 && ((mcut[i - 1] < 0 && mcut[i] > 0) || (mcut[i - 1] > 0 && mcut[i] < 0)))
+        m_changes = TRUE;
+    }
+
+  /* deflection: extremes at the roots of theta, a quartic. Between consecutive roots of M,
+   * theta is monotone and has at most one root, so the roots of M (one at most between
+   * consecutive cuts above) split the piece into brackets; each root is polished to machine
+   * precision.
+   * Most pieces are nowhere near a root of theta, and the search is skipped where theta
+   * keeps its sign at both ends and either is monotone (M keeps its sign) or cannot travel
+   * back to zero (|theta(t) - theta(t0)| <= (t1 - t0) max |M| / EI). */
+  if ((th0 > 0 && th1 > 0) || (th0 < 0 && th1 < 0))
+    {
+      if (!m_changes || MIN (fabs (th0), fabs (th1)) > (t1 - t0) * max_M * inv_EI * (1 + 1e-9))
+        return;
+    }
+
+  segment_coeffs (s, inv_EI, &c);
   for (guint i = 0; i + 1 < nc; i++)
     {
-      double a = cuts[i], b = cuts[i + 1];
-      double fa = poly_M (&p, a), fb = poly_M (&p, b);
+      double ma = mcut[i], mb = mcut[i + 1];
 
-      if ((fa < 0 && fb > 0) || (fa > 0 && fb < 0))
-        mroots[nm++] = bracketed_root (poly_M, poly_V, &p, a, b, fa, fabs (x0) + t1);
+      if ((ma < 0 && mb > 0) || (ma > 0 && mb < 0))
+        mroots[nm++] = bracketed_root (coeffs_M, coeffs_V, &c, cuts[i], cuts[i + 1], ma, mb,
+                                       scale);
     }
   nmc = 0;
   mcuts[nmc++] = t0;
@@ -1371,16 +1500,15 @@ piece_extremes (const TrbSegment *s,
   mcuts[nmc++] = t1;
   for (guint i = 0; i + 1 < nmc; i++)
     {
-      double a = mcuts[i], b = mcuts[i + 1];
-      double fa = poly_EItheta (&p, a), fb = poly_EItheta (&p, b);
+      double ta = mcuts[i], tb = mcuts[i + 1];
+      double fa = i == 0 ? th0 : coeffs_theta (&c, ta);
+      double fb = i + 2 == nmc ? th1 : coeffs_theta (&c, tb);
 
       if ((fa < 0 && fb > 0) || (fa > 0 && fb < 0))
         {
-          double t = bracketed_root (poly_EItheta, poly_M, &p, a, b, fa, fabs (x0) + t1);
-          TrbBeamValues val;
+          double t = bracketed_root (coeffs_theta, coeffs_M_over_EI, &c, ta, tb, fa, fb, scale);
 
-          segment_eval (s, t, EI, &val);
-          acc_defl (acc, val.defl, x0 + t);
+          acc_defl (acc, coeffs_defl (&c, t), x0 + t);
         }
     }
 }
@@ -1426,21 +1554,62 @@ trb_beam_result_extremes (const TrbBeamResult *result,
     }
   else
     {
-      for (k = find_segment (result, a, TRB_SIDE_RIGHT);
-           k + 1 < result->n_breaks && result->breaks[k] < b; k++)
+      guint last = result->n_breaks - 2;
+
+      for (k = find_segment (result, a, TRB_SIDE_RIGHT); k <= last && result->breaks[k] < b; k++)
         {
           const TrbSegment *s = &result->segments[k];
-          double x0 = result->breaks[k];
-          double xs = MAX (a, x0), xe = MIN (b, result->breaks[k + 1]);
+          double x0 = result->breaks[k], x1 = result->breaks[k + 1];
+          double xs = MAX (a, x0), xe = MIN (b, x1);
           double t0 = xs - x0, t1 = xe - x0;
+          double V0, M0, th0, d0, V1, M1, th1, d1;
 
           if (!(t1 > t0))
             continue;
-          segment_eval (s, t0, result->EI, &val);
-          acc_values (&acc, &val, xs);
-          segment_eval (s, t1, result->EI, &val);
-          acc_values (&acc, &val, xe);
-          piece_extremes (s, x0, t0, t1, result->EI, &acc);
+
+          /* the stored state at a segment's start; theta and the deflection are continuous,
+           * so at its end they are the next segment's stored state (v exactly 0 at a
+           * support); only a piece cut short by a or b is evaluated */
+          if (t0 == 0)
+            {
+              V0 = s->V;
+              M0 = s->M;
+              th0 = s->theta;
+              d0 = -s->v;
+            }
+          else
+            {
+              SegCoeffs c;
+
+              segment_coeffs (s, result->inv_EI, &c);
+              V0 = coeffs_V (&c, t0);
+              M0 = coeffs_M (&c, t0);
+              th0 = coeffs_theta (&c, t0);
+              d0 = coeffs_defl (&c, t0);
+            }
+          V1 = s->V - t1 * (s->w + t1 * s->dw * C2);
+          M1 = s->M + t1 * (s->V - t1 * (s->w * C2 + t1 * s->dw * C6));
+          if (xe == x1 && k < last)
+            {
+              th1 = s[1].theta;
+              d1 = -s[1].v;
+            }
+          else
+            {
+              SegCoeffs c;
+
+              segment_coeffs (s, result->inv_EI, &c);
+              th1 = coeffs_theta (&c, t1);
+              d1 = coeffs_defl (&c, t1);
+            }
+
+          acc_V (&acc, V0, xs);
+          acc_M (&acc, M0, xs);
+          acc_defl (&acc, d0, xs);
+          acc_V (&acc, V1, xe);
+          acc_M (&acc, M1, xe);
+          acc_defl (&acc, d1, xe);
+          piece_extremes (s, x0, t0, t1, V0, V1, M0, M1, th0, th1, result->inv_EI, &acc);
         }
     }
 
