@@ -490,8 +490,10 @@ test_strips_staggered (void)
     { "J1", P (0, 0.5), P (4, 0.5), TRB_FRAME_ROLE_JOIST, TRUE },
     { "J3", P (2, 0.75), P (0, 0.75), TRB_FRAME_ROLE_JOIST, TRUE },
     { "J4", P (0, 1.0), P (4, 1.0), TRB_FRAME_ROLE_JOIST, TRUE },
+    /* in line with J1 over x = 3-4 (drawn over it): bounds nothing */
+    { "J5", P (3, 0.5), P (5, 0.5), TRB_FRAME_ROLE_JOIST, TRUE },
   };
-  TrbFramePlan plan = { .members = members, .n_members = 4, .area_loads = area,
+  TrbFramePlan plan = { .members = members, .n_members = 5, .area_loads = area,
                         .n_area_loads = 1 };
   g_autoptr(TrbFrame) frame = frame_new (&plan);
   const TrbFrameMemberResult *r = member (frame, "J1");
@@ -808,6 +810,33 @@ test_plan_loads (void)
   g_assert_cmpuint (lost_points[0], ==, 2);
 }
 
+/* Members drawn over one another under a line load: the first in plan order takes the part it
+ * lies under, the next the rest, so the load is counted once. */
+static void
+test_plan_loads_overlap (void)
+{
+  TrbFrameMember members[] = {
+    { "B1", P (2, 0), P (4, 0), TRB_FRAME_ROLE_BEAM, FALSE },
+    { "B2", P (0, 0), P (6, 0), TRB_FRAME_ROLE_BEAM, FALSE },
+  };
+  TrbFramePoint along[] = { P (0, 0), P (6, 0) };
+  TrbFrameLineLoad lines[] = { { TRB_CASE_D, 1000.0, along, 2 } };
+  TrbFramePlan plan = { .members = members, .n_members = 2, .line_loads = lines,
+                        .n_line_loads = 1 };
+  g_autoptr(TrbFrame) frame = frame_new (&plan);
+  const TrbFrameMemberResult *b1 = member (frame, "B1");
+  const TrbFrameMemberResult *b2 = member (frame, "B2");
+  guint n;
+
+  g_assert_cmpuint (b1->n_loads[TRB_CASE_D], ==, 1);
+  assert_load (&b1->loads[TRB_CASE_D][0], TRB_LOAD_UNIFORM, 0, 2, 1000, 1000);
+  g_assert_cmpuint (b2->n_loads[TRB_CASE_D], ==, 2);
+  assert_load (&b2->loads[TRB_CASE_D][0], TRB_LOAD_UNIFORM, 0, 2, 1000, 1000);
+  assert_load (&b2->loads[TRB_CASE_D][1], TRB_LOAD_UNIFORM, 4, 6, 1000, 1000);
+  trb_frame_get_unassigned_lines (frame, &n);
+  g_assert_cmpuint (n, ==, 0);
+}
+
 /* ---- hand-off, errors, determinism --------------------------------------------------------- */
 
 static void
@@ -972,6 +1001,7 @@ main (int   argc,
   g_test_add_func ("/trb/frame/order/grid", test_order);
   g_test_add_func ("/trb/frame/order/chain", test_order_chain);
   g_test_add_func ("/trb/frame/plan-loads", test_plan_loads);
+  g_test_add_func ("/trb/frame/plan-loads-overlap", test_plan_loads_overlap);
   g_test_add_func ("/trb/frame/hand-down", test_hand_down);
   g_test_add_func ("/trb/frame/invalid", test_invalid);
   g_test_add_func ("/trb/frame/deterministic", test_deterministic);

@@ -96,6 +96,11 @@ test_limits (void)
   g_assert_cmpfloat_with_epsilon (r.factor, 0.40, 1e-12);
   g_assert_cmpint (r.rule, ==, TRB_LIVE_RULE_FLOORS_LIMIT);
 
+  /* two floors are "two or more" (§4.7.2): 0.40 as well */
+  reduce (50, 10000, TRB_LIVE_MEMBER_INTERIOR_COLUMN, 2, TRB_LIVE_OCCUPANCY_ORDINARY, &r);
+  g_assert_cmpfloat_with_epsilon (r.factor, 0.40, 1e-12);
+  g_assert_cmpint (r.rule, ==, TRB_LIVE_RULE_FLOORS_LIMIT);
+
   /* the same with one floor stops at 0.50 (§4.7.2) */
   reduce (50, 10000, TRB_LIVE_MEMBER_INTERIOR_COLUMN, 1, TRB_LIVE_OCCUPANCY_ORDINARY, &r);
   g_assert_cmpfloat_with_epsilon (r.factor, 0.50, 1e-12);

@@ -144,7 +144,9 @@ typedef enum
 
 /* One piece of a deck member's tributary strip: over [a, b] of the member it takes the area
  * load from `left` metres on its left (counter-clockwise from its start-to-end direction) to
- * `right` metres on its right. INFINITY means out to the edge of the loaded area. */
+ * `right` metres on its right: half the distance to the next parallel deck member on that side.
+ * INFINITY: no such member within the area loads' reach on that side, so the strip runs out to
+ * the loads' edge. */
 typedef struct
 {
   double a;
