@@ -2033,8 +2033,9 @@ trb_frame_get_unassigned_lines (const TrbFrame *frame,
  * trb_frame_hand_down:
  * @frame: a frame
  * @member: the member's index
- * @reactions: per support (in the order of its supports), per load case: the support's
- *   reaction on the member, N, upward +
+ * @reactions: @n_reactions × %TRB_N_CASES values, support by support (in the order of the
+ *   member's supports), case by case within each: the support's reaction on the member, N,
+ *   upward +
  * @n_reactions: the member's number of supports
  * @out: (out caller-allocates): @n_reactions hand-offs, one per support
  * @error: return location for a #GError
@@ -2049,7 +2050,7 @@ trb_frame_get_unassigned_lines (const TrbFrame *frame,
 gboolean
 trb_frame_hand_down (const TrbFrame   *frame,
                      guint             member,
-                     const double    (*reactions)[TRB_N_CASES],
+                     const double     *reactions,
                      guint             n_reactions,
                      TrbFrameHandoff  *out,
                      GError          **error)
@@ -2076,7 +2077,7 @@ trb_frame_hand_down (const TrbFrame   *frame,
       out[s].index = r->bearings[s].index;
       out[s].position = r->bearings[s].position;
       for (int c = 0; c < TRB_N_CASES; c++)
-        out[s].force[c] = reactions[s][c];
+        out[s].force[c] = reactions[s * TRB_N_CASES + c];
     }
   return TRUE;
 }
@@ -2159,7 +2160,7 @@ add_point_load (GArray *loads,
 gboolean
 trb_frame_takedown_add (TrbFrameTakedown  *takedown,
                         guint              member,
-                        const double     (*reactions)[TRB_N_CASES],
+                        const double      *reactions,
                         guint              n_reactions,
                         GError           **error)
 {

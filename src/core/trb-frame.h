@@ -216,7 +216,7 @@ const TrbFrameUnassigned   *trb_frame_get_unassigned_lines   (const TrbFrame    
 
 gboolean                    trb_frame_hand_down              (const TrbFrame     *frame,
                                                               guint               member,
-                                                              const double      (*reactions)[TRB_N_CASES],
+                                                              const double       *reactions,
                                                               guint               n_reactions,
                                                               TrbFrameHandoff    *out,
                                                               GError            **error);
@@ -225,7 +225,7 @@ TrbFrameTakedown           *trb_frame_takedown_new           (const TrbFrame    
 void                        trb_frame_takedown_free          (TrbFrameTakedown   *takedown);
 gboolean                    trb_frame_takedown_add           (TrbFrameTakedown   *takedown,
                                                               guint               member,
-                                                              const double      (*reactions)[TRB_N_CASES],
+                                                              const double       *reactions,
                                                               guint               n_reactions,
                                                               GError            **error);
 const TrbLoad              *trb_frame_takedown_get_member_loads (const TrbFrameTakedown *takedown,
