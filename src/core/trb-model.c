@@ -290,6 +290,7 @@ trb_project_free (TrbProject *project)
   g_free (project->name);
   trb_settings_clear (&project->settings);
   g_clear_pointer (&project->members, g_ptr_array_unref);
+  g_clear_pointer (&project->sections, trb_catalog_free);
   g_free (project);
 }
 

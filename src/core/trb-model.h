@@ -5,6 +5,7 @@
 #include <glib.h>
 
 #include "trb-beam.h"
+#include "trb-catalog.h"
 #include "trb-design.h"
 #include "trb-types.h"
 
@@ -107,6 +108,7 @@ typedef struct
   char        *name;         /* the file's display name, for messages; may be NULL */
   TrbSettings  settings;
   GPtrArray   *members;      /* TrbMember, standalone beams in file order */
+  TrbCatalog  *sections;     /* the project's own sections (<sections>); NULL when none */
 } TrbProject;
 
 const char  *trb_method_name               (TrbMethod          method);

@@ -12,6 +12,7 @@
 #include <string.h>
 
 #include "trb-combos.h"
+#include "trb-catalog.h"
 #include "trb-error.h"
 #include "trb-project-io.h"
 #include "trb-units.h"
@@ -23,6 +24,7 @@ typedef struct
 {
   const char *name;      /* for messages: the path as given, or a caller's name */
   GError    **error;
+  const char *dir;       /* the project file's folder; NULL when loaded from memory */
 } Loader;
 
 /* What the DOCTYPE guard saw, and the parser's own element handler; reached from the parser
@@ -756,6 +758,71 @@ load_beam (Loader     *ld,
   return TRUE;
 }
 
+/* The project's own sections, which join the catalog for checking and sizing: CSV text inside
+ * the element, or file="NAME.csv" naming a file in the project's own folder (a bare file
+ * name: nothing outside that folder is ever read). */
+static gboolean
+load_sections (Loader     *ld,
+               xmlNode    *node,
+               TrbProject *project)
+{
+  static const char * const attrs[] = { "file", NULL };
+  g_autofree char *file = NULL;
+  g_autofree char *text = NULL;
+  g_autofree char *source = NULL;
+  g_autoptr(GError) local = NULL;
+  int line = node_line (node);
+
+  if (!check_attributes (ld, node, attrs))
+    return FALSE;
+  file = get_attr (node, "file");
+  FOR_EACH_CHILD (child, node)
+    if (child->type == XML_ELEMENT_NODE)
+      return fail_at (ld, node_line (child), TRB_ERROR_INVALID,
+                      "unknown element <%s> inside <sections>", NAME (child));
+
+  if (file != NULL)
+    {
+      g_autofree char *path = NULL;
+      gsize length;
+
+      if (node->children != NULL)
+        return fail_at (ld, line, TRB_ERROR_INVALID,
+                        "<sections> has both a file and a table of its own; give one");
+      if (*file == '\0' || strchr (file, '/') != NULL || strchr (file, '\\') != NULL ||
+          strcmp (file, ".") == 0 || strcmp (file, "..") == 0)
+        return fail_at (ld, line, TRB_ERROR_INVALID,
+                        "sections file \"%s\" must be a file name in the project's own folder",
+                        file);
+      if (ld->dir == NULL)
+        return fail_at (ld, line, TRB_ERROR_INVALID,
+                        "sections file \"%s\": the project has no folder to find it in", file);
+      path = g_build_filename (ld->dir, file, NULL);
+      if (!g_file_get_contents (path, &text, &length, &local))
+        return fail_at (ld, line, TRB_ERROR_IO, "sections file \"%s\": %s", file,
+                        local->message);
+      if (length > TRB_PROJECT_MAX_FILE_SIZE)
+        return fail_at (ld, line, TRB_ERROR_IO, "sections file \"%s\" is too large", file);
+      source = g_strdup_printf ("sections file \"%s\"", file);
+    }
+  else
+    {
+      xmlChar *content = xmlNodeGetContent (node);
+
+      text = g_strdup (content != NULL ? (const char *) content : "");
+      xmlFree (content);
+      /* The table's header is its first line of text, whatever the indentation. */
+      g_strstrip (text);
+      source = g_strdup ("the <sections> table");
+    }
+
+  if (project->sections == NULL)
+    project->sections = trb_catalog_new ();
+  if (!trb_catalog_add_project_csv (project->sections, text, source, &local))
+    return fail_at (ld, line, local->code, "%s", local->message);
+  return TRUE;
+}
+
 static gboolean
 load_root (Loader     *ld,
            xmlNode    *root,
@@ -815,6 +882,11 @@ load_root (Loader     *ld,
       else if (is_element (child, "beam"))
         {
           if (!load_beam (ld, child, project))
+            return FALSE;
+        }
+      else if (is_element (child, "sections"))
+        {
+          if (!load_sections (ld, child, project))
             return FALSE;
         }
       else
@@ -892,16 +964,17 @@ on_start_element (void           *ctx,
  * Returns: (transfer full): the project, or %NULL with @error set to a message of the form
  *   "<name>:<line>: <what is wrong>".
  */
-TrbProject *
-trb_project_load_data (const char  *data,
-                       gsize        length,
-                       const char  *display_name,
-                       GError     **error)
+static TrbProject *
+load_data_in (const char  *data,
+              gsize        length,
+              const char  *display_name,
+              const char  *dir,
+              GError     **error)
 {
   g_autoptr(xmlParserCtxt) ctxt = NULL;
   g_autoptr(xmlDoc) doc = NULL;
   g_autoptr(TrbProject) project = NULL;
-  Loader ld = { display_name != NULL ? display_name : "(project)", error };
+  Loader ld = { display_name != NULL ? display_name : "(project)", error, dir };
   Guard guard = { FALSE, 0, NULL };
   xmlNode *root;
   int rc;
@@ -976,6 +1049,27 @@ trb_project_load_data (const char  *data,
 }
 
 /**
+ * trb_project_load_data:
+ * @data: the file's bytes
+ * @length: their number
+ * @display_name: (nullable): the name messages give the file
+ * @error: return location for a #TRB_ERROR
+ *
+ * Parses a project from memory. A <sections file="..."> cannot be followed from here: there
+ * is no folder to look in.
+ *
+ * Returns: (transfer full): the project, or %NULL with @error set.
+ */
+TrbProject *
+trb_project_load_data (const char  *data,
+                       gsize        length,
+                       const char  *display_name,
+                       GError     **error)
+{
+  return load_data_in (data, length, display_name, NULL, error);
+}
+
+/**
  * trb_project_load_file:
  * @filename: a path
  * @error: return location for a #TRB_ERROR
@@ -995,6 +1089,7 @@ trb_project_load_file (const char  *filename,
   g_autoptr(GByteArray) bytes = NULL;
   g_autoptr(GError) local = NULL;
   g_autofree char *display = NULL;
+  g_autofree char *dir = NULL;
   guint8 chunk[65536];
 
   g_return_val_if_fail (filename != NULL, NULL);
@@ -1032,5 +1127,6 @@ trb_project_load_file (const char  *filename,
       g_byte_array_append (bytes, chunk, (guint) n);
     }
 
-  return trb_project_load_data ((const char *) bytes->data, bytes->len, display, error);
+  dir = g_path_get_dirname (filename);
+  return load_data_in ((const char *) bytes->data, bytes->len, display, dir, error);
 }

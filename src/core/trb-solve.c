@@ -802,6 +802,20 @@ candidate_allowed (const TrbMember  *m,
   return TRUE;
 }
 
+/* A designation is looked up in the project's own sections first, then in the catalog. */
+static const TrbSection *
+lookup_section (const TrbProject *project,
+                const char       *designation)
+{
+  const TrbSection *section = NULL;
+
+  if (project->sections != NULL)
+    section = trb_catalog_lookup (project->sections, designation);
+  if (section == NULL)
+    section = trb_catalog_lookup (trb_catalog_get_default (), designation);
+  return section;
+}
+
 static int
 compare_by_weight (gconstpointer a,
                    gconstpointer b)
@@ -826,9 +840,10 @@ compare_by_weight_ptr (gconstpointer a,
 /* The candidates for sizing, lightest first: the allowed list when the member gives one,
  * else its family of the catalog; depth and ply limits applied. */
 static GPtrArray *
-sizing_candidates (const TrbMember *m)
+sizing_candidates (const TrbProject *project,
+                   const TrbMember  *m)
 {
-  const TrbCatalog *catalog = trb_catalog_get_default ();
+  const TrbCatalog *catalogs[] = { trb_catalog_get_default (), project->sections };
   GPtrArray *out = g_ptr_array_new ();
   TrbFamily family;
 
@@ -836,7 +851,7 @@ sizing_candidates (const TrbMember *m)
     {
       for (guint i = 0; m->allowed[i] != NULL; i++)
         {
-          const TrbSection *section = trb_catalog_lookup (catalog, m->allowed[i]);
+          const TrbSection *section = lookup_section (project, m->allowed[i]);
 
           if (section != NULL && candidate_allowed (m, section))
             g_ptr_array_add (out, (gpointer) section);
@@ -846,12 +861,18 @@ sizing_candidates (const TrbMember *m)
     }
   if (sizing_family (m, &family))
     {
-      guint n;
-      const TrbSection *sections = trb_catalog_get_family (catalog, family, &n);
+      /* The project's own sections of the family take part beside the catalog's. */
+      for (guint c = 0; c < G_N_ELEMENTS (catalogs) && catalogs[c] != NULL; c++)
+        {
+          guint n;
+          const TrbSection *sections = trb_catalog_get_family (catalogs[c], family, &n);
 
-      for (guint i = 0; i < n; i++)
-        if (candidate_allowed (m, &sections[i]))
-          g_ptr_array_add (out, (gpointer) &sections[i]);
+          for (guint i = 0; i < n; i++)
+            if (candidate_allowed (m, &sections[i]))
+              g_ptr_array_add (out, (gpointer) &sections[i]);
+        }
+      if (project->sections != NULL)
+        g_ptr_array_sort (out, compare_by_weight_ptr);
     }
   return out;
 }
@@ -866,7 +887,7 @@ size_member (const TrbProject *project,
              const TrbSection *chosen,
              guint             shortlist_max)
 {
-  g_autoptr(GPtrArray) candidates = sizing_candidates (m);
+  g_autoptr(GPtrArray) candidates = sizing_candidates (project, m);
   TrbMemberResult *best = NULL;
   TrbMemberResult *closest = NULL;
   g_autoptr(GArray) shortlist = g_array_new (FALSE, TRUE, sizeof (TrbShortlistEntry));
@@ -965,7 +986,7 @@ trb_solve_member_full (const TrbProject *project,
 
       if (!trb_member_is_auto (member))
         {
-          chosen = trb_catalog_lookup (trb_catalog_get_default (), member->section);
+          chosen = lookup_section (project, member->section);
           if (chosen == NULL)
             {
               r = member_result_new (project, member);

@@ -1,0 +1,262 @@
+/* SPDX-FileCopyrightText: 2026 The Trabeate developers
+ * SPDX-License-Identifier: GPL-3.0-or-later */
+
+#include "config.h"
+
+#include <math.h>
+#include <string.h>
+
+#include "trb-catalog.h"
+#include "trb-error.h"
+#include "trb-project-io.h"
+#include "trb-solve.h"
+#include "trb-units.h"
+
+static TrbProject *
+load (const char *xml)
+{
+  g_autoptr(GError) error = NULL;
+  TrbProject *project = trb_project_load_data (xml, strlen (xml), "test.trabeate", &error);
+
+  g_assert_no_error (error);
+  g_assert_nonnull (project);
+  return project;
+}
+
+/* Solves a copy of the project's first beam with its section attribute replaced. */
+static TrbMemberResult *
+solve_as (const char *xml_template,
+          const char *section)
+{
+  g_autofree char *xml = g_strdup_printf (xml_template, section);
+  g_autoptr(TrbProject) project = load (xml);
+  TrbMemberResult *r = trb_solve_member (project, g_ptr_array_index (project->members, 0));
+  /* the result points into the project: keep only what the callers read */
+  TrbMemberResult *copy = g_new0 (TrbMemberResult, 1);
+
+  copy->status = r->status;
+  copy->ratio = r->ratio;
+  g_strlcpy (copy->section, r->section, sizeof copy->section);
+  trb_member_result_free (r);
+  return copy;
+}
+
+/* A steel floor beam of our own (a demo scenario, not a check value): 28 ft simple span,
+ * braced at mid-span, D 0.6 and L 1.0 kip/ft, ASD. */
+static const char *steel_beam =
+  "<trabeate-project format=\"1\"><settings method=\"asd\"/>"
+  "<beam id=\"B1\" length=\"28 ft\" material=\"steel\" section=\"%s\" bracing=\"supports\">"
+  "<support at=\"0 ft\" type=\"pin\"/><support at=\"28 ft\" type=\"roller\"/>"
+  "<brace at=\"14 ft\"/>"
+  "<load case=\"D\" type=\"uniform\" from=\"0 ft\" to=\"28 ft\" w=\"0.6 kip/ft\"/>"
+  "<load case=\"L\" type=\"uniform\" from=\"0 ft\" to=\"28 ft\" w=\"1.0 kip/ft\"/>"
+  "</beam></trabeate-project>";
+
+/* Auto-sizing against brute force: every W shape of the catalog checked one by one; the
+ * lightest that passes (ties by depth) must be the one chosen, the shortlist must be sorted
+ * by weight, and each entry must pass when checked on its own with the same ratio. */
+static void
+test_auto_brute_force (void)
+{
+  g_autofree char *xml = g_strdup_printf (steel_beam, "auto");
+  g_autoptr(TrbProject) project = load (xml);
+  g_autoptr(TrbMemberResult) r = NULL;
+  const TrbSection *w;
+  const TrbSection *lightest = NULL;
+  guint n, n_pass = 0;
+
+  r = trb_solve_member_full (project, g_ptr_array_index (project->members, 0), G_MAXUINT);
+  g_assert_cmpint (r->status, ==, TRB_STATUS_PASS);
+
+  w = trb_catalog_get_family (trb_catalog_get_default (), TRB_FAMILY_W, &n);
+  g_assert_cmpuint (n, ==, 289);
+  for (guint i = 0; i < n; i++)
+    {
+      g_autoptr(TrbMemberResult) one = solve_as (steel_beam, w[i].designation);
+
+      g_assert_cmpint (one->status == TRB_STATUS_PASS || one->status == TRB_STATUS_FAIL, ==,
+                       TRUE);
+      if (one->status != TRB_STATUS_PASS)
+        continue;
+      n_pass++;
+      if (lightest == NULL || w[i].weight < lightest->weight ||
+          (w[i].weight == lightest->weight && w[i].d < lightest->d))
+        lightest = &w[i];
+    }
+  g_assert_nonnull (lightest);
+  g_assert_cmpstr (r->section, ==, lightest->designation);
+  g_assert_cmpuint (r->shortlist->len, ==, n_pass);
+
+  for (guint i = 0; i < r->shortlist->len; i++)
+    {
+      const TrbShortlistEntry *e = &g_array_index (r->shortlist, TrbShortlistEntry, i);
+      g_autoptr(TrbMemberResult) one = solve_as (steel_beam, e->section);
+
+      if (i > 0)
+        g_assert_cmpfloat (e->weight, >=,
+                           g_array_index (r->shortlist, TrbShortlistEntry, i - 1).weight);
+      g_assert_cmpint (one->status, ==, TRB_STATUS_PASS);
+      g_assert_cmpfloat (e->ratio, <=, 1.0);
+      g_assert_cmpfloat_with_epsilon (e->ratio, one->ratio, 1e-12);
+    }
+  g_assert_cmpstr (g_array_index (r->shortlist, TrbShortlistEntry, 0).section, ==, r->section);
+}
+
+/* AISC Design Examples v15.0 (companion to the 15th ed. Manual), Example F.1-1A (from memory):
+ * a 35 ft simple span, continuously braced, wD = 0.45 and wL = 0.75 kip/ft, LRFD, live
+ * deflection limited to L/360; the example selects W18X50 among the W18 shapes. Here the
+ * W18 group is chosen with the depth limits (every W18 is 17.7 to 18.7 in deep) and the
+ * sizing must choose W18X50: W18X46 (Ix 712 in^4) deflects
+ * 5 (0.75/12) 420^4 / (384 x 29000 x 712) = 1.23 in > 420/360 = 1.17 in, and W18X40 and
+ * W18X35 less stiff still; W18X50 (Ix 800) gives 1.09 in. */
+static void
+test_design_example_f11a (void)
+{
+  g_autoptr(TrbProject) project = load (
+    "<trabeate-project format=\"1\"><settings method=\"lrfd\" self-weight=\"exclude\"/>"
+    "<beam id=\"F11A\" length=\"35 ft\" material=\"steel\" section=\"auto\""
+    " min-depth=\"17.5 in\" max-depth=\"18.8 in\">"
+    "<support at=\"0 ft\" type=\"pin\"/><support at=\"35 ft\" type=\"roller\"/>"
+    "<load case=\"D\" type=\"uniform\" from=\"0 ft\" to=\"35 ft\" w=\"0.45 kip/ft\"/>"
+    "<load case=\"L\" type=\"uniform\" from=\"0 ft\" to=\"35 ft\" w=\"0.75 kip/ft\"/>"
+    "</beam></trabeate-project>");
+  g_autoptr(TrbMemberResult) r =
+    trb_solve_member (project, g_ptr_array_index (project->members, 0));
+  const TrbCheck *flexure = NULL;
+
+  g_assert_cmpint (r->status, ==, TRB_STATUS_PASS);
+  g_assert_cmpstr (r->section, ==, "W18X50");
+  for (guint i = 0; i < r->checks->len; i++)
+    if (strcmp (g_array_index (r->checks, TrbCheck, i).name, "Flexure") == 0)
+      flexure = &g_array_index (r->checks, TrbCheck, i);
+  g_assert_nonnull (flexure);
+  /* Mu = (1.2 x 0.45 + 1.6 x 0.75) 35^2 / 8 = 266 kip-ft; phi Mn = phi Mp = 379 kip-ft
+   * (Example F.1-1A and Manual Table 3-2, from memory). */
+  g_assert_cmpfloat_with_epsilon (flexure->demand / TRB_KIP_FT, 266.4375, 1e-6);
+  g_assert_cmpfloat_with_epsilon (flexure->capacity / TRB_KIP_FT, 378.75, 0.01);
+}
+
+/* The project's own sections join the catalog. A welded girder of our own, 24 x 6 in with
+ * 0.3 in flanges and a 0.27 in web (h/tw = 23.4/0.27 = 86.7, a compact web), weighs
+ * 34 lb/ft and has Ix = 2 (6 x 0.3) 11.85^2 + 0.27 x 23.4^3 / 12 = 794 in^4 (properties
+ * computed from its dimensions, docs/catalog.md). On a 40 ft span with L = 0.5 kip/ft the
+ * live deflection limit L/360 needs I >= 5 (0.5/12) 480^4 / (384 x 29000 x 480/360) = 745 in^4
+ * (AISC Manual Table 3-23 case 1, from memory): no W shape of 34 lb/ft or less has that
+ * (W16X31 375, W14X34 340 in^4; W18X35 is 35 lb/ft), so the welded girder is the lightest. */
+static void
+test_project_sections (void)
+{
+  g_autoptr(TrbProject) project = load (
+    "<trabeate-project format=\"1\"><settings method=\"asd\"/>"
+    "<sections>\n"
+    "designation,W_lb_ft,d_in,bf_in,tw_in,tf_in\n"
+    "WG24X34,34,24,6,0.27,0.3\n"
+    "</sections>"
+    "<beam id=\"B1\" length=\"40 ft\" material=\"steel\" section=\"auto\">"
+    "<support at=\"0 ft\" type=\"pin\"/><support at=\"40 ft\" type=\"roller\"/>"
+    "<load case=\"D\" type=\"uniform\" from=\"0 ft\" to=\"40 ft\" w=\"0.2 kip/ft\"/>"
+    "<load case=\"L\" type=\"uniform\" from=\"0 ft\" to=\"40 ft\" w=\"0.5 kip/ft\"/>"
+    "</beam>"
+    "<beam id=\"B2\" length=\"20 ft\" material=\"steel\" section=\"WG24X34\">"
+    "<support at=\"0 ft\" type=\"pin\"/><support at=\"20 ft\" type=\"roller\"/>"
+    "<load case=\"D\" type=\"uniform\" from=\"0 ft\" to=\"20 ft\" w=\"0.2 kip/ft\"/>"
+    "</beam></trabeate-project>");
+  g_autoptr(TrbProjectResult) pr = trb_solve_project (project);
+  const TrbMemberResult *b1 = g_ptr_array_index (pr->members, 0);
+  const TrbMemberResult *b2 = g_ptr_array_index (pr->members, 1);
+
+  g_assert_nonnull (project->sections);
+  g_assert_cmpint (b1->status, ==, TRB_STATUS_PASS);
+  g_assert_cmpstr (b1->section, ==, "WG24X34");
+  g_assert_cmpstr (g_array_index (b1->shortlist, TrbShortlistEntry, 0).section, ==, "WG24X34");
+  g_assert_cmpstr (b2->section, ==, "WG24X34");
+  g_assert_cmpint (b2->status, ==, TRB_STATUS_PASS);
+  g_assert_cmpfloat_with_epsilon (b2->self_weight, 34 * TRB_PLF, 1e-9);
+}
+
+/* A sections file must sit in the project's own folder: no path may lead elsewhere. */
+static void
+test_sections_file_outside (void)
+{
+  static const char *xml =
+    "<trabeate-project format=\"1\">\n<sections file=\"../secret.csv\"/>\n</trabeate-project>";
+  g_autoptr(GError) error = NULL;
+  g_autoptr(TrbProject) project = trb_project_load_data (xml, strlen (xml), "p.trabeate",
+                                                         &error);
+
+  g_assert_null (project);
+  g_assert_error (error, TRB_ERROR, TRB_ERROR_INVALID);
+  g_assert_nonnull (strstr (error->message, "p.trabeate:2:"));
+  g_assert_nonnull (strstr (error->message, "project's own folder"));
+}
+
+/* When nothing passes, the member fails and names the closest section. */
+static void
+test_nothing_passes (void)
+{
+  g_autoptr(TrbProject) project = load (
+    "<trabeate-project format=\"1\">"
+    "<beam id=\"B1\" length=\"20 ft\" material=\"steel\" section=\"auto\""
+    " allowed=\"W8X10 W10X12 W12X14\">"
+    "<support at=\"0 ft\" type=\"pin\"/><support at=\"20 ft\" type=\"roller\"/>"
+    "<load case=\"L\" type=\"uniform\" from=\"0 ft\" to=\"20 ft\" w=\"3 kip/ft\"/>"
+    "</beam></trabeate-project>");
+  g_autoptr(TrbMemberResult) r =
+    trb_solve_member (project, g_ptr_array_index (project->members, 0));
+
+  g_assert_cmpint (r->status, ==, TRB_STATUS_FAIL);
+  g_assert_cmpuint (r->shortlist->len, ==, 0);
+  /* the stiffest and strongest of the three is the closest */
+  g_assert_cmpstr (r->section, ==, "W12X14");
+  g_assert_nonnull (strstr (r->message, "closest is W12X14"));
+  g_assert_cmpfloat (r->ratio, >, 1.0);
+}
+
+/* A mechanism is the same whatever the section: reported once as unstable. */
+static void
+test_auto_unstable (void)
+{
+  g_autoptr(TrbProject) project = load (
+    "<trabeate-project format=\"1\">"
+    "<beam id=\"B1\" length=\"20 ft\" material=\"steel\" section=\"auto\">"
+    "<support at=\"5 ft\" type=\"pin\"/>"
+    "<load case=\"D\" type=\"uniform\" from=\"0 ft\" to=\"20 ft\" w=\"0.2 kip/ft\"/>"
+    "</beam></trabeate-project>");
+  g_autoptr(TrbMemberResult) r =
+    trb_solve_member (project, g_ptr_array_index (project->members, 0));
+
+  g_assert_cmpint (r->status, ==, TRB_STATUS_UNSTABLE);
+  g_assert_true (isnan (r->ratio));
+  g_assert_cmpuint (r->shortlist->len, ==, 0);
+}
+
+/* The chosen section's own weight is the self-weight in D (the sizing carries each
+ * candidate's weight, so nothing is left to iterate); W shapes weigh their name in lb/ft
+ * (AISC Shapes Database v16.0). */
+static void
+test_self_weight_of_chosen (void)
+{
+  g_autofree char *xml = g_strdup_printf (steel_beam, "auto");
+  g_autoptr(TrbProject) project = load (xml);
+  g_autoptr(TrbMemberResult) r =
+    trb_solve_member (project, g_ptr_array_index (project->members, 0));
+  const TrbSection *s = trb_catalog_lookup (trb_catalog_get_default (), r->section);
+
+  g_assert_nonnull (s);
+  g_assert_cmpfloat_with_epsilon (r->self_weight, s->weight, 1e-12);
+  g_assert_cmpfloat (r->self_weight, >, 0);
+}
+
+int
+main (int argc, char **argv)
+{
+  g_test_init (&argc, &argv, NULL);
+  g_test_add_func ("/trb/solve/auto/brute-force", test_auto_brute_force);
+  g_test_add_func ("/trb/solve/auto/design-example-f1-1a", test_design_example_f11a);
+  g_test_add_func ("/trb/solve/auto/project-sections", test_project_sections);
+  g_test_add_func ("/trb/solve/sections-file-outside", test_sections_file_outside);
+  g_test_add_func ("/trb/solve/auto/nothing-passes", test_nothing_passes);
+  g_test_add_func ("/trb/solve/auto/unstable", test_auto_unstable);
+  g_test_add_func ("/trb/solve/auto/self-weight", test_self_weight_of_chosen);
+  return g_test_run ();
+}
