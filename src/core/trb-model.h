@@ -7,6 +7,7 @@
 #include "trb-beam.h"
 #include "trb-catalog.h"
 #include "trb-design.h"
+#include "trb-frame.h"
 #include "trb-types.h"
 
 G_BEGIN_DECLS
@@ -100,15 +101,116 @@ typedef struct
   gboolean     incised;           /* default FALSE */
   gboolean     repetitive;        /* default FALSE */
   double       bearing_length;    /* m, NAN when not given */
+
+  /* Members of a floor (floor != NULL) are placed in plan: the length is the distance from
+   * start to end, and the supports come from what the ends rest on (trb-frame), besides any
+   * <support> the file gives. Standalone beams leave these zero. */
+  struct _TrbFloor *floor;        /* not owned; NULL for a standalone beam */
+  TrbFramePoint  start;           /* m, in the floor's plan coordinates */
+  TrbFramePoint  end;
+  TrbFrameRole   role;            /* girder, beam or joist */
+  gboolean       carries_deck;    /* the deck or sheathing rests on it (takes area load);
+                                   * default TRUE for joists and beams, FALSE for girders */
+  char          *group;           /* the joist run it was laid out in; NULL when none */
+  GArray        *bearing_points;  /* TrbFramePoint: where it also rests on a member below,
+                                   * besides its ends */
 } TrbMember;
+
+/* A floor (level): named grid lines, columns, bearing walls, members placed in plan, and the
+ * loads placed in plan. Everything SI, plan coordinates in metres. */
+typedef struct
+{
+  char          *name;            /* "A", "1" */
+  TrbFramePoint  start;           /* the line is drawn from start to end */
+  TrbFramePoint  end;
+  int            line;
+} TrbGridLine;
+
+typedef struct
+{
+  char          *id;              /* "C1" */
+  TrbFramePoint  at;
+  char          *section;         /* what the engineer calls it ("HSS6X6X1/4"); not designed */
+  int            line;
+} TrbColumn;
+
+typedef struct
+{
+  char          *id;              /* "W1" */
+  GArray        *points;          /* TrbFramePoint, two or more: it bears along every segment */
+  char          *material;        /* "masonry", "concrete", "wood stud"; for the reader only */
+  int            line;
+} TrbWall;
+
+/* Area, line and point loads in plan. Partition loads are live load (case L) that live load
+ * reduction never reduces (ASCE 7-16 §4.3.2 treats them as live; the engineer decides). */
+typedef enum
+{
+  TRB_AREA_LOAD_ORDINARY,
+  TRB_AREA_LOAD_PARTITION,
+} TrbAreaLoadKind;
+
+typedef struct
+{
+  TrbLoadCase      lcase;
+  TrbAreaLoadKind  kind;
+  double           pressure;      /* Pa, downward + */
+  char            *label;         /* "office live", "deck and finishes"; may be NULL */
+  char            *occupancy;     /* for live load: "office", "storage", ...; may be NULL */
+  GArray          *points;        /* TrbFramePoint: the polygon */
+  int              line;
+} TrbAreaLoad;
+
+typedef struct
+{
+  GArray          *points;        /* TrbFramePoint: the polygon where no area load falls */
+  int              line;
+} TrbOpening;
+
+typedef struct
+{
+  TrbLoadCase      lcase;
+  double           w;             /* N/m, downward + */
+  char            *label;
+  GArray          *points;        /* TrbFramePoint: the polyline */
+  int              line;
+} TrbLineLoad;
+
+typedef struct
+{
+  TrbLoadCase      lcase;
+  double           P;             /* N, downward + */
+  char            *label;
+  TrbFramePoint    at;
+  int              line;
+} TrbPointLoad;
+
+typedef struct _TrbFloor
+{
+  char        *name;              /* "Mezzanine" */
+  int          line;
+  GPtrArray   *grids;             /* TrbGridLine */
+  GPtrArray   *columns;           /* TrbColumn */
+  GPtrArray   *walls;             /* TrbWall */
+  GPtrArray   *members;           /* TrbMember (not owned: the project's members array owns
+                                   * every member; these are the floor's, in file order) */
+  GPtrArray   *area_loads;        /* TrbAreaLoad */
+  GPtrArray   *openings;          /* TrbOpening */
+  GPtrArray   *line_loads;        /* TrbLineLoad */
+  GPtrArray   *point_loads;       /* TrbPointLoad */
+} TrbFloor;
 
 typedef struct
 {
   int          format;
   char        *name;         /* the file's display name, for messages; may be NULL */
   TrbSettings  settings;
-  GPtrArray   *members;      /* TrbMember, standalone beams in file order */
+  GPtrArray   *members;      /* TrbMember: standalone beams and every floor's members, in
+                              * file order; ids (the engineer's marks) unique across them */
+  GPtrArray   *floors;       /* TrbFloor, in file order */
   TrbCatalog  *sections;     /* the project's own sections (<sections>); NULL when none */
+  GHashTable  *ids;          /* private: id -> member of members, so that looking an id up
+                              * (once per member while loading) is not a linear search */
 } TrbProject;
 
 const char  *trb_method_name               (TrbMethod          method);
