@@ -91,7 +91,8 @@ main (int    argc,
   g_autoptr(GArray) factors = g_array_new (FALSE, FALSE, sizeof (double));
   g_autoptr(GArray) evals = g_array_new (FALSE, FALSE, sizeof (double));
   g_autoptr(GArray) ranges = g_array_new (FALSE, FALSE, sizeof (Interval));
-  g_autoptr(GPtrArray) results = g_ptr_array_new_with_free_func ((GDestroyNotify) trb_beam_result_free);
+  g_autoptr(GPtrArray) results =
+    g_ptr_array_new_with_free_func ((GDestroyNotify) trb_beam_result_free);
   g_autoptr(TrbBeam) beam = NULL;
   g_autoptr(TrbBeamResult) result = NULL;
   g_autoptr(GError) error = NULL;

@@ -255,8 +255,8 @@ test_simple_partial_uniform (void)
     assert_rel (e.M_max, 40.96 * TRB_KIP_FT, TIGHT);
     assert_rel (e.M_max_x, 6.4 * TRB_FT, 1e-12);
     assert_rel (at (r, x, TRB_SIDE_LEFT).defl,
-                w * x * (a * a * pow (2 * L - a, 2) - 2 * a * x * x * (2 * L - a) + L * pow (x, 3)) /
-                (24 * EI * L), TIGHT);
+                w * x * (a * a * pow (2 * L - a, 2) - 2 * a * x * x * (2 * L - a) +
+                         L * pow (x, 3)) / (24 * EI * L), TIGHT);
   }
 }
 
@@ -519,7 +519,9 @@ static void
 test_point_at_support (void)
 {
   const double L = 15 * TRB_FT, P = 9 * TRB_KIP;
-  TrbSupport sup[] = { { 0, TRB_SUPPORT_PIN }, { L, TRB_SUPPORT_ROLLER }, { 2 * L, TRB_SUPPORT_ROLLER } };
+  TrbSupport sup[] = {
+    { 0, TRB_SUPPORT_PIN }, { L, TRB_SUPPORT_ROLLER }, { 2 * L, TRB_SUPPORT_ROLLER },
+  };
   g_autoptr(TrbBeam) beam = make_beam (2 * L, sup, 3);
 
   {
@@ -632,7 +634,9 @@ test_two_spans_uniform (void)
    * deflection is at x = L(1 + sqrt 33)/16 from each end (see test_propped_uniform). */
   const double L = 16 * TRB_FT, w = 0.9 * TRB_KLF;
   const double xd = L * (1 + sqrt (33)) / 16;
-  TrbSupport sup[] = { { 0, TRB_SUPPORT_PIN }, { L, TRB_SUPPORT_ROLLER }, { 2 * L, TRB_SUPPORT_ROLLER } };
+  TrbSupport sup[] = {
+    { 0, TRB_SUPPORT_PIN }, { L, TRB_SUPPORT_ROLLER }, { 2 * L, TRB_SUPPORT_ROLLER },
+  };
   TrbLoad ld[] = { { TRB_LOAD_UNIFORM, 0, 2 * L, w, 0 } };
   g_autoptr(TrbBeam) beam = make_beam (2 * L, sup, 3);
   g_autoptr(TrbBeamResult) r = solve (beam, ld, 1);
@@ -930,7 +934,8 @@ test_equilibrium (void)
             case TRB_LOAD_LINEAR:
               /* as a uniform w1 plus a triangle rising to w2 - w1 */
               force -= (ld->w1 + ld->w2) * c / 2;
-              moment -= ld->w1 * c * (ld->a + c / 2) + (ld->w2 - ld->w1) * c / 2 * (ld->a + 2 * c / 3);
+              moment -= ld->w1 * c * (ld->a + c / 2) +
+                        (ld->w2 - ld->w1) * c / 2 * (ld->a + 2 * c / 3);
               fscale += fabs ((ld->w1 + ld->w2) * c / 2) + fabs (ld->w2 - ld->w1) * c;
               mscale += (fabs (ld->w1) + fabs (ld->w2)) * c * rb.L;
               break;
@@ -1126,6 +1131,41 @@ test_sample_breaks_copy (void)
 }
 
 static void
+test_many_loads (void)
+{
+  /* n = 2m + 1 equal loads P at spacing s = L/(n + 1) on a simple span: ENGINEERING.md section 3
+   * says the smeared load w = P/s gives the exact M max for odd n. By statics, at the centre
+   * M = (nP/2)(L/2) - P sum_(i=1..m) (L/2 - i s) = P s (m + 1)^2 / 2 = (P/s) L^2 / 8.
+   * 401 loads also take the engine past its stack scratch space. */
+  const guint n = 401, m = 200;
+  const double L = 40.2, P = 500.0, s = L / (n + 1);
+  TrbSupport sup[] = { { 0, TRB_SUPPORT_PIN }, { L, TRB_SUPPORT_ROLLER } };
+  g_autofree TrbLoad *ld = g_new0 (TrbLoad, n);
+  g_autoptr(TrbBeam) beam = make_beam (L, sup, 2);
+  g_autoptr(TrbBeamResult) r = NULL;
+  const TrbReaction *rr;
+  TrbBeamExtremes e;
+  guint nb;
+
+  for (guint i = 0; i < n; i++)
+    {
+      ld[i].kind = TRB_LOAD_POINT;
+      ld[i].a = (i + 1) * s;
+      ld[i].w1 = P;
+    }
+  r = solve (beam, ld, n);
+  rr = reactions (r, 2);
+  assert_rel (rr[0].force, n * P / 2, TIGHT);
+  assert_rel (rr[1].force, n * P / 2, TIGHT);
+  trb_beam_result_get_breaks (r, &nb);
+  g_assert_cmpuint (nb, ==, n + 2);
+  trb_beam_result_extremes (r, 0, L, &e);
+  assert_rel (e.M_max, P * s * (m + 1) * (m + 1) / 2, 1e-10);
+  assert_rel (e.M_max, (P / s) * L * L / 8, 1e-10);
+  assert_rel (e.M_max_x, L / 2, 1e-12);
+}
+
+static void
 test_empty (void)
 {
   /* no loads, no response (statics) */
@@ -1173,6 +1213,7 @@ main (int    argc,
   g_test_add_func ("/trb/beam/equilibrium", test_equilibrium);
   g_test_add_func ("/trb/beam/combine", test_combine);
   g_test_add_func ("/trb/beam/sample-breaks-copy", test_sample_breaks_copy);
+  g_test_add_func ("/trb/beam/many-loads", test_many_loads);
   g_test_add_func ("/trb/beam/empty", test_empty);
 
   return g_test_run ();
