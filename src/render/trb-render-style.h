@@ -1,0 +1,66 @@
+/* SPDX-FileCopyrightText: 2026 The Trabeate developers
+ * SPDX-License-Identifier: GPL-3.0-or-later */
+#pragma once
+
+#include <cairo.h>
+#include <glib.h>
+
+#include "trb-solve.h"
+
+G_BEGIN_DECLS
+
+/* The palette and fonts shared by the screen and the printed page. Colours are the GNOME
+ * palette (the HIG's named colours); the status ramp is blue below 0.9, amber 0.9 to 1.0, red
+ * above 1.0 and grey (drawn dashed) where a member is unsupported, unstable or not designed. */
+
+typedef struct
+{
+  double r;
+  double g;
+  double b;
+  double a;
+} TrbRgba;
+
+/* How a member's result reads at a glance. */
+typedef enum
+{
+  TRB_RENDER_STATUS_OK,          /* passes, ratio below 0.9 */
+  TRB_RENDER_STATUS_NEAR,        /* passes, ratio 0.9 to 1.0 */
+  TRB_RENDER_STATUS_FAIL,        /* some check above 1.0 (or the analysis failed) */
+  TRB_RENDER_STATUS_NONE,        /* unsupported, unstable, not designed, or no result yet */
+} TrbRenderStatus;
+
+typedef struct
+{
+  gboolean    dark;          /* dark style (screen only): light ink on a dark page */
+  gboolean    print;         /* the printed page: thinner lines, no selection, black text */
+  const char *font_family;   /* "Cantarell", "DejaVu Sans"; NULL for the default */
+  double      font_size;     /* device units (points on paper, pixels on screen) */
+  double      line_width;    /* device units, of a member's line */
+} TrbRenderStyle;
+
+void            trb_render_style_init          (TrbRenderStyle          *style);
+void            trb_render_style_init_print    (TrbRenderStyle          *style);
+
+TrbRenderStatus trb_render_status_of           (const TrbMemberResult   *result);
+TrbRenderStatus trb_render_status_from         (TrbStatus                status,
+                                                double                   ratio);
+void            trb_render_status_color        (const TrbRenderStyle    *style,
+                                                TrbRenderStatus          status,
+                                                TrbRgba                 *out);
+
+/* Ink (text and outlines), page background, selection and the per-case load tint. */
+void            trb_render_ink_color           (const TrbRenderStyle    *style,
+                                                TrbRgba                 *out);
+void            trb_render_paper_color         (const TrbRenderStyle    *style,
+                                                TrbRgba                 *out);
+void            trb_render_selection_color     (const TrbRenderStyle    *style,
+                                                TrbRgba                 *out);
+void            trb_render_case_color          (const TrbRenderStyle    *style,
+                                                TrbLoadCase              lcase,
+                                                TrbRgba                 *out);
+
+void            trb_render_set_color           (cairo_t                 *cr,
+                                                const TrbRgba           *color);
+
+G_END_DECLS
