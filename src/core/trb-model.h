@@ -12,9 +12,15 @@
 
 G_BEGIN_DECLS
 
-/* The project as loaded: settings and standalone beams. Plain structs owned by the project;
- * everything SI. Floors (plan geometry, joist runs, area loads) come later as further fields
- * of TrbProject; the solve works on TrbMember, which a floor's members will also become. */
+/* The project as loaded: settings, standalone beams and floors. Plain structs owned by the
+ * project; everything SI. The solve works on TrbMember, standalone beams and floor members
+ * alike.
+ *
+ * Marks: the members' ids (standalone beams and every floor's members) share one namespace
+ * across the whole project, so "B3" names one member wherever it is; columns have their own
+ * namespace across the project, and walls theirs, so column "C1" and member "C1" may coexist
+ * (the trade marks them on separate schedules), but two columns "C1" may not, even on
+ * different floors. */
 
 typedef enum
 {
@@ -41,6 +47,12 @@ typedef struct
   double        deflection_live;   /* denominator n of L/n; 0 for no limit; default 360 */
   double        deflection_total;  /* default 240 */
   TrbUnitSystem units;             /* display units, default US */
+  gboolean      live_load_reduction; /* ASCE 7-16 §4.7 reduction of floor live load;
+                                      * default FALSE: whether it applies is the engineer's
+                                      * call */
+  int           floors_above;      /* floors above this file's that its columns also carry
+                                    * (for the §4.7.2 limit of members supporting two or
+                                    * more floors); default 0 */
   int           line;              /* of <settings>; 0 when the file has none */
 } TrbSettings;
 
@@ -225,6 +237,12 @@ gboolean     trb_support_type_from_name    (const char        *name,
 const char  *trb_load_kind_name            (TrbLoadKind        kind);
 gboolean     trb_load_kind_from_name       (const char        *name,
                                             TrbLoadKind       *kind);
+const char  *trb_role_name                 (TrbFrameRole       role);
+gboolean     trb_role_from_name            (const char        *name,
+                                            TrbFrameRole      *role);
+const char  *trb_area_load_kind_name       (TrbAreaLoadKind    kind);
+gboolean     trb_area_load_kind_from_name  (const char        *name,
+                                            TrbAreaLoadKind   *kind);
 
 void         trb_settings_init_defaults    (TrbSettings       *settings);
 void         trb_settings_clear            (TrbSettings       *settings);
@@ -255,7 +273,81 @@ void         trb_project_add_member        (TrbProject        *project,
 TrbMember   *trb_project_find_member       (const TrbProject  *project,
                                             const char        *id);
 
+void         trb_member_set_role           (TrbMember         *member,
+                                            TrbFrameRole       role);
+void         trb_member_set_plan           (TrbMember         *member,
+                                            TrbFramePoint      start,
+                                            TrbFramePoint      end);
+void         trb_member_add_bearing_point  (TrbMember         *member,
+                                            TrbFramePoint      point);
+
+TrbGridLine *trb_grid_line_new             (const char        *name,
+                                            TrbFramePoint      start,
+                                            TrbFramePoint      end);
+void         trb_grid_line_free            (TrbGridLine       *grid);
+TrbColumn   *trb_column_new                (const char        *id,
+                                            TrbFramePoint      at,
+                                            const char        *section);
+void         trb_column_free               (TrbColumn         *column);
+TrbWall     *trb_wall_new                  (const char        *id,
+                                            const char        *material);
+void         trb_wall_free                 (TrbWall           *wall);
+TrbAreaLoad *trb_area_load_new             (TrbLoadCase        lcase,
+                                            TrbAreaLoadKind    kind,
+                                            double             pressure,
+                                            const char        *label,
+                                            const char        *occupancy);
+void         trb_area_load_free            (TrbAreaLoad       *load);
+TrbOpening  *trb_opening_new               (void);
+void         trb_opening_free              (TrbOpening        *opening);
+TrbLineLoad *trb_line_load_new             (TrbLoadCase        lcase,
+                                            double             w,
+                                            const char        *label);
+void         trb_line_load_free            (TrbLineLoad       *load);
+TrbPointLoad *trb_point_load_new           (TrbLoadCase        lcase,
+                                            double             P,
+                                            TrbFramePoint      at,
+                                            const char        *label);
+void         trb_point_load_free           (TrbPointLoad      *load);
+void         trb_points_append             (GArray            *points,
+                                            double             x,
+                                            double             y);
+
+TrbFloor    *trb_floor_new                 (const char        *name);
+void         trb_floor_free                (TrbFloor          *floor);
+void         trb_floor_add_member          (TrbProject        *project,
+                                            TrbFloor          *floor,
+                                            TrbMember         *member);
+TrbColumn   *trb_floor_find_column         (const TrbFloor    *floor,
+                                            const char        *id);
+TrbWall     *trb_floor_find_wall           (const TrbFloor    *floor,
+                                            const char        *id);
+TrbGridLine *trb_floor_find_grid           (const TrbFloor    *floor,
+                                            const char        *name);
+
+void         trb_project_add_floor         (TrbProject        *project,
+                                            TrbFloor          *floor);
+TrbFloor    *trb_project_find_floor        (const TrbProject  *project,
+                                            const char        *name);
+TrbColumn   *trb_project_find_column       (const TrbProject  *project,
+                                            const char        *id,
+                                            TrbFloor         **floor);
+TrbWall     *trb_project_find_wall         (const TrbProject  *project,
+                                            const char        *id,
+                                            TrbFloor         **floor);
+char        *trb_project_next_mark         (const TrbProject  *project,
+                                            const char        *prefix,
+                                            guint             *counter);
+
 G_DEFINE_AUTOPTR_CLEANUP_FUNC (TrbMember, trb_member_free)
 G_DEFINE_AUTOPTR_CLEANUP_FUNC (TrbProject, trb_project_free)
+G_DEFINE_AUTOPTR_CLEANUP_FUNC (TrbFloor, trb_floor_free)
+G_DEFINE_AUTOPTR_CLEANUP_FUNC (TrbGridLine, trb_grid_line_free)
+G_DEFINE_AUTOPTR_CLEANUP_FUNC (TrbColumn, trb_column_free)
+G_DEFINE_AUTOPTR_CLEANUP_FUNC (TrbWall, trb_wall_free)
+G_DEFINE_AUTOPTR_CLEANUP_FUNC (TrbAreaLoad, trb_area_load_free)
+G_DEFINE_AUTOPTR_CLEANUP_FUNC (TrbOpening, trb_opening_free)
+G_DEFINE_AUTOPTR_CLEANUP_FUNC (TrbLineLoad, trb_line_load_free)
+G_DEFINE_AUTOPTR_CLEANUP_FUNC (TrbPointLoad, trb_point_load_free)
 
 G_END_DECLS
