@@ -7,11 +7,12 @@
 
 #include "trb-error.h"
 #include "trb-model.h"
-#include "trb-solve.h"
 
 struct _TrbBenchPipeline
 {
   TrbProject    *project;
+  guint64        n_results;
+  guint64        n_runs;
   double         x[TRB_BENCH_SAMPLES];
   TrbBeamValues  values[TRB_BENCH_SAMPLES];
 };
@@ -74,6 +75,20 @@ trb_bench_pipeline_describe (TrbBenchPipeline *pipeline)
          "section), then 200 sample points of each load case";
 }
 
+TrbLoadCase
+trb_bench_case (guint c)
+{
+  g_assert (c < TRB_BENCH_N_CASES);
+  return bench_cases[c];
+}
+
+TrbMemberResult *
+trb_bench_pipeline_solve (TrbBenchPipeline *pipeline,
+                          guint             i)
+{
+  return trb_solve_member (pipeline->project, g_ptr_array_index (pipeline->project->members, i));
+}
+
 gboolean
 trb_bench_pipeline_run (TrbBenchPipeline  *pipeline,
                         guint              i,
@@ -90,6 +105,8 @@ trb_bench_pipeline_run (TrbBenchPipeline  *pipeline,
       return FALSE;
     }
   *checksum += r->strength.envelope.ext.M_max + r->total.envelope.ext.defl_down;
+  pipeline->n_results += r->strength.entries->len + r->live.entries->len + r->total.entries->len;
+  pipeline->n_runs++;
   for (guint c = 0; c < TRB_BENCH_N_CASES; c++)
     {
       const TrbBeamResult *cr = r->cases[bench_cases[c]];
@@ -98,6 +115,43 @@ trb_bench_pipeline_run (TrbBenchPipeline  *pipeline,
         continue;
       trb_beam_result_sample (cr, TRB_BENCH_SAMPLES, pipeline->x, pipeline->values);
       *checksum += pipeline->values[TRB_BENCH_SAMPLES / 2].M;
+    }
+  return TRUE;
+}
+
+guint64
+trb_bench_pipeline_n_results (TrbBenchPipeline *pipeline)
+{
+  return pipeline->n_results;
+}
+
+guint64
+trb_bench_pipeline_n_runs (TrbBenchPipeline *pipeline)
+{
+  return pipeline->n_runs;
+}
+
+gboolean
+trb_bench_engine_run (TrbBenchPipeline    *pipeline,
+                      const TrbBenchBeam  *bb,
+                      double              *checksum,
+                      GError             **error)
+{
+  g_autoptr(TrbBeam) beam = trb_beam_new (bb->length, bb->E, bb->I, bb->supports,
+                                          bb->n_supports, error);
+
+  if (beam == NULL)
+    return FALSE;
+  for (guint c = 0; c < TRB_BENCH_N_CASES; c++)
+    {
+      g_autoptr(TrbBeamResult) r = trb_beam_solve (beam, bb->loads[c], bb->n_loads[c], error);
+      TrbBeamExtremes e;
+
+      if (r == NULL)
+        return FALSE;
+      trb_beam_result_extremes (r, 0.0, bb->length, &e);
+      trb_beam_result_sample (r, TRB_BENCH_SAMPLES, pipeline->x, pipeline->values);
+      *checksum += e.M_max + pipeline->values[TRB_BENCH_SAMPLES / 2].M;
     }
   return TRUE;
 }

@@ -5,6 +5,7 @@
 #include <glib.h>
 
 #include "trb-beam.h"
+#include "trb-solve.h"
 
 G_BEGIN_DECLS
 
@@ -39,6 +40,25 @@ const char       *trb_bench_pipeline_describe (TrbBenchPipeline   *pipeline);
  * of every load case. Adds a value of the results to *checksum so none of it is skipped. */
 gboolean          trb_bench_pipeline_run      (TrbBenchPipeline   *pipeline,
                                                guint               i,
+                                               double             *checksum,
+                                               GError            **error);
+
+/* The result of beam i, as trb_bench_pipeline_run() makes it (untimed use: the comparison). */
+TrbMemberResult  *trb_bench_pipeline_solve    (TrbBenchPipeline   *pipeline,
+                                               guint               i);
+
+/* The load case of the benchmark's case index c (0, 1, 2: D, L, Lr). */
+TrbLoadCase       trb_bench_case              (guint               c);
+
+/* The combination-and-pattern results trb_bench_pipeline_run() has made so far (strength,
+ * live and total deflection sets together), and the beams it has run. */
+guint64           trb_bench_pipeline_n_results (TrbBenchPipeline  *pipeline);
+guint64           trb_bench_pipeline_n_runs    (TrbBenchPipeline  *pipeline);
+
+/* The beam engine alone, for comparison: the beam, its three load cases, their extremes and
+ * their 200 samples; no combinations, patterns, envelopes or design. */
+gboolean          trb_bench_engine_run        (TrbBenchPipeline   *pipeline,
+                                               const TrbBenchBeam *beam,
                                                double             *checksum,
                                                GError            **error);
 

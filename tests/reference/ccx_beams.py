@@ -54,6 +54,7 @@ import json
 import math
 import os
 import random
+import resource
 import shutil
 import subprocess
 import sys
@@ -514,25 +515,29 @@ def ccx_env():
 
 
 def run_ccx(beam, cases, workdir):
-    """Runs ccx on one beam, one model per load case; returns (results per case, seconds spent
-    in ccx, largest number of elements)."""
-    results, seconds, n_elems = {}, 0.0, 0
+    """Runs ccx on one beam, one model per load case; returns (results per case, (wall, cpu)
+    seconds spent in ccx, largest number of elements)."""
+    results, wall, cpu, n_elems = {}, 0.0, 0.0, 0
     for case in cases:
         model = CcxModel(beam, [case])
         name = "beam-" + case
         with open(os.path.join(workdir, name + ".inp"), "w") as f:
             f.write(model.deck())
         t0 = time.monotonic()
+        u0 = resource.getrusage(resource.RUSAGE_CHILDREN)
         r = subprocess.run(["ccx", "-i", name], cwd=workdir, capture_output=True, text=True,
                            env=ccx_env())
-        seconds += time.monotonic() - t0
+        u1 = resource.getrusage(resource.RUSAGE_CHILDREN)
+        wall += time.monotonic() - t0
+        # children's CPU time: exact here when one ccx runs at a time (--solve-list)
+        cpu += (u1.ru_utime - u0.ru_utime) + (u1.ru_stime - u0.ru_stime)
         if r.returncode != 0 or "*ERROR" in r.stdout:
             tail = "\n".join(l for l in r.stdout.splitlines() if "ERROR" in l)
             raise RuntimeError("ccx failed on %s, case %s: %s"
                                % (beam["id"], case, tail or r.stderr[-500:]))
         results.update(model.read(workdir, name))
         n_elems = max(n_elems, model.n_elems)
-    return results, seconds, n_elems
+    return results, (wall, cpu), n_elems
 
 
 def peak(points, sign, window):
@@ -718,7 +723,7 @@ def dry_run(workdir):
     for i, b in enumerate(beams):
         d = os.path.join(workdir, "dry-%02d" % i)
         os.mkdir(d)
-        res, sec, n_el = run_ccx(b, beam_cases(b), d)
+        res, (sec, _), n_el = run_ccx(b, beam_cases(b), d)
         for case, r in res.items():
             # sum of loads and their moment about x = 0 (clockwise +)
             F = M = 0.0
@@ -827,7 +832,7 @@ def check_with_cli(cli, workdir, jobs):
 # ---------------------------------------------------------------------------------------------
 # The benchmark's helper: beams in a line format, ccx results back in a line format.
 #   in:  "beam ID LENGTH E I"  "support X TYPE"  "load CASE KIND A B W1 W2"  (SI, one per line)
-#   out: "beam ID SECONDS ELEMS"  "case ID CASE M_MAX M_MIN DEFL_DOWN DEFL_UP"
+#   out: "beam ID WALL-SECONDS CPU-SECONDS ELEMS"  "case ID CASE M_MAX M_MIN DEFL_DOWN DEFL_UP"
 #        "reaction ID CASE X FORCE MOMENT"
 # ---------------------------------------------------------------------------------------------
 
@@ -851,8 +856,8 @@ def solve_list(inp, out, workdir):
     for i, b in enumerate(beams):
         d = os.path.join(workdir, "ccx-%04d" % i)
         os.mkdir(d)
-        res, seconds, n_el = run_ccx(b, beam_cases(b), d)
-        lines.append("beam %s %.9g %d" % (b["id"], seconds, n_el))
+        res, (wall, cpu), n_el = run_ccx(b, beam_cases(b), d)
+        lines.append("beam %s %.9g %.9g %d" % (b["id"], wall, cpu, n_el))
         for case, r in res.items():
             e = extremes(r)
             lines.append("case %s %s %.15g %.15g %.15g %.15g"
