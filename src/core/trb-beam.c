@@ -19,8 +19,8 @@
  * beside it), factorised once as LDL^T in trb_beam_new. The free ends are nodes too, but an
  * overhang is statically determinate, so its element is condensed out exactly: its load
  * reaches the outermost support as a known shear and moment. That removes the only source of
- * ill-conditioning (a short overhang would put 12EI/l^3 on the diagonal) and leaves nothing
- * to fit.
+ * ill-conditioning (a short overhang would put 12EI/l^3 on the diagonal) at no cost in
+ * exactness.
  *
  * Each span gets its exact fixed-end moments and simple-beam reactions from closed-form
  * integrals of its loads; after the rotations are solved, V and M at the start of every span
@@ -34,8 +34,8 @@
  * plan geometry computed in floating point puts a support "at the end" within a few ulps. */
 #define END_TOLERANCE 1e-10
 
-/* A pivot this small against its diagonal means a mechanism. The matrix is diagonally
- * dominant whenever it is regular, so every real pivot is at least half its diagonal. */
+/* A pivot this small against its diagonal means a mechanism. For a stable member the matrix
+ * is diagonally dominant, so every pivot is at least half its diagonal. */
 #define PIVOT_TOLERANCE 1e-9
 
 /* Scratch kept on the stack for the usual member; larger load sets use the heap once. */
