@@ -167,7 +167,8 @@ def make_beam(rng, index):
     elif layout in ("continuous", "continuous-overhang"):
         n_spans = rng.randint(2, 4)
         o1 = overhang() if layout == "continuous-overhang" and rng.random() < 0.7 else 0
-        o2 = overhang() if layout == "continuous-overhang" and (o1 == 0 or rng.random() < 0.5) else 0
+        o2 = (overhang() if layout == "continuous-overhang" and (o1 == 0 or rng.random() < 0.5)
+              else 0)
         x = o1
         sup = [(x, rng.choice(["pin", "roller"]))]
         for _ in range(n_spans):
@@ -277,10 +278,11 @@ def make_beam(rng, index):
             load_xml.append('    <load case="%s" type="linear" from="%s" to="%s" w1="%s %s" '
                             'w2="%s %s"/>' % (ld["case"], at, bt, fmt_num(ld["v1"]), u.w_u,
                                               fmt_num(ld["v2"]), u.w_u))
-        w2 = ld["v2"] * (u.w_f if k in ("uniform", "linear") else (u.p_f if k == "point" else u.m_f))
+        factor = {"uniform": u.w_f, "linear": u.w_f, "point": u.p_f, "moment": u.m_f}[k]
+        w2 = ld["v2"] * factor
         beam["loads"].append({"case": ld["case"], "kind": k, "a": a, "b": b, "w1": w1, "w2": w2})
-    beam["xml"] = ('  <beam id="%s" length="%s" material="custom" section="custom" E="%s" I="%s">\n'
-                   % (beam["id"], length_text, e_text, i_text)
+    beam["xml"] = ('  <beam id="%s" length="%s" material="custom" section="custom" E="%s" '
+                   'I="%s">\n' % (beam["id"], length_text, e_text, i_text)
                    + "\n".join(sup_xml + load_xml) + "\n  </beam>\n")
     return beam
 
@@ -642,7 +644,8 @@ def self_check(workdir):
     # 26.667 kN*m.
     a = 2.0
     r = run_ccx(beam([(0.0, "pin"), (L, "roller")],
-                     [{"kind": "moment", "a": a, "b": a, "w1": m, "w2": m}]), ["D"], workdir)[0]["D"]
+                     [{"kind": "moment", "a": a, "b": a, "w1": m, "w2": m}]),
+                ["D"], workdir)[0]["D"]
     e = extremes(r)
     checks += [("simple/moment R left", r["reactions"][0][1], -m / L),
                ("simple/moment M-", e["M_min"], -m * a / L),
@@ -651,7 +654,8 @@ def self_check(workdir):
     # 4.5 m (statics, by hand): total W = wL/2 = 30 kN at 2L/3 = 4 m, so R_right = 30*4/4.5 =
     # 26.667 kN and R_left = 3.333 kN.
     r = run_ccx(beam([(0.0, "pin"), (4.5, "roller")],
-                     [{"kind": "linear", "a": 0.0, "b": L, "w1": 0.0, "w2": w}]), ["D"], workdir)[0]["D"]
+                     [{"kind": "linear", "a": 0.0, "b": L, "w1": 0.0, "w2": w}]),
+                ["D"], workdir)[0]["D"]
     checks += [("overhang/linear R right", r["reactions"][1][1], 30.0e3 * 4.0 / 4.5),
                ("overhang/linear R left", r["reactions"][0][1], 30.0e3 - 30.0e3 * 4.0 / 4.5)]
 
@@ -714,6 +718,29 @@ def compare_case(ours, ref, beam):
     return worst, fails
 
 
+def coverage(beams):
+    """One line saying what the generated beams hold."""
+    kinds = {"point": 0, "uniform (whole)": 0, "uniform (part)": 0, "linear": 0, "moment": 0}
+    spans = {}
+    for b in beams:
+        n = max(1, len(b["supports"]) - 1)
+        spans[n] = spans.get(n, 0) + 1
+        for ld in b["loads"]:
+            k = ld["kind"]
+            if k == "uniform":
+                whole = ld["a"] == 0.0 and abs(ld["b"] - b["length"]) < 1e-9
+                k = "uniform (whole)" if whole else "uniform (part)"
+            kinds[k] += 1
+    fixed = sum(any(t == "fixed" for _, t in b["supports"]) for b in beams)
+    overhang = sum(b["supports"][0][0] > 0 or b["supports"][-1][0] < b["length"] for b in beams)
+    return ("%d beams (seed %d): %s; %d with a fixed support, %d with an overhang or a free "
+            "end; loads: %s" % (len(beams), SEED,
+                                ", ".join("%d with %d span%s" % (spans[k], k, "s" * (k > 1))
+                                          for k in sorted(spans)),
+                                fixed, overhang,
+                                ", ".join("%d %s" % (v, k) for k, v in kinds.items())))
+
+
 def dry_run(workdir):
     """The generated beams through ccx alone: reactions against statics."""
     rng = random.Random(SEED)
@@ -771,6 +798,7 @@ def check_with_cli(cli, workdir, jobs):
               % (r.returncode, (r.stderr or r.stdout)[-800:]))
         return 0, len(beams)
     members = {m["id"]: m for m in doc.get("members", [])}
+    print(coverage(beams))
 
     def solve(i):
         d = os.path.join(workdir, "ccx-%02d" % i)
@@ -863,7 +891,8 @@ def solve_list(inp, out, workdir):
             lines.append("case %s %s %.15g %.15g %.15g %.15g"
                          % (b["id"], case, e["M_max"], e["M_min"], e["defl_down"], e["defl_up"]))
             for x, force, moment in r["reactions"]:
-                lines.append("reaction %s %s %.15g %.15g %.15g" % (b["id"], case, x, force, moment))
+                lines.append("reaction %s %s %.15g %.15g %.15g"
+                             % (b["id"], case, x, force, moment))
         shutil.rmtree(d)
     with open(out, "w") as f:
         f.write("\n".join(lines) + "\n")
