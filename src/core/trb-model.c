@@ -319,6 +319,16 @@ trb_member_has_case (const TrbMember *member,
   return FALSE;
 }
 
+static void
+sections_source_free (gpointer data)
+{
+  TrbSectionsSource *s = data;
+
+  g_free (s->file);
+  g_free (s->csv);
+  g_free (s);
+}
+
 TrbProject *
 trb_project_new (void)
 {
@@ -329,6 +339,7 @@ trb_project_new (void)
   p->members = g_ptr_array_new_with_free_func ((GDestroyNotify) trb_member_free);
   p->ids = g_hash_table_new (g_str_hash, g_str_equal);
   p->floors = g_ptr_array_new_with_free_func ((GDestroyNotify) trb_floor_free);
+  p->sections_sources = g_ptr_array_new_with_free_func (sections_source_free);
   return p;
 }
 
@@ -344,6 +355,7 @@ trb_project_free (TrbProject *project)
   g_clear_pointer (&project->floors, g_ptr_array_unref);
   g_clear_pointer (&project->members, g_ptr_array_unref);
   g_clear_pointer (&project->sections, trb_catalog_free);
+  g_clear_pointer (&project->sections_sources, g_ptr_array_unref);
   g_free (project);
 }
 
@@ -903,4 +915,32 @@ trb_project_next_mark (const TrbProject *project,
         return mark;
       g_free (mark);
     }
+}
+
+/**
+ * trb_project_add_sections_source:
+ * @project: a project
+ * @file: (nullable): the file name a <sections> element named
+ * @csv: (nullable): or the table it held
+ * @line: its line in the file; 0 when it has none
+ *
+ * Records where the project's own sections came from, for saving. The sections themselves
+ * are in @project->sections.
+ */
+void
+trb_project_add_sections_source (TrbProject *project,
+                                 const char *file,
+                                 const char *csv,
+                                 int         line)
+{
+  TrbSectionsSource *s;
+
+  g_return_if_fail (project != NULL);
+  g_return_if_fail ((file == NULL) != (csv == NULL));
+
+  s = g_new0 (TrbSectionsSource, 1);
+  s->file = g_strdup (file);
+  s->csv = g_strdup (csv);
+  s->line = line;
+  g_ptr_array_add (project->sections_sources, s);
 }

@@ -212,6 +212,14 @@ typedef struct _TrbFloor
   GPtrArray   *point_loads;       /* TrbPointLoad */
 } TrbFloor;
 
+/* A <sections> element as written, so that saving writes it back as it was given. */
+typedef struct
+{
+  char        *file;         /* a file name in the project's folder; NULL for an inline table */
+  char        *csv;          /* the inline table, trimmed; NULL with a file */
+  int          line;
+} TrbSectionsSource;
+
 typedef struct
 {
   int          format;
@@ -221,6 +229,7 @@ typedef struct
                               * file order; ids (the engineer's marks) unique across them */
   GPtrArray   *floors;       /* TrbFloor, in file order */
   TrbCatalog  *sections;     /* the project's own sections (<sections>); NULL when none */
+  GPtrArray   *sections_sources; /* TrbSectionsSource, in file order: what made sections */
   GHashTable  *ids;          /* private: id -> member of members, so that looking an id up
                               * (once per member while loading) is not a linear search */
 } TrbProject;
@@ -335,6 +344,10 @@ TrbColumn   *trb_project_find_column       (const TrbProject  *project,
 TrbWall     *trb_project_find_wall         (const TrbProject  *project,
                                             const char        *id,
                                             TrbFloor         **floor);
+void         trb_project_add_sections_source (TrbProject  *project,
+                                              const char  *file,
+                                              const char  *csv,
+                                              int          line);
 char        *trb_project_next_mark         (const TrbProject  *project,
                                             const char        *prefix,
                                             guint             *counter);

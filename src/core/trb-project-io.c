@@ -4,12 +4,14 @@
 #include "config.h"
 
 #include <gio/gio.h>
+#include <glib/gstdio.h>
 #include <libxml/parser.h>
 #include <libxml/parserInternals.h>
 #include <libxml/tree.h>
 #include <math.h>
 #include <stdarg.h>
 #include <string.h>
+#include <sys/stat.h>
 
 #include "trb-combos.h"
 #include "trb-catalog.h"
@@ -25,6 +27,9 @@ typedef struct
   const char *name;      /* for messages: the path as given, or a caller's name */
   GError    **error;
   const char *dir;       /* the project file's folder; NULL when loaded from memory */
+  GHashTable *floors;    /* name -> first line, for duplicates */
+  GHashTable *columns;   /* id -> first line: column marks, unique across the floors */
+  GHashTable *walls;     /* id -> first line: wall marks, likewise */
 } Loader;
 
 /* What the DOCTYPE guard saw, and the parser's own element handler; reached from the parser
@@ -34,6 +39,8 @@ typedef struct
   gboolean               doctype;
   int                    line;
   startElementNsSAX2Func start_element;
+  guint64                nodes;       /* elements and attributes parsed so far */
+  gboolean               too_many;    /* nodes went past TRB_PROJECT_MAX_NODES at line */
 } Guard;
 
 static gboolean G_GNUC_PRINTF (4, 5)
@@ -355,7 +362,7 @@ load_settings (Loader      *ld,
 {
   static const char * const attrs[] = {
     "method", "fb-allow", "fv-allow", "steel-grade", "self-weight", "live-patterns",
-    "deflection-live", "deflection-total", "units", NULL
+    "deflection-live", "deflection-total", "units", "live-load-reduction", "floors-above", NULL
   };
   static const char * const methods[] = { "asd", "lrfd", "allowable", NULL };
   static const char * const include[] = { "exclude", "include", NULL };
@@ -366,6 +373,8 @@ load_settings (Loader      *ld,
   int sw = s->self_weight ? 1 : 0;
   int pat = s->live_patterns ? 1 : 0;
   int u = s->units == TRB_UNIT_SYSTEM_SI ? 1 : 0;
+  int llr = s->live_load_reduction ? 1 : 0;
+  g_autofree char *above = NULL;
 
   G_STATIC_ASSERT (TRB_METHOD_ASD == 0 && TRB_METHOD_LRFD == 1 && TRB_METHOD_ALLOWABLE == 2);
 
@@ -378,8 +387,21 @@ load_settings (Loader      *ld,
       !get_choice (ld, node, "live-patterns", on_off, &pat) ||
       !get_deflection_limit (ld, node, "deflection-live", &s->deflection_live) ||
       !get_deflection_limit (ld, node, "deflection-total", &s->deflection_total) ||
-      !get_choice (ld, node, "units", units, &u))
+      !get_choice (ld, node, "units", units, &u) ||
+      !get_choice (ld, node, "live-load-reduction", on_off, &llr))
     return FALSE;
+
+  above = get_attr (node, "floors-above");
+  if (above != NULL)
+    {
+      gint64 v;
+
+      if (!parse_int (above, 0, 999, &v))
+        return fail_at (ld, node_line (node), TRB_ERROR_INVALID,
+                        "attribute \"floors-above\" = \"%s\": expected a whole number from 0 "
+                        "to 999", above);
+      s->floors_above = (int) v;
+    }
 
   grade = get_attr (node, "steel-grade");
   if (grade != NULL)
@@ -395,6 +417,7 @@ load_settings (Loader      *ld,
   s->self_weight = sw == 1;
   s->live_patterns = pat == 1;
   s->units = u == 1 ? TRB_UNIT_SYSTEM_SI : TRB_UNIT_SYSTEM_US;
+  s->live_load_reduction = llr == 1;
   s->line = node_line (node);
   return TRUE;
 }
@@ -563,52 +586,21 @@ static const char * const wood_attrs[] = {
   "species", "grade", "wet-service", "incised", "repetitive", "bearing-length", NULL
 };
 
+/* The attributes a standalone <beam> and a floor's <member> share: material, section and
+ * every design attribute. *bracing is -1 when the file gives none. */
 static gboolean
-load_beam (Loader     *ld,
-           xmlNode    *node,
-           TrbProject *project)
+load_design (Loader    *ld,
+             xmlNode   *node,
+             TrbMember *m,
+             int       *bracing)
 {
-  static const char * const attrs[] = {
-    "id", "length", "material", "section",
-    "E", "I", "S", "A", "d", "tw", "weight",
-    "method", "fb-allow", "fv-allow", "steel-grade", "deflection-live", "deflection-total",
-    "bracing", "max-depth", "min-depth", "allowed", "max-plies",
-    "species", "grade", "wet-service", "incised", "repetitive", "bearing-length",
-    NULL
-  };
   static const char * const methods[] = { "asd", "lrfd", "allowable", NULL };
   static const char * const bracings[] = { "continuous", "supports", NULL };
-  g_autoptr(TrbMember) m = NULL;
-  g_autofree char *id = NULL;
-  g_autofree char *length_text = NULL;
   g_autofree char *material = NULL;
   g_autofree char *section = NULL;
   g_autofree char *allowed = NULL;
   g_autofree char *plies = NULL;
-  TrbMember *other;
   int method = -1;
-  int bracing = -1;
-
-  if (!check_attributes (ld, node, attrs))
-    return FALSE;
-
-  if (!require_attr (ld, node, "id", &id))
-    return FALSE;
-  if (*id == '\0')
-    return fail_at (ld, node_line (node), TRB_ERROR_INVALID, "beam \"id\" is empty");
-  other = trb_project_find_member (project, id);
-  if (other != NULL)
-    return fail_at (ld, node_line (node), TRB_ERROR_INVALID,
-                    "duplicate beam id \"%s\" (first at line %d)", id, other->line);
-
-  m = trb_member_new (id);
-  m->line = node_line (node);
-
-  if (!get_quantity (ld, node, "length", TRB_DIM_LENGTH, TRUE, &m->length, &length_text))
-    return FALSE;
-  if (!(m->length > 0))
-    return fail_at (ld, node_line (node), TRB_ERROR_INVALID,
-                    "beam \"length\" = \"%s\" must be greater than zero", length_text);
 
   if (!require_attr (ld, node, "material", &material))
     return FALSE;
@@ -663,7 +655,7 @@ load_beam (Loader     *ld,
       !get_positive_quantity (ld, node, "fv-allow", TRB_DIM_STRESS, FALSE, &m->fv_allow) ||
       !get_deflection_limit (ld, node, "deflection-live", &m->deflection_live) ||
       !get_deflection_limit (ld, node, "deflection-total", &m->deflection_total) ||
-      !get_choice (ld, node, "bracing", bracings, &bracing) ||
+      !get_choice (ld, node, "bracing", bracings, bracing) ||
       !get_positive_quantity (ld, node, "max-depth", TRB_DIM_LENGTH, FALSE, &m->max_depth) ||
       !get_positive_quantity (ld, node, "min-depth", TRB_DIM_LENGTH, FALSE, &m->min_depth) ||
       !get_yes_no (ld, node, "wet-service", &m->wet_service) ||
@@ -718,7 +710,55 @@ load_beam (Loader     *ld,
                         plies);
       m->max_plies = (int) v;
     }
+  return TRUE;
+}
 
+/* A point in plan from two coordinate attributes, both required. */
+static gboolean
+get_plan_point (Loader        *ld,
+                xmlNode       *node,
+                const char    *x_attr,
+                const char    *y_attr,
+                TrbFramePoint *p)
+{
+  return get_quantity (ld, node, x_attr, TRB_DIM_LENGTH, TRUE, &p->x, NULL) &&
+         get_quantity (ld, node, y_attr, TRB_DIM_LENGTH, TRUE, &p->y, NULL);
+}
+
+/* A listed bearing point: where the member also rests on a member below. It must lie on the
+ * member, within the framing tolerance of its line, as trb-frame requires. */
+static gboolean
+load_bears_on (Loader    *ld,
+               xmlNode   *node,
+               TrbMember *m)
+{
+  static const char * const attrs[] = { "x", "y", NULL };
+  TrbFramePoint p;
+  double dx = m->end.x - m->start.x;
+  double dy = m->end.y - m->start.y;
+  double t, d;
+
+  if (!check_attributes (ld, node, attrs) || !check_leaf (ld, node) ||
+      !get_plan_point (ld, node, "x", "y", &p))
+    return FALSE;
+  t = ((p.x - m->start.x) * dx + (p.y - m->start.y) * dy) / (dx * dx + dy * dy);
+  t = CLAMP (t, 0.0, 1.0);
+  d = hypot (p.x - (m->start.x + t * dx), p.y - (m->start.y + t * dy));
+  if (d > TRB_FRAME_TOLERANCE)
+    return fail_at (ld, node_line (node), TRB_ERROR_INVALID,
+                    "<bears-on> lies %.0f mm from member \"%s\"; it must be on the member "
+                    "(within %.0f mm)", d * 1000, m->id, TRB_FRAME_TOLERANCE * 1000);
+  trb_member_add_bearing_point (m, p);
+  return TRUE;
+}
+
+static gboolean
+load_member_children (Loader     *ld,
+                      xmlNode    *node,
+                      TrbMember  *m,
+                      const char *length_text,
+                      int         bracing)
+{
   FOR_EACH_CHILD (child, node)
     {
       if (child->type != XML_ELEMENT_NODE)
@@ -742,9 +782,14 @@ load_beam (Loader     *ld,
           if (!load_brace (ld, child, m, length_text))
             return FALSE;
         }
+      else if (m->floor != NULL && is_element (child, "bears-on"))
+        {
+          if (!load_bears_on (ld, child, m))
+            return FALSE;
+        }
       else
         return fail_at (ld, node_line (child), TRB_ERROR_INVALID,
-                        "unknown element <%s> inside <beam>", NAME (child));
+                        "unknown element <%s> inside <%s>", NAME (child), NAME (node));
     }
 
   /* With continuous bracing the deck holds the top; braces then hold the bottom flange or
@@ -753,8 +798,434 @@ load_beam (Loader     *ld,
     bracing = 1;
   m->bracing = bracing == 1 ? TRB_BRACING_POINTS : TRB_BRACING_CONTINUOUS;
   g_array_sort (m->braces, compare_brace);
+  return TRUE;
+}
+
+/* Marks are one namespace across the project: standalone beams and every floor's members. */
+static gboolean
+check_new_mark (Loader     *ld,
+                xmlNode    *node,
+                TrbProject *project,
+                const char *what,
+                const char *id)
+{
+  TrbMember *other;
+
+  if (*id == '\0')
+    return fail_at (ld, node_line (node), TRB_ERROR_INVALID, "%s \"id\" is empty", what);
+  other = trb_project_find_member (project, id);
+  if (other != NULL)
+    return fail_at (ld, node_line (node), TRB_ERROR_INVALID,
+                    "duplicate %s id \"%s\" (first at line %d)", what, id, other->line);
+  return TRUE;
+}
+
+static gboolean
+load_beam (Loader     *ld,
+           xmlNode    *node,
+           TrbProject *project)
+{
+  static const char * const attrs[] = {
+    "id", "length", "material", "section",
+    "E", "I", "S", "A", "d", "tw", "weight",
+    "method", "fb-allow", "fv-allow", "steel-grade", "deflection-live", "deflection-total",
+    "bracing", "max-depth", "min-depth", "allowed", "max-plies",
+    "species", "grade", "wet-service", "incised", "repetitive", "bearing-length",
+    NULL
+  };
+  g_autoptr(TrbMember) m = NULL;
+  g_autofree char *id = NULL;
+  g_autofree char *length_text = NULL;
+  int bracing = -1;
+
+  if (!check_attributes (ld, node, attrs))
+    return FALSE;
+
+  if (!require_attr (ld, node, "id", &id) || !check_new_mark (ld, node, project, "beam", id))
+    return FALSE;
+
+  m = trb_member_new (id);
+  m->line = node_line (node);
+
+  if (!get_quantity (ld, node, "length", TRB_DIM_LENGTH, TRUE, &m->length, &length_text))
+    return FALSE;
+  if (!(m->length > 0))
+    return fail_at (ld, node_line (node), TRB_ERROR_INVALID,
+                    "beam \"length\" = \"%s\" must be greater than zero", length_text);
+
+  if (!load_design (ld, node, m, &bracing) ||
+      !load_member_children (ld, node, m, length_text, bracing))
+    return FALSE;
 
   trb_project_add_member (project, g_steal_pointer (&m));
+  return TRUE;
+}
+
+/* A member of a floor: placed in plan from (x1, y1) to (x2, y2); its length is the distance
+ * between them. A length may be given as well, and must then agree with the plan. */
+static gboolean
+load_member (Loader     *ld,
+             xmlNode    *node,
+             TrbProject *project,
+             TrbFloor   *floor)
+{
+  static const char * const attrs[] = {
+    "id", "role", "x1", "y1", "x2", "y2", "length", "material", "section",
+    "E", "I", "S", "A", "d", "tw", "weight",
+    "method", "fb-allow", "fv-allow", "steel-grade", "deflection-live", "deflection-total",
+    "bracing", "max-depth", "min-depth", "allowed", "max-plies",
+    "species", "grade", "wet-service", "incised", "repetitive", "bearing-length",
+    "group", "deck",
+    NULL
+  };
+  static const char * const roles[] = { "girder", "beam", "joist", NULL };
+  g_autoptr(TrbMember) m = NULL;
+  g_autofree char *id = NULL;
+  g_autofree char *role_text = NULL;
+  g_autofree char *length_text = NULL;
+  g_autofree char *group = NULL;
+  TrbFramePoint start, end;
+  double given = NAN;
+  int role = -1;
+  int bracing = -1;
+
+  G_STATIC_ASSERT (TRB_FRAME_ROLE_GIRDER == 0 && TRB_FRAME_ROLE_BEAM == 1 &&
+                   TRB_FRAME_ROLE_JOIST == 2);
+
+  if (!check_attributes (ld, node, attrs))
+    return FALSE;
+  if (!require_attr (ld, node, "id", &id) || !check_new_mark (ld, node, project, "member", id))
+    return FALSE;
+  if (!require_attr (ld, node, "role", &role_text) ||
+      !get_choice (ld, node, "role", roles, &role))
+    return FALSE;
+
+  m = trb_member_new (id);
+  m->line = node_line (node);
+  m->floor = floor;
+  trb_member_set_role (m, role);
+  if (!get_yes_no (ld, node, "deck", &m->carries_deck))
+    return FALSE;
+
+  if (!get_plan_point (ld, node, "x1", "y1", &start) ||
+      !get_plan_point (ld, node, "x2", "y2", &end))
+    return FALSE;
+  trb_member_set_plan (m, start, end);
+  if (!(m->length > 0))
+    return fail_at (ld, node_line (node), TRB_ERROR_INVALID,
+                    "member \"%s\" has zero length: its ends are the same point", id);
+
+  if (!get_quantity (ld, node, "length", TRB_DIM_LENGTH, FALSE, &given, &length_text))
+    return FALSE;
+  if (length_text != NULL)
+    {
+      /* The plan decides; a stated length only guards against a misplaced end. */
+      if (fabs (given - m->length) > TRB_FRAME_TOLERANCE)
+        return fail_at (ld, node_line (node), TRB_ERROR_INVALID,
+                        "member \"length\" = \"%s\" differs from the %.3f m between its ends",
+                        length_text, m->length);
+    }
+  else
+    length_text = g_strdup_printf ("%.3f m", m->length);
+
+  group = get_attr (node, "group");
+  if (group != NULL)
+    {
+      if (*g_strstrip (group) == '\0')
+        return fail_at (ld, node_line (node), TRB_ERROR_INVALID, "attribute \"group\" is empty");
+      m->group = g_steal_pointer (&group);
+    }
+
+  if (!load_design (ld, node, m, &bracing) ||
+      !load_member_children (ld, node, m, length_text, bracing))
+    return FALSE;
+
+  trb_floor_add_member (project, floor, g_steal_pointer (&m));
+  return TRUE;
+}
+
+/* The <point x= y=/> children of a wall, polygon or polyline: at least min_points of them,
+ * and nothing else. */
+static gboolean
+load_points (Loader     *ld,
+             xmlNode    *node,
+             GArray     *points,
+             guint       min_points,
+             const char *needs)
+{
+  static const char * const attrs[] = { "x", "y", NULL };
+
+  FOR_EACH_CHILD (child, node)
+    {
+      TrbFramePoint p;
+
+      if (child->type != XML_ELEMENT_NODE)
+        {
+          if (!check_no_text (ld, child, node))
+            return FALSE;
+          continue;
+        }
+      if (!is_element (child, "point"))
+        return fail_at (ld, node_line (child), TRB_ERROR_INVALID,
+                        "unknown element <%s> inside <%s>", NAME (child), NAME (node));
+      if (!check_attributes (ld, child, attrs) || !check_leaf (ld, child) ||
+          !get_plan_point (ld, child, "x", "y", &p))
+        return FALSE;
+      g_array_append_val (points, p);
+    }
+  if (points->len < min_points)
+    return fail_at (ld, node_line (node), TRB_ERROR_INVALID,
+                    "<%s> has %u point%s; %s needs %u or more", NAME (node), points->len,
+                    points->len == 1 ? "" : "s", needs, min_points);
+  return TRUE;
+}
+
+/* Optional free text (a label, an occupancy): absent or empty is NULL. */
+static char *
+get_text (xmlNode    *node,
+          const char *attr)
+{
+  char *text = get_attr (node, attr);
+
+  if (text != NULL && *g_strstrip (text) == '\0')
+    g_clear_pointer (&text, g_free);
+  return text;
+}
+
+static gboolean
+get_case (Loader      *ld,
+          xmlNode     *node,
+          TrbLoadCase *lcase)
+{
+  g_autofree char *text = NULL;
+
+  if (!require_attr (ld, node, "case", &text))
+    return FALSE;
+  if (!trb_load_case_from_name (text, lcase))
+    return fail_at (ld, node_line (node), TRB_ERROR_INVALID,
+                    "unknown load case \"%s\" (expected D, L, Lr or S)", text);
+  return TRUE;
+}
+
+/* An id of a column or wall: required, not empty, unique across the project in its own
+ * namespace. */
+static gboolean
+get_unique_id (Loader      *ld,
+               xmlNode     *node,
+               GHashTable  *seen,
+               const char  *what,
+               char       **id)
+{
+  gpointer first;
+
+  if (!require_attr (ld, node, "id", id))
+    return FALSE;
+  g_strstrip (*id);
+  if (**id == '\0')
+    return fail_at (ld, node_line (node), TRB_ERROR_INVALID, "%s \"id\" is empty", what);
+  first = g_hash_table_lookup (seen, *id);
+  if (first != NULL)
+    return fail_at (ld, node_line (node), TRB_ERROR_INVALID,
+                    "duplicate %s id \"%s\" (first at line %d)", what, *id,
+                    GPOINTER_TO_INT (first));
+  g_hash_table_insert (seen, g_strdup (*id), GINT_TO_POINTER (MAX (node_line (node), 1)));
+  return TRUE;
+}
+
+static gboolean
+load_floor (Loader     *ld,
+            xmlNode    *node,
+            TrbProject *project)
+{
+  static const char * const attrs[] = { "name", NULL };
+  static const char * const grid_attrs[] = { "name", "x1", "y1", "x2", "y2", NULL };
+  static const char * const column_attrs[] = { "id", "x", "y", "section", NULL };
+  static const char * const wall_attrs[] = { "id", "material", NULL };
+  static const char * const area_attrs[] = {
+    "case", "kind", "pressure", "label", "occupancy", NULL
+  };
+  static const char * const line_attrs[] = { "case", "w", "label", NULL };
+  static const char * const point_attrs[] = { "case", "p", "x", "y", "label", NULL };
+  static const char * const kinds[] = { "ordinary", "partition", NULL };
+  g_autofree char *name = NULL;
+  g_autoptr(GHashTable) grids = g_hash_table_new_full (g_str_hash, g_str_equal, g_free, NULL);
+  TrbFloor *floor;
+  gpointer first;
+
+  G_STATIC_ASSERT (TRB_AREA_LOAD_ORDINARY == 0 && TRB_AREA_LOAD_PARTITION == 1);
+
+  if (!check_attributes (ld, node, attrs) || !require_attr (ld, node, "name", &name))
+    return FALSE;
+  g_strstrip (name);
+  if (*name == '\0')
+    return fail_at (ld, node_line (node), TRB_ERROR_INVALID, "floor \"name\" is empty");
+  first = g_hash_table_lookup (ld->floors, name);
+  if (first != NULL)
+    return fail_at (ld, node_line (node), TRB_ERROR_INVALID,
+                    "duplicate floor name \"%s\" (first at line %d)", name,
+                    GPOINTER_TO_INT (first));
+  g_hash_table_insert (ld->floors, g_strdup (name), GINT_TO_POINTER (MAX (node_line (node), 1)));
+
+  /* The project owns the floor from here, so that members added to it are freed with it
+   * whatever fails later. */
+  floor = trb_floor_new (name);
+  floor->line = node_line (node);
+  trb_project_add_floor (project, floor);
+
+  FOR_EACH_CHILD (child, node)
+    {
+      int line = node_line (child);
+
+      if (child->type != XML_ELEMENT_NODE)
+        {
+          if (!check_no_text (ld, child, node))
+            return FALSE;
+          continue;
+        }
+      if (is_element (child, "grid"))
+        {
+          g_autofree char *gname = NULL;
+          TrbFramePoint s, e;
+          TrbGridLine *g;
+
+          if (!check_attributes (ld, child, grid_attrs) || !check_leaf (ld, child) ||
+              !require_attr (ld, child, "name", &gname))
+            return FALSE;
+          g_strstrip (gname);
+          if (*gname == '\0')
+            return fail_at (ld, line, TRB_ERROR_INVALID, "grid \"name\" is empty");
+          first = g_hash_table_lookup (grids, gname);
+          if (first != NULL)
+            return fail_at (ld, line, TRB_ERROR_INVALID,
+                            "duplicate grid line \"%s\" (first at line %d)", gname,
+                            GPOINTER_TO_INT (first));
+          g_hash_table_insert (grids, g_strdup (gname), GINT_TO_POINTER (MAX (line, 1)));
+          if (!get_plan_point (ld, child, "x1", "y1", &s) ||
+              !get_plan_point (ld, child, "x2", "y2", &e))
+            return FALSE;
+          if (s.x == e.x && s.y == e.y)
+            return fail_at (ld, line, TRB_ERROR_INVALID,
+                            "grid line \"%s\" has zero length: its ends are the same point",
+                            gname);
+          g = trb_grid_line_new (gname, s, e);
+          g->line = line;
+          g_ptr_array_add (floor->grids, g);
+        }
+      else if (is_element (child, "column"))
+        {
+          g_autofree char *id = NULL;
+          g_autofree char *section = NULL;
+          TrbFramePoint at;
+          TrbColumn *c;
+
+          if (!check_attributes (ld, child, column_attrs) || !check_leaf (ld, child) ||
+              !get_unique_id (ld, child, ld->columns, "column", &id) ||
+              !get_plan_point (ld, child, "x", "y", &at))
+            return FALSE;
+          section = get_attr (child, "section");
+          if (section != NULL && *g_strstrip (section) == '\0')
+            return fail_at (ld, line, TRB_ERROR_INVALID, "attribute \"section\" is empty");
+          c = trb_column_new (id, at, section);
+          c->line = line;
+          g_ptr_array_add (floor->columns, c);
+        }
+      else if (is_element (child, "wall"))
+        {
+          g_autofree char *id = NULL;
+          g_autofree char *material = NULL;
+          g_autoptr(TrbWall) w = NULL;
+
+          if (!check_attributes (ld, child, wall_attrs) ||
+              !get_unique_id (ld, child, ld->walls, "wall", &id))
+            return FALSE;
+          material = get_text (child, "material");
+          w = trb_wall_new (id, material);
+          w->line = line;
+          if (!load_points (ld, child, w->points, 2, "a wall"))
+            return FALSE;
+          g_ptr_array_add (floor->walls, g_steal_pointer (&w));
+        }
+      else if (is_element (child, "member"))
+        {
+          if (!load_member (ld, child, project, floor))
+            return FALSE;
+        }
+      else if (is_element (child, "area-load"))
+        {
+          g_autoptr(TrbAreaLoad) a = NULL;
+          g_autofree char *label = NULL;
+          g_autofree char *occupancy = NULL;
+          TrbLoadCase lcase;
+          int kind = TRB_AREA_LOAD_ORDINARY;
+          double pressure;
+
+          if (!check_attributes (ld, child, area_attrs) || !get_case (ld, child, &lcase) ||
+              !get_choice (ld, child, "kind", kinds, &kind) ||
+              !get_quantity (ld, child, "pressure", TRB_DIM_AREA_LOAD, TRUE, &pressure, NULL))
+            return FALSE;
+          /* ASCE 7-16 §4.3.2: partition loads are live loads; a partition allowance taken as
+           * dead load is an ordinary area load of case D. */
+          if (kind == TRB_AREA_LOAD_PARTITION && lcase != TRB_CASE_L)
+            return fail_at (ld, line, TRB_ERROR_INVALID,
+                            "a partition load is live load: its case must be L, not %s",
+                            trb_load_case_name (lcase));
+          label = get_text (child, "label");
+          occupancy = get_text (child, "occupancy");
+          a = trb_area_load_new (lcase, kind, pressure, label, occupancy);
+          a->line = line;
+          if (!load_points (ld, child, a->points, 3, "a polygon"))
+            return FALSE;
+          g_ptr_array_add (floor->area_loads, g_steal_pointer (&a));
+        }
+      else if (is_element (child, "opening"))
+        {
+          g_autoptr(TrbOpening) o = trb_opening_new ();
+
+          o->line = line;
+          if (!check_attributes (ld, child, (const char * const[]) { NULL }) ||
+              !load_points (ld, child, o->points, 3, "a polygon"))
+            return FALSE;
+          g_ptr_array_add (floor->openings, g_steal_pointer (&o));
+        }
+      else if (is_element (child, "line-load"))
+        {
+          g_autoptr(TrbLineLoad) l = NULL;
+          g_autofree char *label = NULL;
+          TrbLoadCase lcase;
+          double w;
+
+          if (!check_attributes (ld, child, line_attrs) || !get_case (ld, child, &lcase) ||
+              !get_quantity (ld, child, "w", TRB_DIM_LINE_LOAD, TRUE, &w, NULL))
+            return FALSE;
+          label = get_text (child, "label");
+          l = trb_line_load_new (lcase, w, label);
+          l->line = line;
+          if (!load_points (ld, child, l->points, 2, "a line"))
+            return FALSE;
+          g_ptr_array_add (floor->line_loads, g_steal_pointer (&l));
+        }
+      else if (is_element (child, "point-load"))
+        {
+          g_autofree char *label = NULL;
+          TrbLoadCase lcase;
+          TrbFramePoint at;
+          double P;
+          TrbPointLoad *pl;
+
+          if (!check_attributes (ld, child, point_attrs) || !check_leaf (ld, child) ||
+              !get_case (ld, child, &lcase) ||
+              !get_quantity (ld, child, "p", TRB_DIM_FORCE, TRUE, &P, NULL) ||
+              !get_plan_point (ld, child, "x", "y", &at))
+            return FALSE;
+          label = get_text (child, "label");
+          pl = trb_point_load_new (lcase, P, at, label);
+          pl->line = line;
+          g_ptr_array_add (floor->point_loads, pl);
+        }
+      else
+        return fail_at (ld, line, TRB_ERROR_INVALID,
+                        "unknown element <%s> inside <floor>", NAME (child));
+    }
   return TRUE;
 }
 
@@ -785,6 +1256,7 @@ load_sections (Loader     *ld,
     {
       g_autofree char *path = NULL;
       gsize length;
+      GStatBuf st;
 
       if (node->children != NULL)
         return fail_at (ld, line, TRB_ERROR_INVALID,
@@ -798,6 +1270,17 @@ load_sections (Loader     *ld,
         return fail_at (ld, line, TRB_ERROR_INVALID,
                         "sections file \"%s\": the project has no folder to find it in", file);
       path = g_build_filename (ld->dir, file, NULL);
+      /* A plain file only, looked at before it is read: a symbolic link could lead out of
+       * the folder (and its text into a message), and a pipe or a device would block or
+       * never end. */
+      if (g_lstat (path, &st) != 0)
+        return fail_at (ld, line, TRB_ERROR_IO, "sections file \"%s\": %s", file,
+                        g_strerror (errno));
+      if (!S_ISREG (st.st_mode))
+        return fail_at (ld, line, TRB_ERROR_IO, "sections file \"%s\" is not a plain file "
+                        "(links, pipes and devices are not followed)", file);
+      if (st.st_size > TRB_PROJECT_MAX_FILE_SIZE)
+        return fail_at (ld, line, TRB_ERROR_IO, "sections file \"%s\" is too large", file);
       if (!g_file_get_contents (path, &text, &length, &local))
         return fail_at (ld, line, TRB_ERROR_IO, "sections file \"%s\": %s", file,
                         local->message);
@@ -815,6 +1298,7 @@ load_sections (Loader     *ld,
       g_strstrip (text);
       source = g_strdup ("the <sections> table");
     }
+  trb_project_add_sections_source (project, file, file == NULL ? text : NULL, line);
 
   if (project->sections == NULL)
     project->sections = trb_catalog_new ();
@@ -881,12 +1365,21 @@ load_root (Loader     *ld,
         }
       else if (is_element (child, "beam"))
         {
+          if (project->members->len >= TRB_PROJECT_MAX_MEMBERS)
+            return fail_at (ld, node_line (child), TRB_ERROR_INVALID,
+                            "more than %d members: this version reads no more",
+                            TRB_PROJECT_MAX_MEMBERS);
           if (!load_beam (ld, child, project))
             return FALSE;
         }
       else if (is_element (child, "sections"))
         {
           if (!load_sections (ld, child, project))
+            return FALSE;
+        }
+      else if (is_element (child, "floor"))
+        {
+          if (!load_floor (ld, child, project))
             return FALSE;
         }
       else
@@ -934,6 +1427,15 @@ on_start_element (void           *ctx,
   guard->start_element (ctx, localname, prefix, uri, nb_namespaces, namespaces, nb_attributes,
                         nb_defaulted, attributes);
 
+  guard->nodes += 1 + (guint) MAX (nb_attributes, 0) + (guint) MAX (nb_namespaces, 0);
+  if (guard->nodes > TRB_PROJECT_MAX_NODES && !guard->too_many)
+    {
+      guard->too_many = TRUE;
+      guard->line = in != NULL ? in->line : 0;
+      xmlStopParser (ctxt);
+      return;
+    }
+
   if (ctxt->node != NULL && in != NULL && in->cur != NULL && in->base != NULL &&
       in->cur > in->base)
     {
@@ -949,6 +1451,97 @@ on_start_element (void           *ctx,
       if (*p == '<' && ctxt->node->line > newlines && ctxt->node->line < 65535)
         ctxt->node->line -= newlines;
     }
+}
+
+/* Skips from p to just past the first occurrence of the terminator (or to end), counting
+ * newlines. */
+static const char *
+skip_past (const char *p,
+           const char *end,
+           const char *terminator,
+           int        *line)
+{
+  gsize n = strlen (terminator);
+
+  for (; p < end; p++)
+    {
+      if ((gsize) (end - p) >= n && memcmp (p, terminator, n) == 0)
+        return p + n;
+      if (*p == '\n')
+        (*line)++;
+    }
+  return end;
+}
+
+/* The line of the first tag with more than TRB_PROJECT_MAX_ATTRIBUTES attributes, or 0: run
+ * before libxml2, whose time on one tag grows with the square of its attributes. A linear
+ * scan that judges nothing else: comments, processing instructions and CDATA sections are
+ * skipped, and so are quoted values inside a tag (they may hold ">" and "="). At "<!" of
+ * anything else (a DOCTYPE) it stops: the parser refuses that before any later tag. */
+static int
+find_crowded_tag (const char *data,
+                  gsize       length)
+{
+  const char *p = data;
+  const char *end = data + length;
+  int line = 1;
+
+  while (p < end)
+    {
+      gsize left = (gsize) (end - p);
+      int tag_line;
+      guint n = 0;
+
+      if (*p != '<')
+        {
+          if (*p == '\n')
+            line++;
+          p++;
+          continue;
+        }
+      if (left >= 4 && memcmp (p, "<!--", 4) == 0)
+        {
+          p = skip_past (p + 4, end, "-->", &line);
+          continue;
+        }
+      if (left >= 9 && memcmp (p, "<![CDATA[", 9) == 0)
+        {
+          p = skip_past (p + 9, end, "]]>", &line);
+          continue;
+        }
+      if (left >= 2 && p[1] == '?')
+        {
+          p = skip_past (p + 2, end, "?>", &line);
+          continue;
+        }
+      if (left >= 2 && p[1] == '!')
+        return 0;
+
+      tag_line = line;
+      for (p++; p < end && *p != '>'; p++)
+        {
+          if (*p == '"' || *p == '\'')
+            {
+              const char *q = memchr (p + 1, *p, (gsize) (end - p - 1));
+              const char *stop = q != NULL ? q : end;
+
+              for (const char *t = p + 1; t < stop; t++)
+                if (*t == '\n')
+                  line++;
+              if (q == NULL)
+                return 0;
+              p = q;
+            }
+          else if (*p == '=')
+            {
+              if (++n > TRB_PROJECT_MAX_ATTRIBUTES)
+                return tag_line;
+            }
+          else if (*p == '\n')
+            line++;
+        }
+    }
+  return 0;
 }
 
 /**
@@ -974,9 +1567,15 @@ load_data_in (const char  *data,
   g_autoptr(xmlParserCtxt) ctxt = NULL;
   g_autoptr(xmlDoc) doc = NULL;
   g_autoptr(TrbProject) project = NULL;
-  Loader ld = { display_name != NULL ? display_name : "(project)", error, dir };
-  Guard guard = { FALSE, 0, NULL };
+  g_autoptr(GHashTable) floors = g_hash_table_new_full (g_str_hash, g_str_equal, g_free, NULL);
+  g_autoptr(GHashTable) columns = g_hash_table_new_full (g_str_hash, g_str_equal, g_free, NULL);
+  g_autoptr(GHashTable) walls = g_hash_table_new_full (g_str_hash, g_str_equal, g_free, NULL);
+  Loader ld = {
+    display_name != NULL ? display_name : "(project)", error, dir, floors, columns, walls
+  };
+  Guard guard = { FALSE, 0, NULL, 0, FALSE };
   xmlNode *root;
+  int crowded;
   int rc;
 
   g_return_val_if_fail (data != NULL || length == 0, NULL);
@@ -991,6 +1590,14 @@ load_data_in (const char  *data,
   if (length == 0)
     {
       fail_at (&ld, 1, TRB_ERROR_PARSE, "malformed XML: the file is empty");
+      return NULL;
+    }
+
+  crowded = find_crowded_tag (data, length);
+  if (crowded > 0)
+    {
+      fail_at (&ld, crowded, TRB_ERROR_PARSE, "a tag with more than %d attributes",
+               TRB_PROJECT_MAX_ATTRIBUTES);
       return NULL;
     }
 
@@ -1016,6 +1623,12 @@ load_data_in (const char  *data,
   if (guard.doctype)
     {
       fail_at (&ld, guard.line, TRB_ERROR_PARSE, "a DOCTYPE is not allowed");
+      return NULL;
+    }
+  if (guard.too_many)
+    {
+      fail_at (&ld, guard.line, TRB_ERROR_PARSE, "more than %d elements and attributes",
+               TRB_PROJECT_MAX_NODES);
       return NULL;
     }
   if (rc != 0 || !ctxt->wellFormed || doc == NULL)
