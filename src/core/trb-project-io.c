@@ -7,14 +7,17 @@
 #include <glib/gstdio.h>
 #include <libxml/parser.h>
 #include <libxml/parserInternals.h>
+#include <libxml/relaxng.h>
 #include <libxml/tree.h>
 #include <math.h>
 #include <stdarg.h>
+#include <stdlib.h>
 #include <string.h>
 #include <sys/stat.h>
 
 #include "trb-combos.h"
 #include "trb-catalog.h"
+#include "trb-data-resources.h"
 #include "trb-error.h"
 #include "trb-project-io.h"
 #include "trb-units.h"
@@ -67,7 +70,14 @@ fail_at (Loader     *ld,
 static int
 node_line (xmlNode *node)
 {
-  long line = xmlGetLineNo (node);
+  long line;
+
+  /* Past line 65535 libxml2 keeps an element's line only in the text around it, which gives
+   * the next line for an empty element: on_start_element() keeps it in psvi instead (unused
+   * without schema validation). */
+  if (node->type == XML_ELEMENT_NODE && node->line == 65535 && node->psvi != NULL)
+    return GPOINTER_TO_INT (node->psvi);
+  line = xmlGetLineNo (node);
 
   return line > 0 && line < G_MAXINT ? (int) line : 0;
 }
@@ -892,6 +902,10 @@ load_member (Loader     *ld,
   G_STATIC_ASSERT (TRB_FRAME_ROLE_GIRDER == 0 && TRB_FRAME_ROLE_BEAM == 1 &&
                    TRB_FRAME_ROLE_JOIST == 2);
 
+  if (project->members->len >= TRB_PROJECT_MAX_MEMBERS)
+    return fail_at (ld, node_line (node), TRB_ERROR_INVALID,
+                    "more than %d members: this version reads no more",
+                    TRB_PROJECT_MAX_MEMBERS);
   if (!check_attributes (ld, node, attrs))
     return FALSE;
   if (!require_attr (ld, node, "id", &id) || !check_new_mark (ld, node, project, "member", id))
@@ -1450,6 +1464,9 @@ on_start_element (void           *ctx,
         }
       if (*p == '<' && ctxt->node->line > newlines && ctxt->node->line < 65535)
         ctxt->node->line -= newlines;
+      else if (*p == '<' && ctxt->node->line == 65535 && in->line > (int) newlines &&
+               in->line - (int) newlines <= G_MAXINT)
+        ctxt->node->psvi = GINT_TO_POINTER (in->line - (int) newlines);
     }
 }
 
@@ -1544,59 +1561,35 @@ find_crowded_tag (const char *data,
   return 0;
 }
 
-/**
- * trb_project_load_data:
- * @data: (array length=length): the file's bytes
- * @length: how many; at most %TRB_PROJECT_MAX_FILE_SIZE
- * @display_name: the name to put before ":line:" in messages
- * @error: return location for a #TRB_ERROR
- *
- * Parses and validates a project. libxml2 runs without network access, entity substitution
- * or DTD loading, and any DOCTYPE is refused before its contents are read.
- *
- * Returns: (transfer full): the project, or %NULL with @error set to a message of the form
- *   "<name>:<line>: <what is wrong>".
- */
-static TrbProject *
-load_data_in (const char  *data,
-              gsize        length,
-              const char  *display_name,
-              const char  *dir,
-              GError     **error)
+/* Parses the bytes safely: no network, no entities, no DTD, any DOCTYPE refused before its
+ * contents are read. Returns NULL with the error set. */
+static xmlDoc *
+parse_doc (Loader     *ld,
+           const char *data,
+           gsize       length)
 {
   g_autoptr(xmlParserCtxt) ctxt = NULL;
   g_autoptr(xmlDoc) doc = NULL;
-  g_autoptr(TrbProject) project = NULL;
-  g_autoptr(GHashTable) floors = g_hash_table_new_full (g_str_hash, g_str_equal, g_free, NULL);
-  g_autoptr(GHashTable) columns = g_hash_table_new_full (g_str_hash, g_str_equal, g_free, NULL);
-  g_autoptr(GHashTable) walls = g_hash_table_new_full (g_str_hash, g_str_equal, g_free, NULL);
-  Loader ld = {
-    display_name != NULL ? display_name : "(project)", error, dir, floors, columns, walls
-  };
   Guard guard = { FALSE, 0, NULL, 0, FALSE };
-  xmlNode *root;
   int crowded;
   int rc;
 
-  g_return_val_if_fail (data != NULL || length == 0, NULL);
-  g_return_val_if_fail (error == NULL || *error == NULL, NULL);
-
   if (length > TRB_PROJECT_MAX_FILE_SIZE)
     {
-      fail_at (&ld, 0, TRB_ERROR_IO, "the file is larger than %d MiB",
+      fail_at (ld, 0, TRB_ERROR_IO, "the file is larger than %d MiB",
                TRB_PROJECT_MAX_FILE_SIZE / (1024 * 1024));
       return NULL;
     }
   if (length == 0)
     {
-      fail_at (&ld, 1, TRB_ERROR_PARSE, "malformed XML: the file is empty");
+      fail_at (ld, 1, TRB_ERROR_PARSE, "malformed XML: the file is empty");
       return NULL;
     }
 
   crowded = find_crowded_tag (data, length);
   if (crowded > 0)
     {
-      fail_at (&ld, crowded, TRB_ERROR_PARSE, "a tag with more than %d attributes",
+      fail_at (ld, crowded, TRB_ERROR_PARSE, "a tag with more than %d attributes",
                TRB_PROJECT_MAX_ATTRIBUTES);
       return NULL;
     }
@@ -1604,7 +1597,7 @@ load_data_in (const char  *data,
   ctxt = xmlCreateMemoryParserCtxt (data, (int) length);
   if (ctxt == NULL)
     {
-      fail_at (&ld, 0, TRB_ERROR_PARSE, "malformed XML: cannot start the parser");
+      fail_at (ld, 0, TRB_ERROR_PARSE, "malformed XML: cannot start the parser");
       return NULL;
     }
   /* Never XML_PARSE_NOENT, DTDLOAD, DTDATTR, XINCLUDE or HUGE. */
@@ -1622,12 +1615,12 @@ load_data_in (const char  *data,
 
   if (guard.doctype)
     {
-      fail_at (&ld, guard.line, TRB_ERROR_PARSE, "a DOCTYPE is not allowed");
+      fail_at (ld, guard.line, TRB_ERROR_PARSE, "a DOCTYPE is not allowed");
       return NULL;
     }
   if (guard.too_many)
     {
-      fail_at (&ld, guard.line, TRB_ERROR_PARSE, "more than %d elements and attributes",
+      fail_at (ld, guard.line, TRB_ERROR_PARSE, "more than %d elements and attributes",
                TRB_PROJECT_MAX_NODES);
       return NULL;
     }
@@ -1637,28 +1630,174 @@ load_data_in (const char  *data,
       g_autofree char *msg = g_strdup (e != NULL && e->message != NULL ? e->message
                                                                        : "not well-formed");
 
-      fail_at (&ld, e != NULL ? e->line : 0, TRB_ERROR_PARSE, "malformed XML: %s",
+      fail_at (ld, e != NULL ? e->line : 0, TRB_ERROR_PARSE, "malformed XML: %s",
                g_strstrip (msg));
       return NULL;
     }
   if (doc->intSubset != NULL || doc->extSubset != NULL)
     {
-      fail_at (&ld, 1, TRB_ERROR_PARSE, "a DOCTYPE is not allowed");
+      fail_at (ld, 1, TRB_ERROR_PARSE, "a DOCTYPE is not allowed");
       return NULL;
     }
-
-  root = xmlDocGetRootElement (doc);
-  if (root == NULL)
+  if (xmlDocGetRootElement (doc) == NULL)
     {
-      fail_at (&ld, 1, TRB_ERROR_PARSE, "malformed XML: no root element");
+      fail_at (ld, 1, TRB_ERROR_PARSE, "malformed XML: no root element");
       return NULL;
     }
+  return g_steal_pointer (&doc);
+}
+
+/* libxml2 reports schema errors through this; the first one is kept. */
+typedef struct
+{
+  gboolean  failed;
+  int       line;
+  char     *message;
+} SchemaErrors;
+
+static void
+on_schema_error (void        *data,
+                 xmlErrorPtr  error)
+{
+  SchemaErrors *se = data;
+
+  if (se == NULL || se->failed || error == NULL)
+    return;
+  se->failed = TRUE;
+  /* The node, when there is one, knows its line past 65535 too (XML_PARSE_BIG_LINES). */
+  se->line = error->node != NULL ? node_line (error->node) : error->line;
+  se->message = g_strstrip (g_strdup (error->message != NULL ? error->message : "invalid"));
+}
+
+#define SCHEMA_RESOURCE "/org/trabeate/Trabeate/schema/trabeate-project.rng"
+
+/* The bundled schema, parsed once and then only read (validation contexts are per call, so
+ * several threads may validate at once). */
+static xmlRelaxNG *
+get_schema (void)
+{
+  static xmlRelaxNG *schema = NULL;
+  static gsize done = 0;
+
+  if (g_once_init_enter (&done))
+    {
+      g_autoptr(GBytes) bytes = NULL;
+      SchemaErrors se = { FALSE, 0, NULL };
+
+      /* Naming the resource keeps its object in the link out of the static library; its
+       * constructor registers it, for g_resources_lookup_data(). */
+      if (trb_data_get_resource () != NULL)
+        bytes = g_resources_lookup_data (SCHEMA_RESOURCE, G_RESOURCE_LOOKUP_FLAGS_NONE, NULL);
+      if (bytes != NULL)
+        {
+          gsize size;
+          const char *rng = g_bytes_get_data (bytes, &size);
+          xmlRelaxNGParserCtxt *pc = xmlRelaxNGNewMemParserCtxt (rng, (int) size);
+
+          if (pc != NULL)
+            {
+              xmlRelaxNGSetParserStructuredErrors (pc, on_schema_error, &se);
+              schema = xmlRelaxNGParse (pc);
+              xmlRelaxNGFreeParserCtxt (pc);
+            }
+        }
+      if (schema == NULL)
+        g_critical ("the bundled project schema cannot be read: %s",
+                    se.message != NULL ? se.message : "no resource");
+      g_free (se.message);
+      g_once_init_leave (&done, 1);
+    }
+  return schema;
+}
+
+/* The second gate: the document against the RELAX NG schema. The hand checks come first,
+ * because they say what is wrong in the trade's words ("load \"at\" lies outside the
+ * member"), where the schema can only say that an element failed to validate; the schema then
+ * catches whatever the two might ever disagree on, with its line. */
+static gboolean
+validate_schema (Loader *ld,
+                 xmlDoc *doc)
+{
+  xmlRelaxNG *schema = get_schema ();
+  xmlRelaxNGValidCtxt *vc;
+  SchemaErrors se = { FALSE, 0, NULL };
+  g_autofree char *message = NULL;
+  int rc;
+
+  if (schema == NULL)
+    return fail_at (ld, 0, TRB_ERROR_IO, "the bundled project schema cannot be read");
+  vc = xmlRelaxNGNewValidCtxt (schema);
+  if (vc == NULL)
+    return fail_at (ld, 0, TRB_ERROR_IO, "cannot start the schema validation");
+  xmlRelaxNGSetValidStructuredErrors (vc, on_schema_error, &se);
+  rc = xmlRelaxNGValidateDoc (vc, doc);
+  xmlRelaxNGFreeValidCtxt (vc);
+  message = se.message;
+  if (rc == 0)
+    return TRUE;
+  return fail_at (ld, se.line, TRB_ERROR_INVALID, "does not match the project schema: %s",
+                  message != NULL ? message : "invalid");
+}
+
+static TrbProject *
+load_data_in (const char  *data,
+              gsize        length,
+              const char  *display_name,
+              const char  *dir,
+              GError     **error)
+{
+  g_autoptr(xmlDoc) doc = NULL;
+  g_autoptr(TrbProject) project = NULL;
+  g_autoptr(GHashTable) floors = g_hash_table_new_full (g_str_hash, g_str_equal, g_free, NULL);
+  g_autoptr(GHashTable) columns = g_hash_table_new_full (g_str_hash, g_str_equal, g_free, NULL);
+  g_autoptr(GHashTable) walls = g_hash_table_new_full (g_str_hash, g_str_equal, g_free, NULL);
+  Loader ld = {
+    display_name != NULL ? display_name : "(project)", error, dir, floors, columns, walls
+  };
+
+  g_return_val_if_fail (data != NULL || length == 0, NULL);
+  g_return_val_if_fail (error == NULL || *error == NULL, NULL);
+
+  doc = parse_doc (&ld, data, length);
+  if (doc == NULL)
+    return NULL;
 
   project = trb_project_new ();
   project->name = g_strdup (ld.name);
-  if (!load_root (&ld, root, project))
+  if (!load_root (&ld, xmlDocGetRootElement (doc), project) || !validate_schema (&ld, doc))
     return NULL;
   return g_steal_pointer (&project);
+}
+
+/**
+ * trb_project_check_schema:
+ * @data: (array length=length): a project file's bytes
+ * @length: their number
+ * @display_name: (nullable): the name messages give the file
+ * @error: return location for a #TRB_ERROR
+ *
+ * Parses @data as the loader does (with the same safety rules) and checks it against the
+ * bundled RELAX NG schema only, without the loader's own checks: for testing the schema, and
+ * for tools that write project files.
+ *
+ * Returns: %TRUE if the document matches the schema; else %FALSE with @error set to
+ *   "<name>:<line>: does not match the project schema: <libxml2's message>".
+ */
+gboolean
+trb_project_check_schema (const char  *data,
+                          gsize        length,
+                          const char  *display_name,
+                          GError     **error)
+{
+  g_autoptr(xmlDoc) doc = NULL;
+  Loader ld = { display_name != NULL ? display_name : "(project)", error, NULL, NULL, NULL,
+                NULL };
+
+  g_return_val_if_fail (data != NULL || length == 0, FALSE);
+  g_return_val_if_fail (error == NULL || *error == NULL, FALSE);
+
+  doc = parse_doc (&ld, data, length);
+  return doc != NULL && validate_schema (&ld, doc);
 }
 
 /**
@@ -1742,4 +1881,863 @@ trb_project_load_file (const char  *filename,
 
   dir = g_path_get_dirname (filename);
   return load_data_in ((const char *) bytes->data, bytes->len, display, dir, error);
+}
+
+/* ---- saving -------------------------------------------------------------------------------- */
+
+/* The units a quantity may be written in, by dimension, tried in this order; the shortest text
+ * that reads back to exactly the same double wins (on a tie, the earlier unit). SI base units
+ * come last in either system: with a factor of one, the shortest decimal form of any double
+ * reads back exactly in them, so every quantity has a text. */
+static const char * const file_units_us[TRB_N_DIMS][3] = {
+  [TRB_DIM_LENGTH] = { "ft", "in", NULL },
+  [TRB_DIM_FORCE] = { "kip", "lb", NULL },
+  [TRB_DIM_LINE_LOAD] = { "kip/ft", "plf", NULL },
+  [TRB_DIM_AREA_LOAD] = { "psf", "ksf", NULL },
+  [TRB_DIM_MOMENT] = { "kip*ft", "lb*ft", NULL },
+  [TRB_DIM_STRESS] = { "ksi", "psi", NULL },
+  [TRB_DIM_AREA] = { "in2", NULL },
+  [TRB_DIM_SECTION_MODULUS] = { "in3", NULL },
+  [TRB_DIM_INERTIA] = { "in4", NULL },
+  [TRB_DIM_WARPING] = { "in6", NULL },
+  [TRB_DIM_WEIGHT_PER_LENGTH] = { "lb/ft", NULL },
+  [TRB_DIM_DENSITY] = { "pcf", NULL },
+};
+
+static const char * const file_units_si[TRB_N_DIMS][3] = {
+  [TRB_DIM_LENGTH] = { "m", "mm", NULL },
+  [TRB_DIM_FORCE] = { "kN", NULL },
+  [TRB_DIM_LINE_LOAD] = { "kN/m", NULL },
+  [TRB_DIM_AREA_LOAD] = { "kPa", NULL },
+  [TRB_DIM_MOMENT] = { "kN*m", NULL },
+  [TRB_DIM_STRESS] = { "MPa", "GPa", NULL },
+  [TRB_DIM_AREA] = { "mm2", NULL },
+  [TRB_DIM_SECTION_MODULUS] = { "mm3", NULL },
+  [TRB_DIM_INERTIA] = { "mm4", NULL },
+  [TRB_DIM_WARPING] = { "mm6", NULL },
+  [TRB_DIM_WEIGHT_PER_LENGTH] = { "kg/m", NULL },
+  [TRB_DIM_DENSITY] = { "kN/m3", NULL },
+};
+
+static const char * const file_units_base[TRB_N_DIMS] = {
+  [TRB_DIM_LENGTH] = "m",
+  [TRB_DIM_FORCE] = "N",
+  [TRB_DIM_LINE_LOAD] = "N/m",
+  [TRB_DIM_AREA_LOAD] = "Pa",
+  [TRB_DIM_MOMENT] = "N*m",
+  [TRB_DIM_STRESS] = "Pa",
+  [TRB_DIM_AREA] = "m2",
+  [TRB_DIM_SECTION_MODULUS] = "m3",
+  [TRB_DIM_INERTIA] = "m4",
+  [TRB_DIM_WARPING] = "m6",
+  [TRB_DIM_WEIGHT_PER_LENGTH] = "N/m",
+  [TRB_DIM_DENSITY] = "N/m3",
+};
+
+/* A number with `digits` significant digits, as the parser reads numbers: a point for the
+ * decimal separator; plain decimals from 1e-6 to 1e21, else an exponent without "+" or
+ * leading zeros ("1.5e-7", "2e25"). */
+static void
+format_number (char   *buf,
+               gsize   size,
+               double  n,
+               int     digits)
+{
+  char fmt[16];
+  char *e;
+  int exponent;
+
+  g_snprintf (fmt, sizeof fmt, "%%.%dg", digits);
+  g_ascii_formatd (buf, size, fmt, n);
+  e = strchr (buf, 'e');
+  if (e == NULL)
+    return;
+  exponent = atoi (e + 1);
+  if (exponent >= -6 && exponent <= 21)
+    {
+      /* the same decimal without the exponent: rounding the double nearest to it to these
+       * decimals gives it back */
+      double x = g_ascii_strtod (buf, NULL);
+
+      g_snprintf (fmt, sizeof fmt, "%%.%df", MAX (0, digits - 1 - exponent));
+      g_ascii_formatd (buf, size, fmt, x);
+      return;
+    }
+  g_snprintf (e + 1, size - (gsize) (e + 1 - buf), "%d", exponent);
+}
+
+/* The shortest text of a plain number that reads back (g_ascii_strtod) to exactly n. */
+static void
+format_shortest (char   *buf,
+                 gsize   size,
+                 double  n)
+{
+  for (int digits = 1; digits <= 17; digits++)
+    {
+      format_number (buf, size, n, digits);
+      if (g_ascii_strtod (buf, NULL) == n)
+        return;
+    }
+}
+
+/* The factor of a unit spelling, as the parser applies it. */
+static double
+unit_factor (const char   *unit,
+             TrbDimension  dim)
+{
+  g_autofree char *text = g_strconcat ("1 ", unit, NULL);
+  double f = NAN;
+
+  if (!trb_units_parse (text, dim, &f, NULL))
+    g_critical ("the units module does not read \"%s\"", text);
+  return f;
+}
+
+static gboolean
+reads_back (const char   *text,
+            TrbDimension  dim,
+            double        value)
+{
+  double v;
+
+  return trb_units_parse (text, dim, &v, NULL) && v == value;
+}
+
+/* The digits a text shows, exponents aside: what the shortest candidate is judged by. */
+static int
+count_digits (const char *text)
+{
+  int n = 0;
+
+  for (const char *p = text; *p != '\0'; p++)
+    {
+      if (*p == 'e')
+        while (p[1] == '-' || g_ascii_isdigit (p[1]))
+          p++;
+      else if (g_ascii_isdigit (*p))
+        n++;
+    }
+  return n;
+}
+
+/* The fewest digits with which `prefix` + n + `suffix` reads back to exactly value; NULL if
+ * none does. */
+static char *
+shortest_candidate (double        value,
+                    TrbDimension  dim,
+                    const char   *prefix,
+                    double        n,
+                    const char   *suffix)
+{
+  char num[64];
+  char text[128];
+
+  if (!isfinite (n))
+    return NULL;
+  /* Most values that do not read back with 17 digits in a unit do not with fewer either;
+   * skipping those keeps saving a plan of random coordinates quick. */
+  format_number (num, sizeof num, n, 17);
+  g_snprintf (text, sizeof text, "%s%s%s", prefix, num, suffix);
+  if (!reads_back (text, dim, value))
+    return NULL;
+  for (int digits = 1; digits < 17; digits++)
+    {
+      format_number (num, sizeof num, n, digits);
+      g_snprintf (text, sizeof text, "%s%s%s", prefix, num, suffix);
+      if (reads_back (text, dim, value))
+        break;
+      format_number (num, sizeof num, n, 17);
+      g_snprintf (text, sizeof text, "%s%s%s", prefix, num, suffix);
+    }
+  return g_strdup (text);
+}
+
+static void
+consider (char       **best,
+          char        *candidate)
+{
+  if (candidate == NULL)
+    return;
+  if (*best == NULL || count_digits (candidate) < count_digits (*best))
+    {
+      g_free (*best);
+      *best = candidate;
+    }
+  else
+    g_free (candidate);
+}
+
+/* The text a quantity is saved as: of the texts that read back to exactly `value`, in the
+ * project's units (and, for US lengths, feet and inches) or in SI base units, the one with the
+ * fewest digits; on a tie the earlier (the project's units, then SI). A function of the value
+ * alone, so that saving what was loaded from a saved file gives the same bytes. */
+static char *
+format_quantity (double         value,
+                 TrbDimension   dim,
+                 TrbUnitSystem  system)
+{
+  const char * const *units = system == TRB_UNIT_SYSTEM_SI ? file_units_si[dim]
+                                                           : file_units_us[dim];
+  char *best = NULL;
+  char num[64];
+
+  g_assert (dim < TRB_N_DIMS && isfinite (value));
+
+  value += 0.0;   /* -0 is saved as 0 */
+  for (guint u = 0; units[u] != NULL; u++)
+    {
+      g_autofree char *suffix = g_strconcat (" ", units[u], NULL);
+
+      consider (&best, shortest_candidate (value, dim, "", value / unit_factor (units[u], dim),
+                                           suffix));
+    }
+  /* "12 ft 6 in" reads as 12 ft + 6 in, which is not always the double of "12.5 ft" */
+  if (dim == TRB_DIM_LENGTH && system == TRB_UNIT_SYSTEM_US && fabs (value) >= TRB_FT)
+    {
+      double feet = floor (fabs (value) / TRB_FT);
+
+      for (int k = -1; k <= 0; k++)
+        {
+          double f = feet + k;
+          double inches = (fabs (value) - f * TRB_FT) / TRB_IN;
+          g_autofree char *prefix = NULL;
+
+          if (f < 1 || inches < 0 || inches >= 12)
+            continue;
+          prefix = g_strdup_printf ("%s%.0f ft ", value < 0 ? "-" : "", f);
+          consider (&best, shortest_candidate (value, dim, prefix, inches, " in"));
+        }
+    }
+  format_shortest (num, sizeof num, value);
+  consider (&best, g_strdup_printf ("%s %s", num, file_units_base[dim]));
+  return best;
+}
+
+typedef struct
+{
+  GString       *out;
+  TrbUnitSystem  units;
+  GError       **error;
+  gboolean       failed;
+  const char    *what;      /* the element being written, for messages */
+} Saver;
+
+static void
+put_escaped (GString    *out,
+             const char *text,
+             gboolean    attribute)
+{
+  g_autofree char *valid = g_utf8_make_valid (text, -1);
+
+  for (const char *p = valid; *p != '\0'; p++)
+    {
+      switch (*p)
+        {
+        case '&':
+          g_string_append (out, "&amp;");
+          break;
+        case '<':
+          g_string_append (out, "&lt;");
+          break;
+        case '>':
+          g_string_append (out, "&gt;");
+          break;
+        case '"':
+          g_string_append (out, attribute ? "&quot;" : "\"");
+          break;
+        case '\r':
+          /* a bare CR would become a LF (or a space in an attribute) on reading */
+          g_string_append (out, "&#13;");
+          break;
+        case '\t':
+        case '\n':
+          if (attribute)
+            g_string_append_printf (out, "&#%d;", *p);
+          else
+            g_string_append_c (out, *p);
+          break;
+        default:
+          /* XML 1.0 has no other control characters, not even as references */
+          if ((guchar) *p < 0x20)
+            g_string_append (out, "\xef\xbf\xbd");
+          else
+            g_string_append_c (out, *p);
+        }
+    }
+}
+
+static void
+put_attr (Saver      *sv,
+          const char *name,
+          const char *value)
+{
+  g_string_append_printf (sv->out, " %s=\"", name);
+  put_escaped (sv->out, value, TRUE);
+  g_string_append_c (sv->out, '"');
+}
+
+static void
+put_quantity (Saver        *sv,
+              const char   *name,
+              double        value,
+              TrbDimension  dim)
+{
+  g_autofree char *text = NULL;
+
+  if (!isfinite (value))
+    {
+      if (!sv->failed)
+        g_set_error (sv->error, TRB_ERROR, TRB_ERROR_INVALID,
+                     "%s: \"%s\" is not a finite number", sv->what, name);
+      sv->failed = TRUE;
+      return;
+    }
+  text = format_quantity (value, dim, sv->units);
+  put_attr (sv, name, text);
+}
+
+static void
+put_optional_quantity (Saver        *sv,
+                       const char   *name,
+                       double        value,
+                       TrbDimension  dim)
+{
+  if (!isnan (value))
+    put_quantity (sv, name, value, dim);
+}
+
+static void
+put_deflection (Saver      *sv,
+                const char *name,
+                double      n)
+{
+  char num[64];
+  g_autofree char *text = NULL;
+
+  if (isnan (n))
+    return;
+  if (n == 0)
+    {
+      put_attr (sv, name, "none");
+      return;
+    }
+  format_shortest (num, sizeof num, n);
+  text = g_strconcat ("L/", num, NULL);
+  put_attr (sv, name, text);
+}
+
+static void
+put_indent (Saver *sv,
+            int    depth)
+{
+  for (int i = 0; i < depth; i++)
+    g_string_append (sv->out, "  ");
+}
+
+static void
+put_settings (Saver             *sv,
+              const TrbSettings *s)
+{
+  static const char * const units[] = { "us", "si" };
+  char above[16];
+
+  sv->what = "settings";
+  put_indent (sv, 1);
+  g_string_append (sv->out, "<settings");
+  put_attr (sv, "method", trb_method_name (s->method));
+  put_optional_quantity (sv, "fb-allow", s->fb_allow, TRB_DIM_STRESS);
+  put_optional_quantity (sv, "fv-allow", s->fv_allow, TRB_DIM_STRESS);
+  if (s->steel_grade != NULL)
+    put_attr (sv, "steel-grade", s->steel_grade);
+  put_attr (sv, "self-weight", s->self_weight ? "include" : "exclude");
+  put_attr (sv, "live-patterns", s->live_patterns ? "on" : "off");
+  put_deflection (sv, "deflection-live", s->deflection_live);
+  put_deflection (sv, "deflection-total", s->deflection_total);
+  put_attr (sv, "units", units[s->units == TRB_UNIT_SYSTEM_SI ? 1 : 0]);
+  put_attr (sv, "live-load-reduction", s->live_load_reduction ? "on" : "off");
+  g_snprintf (above, sizeof above, "%d", s->floors_above);
+  put_attr (sv, "floors-above", above);
+  g_string_append (sv->out, "/>\n");
+}
+
+static void
+put_sections (Saver            *sv,
+              const TrbProject *project)
+{
+  for (guint i = 0; i < project->sections_sources->len; i++)
+    {
+      const TrbSectionsSource *src = g_ptr_array_index (project->sections_sources, i);
+
+      put_indent (sv, 1);
+      if (src->file != NULL)
+        {
+          g_string_append (sv->out, "<sections");
+          put_attr (sv, "file", src->file);
+          g_string_append (sv->out, "/>\n");
+        }
+      else
+        {
+          /* the table as it was, from the line after the tag (the loader trims it) */
+          g_string_append (sv->out, "<sections>\n");
+          put_escaped (sv->out, src->csv, FALSE);
+          g_string_append (sv->out, "\n");
+          put_indent (sv, 1);
+          g_string_append (sv->out, "</sections>\n");
+        }
+    }
+}
+
+/* Material, section and the design attributes, as the loader reads them: only those that
+ * belong with the member's material and section. */
+static void
+put_design (Saver           *sv,
+            const TrbMember *m)
+{
+  put_attr (sv, "material", trb_material_name (m->material));
+  put_attr (sv, "section", m->section != NULL ? m->section : "auto");
+  if (trb_member_is_custom (m))
+    {
+      put_quantity (sv, "E", m->E, TRB_DIM_STRESS);
+      put_quantity (sv, "I", m->I, TRB_DIM_INERTIA);
+      put_optional_quantity (sv, "S", m->S, TRB_DIM_SECTION_MODULUS);
+      put_optional_quantity (sv, "A", m->A, TRB_DIM_AREA);
+      put_optional_quantity (sv, "d", m->d, TRB_DIM_LENGTH);
+      put_optional_quantity (sv, "tw", m->tw, TRB_DIM_LENGTH);
+      put_optional_quantity (sv, "weight", m->weight, TRB_DIM_WEIGHT_PER_LENGTH);
+    }
+  if (m->has_method)
+    put_attr (sv, "method", trb_method_name (m->method));
+  put_optional_quantity (sv, "fb-allow", m->fb_allow, TRB_DIM_STRESS);
+  put_optional_quantity (sv, "fv-allow", m->fv_allow, TRB_DIM_STRESS);
+  if (m->material == TRB_MATERIAL_STEEL && m->steel_grade != NULL)
+    put_attr (sv, "steel-grade", m->steel_grade);
+  put_deflection (sv, "deflection-live", m->deflection_live);
+  put_deflection (sv, "deflection-total", m->deflection_total);
+  /* written only where it differs from what the loader assumes: continuous, or points when
+   * the member has braces */
+  if (m->braces->len > 0 && m->bracing == TRB_BRACING_CONTINUOUS)
+    put_attr (sv, "bracing", "continuous");
+  else if (m->braces->len == 0 && m->bracing == TRB_BRACING_POINTS)
+    put_attr (sv, "bracing", "supports");
+  put_optional_quantity (sv, "max-depth", m->max_depth, TRB_DIM_LENGTH);
+  put_optional_quantity (sv, "min-depth", m->min_depth, TRB_DIM_LENGTH);
+  if (m->allowed != NULL && m->allowed[0] != NULL)
+    {
+      g_autofree char *list = g_strjoinv (" ", m->allowed);
+
+      put_attr (sv, "allowed", list);
+    }
+  if (m->max_plies > 0)
+    {
+      char plies[16];
+
+      g_snprintf (plies, sizeof plies, "%d", m->max_plies);
+      put_attr (sv, "max-plies", plies);
+    }
+  if (m->material == TRB_MATERIAL_WOOD)
+    {
+      if (m->species != NULL)
+        put_attr (sv, "species", m->species);
+      if (m->grade != NULL)
+        put_attr (sv, "grade", m->grade);
+      if (m->wet_service)
+        put_attr (sv, "wet-service", "yes");
+      if (m->incised)
+        put_attr (sv, "incised", "yes");
+      if (m->repetitive)
+        put_attr (sv, "repetitive", "yes");
+      put_optional_quantity (sv, "bearing-length", m->bearing_length, TRB_DIM_LENGTH);
+    }
+}
+
+static void
+put_member_children (Saver           *sv,
+                     const TrbMember *m,
+                     int              depth)
+{
+  for (guint i = 0; i < m->supports->len; i++)
+    {
+      const TrbMemberSupport *s = &g_array_index (m->supports, TrbMemberSupport, i);
+
+      put_indent (sv, depth);
+      g_string_append (sv->out, "<support");
+      put_quantity (sv, "at", s->support.x, TRB_DIM_LENGTH);
+      put_attr (sv, "type", trb_support_type_name (s->support.type));
+      g_string_append (sv->out, "/>\n");
+    }
+  for (guint i = 0; i < m->braces->len; i++)
+    {
+      put_indent (sv, depth);
+      g_string_append (sv->out, "<brace");
+      put_quantity (sv, "at", g_array_index (m->braces, TrbMemberBrace, i).x, TRB_DIM_LENGTH);
+      g_string_append (sv->out, "/>\n");
+    }
+  for (guint i = 0; i < m->loads->len; i++)
+    {
+      const TrbMemberLoad *l = &g_array_index (m->loads, TrbMemberLoad, i);
+
+      put_indent (sv, depth);
+      g_string_append (sv->out, "<load");
+      put_attr (sv, "case", trb_load_case_name (l->lcase));
+      put_attr (sv, "type", trb_load_kind_name (l->load.kind));
+      switch (l->load.kind)
+        {
+        case TRB_LOAD_POINT:
+          put_quantity (sv, "at", l->load.a, TRB_DIM_LENGTH);
+          put_quantity (sv, "p", l->load.w1, TRB_DIM_FORCE);
+          break;
+        case TRB_LOAD_MOMENT:
+          put_quantity (sv, "at", l->load.a, TRB_DIM_LENGTH);
+          put_quantity (sv, "m", l->load.w1, TRB_DIM_MOMENT);
+          break;
+        case TRB_LOAD_UNIFORM:
+          put_quantity (sv, "from", l->load.a, TRB_DIM_LENGTH);
+          put_quantity (sv, "to", l->load.b, TRB_DIM_LENGTH);
+          put_quantity (sv, "w", l->load.w1, TRB_DIM_LINE_LOAD);
+          break;
+        case TRB_LOAD_LINEAR:
+          put_quantity (sv, "from", l->load.a, TRB_DIM_LENGTH);
+          put_quantity (sv, "to", l->load.b, TRB_DIM_LENGTH);
+          put_quantity (sv, "w1", l->load.w1, TRB_DIM_LINE_LOAD);
+          put_quantity (sv, "w2", l->load.w2, TRB_DIM_LINE_LOAD);
+          break;
+        default:
+          g_assert_not_reached ();
+        }
+      g_string_append (sv->out, "/>\n");
+    }
+  for (guint i = 0; i < m->bearing_points->len; i++)
+    {
+      const TrbFramePoint *p = &g_array_index (m->bearing_points, TrbFramePoint, i);
+
+      put_indent (sv, depth);
+      g_string_append (sv->out, "<bears-on");
+      put_quantity (sv, "x", p->x, TRB_DIM_LENGTH);
+      put_quantity (sv, "y", p->y, TRB_DIM_LENGTH);
+      g_string_append (sv->out, "/>\n");
+    }
+}
+
+static gboolean
+member_has_children (const TrbMember *m)
+{
+  return m->supports->len > 0 || m->braces->len > 0 || m->loads->len > 0 ||
+         m->bearing_points->len > 0;
+}
+
+static void
+close_element (Saver      *sv,
+               gboolean    children,
+               int         depth,
+               const char *name)
+{
+  if (children)
+    {
+      put_indent (sv, depth);
+      g_string_append_printf (sv->out, "</%s>\n", name);
+    }
+}
+
+static void
+put_beam (Saver           *sv,
+          const TrbMember *m)
+{
+  g_autofree char *what = g_strdup_printf ("beam \"%s\"", m->id);
+  gboolean children = member_has_children (m);
+
+  sv->what = what;
+  put_indent (sv, 1);
+  g_string_append (sv->out, "<beam");
+  put_attr (sv, "id", m->id);
+  put_quantity (sv, "length", m->length, TRB_DIM_LENGTH);
+  put_design (sv, m);
+  g_string_append (sv->out, children ? ">\n" : "/>\n");
+  put_member_children (sv, m, 2);
+  close_element (sv, children, 1, "beam");
+}
+
+static void
+put_member (Saver           *sv,
+            const TrbMember *m)
+{
+  g_autofree char *what = g_strdup_printf ("member \"%s\"", m->id);
+  gboolean children = member_has_children (m);
+
+  sv->what = what;
+  put_indent (sv, 2);
+  g_string_append (sv->out, "<member");
+  put_attr (sv, "id", m->id);
+  put_attr (sv, "role", trb_role_name (m->role));
+  put_quantity (sv, "x1", m->start.x, TRB_DIM_LENGTH);
+  put_quantity (sv, "y1", m->start.y, TRB_DIM_LENGTH);
+  put_quantity (sv, "x2", m->end.x, TRB_DIM_LENGTH);
+  put_quantity (sv, "y2", m->end.y, TRB_DIM_LENGTH);
+  put_design (sv, m);
+  if (m->group != NULL)
+    put_attr (sv, "group", m->group);
+  if (m->carries_deck != (m->role != TRB_FRAME_ROLE_GIRDER))
+    put_attr (sv, "deck", m->carries_deck ? "yes" : "no");
+  g_string_append (sv->out, children ? ">\n" : "/>\n");
+  put_member_children (sv, m, 3);
+  close_element (sv, children, 2, "member");
+}
+
+static void
+put_points (Saver        *sv,
+            const GArray *points,
+            int           depth)
+{
+  for (guint i = 0; i < points->len; i++)
+    {
+      const TrbFramePoint *p = &g_array_index (points, TrbFramePoint, i);
+
+      put_indent (sv, depth);
+      g_string_append (sv->out, "<point");
+      put_quantity (sv, "x", p->x, TRB_DIM_LENGTH);
+      put_quantity (sv, "y", p->y, TRB_DIM_LENGTH);
+      g_string_append (sv->out, "/>\n");
+    }
+}
+
+static void
+put_floor (Saver          *sv,
+           const TrbFloor *f)
+{
+  g_autofree char *floor_what = g_strdup_printf ("floor \"%s\"", f->name);
+  gboolean children = f->grids->len + f->columns->len + f->walls->len + f->members->len +
+                      f->area_loads->len + f->openings->len + f->line_loads->len +
+                      f->point_loads->len > 0;
+
+  sv->what = floor_what;
+  put_indent (sv, 1);
+  g_string_append (sv->out, "<floor");
+  put_attr (sv, "name", f->name);
+  g_string_append (sv->out, children ? ">\n" : "/>\n");
+
+  for (guint i = 0; i < f->grids->len; i++)
+    {
+      const TrbGridLine *g = g_ptr_array_index (f->grids, i);
+      g_autofree char *what = g_strdup_printf ("grid line \"%s\"", g->name);
+
+      sv->what = what;
+      put_indent (sv, 2);
+      g_string_append (sv->out, "<grid");
+      put_attr (sv, "name", g->name);
+      put_quantity (sv, "x1", g->start.x, TRB_DIM_LENGTH);
+      put_quantity (sv, "y1", g->start.y, TRB_DIM_LENGTH);
+      put_quantity (sv, "x2", g->end.x, TRB_DIM_LENGTH);
+      put_quantity (sv, "y2", g->end.y, TRB_DIM_LENGTH);
+      g_string_append (sv->out, "/>\n");
+    }
+  for (guint i = 0; i < f->columns->len; i++)
+    {
+      const TrbColumn *c = g_ptr_array_index (f->columns, i);
+      g_autofree char *what = g_strdup_printf ("column \"%s\"", c->id);
+
+      sv->what = what;
+      put_indent (sv, 2);
+      g_string_append (sv->out, "<column");
+      put_attr (sv, "id", c->id);
+      put_quantity (sv, "x", c->at.x, TRB_DIM_LENGTH);
+      put_quantity (sv, "y", c->at.y, TRB_DIM_LENGTH);
+      if (c->section != NULL)
+        put_attr (sv, "section", c->section);
+      g_string_append (sv->out, "/>\n");
+    }
+  for (guint i = 0; i < f->walls->len; i++)
+    {
+      const TrbWall *w = g_ptr_array_index (f->walls, i);
+      g_autofree char *what = g_strdup_printf ("wall \"%s\"", w->id);
+
+      sv->what = what;
+      put_indent (sv, 2);
+      g_string_append (sv->out, "<wall");
+      put_attr (sv, "id", w->id);
+      if (w->material != NULL)
+        put_attr (sv, "material", w->material);
+      g_string_append (sv->out, ">\n");
+      put_points (sv, w->points, 3);
+      close_element (sv, TRUE, 2, "wall");
+    }
+  for (guint i = 0; i < f->members->len; i++)
+    put_member (sv, g_ptr_array_index (f->members, i));
+  for (guint i = 0; i < f->area_loads->len; i++)
+    {
+      const TrbAreaLoad *a = g_ptr_array_index (f->area_loads, i);
+      g_autofree char *what = g_strdup_printf ("area load %u of floor \"%s\"", i + 1, f->name);
+
+      sv->what = what;
+      put_indent (sv, 2);
+      g_string_append (sv->out, "<area-load");
+      put_attr (sv, "case", trb_load_case_name (a->lcase));
+      if (a->kind != TRB_AREA_LOAD_ORDINARY)
+        put_attr (sv, "kind", trb_area_load_kind_name (a->kind));
+      put_quantity (sv, "pressure", a->pressure, TRB_DIM_AREA_LOAD);
+      if (a->label != NULL)
+        put_attr (sv, "label", a->label);
+      if (a->occupancy != NULL)
+        put_attr (sv, "occupancy", a->occupancy);
+      g_string_append (sv->out, ">\n");
+      put_points (sv, a->points, 3);
+      close_element (sv, TRUE, 2, "area-load");
+    }
+  for (guint i = 0; i < f->openings->len; i++)
+    {
+      const TrbOpening *o = g_ptr_array_index (f->openings, i);
+      g_autofree char *what = g_strdup_printf ("opening %u of floor \"%s\"", i + 1, f->name);
+
+      sv->what = what;
+      put_indent (sv, 2);
+      g_string_append (sv->out, "<opening>\n");
+      put_points (sv, o->points, 3);
+      close_element (sv, TRUE, 2, "opening");
+    }
+  for (guint i = 0; i < f->line_loads->len; i++)
+    {
+      const TrbLineLoad *l = g_ptr_array_index (f->line_loads, i);
+      g_autofree char *what = g_strdup_printf ("line load %u of floor \"%s\"", i + 1, f->name);
+
+      sv->what = what;
+      put_indent (sv, 2);
+      g_string_append (sv->out, "<line-load");
+      put_attr (sv, "case", trb_load_case_name (l->lcase));
+      put_quantity (sv, "w", l->w, TRB_DIM_LINE_LOAD);
+      if (l->label != NULL)
+        put_attr (sv, "label", l->label);
+      g_string_append (sv->out, ">\n");
+      put_points (sv, l->points, 3);
+      close_element (sv, TRUE, 2, "line-load");
+    }
+  for (guint i = 0; i < f->point_loads->len; i++)
+    {
+      const TrbPointLoad *p = g_ptr_array_index (f->point_loads, i);
+      g_autofree char *what = g_strdup_printf ("point load %u of floor \"%s\"", i + 1, f->name);
+
+      sv->what = what;
+      put_indent (sv, 2);
+      g_string_append (sv->out, "<point-load");
+      put_attr (sv, "case", trb_load_case_name (p->lcase));
+      put_quantity (sv, "p", p->P, TRB_DIM_FORCE);
+      put_quantity (sv, "x", p->at.x, TRB_DIM_LENGTH);
+      put_quantity (sv, "y", p->at.y, TRB_DIM_LENGTH);
+      if (p->label != NULL)
+        put_attr (sv, "label", p->label);
+      g_string_append (sv->out, "/>\n");
+    }
+  close_element (sv, children, 1, "floor");
+}
+
+/**
+ * trb_project_save_data:
+ * @project: a project
+ * @length: (out) (optional): the number of bytes, without the closing NUL
+ * @error: return location for a #TRB_ERROR
+ *
+ * Writes the project in the canonical layout of docs/file-format.md: the XML declaration, two
+ * spaces of indent per level, one element per line, attributes in a fixed order, quantities in
+ * the project's unit system (the shortest text that reads back to exactly the same number,
+ * else in SI base units), then settings, sections, standalone beams and floors. Saving what
+ * was loaded from a saved file gives the same bytes. Comments of a loaded file are not kept.
+ *
+ * Returns: (transfer full): the file's bytes, NUL-terminated; or %NULL with @error set
+ *   (TRB_ERROR_INVALID) when the model holds a quantity that is not a finite number.
+ */
+char *
+trb_project_save_data (const TrbProject  *project,
+                       gsize             *length,
+                       GError           **error)
+{
+  g_autoptr(GString) out = g_string_sized_new (4096);
+  Saver sv = { out, TRB_UNIT_SYSTEM_US, error, FALSE, NULL };
+
+  g_return_val_if_fail (project != NULL, NULL);
+  g_return_val_if_fail (error == NULL || *error == NULL, NULL);
+
+  sv.units = project->settings.units;
+  g_string_append (out, "<?xml version=\"1.0\" encoding=\"UTF-8\"?>\n");
+  g_string_append_printf (out, "<trabeate-project format=\"%d\">\n", TRB_PROJECT_FORMAT);
+  put_settings (&sv, &project->settings);
+  put_sections (&sv, project);
+  for (guint i = 0; i < project->members->len; i++)
+    {
+      const TrbMember *m = g_ptr_array_index (project->members, i);
+
+      if (m->floor == NULL)
+        put_beam (&sv, m);
+    }
+  for (guint i = 0; i < project->floors->len; i++)
+    put_floor (&sv, g_ptr_array_index (project->floors, i));
+  g_string_append (out, "</trabeate-project>\n");
+
+  if (sv.failed)
+    return NULL;
+  if (length != NULL)
+    *length = out->len;
+  return g_string_free (g_steal_pointer (&out), FALSE);
+}
+
+/**
+ * trb_project_save_file:
+ * @project: a project
+ * @filename: where to save it
+ * @error: return location for a #TRB_ERROR
+ *
+ * Saves atomically: the bytes of trb_project_save_data() go to a new file in the same folder,
+ * which is flushed to disk and then renamed over @filename. On any failure the file that was
+ * there stays whole, and no partial file is left. An existing file keeps its permissions;
+ * a symbolic link is followed, so the file it points to is replaced and the link stays.
+ *
+ * Returns: %TRUE when saved; else %FALSE with @error set to "<file>: cannot save: <why>"
+ *   (TRB_ERROR_IO, or TRB_ERROR_INVALID for a model that cannot be written).
+ */
+gboolean
+trb_project_save_file (const TrbProject  *project,
+                       const char        *filename,
+                       GError           **error)
+{
+  g_autofree char *display = NULL;
+  g_autofree char *data = NULL;
+  g_autofree char *target = NULL;
+  g_autoptr(GError) local = NULL;
+  GStatBuf st;
+  int mode = 0666;
+  gsize length;
+
+  g_return_val_if_fail (project != NULL && filename != NULL, FALSE);
+  g_return_val_if_fail (error == NULL || *error == NULL, FALSE);
+
+  display = g_filename_display_name (filename);
+  data = trb_project_save_data (project, &length, &local);
+  if (data == NULL)
+    {
+      g_set_error (error, TRB_ERROR, local->code, "%s: cannot save: %s", display,
+                   local->message);
+      return FALSE;
+    }
+
+  target = g_strdup (filename);
+  if (g_file_test (filename, G_FILE_TEST_IS_SYMLINK))
+    {
+      char *real = realpath (filename, NULL);
+
+      if (real != NULL)
+        {
+          g_free (target);
+          target = g_strdup (real);
+          free (real);
+        }
+    }
+  if (g_stat (target, &st) == 0)
+    mode = st.st_mode & 07777;
+
+  /* A temporary file in the same folder, fsync()ed, then rename()d over the target. */
+  if (!g_file_set_contents_full (target, data, (gssize) length,
+                                 G_FILE_SET_CONTENTS_CONSISTENT | G_FILE_SET_CONTENTS_DURABLE,
+                                 mode, &local))
+    {
+      g_set_error (error, TRB_ERROR, TRB_ERROR_IO, "%s: cannot save: %s", display,
+                   local->message);
+      return FALSE;
+    }
+  return TRUE;
 }

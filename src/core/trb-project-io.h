@@ -16,6 +16,16 @@ G_BEGIN_DECLS
  * takes a few MiB, so this only stops runaway input. */
 #define TRB_PROJECT_MAX_FILE_SIZE (64 * 1024 * 1024)
 
+/* Limits that keep a hostile file within bounded time and memory (docs/reliability.md):
+ * - attributes on one tag: libxml2 compares each attribute of a tag with every one before
+ *   it, so a tag of a million attributes would take hours; no element has more than 30;
+ * - elements and attributes in the whole file: the parsed tree takes some 200 bytes for each,
+ *   so this keeps it within a few hundred MiB whatever the file holds;
+ * - members: ten times the largest floor the editor is made for. */
+#define TRB_PROJECT_MAX_ATTRIBUTES 256
+#define TRB_PROJECT_MAX_NODES      2000000
+#define TRB_PROJECT_MAX_MEMBERS    100000
+
 TrbProject *trb_project_load_file (const char  *filename,
                                    GError     **error);
 
@@ -23,5 +33,18 @@ TrbProject *trb_project_load_data (const char  *data,
                                    gsize        length,
                                    const char  *display_name,
                                    GError     **error);
+
+char       *trb_project_save_data (const TrbProject  *project,
+                                   gsize             *length,
+                                   GError           **error);
+
+gboolean    trb_project_save_file (const TrbProject  *project,
+                                   const char        *filename,
+                                   GError           **error);
+
+gboolean    trb_project_check_schema (const char  *data,
+                                      gsize        length,
+                                      const char  *display_name,
+                                      GError     **error);
 
 G_END_DECLS
