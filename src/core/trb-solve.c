@@ -57,7 +57,22 @@ combo_set_init (TrbComboSetResult *s,
   g_array_set_clear_func (s->entries, combo_result_clear);
   s->envelope.empty = TRUE;
   trb_extremes_init (&s->envelope.ext);
+  s->envelope.V_max_by = s->envelope.V_min_by = "";
+  s->envelope.M_max_by = s->envelope.M_min_by = "";
+  s->envelope.defl_down_by = s->envelope.defl_up_by = "";
   s->envelope.reactions = g_array_new (FALSE, TRUE, sizeof (TrbReactionRange));
+}
+
+/* Shares a set's arrays with another result (a member identical to this one). */
+static void
+combo_set_share (TrbComboSetResult       *dst,
+                 const TrbComboSetResult *src)
+{
+  *dst = *src;
+  if (src->entries != NULL)
+    dst->entries = g_array_ref (src->entries);
+  if (src->envelope.reactions != NULL)
+    dst->envelope.reactions = g_array_ref (src->envelope.reactions);
 }
 
 static void
@@ -67,6 +82,24 @@ combo_set_clear (TrbComboSetResult *s)
   g_clear_pointer (&s->envelope.reactions, g_array_unref);
 }
 
+/* The beam and the case results of a result shared by identical members: they are not
+ * reference counted themselves, so this box owns them for all the results that read them. */
+struct _TrbMemberKeep
+{
+  TrbBeam       *beam;
+  TrbBeamResult *cases[TRB_N_CASES];
+};
+
+static void
+keep_clear (gpointer data)
+{
+  struct _TrbMemberKeep *keep = data;
+
+  g_clear_pointer (&keep->beam, trb_beam_free);
+  for (guint c = 0; c < TRB_N_CASES; c++)
+    g_clear_pointer (&keep->cases[c], trb_beam_result_free);
+}
+
 void
 trb_member_result_free (TrbMemberResult *result)
 {
@@ -74,9 +107,14 @@ trb_member_result_free (TrbMemberResult *result)
     return;
   g_free (result->message);
   g_clear_pointer (&result->notes, g_ptr_array_unref);
-  g_clear_pointer (&result->beam, trb_beam_free);
-  for (guint c = 0; c < TRB_N_CASES; c++)
-    g_clear_pointer (&result->cases[c], trb_beam_result_free);
+  if (result->keep != NULL)
+    g_rc_box_release_full (result->keep, keep_clear);
+  else
+    {
+      g_clear_pointer (&result->beam, trb_beam_free);
+      for (guint c = 0; c < TRB_N_CASES; c++)
+        g_clear_pointer (&result->cases[c], trb_beam_result_free);
+    }
   g_clear_pointer (&result->regions, g_array_unref);
   g_clear_pointer (&result->patterns, g_array_unref);
   combo_set_clear (&result->strength);
@@ -84,7 +122,47 @@ trb_member_result_free (TrbMemberResult *result)
   combo_set_clear (&result->total);
   g_clear_pointer (&result->checks, g_array_unref);
   g_clear_pointer (&result->shortlist, g_array_unref);
+  g_clear_pointer (&result->supports, g_array_unref);
+  g_clear_pointer (&result->loads, g_array_unref);
+  g_clear_pointer (&result->bearings, g_array_unref);
   g_free (result);
+}
+
+/* A result for @member that reads the same analysis and design as @r (an identical member):
+ * the arrays are shared by reference, the beam and case results through the keep box. The
+ * member's own fields (member, bearings) are its own. */
+static TrbMemberResult *
+member_result_share (TrbMemberResult *r,
+                     const TrbMember *member)
+{
+  TrbMemberResult *c = g_new (TrbMemberResult, 1);
+
+  if (r->keep == NULL && (r->beam != NULL || r->cases[TRB_CASE_D] != NULL ||
+                          r->cases[TRB_CASE_L] != NULL || r->cases[TRB_CASE_LR] != NULL ||
+                          r->cases[TRB_CASE_S] != NULL))
+    {
+      r->keep = g_rc_box_new0 (struct _TrbMemberKeep);
+      r->keep->beam = r->beam;
+      memcpy (r->keep->cases, r->cases, sizeof r->cases);
+    }
+
+  *c = *r;
+  c->member = member;
+  c->message = g_strdup (r->message);
+  c->notes = g_ptr_array_ref (r->notes);
+  if (r->keep != NULL)
+    c->keep = g_rc_box_acquire (r->keep);
+  c->regions = g_array_ref (r->regions);
+  c->patterns = g_array_ref (r->patterns);
+  combo_set_share (&c->strength, &r->strength);
+  combo_set_share (&c->live, &r->live);
+  combo_set_share (&c->total, &r->total);
+  c->checks = g_array_ref (r->checks);
+  c->shortlist = g_array_ref (r->shortlist);
+  c->supports = r->supports != NULL ? g_array_ref (r->supports) : NULL;
+  c->loads = r->loads != NULL ? g_array_ref (r->loads) : NULL;
+  c->bearings = NULL;
+  return c;
 }
 
 static TrbMemberResult *
@@ -164,6 +242,7 @@ reaction_ranges_merge (GArray              *ranges,
     }
 }
 
+/* c must stay where it is: the envelope points at its name. */
 static void
 envelope_add (TrbEnvelope          *env,
               const TrbComboResult *c)
@@ -171,17 +250,17 @@ envelope_add (TrbEnvelope          *env,
   guint took = trb_extremes_merge (&env->ext, &c->ext);
 
   if (took & TRB_EXTREME_V_MAX)
-    g_strlcpy (env->V_max_by, c->name, sizeof env->V_max_by);
+    env->V_max_by = c->name;
   if (took & TRB_EXTREME_V_MIN)
-    g_strlcpy (env->V_min_by, c->name, sizeof env->V_min_by);
+    env->V_min_by = c->name;
   if (took & TRB_EXTREME_M_MAX)
-    g_strlcpy (env->M_max_by, c->name, sizeof env->M_max_by);
+    env->M_max_by = c->name;
   if (took & TRB_EXTREME_M_MIN)
-    g_strlcpy (env->M_min_by, c->name, sizeof env->M_min_by);
+    env->M_min_by = c->name;
   if (took & TRB_EXTREME_DEFL_DOWN)
-    g_strlcpy (env->defl_down_by, c->name, sizeof env->defl_down_by);
+    env->defl_down_by = c->name;
   if (took & TRB_EXTREME_DEFL_UP)
-    g_strlcpy (env->defl_up_by, c->name, sizeof env->defl_up_by);
+    env->defl_up_by = c->name;
   reaction_ranges_merge (env->reactions, c->result, env->empty);
   env->empty = FALSE;
 }
@@ -288,10 +367,12 @@ evaluate_set (TrbMemberResult     *r,
                                                (const double *) factors->data, parts->len);
           trb_beam_result_extremes (cr.result, 0, length, &cr.ext);
           g_array_append_val (out->entries, cr);
-          envelope_add (&out->envelope, &g_array_index (out->entries, TrbComboResult,
-                                                        out->entries->len - 1));
         }
     }
+
+  /* once every entry is in place, since the envelope points at their names */
+  for (guint i = 0; i < out->entries->len; i++)
+    envelope_add (&out->envelope, &g_array_index (out->entries, TrbComboResult, i));
 }
 
 static double
@@ -320,31 +401,40 @@ live_label (const TrbMemberResult *r)
   return r->has_case[TRB_CASE_L] ? "L" : "Lr";
 }
 
+/* What one member's analysis reads besides its section: its length, supports and loads in its
+ * own coordinate, and the wood repetitive-member spacing. A standalone beam's come from its
+ * file; a floor member's from the frame and the takedown. The design attributes are the
+ * member's. */
+typedef struct
+{
+  double            length;
+  const TrbSupport *supports;
+  guint             n_supports;
+  const TrbLoad    *loads[TRB_N_CASES];
+  guint             n_loads[TRB_N_CASES];
+  double            repetitive_spacing;  /* m; NAN: from the member's "repetitive" flag */
+} MemberInput;
+
 /* The analysis with a given stiffness and self-weight (N/m, added to D); with E or I NAN only
  * the stability is checked. Returns FALSE, with the status set when something is wrong, when
- * there is nothing more to do. The design step, once it sizes catalog sections, runs this
- * for each section it tries, with that section's E, I and weight, on a fresh result. */
+ * there is nothing more to do. The design step runs this for each section it tries, with that
+ * section's E, I and weight, on a fresh result. Reads only its arguments. */
 static gboolean
-analyse (const TrbProject *project,
-         const TrbMember  *m,
-         double            E,
-         double            I,
-         double            self_weight,
-         TrbMemberResult  *r)
+analyse (const TrbProject  *project,
+         const MemberInput *in,
+         double             E,
+         double             I,
+         double             self_weight,
+         TrbMemberResult   *r)
 {
   g_autoptr(GError) error = NULL;
-  g_autofree TrbSupport *supports = NULL;
   const TrbSupport *beam_supports;
   guint n_beam_supports;
   RegionResults rr = { { NULL } };
   gboolean use_patterns;
   gboolean known = !isnan (E) && !isnan (I);
 
-  supports = g_new0 (TrbSupport, MAX (m->supports->len, 1));
-  for (guint i = 0; i < m->supports->len; i++)
-    supports[i] = g_array_index (m->supports, TrbMemberSupport, i).support;
-
-  if (m->supports->len == 0)
+  if (in->n_supports == 0)
     {
       set_status (r, TRB_STATUS_UNSUPPORTED, "the beam has no supports");
       return FALSE;
@@ -352,8 +442,8 @@ analyse (const TrbProject *project,
 
   /* Stability does not depend on E and I, so a member whose section is not known yet is
    * still told that it is a mechanism. */
-  r->beam = trb_beam_new (m->length, known ? E : 1.0, known ? I : 1.0,
-                          supports, m->supports->len, &error);
+  r->beam = trb_beam_new (in->length, known ? E : 1.0, known ? I : 1.0,
+                          in->supports, in->n_supports, &error);
   if (r->beam == NULL)
     {
       if (g_error_matches (error, TRB_ERROR, TRB_ERROR_UNSTABLE))
@@ -378,16 +468,10 @@ analyse (const TrbProject *project,
     {
       g_autoptr(GArray) loads = g_array_new (FALSE, TRUE, sizeof (TrbLoad));
 
-      for (guint i = 0; i < m->loads->len; i++)
-        {
-          const TrbMemberLoad *ml = &g_array_index (m->loads, TrbMemberLoad, i);
-
-          if (ml->lcase == c)
-            g_array_append_val (loads, ml->load);
-        }
+      g_array_append_vals (loads, in->loads[c], in->n_loads[c]);
       if (c == TRB_CASE_D && r->self_weight > 0)
         {
-          TrbLoad sw = { TRB_LOAD_UNIFORM, 0, m->length, r->self_weight, r->self_weight };
+          TrbLoad sw = { TRB_LOAD_UNIFORM, 0, in->length, r->self_weight, r->self_weight };
 
           g_array_append_val (loads, sw);
         }
@@ -402,7 +486,7 @@ analyse (const TrbProject *project,
                       error->message);
           return FALSE;
         }
-      trb_beam_result_extremes (r->cases[c], 0, m->length, &r->case_ext[c]);
+      trb_beam_result_extremes (r->cases[c], 0, in->length, &r->case_ext[c]);
     }
 
   rr.zero = trb_beam_solve (r->beam, NULL, 0, &error);
@@ -414,7 +498,7 @@ analyse (const TrbProject *project,
 
   beam_supports = trb_beam_get_supports (r->beam, &n_beam_supports);
   g_array_unref (r->regions);
-  r->regions = trb_regions_build (beam_supports, n_beam_supports, m->length);
+  r->regions = trb_regions_build (beam_supports, n_beam_supports, in->length);
 
   use_patterns = project->settings.live_patterns && r->regions->len > 1 &&
                  (r->has_case[TRB_CASE_L] || r->has_case[TRB_CASE_LR]);
@@ -438,21 +522,11 @@ analyse (const TrbProject *project,
 
       for (guint c = 0; c < TRB_N_CASES; c++)
         {
-          g_autoptr(GArray) loads = NULL;
           GArray **split;
 
           if (!is_patterned_case (c) || !r->has_case[c])
             continue;
-          loads = g_array_new (FALSE, TRUE, sizeof (TrbLoad));
-          for (guint i = 0; i < m->loads->len; i++)
-            {
-              const TrbMemberLoad *ml = &g_array_index (m->loads, TrbMemberLoad, i);
-
-              if (ml->lcase == c)
-                g_array_append_val (loads, ml->load);
-            }
-          split = trb_loads_split ((const TrbLoad *) loads->data, loads->len, regions,
-                                   n_regions);
+          split = trb_loads_split (in->loads[c], in->n_loads[c], regions, n_regions);
           rr.by_region[c] = g_new0 (TrbBeamResult *, n_regions);
           for (guint reg = 0; reg < n_regions && r->status != TRB_STATUS_ERROR; reg++)
             {
@@ -566,8 +640,9 @@ finish_status (TrbMemberResult *r,
 }
 
 static void
-wood_options_for (const TrbMember *m,
-                  TrbWoodOptions  *options)
+wood_options_for (const TrbMember   *m,
+                  const MemberInput *in,
+                  TrbWoodOptions    *options)
 {
   trb_design_wood_options_init (options);
   options->wet_service = m->wet_service;
@@ -575,7 +650,8 @@ wood_options_for (const TrbMember *m,
   /* A standalone member marked repetitive is one of three or more like members at 24 in or
    * less tied by sheathing (NDS 2018 4.3.9); a floor's joist runs give their real spacing. */
   if (m->repetitive)
-    options->repetitive_spacing = 24 * TRB_IN;
+    options->repetitive_spacing = isnan (in->repetitive_spacing) ? 24 * TRB_IN
+                                                                 : in->repetitive_spacing;
   if (!isnan (m->bearing_length))
     options->bearing_length = m->bearing_length;
 }
@@ -584,6 +660,7 @@ wood_options_for (const TrbMember *m,
 static void
 design_checks (const TrbProject   *project,
                const TrbMember    *m,
+               const MemberInput  *in,
                const TrbSection   *section,
                const TrbWoodGrade *wood_grade,
                TrbMemberResult    *r)
@@ -615,7 +692,7 @@ design_checks (const TrbProject   *project,
     g_array_append_val (brace_x, g_array_index (m->braces, TrbMemberBrace, i).x);
 
   input.section = section;
-  input.length = m->length;
+  input.length = in->length;
   input.supports = trb_beam_get_supports (r->beam, &input.n_supports);
   input.bracing = m->bracing;
   input.brace_x = (const double *) brace_x->data;
@@ -641,7 +718,7 @@ design_checks (const TrbProject   *project,
     {
       TrbWoodOptions options;
 
-      wood_options_for (m, &options);
+      wood_options_for (m, in, &options);
       if (r->method == TRB_METHOD_LRFD)
         trb_check_append_not_checked (r->checks, "LRFD strength",
                                       "Timber is designed by NDS 2018 ASD only: use "
@@ -711,9 +788,10 @@ wood_grade_for (const TrbMember  *m,
 /* Analyses and checks the member with one catalog section: its E (steel grade, or the wood
  * grade's E adjusted for service), its I and its self-weight. */
 static TrbMemberResult *
-solve_with_section (const TrbProject *project,
-                    const TrbMember  *m,
-                    const TrbSection *section)
+solve_with_section (const TrbProject  *project,
+                    const TrbMember   *m,
+                    const MemberInput *in,
+                    const TrbSection  *section)
 {
   const TrbSettings *s = &project->settings;
   TrbMemberResult *r = member_result_new (project, m);
@@ -741,7 +819,7 @@ solve_with_section (const TrbProject *project,
           set_status (r, TRB_STATUS_ERROR, "%s", why);
           return r;
         }
-      wood_options_for (m, &options);
+      wood_options_for (m, in, &options);
       E = trb_design_wood_adjusted_e (section, wood_grade, &options, TRB_WOOD_E);
     }
   else
@@ -764,8 +842,8 @@ solve_with_section (const TrbProject *project,
       E = grade->E;
     }
 
-  if (analyse (project, m, E, section->Ix, self_weight, r))
-    design_checks (project, m, section, wood_grade, r);
+  if (analyse (project, in, E, section->Ix, self_weight, r))
+    design_checks (project, m, in, section, wood_grade, r);
   return r;
 }
 
@@ -877,25 +955,232 @@ sizing_candidates (const TrbProject *project,
   return out;
 }
 
+/* Exact bounds that tell, before the full check, that a sizing candidate fails. They come from
+ * a reference candidate analysed in full. Live load deflection does not depend on the section's
+ * weight and scales exactly with 1/(E I): the supports are rigid and E I constant along the
+ * member, so the reactions and moments do not depend on E I at all. The moment of each
+ * combination moves with the self-weight w by f_D w M_unit(x), M_unit the moment of a unit
+ * uniform load over the member, so |M| of the candidate is at least that of the reference less
+ * f_D |w - w_ref| max |M_unit|; against it the largest flexural capacity the method can give
+ * (phi Mp or Mp / Omega, Fb S, Fb' S with C_L = C_V = 1) makes a lower bound of the flexure
+ * ratio. A candidate is rejected only when a bound is clearly above 1, so that the rounding
+ * of the full check could never make it pass: the result is the same as without bounds. */
+#define BOUND_MARGIN 1e-6
+
+typedef struct
+{
+  gboolean ready;
+  double   EI;            /* of the reference */
+  double   self_weight;   /* N/m, of the reference */
+  double   live_ratio;    /* its worst live deflection ratio; NAN when none was checked */
+  double   m_unit;        /* max |M| of a unit uniform load over the member, m^2 */
+  GArray  *m_abs;         /* double: max |M| of each strength entry of the reference */
+  GArray  *f_dead;        /* double: the D factor of each */
+  GArray  *factors;       /* double[TRB_N_CASES]: the case factors of each (wood C_D) */
+} Bounds;
+
+static void
+bounds_clear (Bounds *b)
+{
+  g_clear_pointer (&b->m_abs, g_array_unref);
+  g_clear_pointer (&b->f_dead, g_array_unref);
+  g_clear_pointer (&b->factors, g_array_unref);
+}
+
+/* Takes the reference from a fully analysed candidate. */
+static gboolean
+bounds_init (Bounds                *b,
+             const MemberInput     *in,
+             const TrbMemberResult *r)
+{
+  g_autoptr(TrbBeamResult) unit = NULL;
+  TrbLoad load = { TRB_LOAD_UNIFORM, 0, in->length, 1.0, 1.0 };
+  TrbBeamExtremes ext;
+
+  if (!r->analysed || r->beam == NULL)
+    return FALSE;
+  unit = trb_beam_solve (r->beam, &load, 1, NULL);
+  if (unit == NULL)
+    return FALSE;
+  trb_beam_result_extremes (unit, 0, in->length, &ext);
+
+  b->EI = r->E * r->I;
+  b->self_weight = r->self_weight;
+  b->m_unit = MAX (fabs (ext.M_max), fabs (ext.M_min));
+  b->live_ratio = NAN;
+  for (guint i = 0; i < r->checks->len; i++)
+    {
+      const TrbCheck *ck = &g_array_index (r->checks, TrbCheck, i);
+
+      if (strcmp (ck->name, "Live deflection") == 0)
+        b->live_ratio = ck->ratio;
+    }
+  b->m_abs = g_array_new (FALSE, FALSE, sizeof (double));
+  b->f_dead = g_array_new (FALSE, FALSE, sizeof (double));
+  b->factors = g_array_new (FALSE, FALSE, sizeof (double) * TRB_N_CASES);
+  for (guint i = 0; i < r->strength.entries->len; i++)
+    {
+      const TrbComboResult *c = &g_array_index (r->strength.entries, TrbComboResult, i);
+      double m_abs = MAX (fabs (c->ext.M_max), fabs (c->ext.M_min));
+
+      g_array_append_val (b->m_abs, m_abs);
+      g_array_append_val (b->f_dead, c->combo.factors[TRB_CASE_D]);
+      g_array_append_vals (b->factors, c->combo.factors, 1);
+    }
+  b->ready = TRUE;
+  return TRUE;
+}
+
+/* The flexural capacity no check of the method can exceed for one combination, N*m; NAN when
+ * no flexure check is sure to be made (so no bound). */
+static double
+capacity_bound (const TrbProject   *project,
+                const TrbMember    *m,
+                const MemberInput  *in,
+                const TrbSection   *section,
+                const TrbWoodGrade *wood_grade,
+                TrbMethod           method,
+                const double       *factors)
+{
+  const TrbSettings *s = &project->settings;
+
+  if (method == TRB_METHOD_ALLOWABLE)
+    {
+      double Fb = trb_member_get_fb_allow (m, s);
+
+      if (isfinite (Fb) && Fb > 0 && isfinite (section->Sx) && section->Sx > 0)
+        return Fb * section->Sx;
+      return NAN;
+    }
+  if (m->material == TRB_MATERIAL_WOOD)
+    {
+      TrbWoodOptions options;
+      double S, Fb;
+
+      if (method == TRB_METHOD_LRFD || wood_grade == NULL)
+        return NAN;
+      wood_options_for (m, in, &options);
+      S = isfinite (section->Sx) && section->Sx > 0 ? section->Sx
+                                                    : section->b * section->d * section->d / 6;
+      Fb = wood_grade->Fb;
+      if (isfinite (wood_grade->Fb_neg))
+        Fb = MAX (Fb, wood_grade->Fb_neg);
+      return S * Fb * trb_design_wood_cd (factors) *
+             trb_design_wood_cm (section, wood_grade, TRB_WOOD_FB, options.wet_service) *
+             trb_design_wood_cf (section, wood_grade, TRB_WOOD_FB) *
+             trb_design_wood_ci (section, TRB_WOOD_FB, options.incised) *
+             trb_design_wood_cr (section, &options);
+    }
+  if (section->kind == TRB_SHAPE_W)
+    {
+      const TrbSteelGrade *grade =
+        trb_design_steel_lookup_grade (trb_member_get_steel_grade (m, s));
+      TrbSteelFlexure flex;
+
+      /* only where the flexure check is sure to be made (F2, F3 cover the web) */
+      if (grade == NULL || !trb_design_steel_flexure (section, grade, 0, 1, &flex))
+        return NAN;
+      return method == TRB_METHOD_LRFD ? TRB_STEEL_PHI_B * flex.Mp
+                                       : flex.Mp / TRB_STEEL_OMEGA_B;
+    }
+  return NAN;
+}
+
+/* TRUE when the bounds show that the candidate fails. Only for candidates whose full check
+ * could not end in an error instead (a timber section on steel, a missing wood grade). */
+static gboolean
+bounds_reject (const Bounds      *b,
+               const TrbProject  *project,
+               const TrbMember   *m,
+               const MemberInput *in,
+               const TrbSection  *section,
+               TrbMethod          method)
+{
+  const TrbSettings *s = &project->settings;
+  const TrbWoodGrade *wood_grade = NULL;
+  double self_weight = s->self_weight ? section->weight : 0;
+  double E;
+
+  if (!b->ready || (self_weight > 0) != (b->self_weight > 0))
+    return FALSE;
+
+  if (m->material == TRB_MATERIAL_WOOD)
+    {
+      g_autofree char *why = NULL;
+      TrbWoodOptions options;
+
+      if (section->kind != TRB_SHAPE_SAWN && section->kind != TRB_SHAPE_GLULAM)
+        return FALSE;
+      wood_grade = wood_grade_for (m, section, &why);
+      if (wood_grade == NULL)
+        return FALSE;
+      wood_options_for (m, in, &options);
+      E = trb_design_wood_adjusted_e (section, wood_grade, &options, TRB_WOOD_E);
+    }
+  else
+    {
+      const TrbSteelGrade *grade =
+        trb_design_steel_lookup_grade (trb_member_get_steel_grade (m, s));
+
+      if (section->kind == TRB_SHAPE_SAWN || section->kind == TRB_SHAPE_GLULAM || grade == NULL)
+        return FALSE;
+      E = grade->E;
+    }
+
+  if (isfinite (b->live_ratio) &&
+      b->live_ratio * (b->EI / (E * section->Ix)) > 1 + BOUND_MARGIN)
+    return TRUE;
+
+  for (guint i = 0; i < b->m_abs->len; i++)
+    {
+      const double *factors = &g_array_index (b->factors, double, i * TRB_N_CASES);
+      double cap = capacity_bound (project, m, in, section, wood_grade, method, factors);
+      double low = g_array_index (b->m_abs, double, i) -
+                   fabs (g_array_index (b->f_dead, double, i)) *
+                   fabs (self_weight - b->self_weight) * b->m_unit;
+
+      if (isfinite (cap) && cap > 0 && low > cap * (1 + BOUND_MARGIN))
+        return TRUE;
+    }
+  return FALSE;
+}
+
 /* Sizing: every candidate lightest first is analysed with its own self-weight and checked;
  * the passing ones make the shortlist (up to shortlist_max), the lightest is chosen unless
  * the engineer named one. Because each candidate carries its own self-weight, the chosen
- * section is the one its own weight was computed with: nothing is left to iterate. */
+ * section is the one its own weight was computed with: nothing is left to iterate. With
+ * use_bounds, candidates the bounds reject are not checked in full; should no candidate pass,
+ * sizing runs again without them, since the closest one is then reported. */
 static TrbMemberResult *
-size_member (const TrbProject *project,
-             const TrbMember  *m,
-             const TrbSection *chosen,
-             guint             shortlist_max)
+size_member (const TrbProject  *project,
+             const TrbMember   *m,
+             const MemberInput *in,
+             const TrbSection  *chosen,
+             guint              shortlist_max,
+             gboolean           use_bounds)
 {
   g_autoptr(GPtrArray) candidates = sizing_candidates (project, m);
   TrbMemberResult *best = NULL;
   TrbMemberResult *closest = NULL;
   g_autoptr(GArray) shortlist = g_array_new (FALSE, TRUE, sizeof (TrbShortlistEntry));
+  TrbMethod method = trb_member_get_method (m, &project->settings);
+  Bounds bounds = { FALSE };
+  guint rejected = 0;
 
   for (guint i = 0; i < candidates->len && shortlist->len < shortlist_max; i++)
     {
       const TrbSection *section = g_ptr_array_index (candidates, i);
-      TrbMemberResult *c = solve_with_section (project, m, section);
+      TrbMemberResult *c;
+
+      if (use_bounds && bounds_reject (&bounds, project, m, in, section, method))
+        {
+          rejected++;
+          continue;
+        }
+      c = solve_with_section (project, m, in, section);
+      if (use_bounds && !bounds.ready && (c->status == TRB_STATUS_PASS ||
+                                          c->status == TRB_STATUS_FAIL))
+        bounds_init (&bounds, in, c);
 
       if (c->status == TRB_STATUS_PASS)
         {
@@ -928,9 +1213,17 @@ size_member (const TrbProject *project,
         }
       trb_member_result_free (c);
     }
+  bounds_clear (&bounds);
+
+  if (chosen == NULL && best == NULL && rejected > 0)
+    {
+      /* nothing passes: the closest section may be one the bounds rejected */
+      g_clear_pointer (&closest, trb_member_result_free);
+      return size_member (project, m, in, chosen, shortlist_max, FALSE);
+    }
 
   if (chosen != NULL)
-    best = solve_with_section (project, m, chosen);
+    best = solve_with_section (project, m, in, chosen);
   else if (best == NULL && closest != NULL)
     {
       best = g_steal_pointer (&closest);
@@ -949,29 +1242,36 @@ size_member (const TrbProject *project,
   return best;
 }
 
-/**
- * trb_solve_member_full:
- * @project: the project, for its settings
- * @member: one of its members
- * @shortlist_max: how many passing sections to list at most (G_MAXUINT for all)
- *
- * Analyses and designs one member: a custom section is checked as given; a catalog section
- * is checked and gets a shortlist of the passing sections; "auto" is sized: the lightest
- * passing section of its family is chosen. Never fails: a member that cannot be analysed gets
- * the status that says why, and a message.
- *
- * Returns: (transfer full): the member's results; they point into @member.
- */
-TrbMemberResult *
-trb_solve_member_full (const TrbProject *project,
-                       const TrbMember  *member,
-                       guint             shortlist_max)
+/* Keeps what was analysed with the result, for the reader (diagrams, the loading sketch). */
+static void
+record_input (TrbMemberResult   *r,
+              const MemberInput *in)
+{
+  if (!r->analysed)
+    return;
+  r->supports = g_array_sized_new (FALSE, FALSE, sizeof (TrbSupport), in->n_supports);
+  g_array_append_vals (r->supports, in->supports, in->n_supports);
+  r->loads = g_array_new (FALSE, TRUE, sizeof (TrbMemberLoad));
+  for (guint c = 0; c < TRB_N_CASES; c++)
+    for (guint i = 0; i < in->n_loads[c]; i++)
+      {
+        TrbMemberLoad ml = { c, in->loads[c][i], 0 };
+
+        g_array_append_val (r->loads, ml);
+      }
+}
+
+/* Analyses and designs one member on the given supports and loads. */
+static TrbMemberResult *
+solve_input (const TrbProject  *project,
+             const TrbMember   *member,
+             const MemberInput *in,
+             guint              shortlist_max,
+             gboolean           use_bounds)
 {
   TrbMemberResult *r;
   TrbSection section;
   double self_weight = 0;
-
-  g_return_val_if_fail (project != NULL && member != NULL, NULL);
 
   if (!trb_member_is_custom (member))
     {
@@ -980,7 +1280,7 @@ trb_solve_member_full (const TrbProject *project,
       /* Stability and support do not depend on the section: say so once, not per section. */
       r = member_result_new (project, member);
       g_strlcpy (r->section, member->section, sizeof r->section);
-      if (!analyse (project, member, NAN, NAN, 0, r) && r->status != TRB_STATUS_NOT_DESIGNED)
+      if (!analyse (project, in, NAN, NAN, 0, r) && r->status != TRB_STATUS_NOT_DESIGNED)
         return r;
       trb_member_result_free (r);
 
@@ -996,7 +1296,9 @@ trb_solve_member_full (const TrbProject *project,
               return r;
             }
         }
-      return size_member (project, member, chosen, shortlist_max);
+      r = size_member (project, member, in, chosen, shortlist_max, use_bounds);
+      record_input (r, in);
+      return r;
     }
 
   r = member_result_new (project, member);
@@ -1005,9 +1307,1462 @@ trb_solve_member_full (const TrbProject *project,
   else
     self_weight = custom_self_weight (member, r->notes);
   custom_section (member, self_weight, &section);
-  if (analyse (project, member, member->E, member->I, self_weight, r))
-    design_checks (project, member, &section, NULL, r);
+  if (analyse (project, in, member->E, member->I, self_weight, r))
+    design_checks (project, member, in, &section, NULL, r);
+  record_input (r, in);
   return r;
+}
+
+/* A standalone beam's input: its own supports and loads, from its file. The arrays are
+ * owned by the caller. */
+static void
+standalone_input (const TrbMember *member,
+                  MemberInput     *in,
+                  GArray          *supports,
+                  GArray         **loads)
+{
+  memset (in, 0, sizeof *in);
+  in->length = member->length;
+  in->repetitive_spacing = NAN;
+  for (guint i = 0; i < member->supports->len; i++)
+    g_array_append_val (supports,
+                        g_array_index (member->supports, TrbMemberSupport, i).support);
+  in->supports = (const TrbSupport *) supports->data;
+  in->n_supports = supports->len;
+  for (guint i = 0; i < member->loads->len; i++)
+    {
+      const TrbMemberLoad *ml = &g_array_index (member->loads, TrbMemberLoad, i);
+
+      g_array_append_val (loads[ml->lcase], ml->load);
+    }
+  for (guint c = 0; c < TRB_N_CASES; c++)
+    {
+      in->loads[c] = (const TrbLoad *) loads[c]->data;
+      in->n_loads[c] = loads[c]->len;
+    }
+}
+
+static TrbMemberResult *
+solve_standalone (const TrbProject *project,
+                  const TrbMember  *member,
+                  guint             shortlist_max,
+                  gboolean          use_bounds)
+{
+  g_autoptr(GArray) supports = g_array_new (FALSE, FALSE, sizeof (TrbSupport));
+  GArray *loads[TRB_N_CASES];
+  MemberInput in;
+  TrbMemberResult *r;
+
+  for (guint c = 0; c < TRB_N_CASES; c++)
+    loads[c] = g_array_new (FALSE, FALSE, sizeof (TrbLoad));
+  standalone_input (member, &in, supports, loads);
+  r = solve_input (project, member, &in, shortlist_max, use_bounds);
+  for (guint c = 0; c < TRB_N_CASES; c++)
+    g_array_unref (loads[c]);
+  return r;
+}
+
+/* ---- identical members: the cache ------------------------------------------------------- */
+
+/* The cache key: the exact bytes of everything a member's result depends on besides the
+ * project's settings (the same for the whole solve). Identical joists of a run give the same
+ * bytes; anything else that differs, even by a rounding, gives a miss, never a wrong hit. */
+static void
+key_bytes (GByteArray   *key,
+           gconstpointer data,
+           gsize         size)
+{
+  g_byte_array_append (key, data, size);
+}
+
+static void
+key_double (GByteArray *key,
+            double      v)
+{
+  key_bytes (key, &v, sizeof v);
+}
+
+static void
+key_int (GByteArray *key,
+         gint64      v)
+{
+  key_bytes (key, &v, sizeof v);
+}
+
+static void
+key_string (GByteArray *key,
+            const char *s)
+{
+  if (s == NULL)
+    {
+      key_int (key, -1);
+      return;
+    }
+  key_int (key, strlen (s));
+  key_bytes (key, s, strlen (s));
+}
+
+static void
+key_loads (GByteArray    *key,
+           const TrbLoad *loads,
+           guint          n)
+{
+  key_int (key, n);
+  for (guint i = 0; i < n; i++)
+    {
+      key_int (key, loads[i].kind);
+      key_double (key, loads[i].a);
+      key_double (key, loads[i].b);
+      key_double (key, loads[i].w1);
+      key_double (key, loads[i].w2);
+    }
+}
+
+/* extra: bytes the caller adds (the floor's live load streams), or NULL */
+static GBytes *
+member_key (const TrbMember   *m,
+            const MemberInput *in,
+            guint              shortlist_max,
+            GByteArray        *extra)
+{
+  GByteArray *key = g_byte_array_sized_new (512);
+
+  key_double (key, in->length);
+  key_int (key, in->n_supports);
+  for (guint i = 0; i < in->n_supports; i++)
+    {
+      key_double (key, in->supports[i].x);
+      key_int (key, in->supports[i].type);
+    }
+  for (guint c = 0; c < TRB_N_CASES; c++)
+    key_loads (key, in->loads[c], in->n_loads[c]);
+  key_double (key, in->repetitive_spacing);
+  key_int (key, shortlist_max);
+
+  key_int (key, m->material);
+  key_string (key, m->section);
+  key_double (key, m->E);
+  key_double (key, m->I);
+  key_double (key, m->S);
+  key_double (key, m->A);
+  key_double (key, m->d);
+  key_double (key, m->tw);
+  key_double (key, m->weight);
+  key_int (key, m->has_method);
+  key_int (key, m->method);
+  key_double (key, m->fb_allow);
+  key_double (key, m->fv_allow);
+  key_string (key, m->steel_grade);
+  key_double (key, m->deflection_live);
+  key_double (key, m->deflection_total);
+  key_int (key, m->bracing);
+  key_int (key, m->braces->len);
+  for (guint i = 0; i < m->braces->len; i++)
+    key_double (key, g_array_index (m->braces, TrbMemberBrace, i).x);
+  key_double (key, m->max_depth);
+  key_double (key, m->min_depth);
+  key_int (key, m->allowed != NULL ? (gint64) g_strv_length (m->allowed) : -1);
+  for (guint i = 0; m->allowed != NULL && m->allowed[i] != NULL; i++)
+    key_string (key, m->allowed[i]);
+  key_int (key, m->max_plies);
+  key_string (key, m->species);
+  key_string (key, m->grade);
+  key_int (key, m->wet_service);
+  key_int (key, m->incised);
+  key_int (key, m->repetitive);
+  key_double (key, m->bearing_length);
+  if (extra != NULL)
+    key_bytes (key, extra->data, extra->len);
+  return g_byte_array_free_to_bytes (key);
+}
+
+/* A solved member and what it hands down, per support of its beam (sorted by x) and case:
+ * reactions[0] everything but the live load that is never reduced, reactions[1] that live
+ * load (case L only). Unreduced. */
+typedef struct
+{
+  TrbMemberResult *result;       /* owned by the project result: the first such member's */
+  double          *reactions[2];
+  guint            n_supports;
+} CacheEntry;
+
+static void
+cache_entry_free (gpointer data)
+{
+  CacheEntry *e = data;
+
+  g_clear_pointer (&e->result, trb_member_result_free);
+  g_free (e->reactions[0]);
+  g_free (e->reactions[1]);
+  g_free (e);
+}
+
+static void reactions_of (const TrbBeam *beam,
+                          const TrbLoad *loads,
+                          guint          n_loads,
+                          TrbLoadCase    c,
+                          double        *out);
+
+/* What a solved member hands down: with reduction, the live load that may be reduced and the
+ * live load that may not, each unreduced and on its own, so that the members below and the
+ * columns can reduce theirs (ASCE 7-16 §4.7: each member reduces its own, the unreduced load
+ * goes down). The supports and the loads do not change the reactions with E I (rigid
+ * supports, E I constant along the member), so any section's beam gives them. */
+static CacheEntry *
+cache_entry_new (TrbMemberResult *r,
+                 gboolean         reduction,
+                 const GArray    *live_a,
+                 const GArray    *live_b)
+{
+  CacheEntry *e = g_new0 (CacheEntry, 1);
+  guint n_beam;
+
+  e->result = r;
+  if (!r->analysed)
+    return e;
+  trb_beam_get_supports (r->beam, &n_beam);
+  e->n_supports = n_beam;
+  e->reactions[0] = g_new0 (double, n_beam * TRB_N_CASES + 1);
+  e->reactions[1] = g_new0 (double, n_beam * TRB_N_CASES + 1);
+  for (guint c = 0; c < TRB_N_CASES; c++)
+    {
+      const TrbReaction *re;
+      guint n;
+
+      if ((c == TRB_CASE_L && reduction) || r->cases[c] == NULL)
+        continue;
+      /* D with the self-weight: the case result holds it */
+      re = trb_beam_result_get_reactions (r->cases[c], &n);
+      for (guint i = 0; i < n && i < n_beam; i++)
+        e->reactions[0][i * TRB_N_CASES + c] = re[i].force;
+    }
+  if (reduction)
+    {
+      reactions_of (r->beam, (const TrbLoad *) live_a->data, live_a->len, TRB_CASE_L,
+                    e->reactions[0]);
+      reactions_of (r->beam, (const TrbLoad *) live_b->data, live_b->len, TRB_CASE_L,
+                    e->reactions[1]);
+    }
+  return e;
+}
+
+typedef struct
+{
+  const TrbProject      *project;
+  const TrbSolveOptions *options;
+  GHashTable            *cache;    /* GBytes -> CacheEntry; NULL without the cache */
+} Solver;
+
+/* ---- floors ------------------------------------------------------------------------------ */
+
+static double
+loads_total (const TrbLoad *loads,
+             guint          n)
+{
+  double sum = 0;
+
+  for (guint i = 0; i < n; i++)
+    switch (loads[i].kind)
+      {
+      case TRB_LOAD_POINT:
+        sum += loads[i].w1;
+        break;
+      case TRB_LOAD_UNIFORM:
+        sum += loads[i].w1 * (loads[i].b - loads[i].a);
+        break;
+      case TRB_LOAD_LINEAR:
+        sum += 0.5 * (loads[i].w1 + loads[i].w2) * (loads[i].b - loads[i].a);
+        break;
+      case TRB_LOAD_MOMENT:
+      default:
+        break;
+      }
+  return sum;
+}
+
+/* Live load reduction leaves alone: partitions (ASCE 7-16 §4.3.2, the engineer's choice kept
+ * conservative), live loads above 100 psf (§4.7.3), passenger vehicle garages (§4.7.4) and
+ * assembly uses (§4.7.5). The 20 % those may take on members supporting two or more floors
+ * is not taken. */
+static gboolean
+area_load_reducible (const TrbAreaLoad *al)
+{
+  g_autofree char *occupancy = NULL;
+
+  if (al->kind == TRB_AREA_LOAD_PARTITION)
+    return FALSE;
+  if (al->pressure > 100.0 * TRB_PSF * (1 + 1e-9))
+    return FALSE;
+  if (al->occupancy != NULL)
+    {
+      occupancy = g_ascii_strdown (al->occupancy, -1);
+      if (strstr (occupancy, "garage") != NULL || strstr (occupancy, "parking") != NULL ||
+          strstr (occupancy, "assembly") != NULL)
+        return FALSE;
+    }
+  return TRUE;
+}
+
+/* The plan of one floor for the frame: stream 0 takes every load but the live load that is
+ * never reduced, stream 1 that live load alone (only when reduction is on). The maps give,
+ * for each of the plan's line and point loads, the floor's index. */
+typedef struct
+{
+  TrbFramePlan       plan;
+  GArray            *columns;      /* TrbFrameColumn */
+  GArray            *walls;        /* TrbFrameWall */
+  GArray            *members;      /* TrbFrameMember */
+  GArray            *area_loads;   /* TrbFrameAreaLoad */
+  GArray            *openings;     /* TrbFrameOpening */
+  GArray            *line_loads;   /* TrbFrameLineLoad */
+  GArray            *point_loads;  /* TrbFramePointLoad */
+  GArray            *line_map;     /* guint */
+  GArray            *point_map;    /* guint */
+  guint              n_loads;      /* loads of any kind in this stream */
+} FloorPlan;
+
+static void
+floor_plan_clear (FloorPlan *fp)
+{
+  g_clear_pointer (&fp->columns, g_array_unref);
+  g_clear_pointer (&fp->walls, g_array_unref);
+  g_clear_pointer (&fp->members, g_array_unref);
+  g_clear_pointer (&fp->area_loads, g_array_unref);
+  g_clear_pointer (&fp->openings, g_array_unref);
+  g_clear_pointer (&fp->line_loads, g_array_unref);
+  g_clear_pointer (&fp->point_loads, g_array_unref);
+  g_clear_pointer (&fp->line_map, g_array_unref);
+  g_clear_pointer (&fp->point_map, g_array_unref);
+}
+
+static void
+floor_plan_init (FloorPlan      *fp,
+                 const TrbFloor *floor,
+                 gboolean        reduction,
+                 guint           stream)
+{
+  memset (fp, 0, sizeof *fp);
+  fp->columns = g_array_new (FALSE, TRUE, sizeof (TrbFrameColumn));
+  fp->walls = g_array_new (FALSE, TRUE, sizeof (TrbFrameWall));
+  fp->members = g_array_new (FALSE, TRUE, sizeof (TrbFrameMember));
+  fp->area_loads = g_array_new (FALSE, TRUE, sizeof (TrbFrameAreaLoad));
+  fp->openings = g_array_new (FALSE, TRUE, sizeof (TrbFrameOpening));
+  fp->line_loads = g_array_new (FALSE, TRUE, sizeof (TrbFrameLineLoad));
+  fp->point_loads = g_array_new (FALSE, TRUE, sizeof (TrbFramePointLoad));
+  fp->line_map = g_array_new (FALSE, FALSE, sizeof (guint));
+  fp->point_map = g_array_new (FALSE, FALSE, sizeof (guint));
+
+  for (guint i = 0; i < floor->columns->len; i++)
+    {
+      const TrbColumn *c = g_ptr_array_index (floor->columns, i);
+      TrbFrameColumn fc = { c->id, c->at.x, c->at.y };
+
+      g_array_append_val (fp->columns, fc);
+    }
+  for (guint i = 0; i < floor->walls->len; i++)
+    {
+      const TrbWall *w = g_ptr_array_index (floor->walls, i);
+      TrbFrameWall fw = { w->id, (const TrbFramePoint *) w->points->data, w->points->len };
+
+      g_array_append_val (fp->walls, fw);
+    }
+  for (guint i = 0; i < floor->members->len; i++)
+    {
+      const TrbMember *m = g_ptr_array_index (floor->members, i);
+      TrbFrameMember fm = { m->id, m->start, m->end, m->role, m->carries_deck,
+                            (const TrbFramePoint *) m->bearing_points->data,
+                            m->bearing_points->len };
+
+      g_array_append_val (fp->members, fm);
+    }
+  for (guint i = 0; i < floor->area_loads->len; i++)
+    {
+      const TrbAreaLoad *al = g_ptr_array_index (floor->area_loads, i);
+      guint s = reduction && al->lcase == TRB_CASE_L && !area_load_reducible (al) ? 1 : 0;
+      TrbFrameAreaLoad fa = { al->lcase, al->pressure, (const TrbFramePoint *) al->points->data,
+                              al->points->len };
+
+      if (s != stream)
+        continue;
+      g_array_append_val (fp->area_loads, fa);
+      fp->n_loads++;
+    }
+  for (guint i = 0; i < floor->openings->len; i++)
+    {
+      const TrbOpening *o = g_ptr_array_index (floor->openings, i);
+      TrbFrameOpening fo = { (const TrbFramePoint *) o->points->data, o->points->len };
+
+      g_array_append_val (fp->openings, fo);
+    }
+  /* Concentrated and line live loads are not reduced (ASCE 7-16 §4.7.1 reduces uniformly
+   * distributed live load). */
+  for (guint i = 0; i < floor->line_loads->len; i++)
+    {
+      const TrbLineLoad *ll = g_ptr_array_index (floor->line_loads, i);
+      guint s = reduction && ll->lcase == TRB_CASE_L ? 1 : 0;
+      TrbFrameLineLoad fl = { ll->lcase, ll->w, (const TrbFramePoint *) ll->points->data,
+                              ll->points->len };
+
+      if (s != stream)
+        continue;
+      g_array_append_val (fp->line_loads, fl);
+      g_array_append_val (fp->line_map, i);
+      fp->n_loads++;
+    }
+  for (guint i = 0; i < floor->point_loads->len; i++)
+    {
+      const TrbPointLoad *pl = g_ptr_array_index (floor->point_loads, i);
+      guint s = reduction && pl->lcase == TRB_CASE_L ? 1 : 0;
+      TrbFramePointLoad fq = { pl->lcase, pl->P, pl->at.x, pl->at.y };
+
+      if (s != stream)
+        continue;
+      g_array_append_val (fp->point_loads, fq);
+      g_array_append_val (fp->point_map, i);
+      fp->n_loads++;
+    }
+
+  fp->plan.columns = (const TrbFrameColumn *) fp->columns->data;
+  fp->plan.n_columns = fp->columns->len;
+  fp->plan.walls = (const TrbFrameWall *) fp->walls->data;
+  fp->plan.n_walls = fp->walls->len;
+  fp->plan.members = (const TrbFrameMember *) fp->members->data;
+  fp->plan.n_members = fp->members->len;
+  fp->plan.area_loads = (const TrbFrameAreaLoad *) fp->area_loads->data;
+  fp->plan.n_area_loads = fp->area_loads->len;
+  fp->plan.openings = (const TrbFrameOpening *) fp->openings->data;
+  fp->plan.n_openings = fp->openings->len;
+  fp->plan.line_loads = (const TrbFrameLineLoad *) fp->line_loads->data;
+  fp->plan.n_line_loads = fp->line_loads->len;
+  fp->plan.point_loads = (const TrbFramePointLoad *) fp->point_loads->data;
+  fp->plan.n_point_loads = fp->point_loads->len;
+}
+
+static void
+wall_result_clear (gpointer data)
+{
+  TrbWallResult *w = data;
+
+  for (guint c = 0; c < TRB_N_CASES; c++)
+    g_clear_pointer (&w->loads[c], g_array_unref);
+}
+
+static void
+floor_result_free (gpointer data)
+{
+  TrbFloorResult *fr = data;
+
+  g_free (fr->error);
+  g_clear_pointer (&fr->columns, g_array_unref);
+  g_clear_pointer (&fr->walls, g_array_unref);
+  g_clear_pointer (&fr->unassigned, g_array_unref);
+  g_free (fr);
+}
+
+static TrbFloorResult *
+floor_result_new (const TrbFloor *floor)
+{
+  TrbFloorResult *fr = g_new0 (TrbFloorResult, 1);
+
+  fr->floor = floor;
+  fr->columns = g_array_new (FALSE, TRUE, sizeof (TrbColumnResult));
+  fr->walls = g_array_new (FALSE, TRUE, sizeof (TrbWallResult));
+  g_array_set_clear_func (fr->walls, wall_result_clear);
+  fr->unassigned = g_array_new (FALSE, TRUE, sizeof (TrbUnassignedLoad));
+  return fr;
+}
+
+/* A floor member's supports: the frame's (pins where it rests on something) and its own
+ * <support>s; an own support within a billionth of the length of a frame support makes it the
+ * stronger type there. which[i] is the index of the frame support, or -1 for an own one. */
+static void
+merge_supports (const TrbMember            *m,
+                const TrbFrameMemberResult *fm,
+                GArray                     *supports,
+                GArray                     *which)
+{
+  double tol = 1e-9 * MAX (fm->length, 1.0);
+
+  g_array_set_size (supports, 0);
+  g_array_set_size (which, 0);
+  for (guint s = 0; s < fm->n_supports; s++)
+    {
+      int w = s;
+
+      g_array_append_val (supports, fm->supports[s]);
+      g_array_append_val (which, w);
+    }
+  for (guint i = 0; i < m->supports->len; i++)
+    {
+      const TrbSupport *own = &g_array_index (m->supports, TrbMemberSupport, i).support;
+      guint k;
+
+      for (k = 0; k < supports->len; k++)
+        {
+          TrbSupport *have = &g_array_index (supports, TrbSupport, k);
+
+          if (fabs (have->x - own->x) <= tol)
+            {
+              if (own->type == TRB_SUPPORT_FIXED)
+                have->type = TRB_SUPPORT_FIXED;
+              break;
+            }
+        }
+      if (k == supports->len)
+        {
+          int w = -1;
+
+          g_array_append_val (supports, *own);
+          g_array_append_val (which, w);
+        }
+    }
+  /* sorted by x (insertion sort: a handful of supports) */
+  for (guint i = 1; i < supports->len; i++)
+    for (guint k = i; k > 0; k--)
+      {
+        TrbSupport *a = &g_array_index (supports, TrbSupport, k - 1);
+        TrbSupport *b = &g_array_index (supports, TrbSupport, k);
+        int *wa = &g_array_index (which, int, k - 1);
+        int *wb = &g_array_index (which, int, k);
+        TrbSupport ts;
+        int tw;
+
+        if (a->x <= b->x)
+          break;
+        ts = *a, *a = *b, *b = ts;
+        tw = *wa, *wa = *wb, *wb = tw;
+      }
+}
+
+static gboolean
+supports_stable (const GArray *supports)
+{
+  if (supports->len >= 2)
+    return TRUE;
+  return supports->len == 1 &&
+         g_array_index (supports, TrbSupport, 0).type == TRB_SUPPORT_FIXED;
+}
+
+/* The largest centre-to-centre spacing to the neighbouring deck members, from the strip:
+ * twice the half-width on either side (NDS 2018 4.3.9 asks for 24 in or less). NAN where the
+ * strip has no neighbour on either side. */
+static double
+strip_spacing (const TrbFrameMemberResult *fm)
+{
+  double spacing = NAN;
+
+  for (guint i = 0; i < fm->n_strips; i++)
+    {
+      const TrbFrameStrip *st = &fm->strips[i];
+
+      if (isfinite (st->left))
+        spacing = isnan (spacing) ? 2 * st->left : MAX (spacing, 2 * st->left);
+      if (isfinite (st->right))
+        spacing = isnan (spacing) ? 2 * st->right : MAX (spacing, 2 * st->right);
+    }
+  return spacing;
+}
+
+/* Reactions of one load set on a solved beam, per support and case slot c. */
+static void
+reactions_of (const TrbBeam *beam,
+              const TrbLoad *loads,
+              guint          n_loads,
+              TrbLoadCase    c,
+              double        *out)
+{
+  g_autoptr(TrbBeamResult) res = NULL;
+  const TrbReaction *re;
+  guint n;
+
+  if (n_loads == 0)
+    return;
+  res = trb_beam_solve (beam, loads, n_loads, NULL);
+  if (res == NULL)
+    return;
+  re = trb_beam_result_get_reactions (res, &n);
+  for (guint i = 0; i < n; i++)
+    out[i * TRB_N_CASES + c] = re[i].force;
+}
+
+typedef struct
+{
+  const TrbFloor        *floor;
+  gboolean               reduction;
+  double                 Lo;                 /* the largest reducible live pressure, Pa */
+  TrbFrame              *frame[2];
+  TrbFrameTakedown      *takedown[2];
+  gboolean              *ok;                 /* per member: can be analysed */
+  char                 **reason;             /* per member: why not */
+  double                *area_in;            /* per member: A_T handed down from above, m^2 */
+  const char           **incomplete;         /* per member: a member above that passed nothing */
+  double                *column_area;        /* per column: A_T, m^2 */
+  gboolean              *column_cantilever;
+} FloorSolve;
+
+static const char *
+frame_status_word (const FloorSolve *fs,
+                   guint             index)
+{
+  const TrbFrameMemberResult *fm = trb_frame_get_member (fs->frame[0], index);
+
+  return fm->status == TRB_FRAME_IN_CYCLE ? "in a bearing cycle" : "unsupported";
+}
+
+/* Which members can be analysed: stable on their supports (the frame's and their own), and
+ * resting only on members that can be. Supporters come last in the bearing order, so the
+ * order is walked backwards. */
+static void
+floor_statuses (FloorSolve *fs)
+{
+  const TrbFloor *floor = fs->floor;
+  guint n_order;
+  const guint *order = trb_frame_get_order (fs->frame[0], &n_order);
+  g_autoptr(GArray) supports = g_array_new (FALSE, FALSE, sizeof (TrbSupport));
+  g_autoptr(GArray) which = g_array_new (FALSE, FALSE, sizeof (int));
+
+  for (guint i = 0; i < floor->members->len; i++)
+    {
+      const TrbFrameMemberResult *fm = trb_frame_get_member (fs->frame[0], i);
+
+      fs->ok[i] = FALSE;
+      if (fm->status == TRB_FRAME_IN_CYCLE)
+        fs->reason[i] = g_strdup (fm->reason);
+    }
+
+  for (guint k = n_order; k-- > 0;)
+    {
+      guint idx = order[k];
+      const TrbMember *m = g_ptr_array_index (floor->members, idx);
+      const TrbFrameMemberResult *fm = trb_frame_get_member (fs->frame[0], idx);
+
+      merge_supports (m, fm, supports, which);
+      if (!supports_stable (supports))
+        {
+          fs->reason[idx] = g_strdup (fm->reason != NULL ? fm->reason
+                                      : supports->len == 0 ? "no support: nothing lies under it"
+                                      : "one support only: it is a mechanism");
+          continue;
+        }
+      fs->ok[idx] = TRUE;
+      for (guint s = 0; s < fm->n_supports; s++)
+        {
+          const TrbBearing *b = &fm->bearings[s];
+
+          if (b->kind == TRB_BEARING_MEMBER && !fs->ok[b->index])
+            {
+              fs->ok[idx] = FALSE;
+              fs->reason[idx] = g_strdup_printf ("bears on member %s, which is %s", b->id,
+                                                 trb_frame_get_member (fs->frame[0], b->index)
+                                                   ->status != TRB_FRAME_SUPPORTED
+                                                 ? frame_status_word (fs, b->index)
+                                                 : "unsupported");
+              break;
+            }
+        }
+    }
+}
+
+/* The loads of one member that stay where they are: its own, the frame's and those handed
+ * down to it, per case, added to not_carried; and the members it rests on are told. */
+static void
+floor_strand (FloorSolve     *fs,
+              TrbFloorResult *fr,
+              guint           idx)
+{
+  const TrbMember *m = g_ptr_array_index (fs->floor->members, idx);
+  const TrbFrameMemberResult *fm = trb_frame_get_member (fs->frame[0], idx);
+
+  for (guint i = 0; i < m->loads->len; i++)
+    {
+      const TrbMemberLoad *ml = &g_array_index (m->loads, TrbMemberLoad, i);
+
+      fr->not_carried[ml->lcase] += loads_total (&ml->load, 1);
+    }
+  for (guint s = 0; s < 2; s++)
+    {
+      if (fs->frame[s] == NULL)
+        continue;
+      for (guint c = 0; c < TRB_N_CASES; c++)
+        {
+          const TrbFrameMemberResult *f = trb_frame_get_member (fs->frame[s], idx);
+          const TrbLoad *handed;
+          guint n;
+
+          fr->not_carried[c] += loads_total (f->loads[c], f->n_loads[c]);
+          handed = trb_frame_takedown_get_member_loads (fs->takedown[s], idx, c, &n);
+          fr->not_carried[c] += loads_total (handed, n);
+        }
+    }
+  for (guint s = 0; s < fm->n_supports; s++)
+    if (fm->bearings[s].kind == TRB_BEARING_MEMBER && fs->incomplete[fm->bearings[s].index] == NULL)
+      fs->incomplete[fm->bearings[s].index] = m->id;
+}
+
+/* Every load of a member counted as applied: its own and the frame's (not those handed down,
+ * which were counted where they started). */
+static void
+floor_count_applied (FloorSolve     *fs,
+                     TrbFloorResult *fr,
+                     guint           idx)
+{
+  const TrbMember *m = g_ptr_array_index (fs->floor->members, idx);
+
+  for (guint i = 0; i < m->loads->len; i++)
+    {
+      const TrbMemberLoad *ml = &g_array_index (m->loads, TrbMemberLoad, i);
+
+      fr->applied[ml->lcase] += loads_total (&ml->load, 1);
+    }
+  for (guint s = 0; s < 2; s++)
+    {
+      const TrbFrameMemberResult *f;
+
+      if (fs->frame[s] == NULL)
+        continue;
+      f = trb_frame_get_member (fs->frame[s], idx);
+      for (guint c = 0; c < TRB_N_CASES; c++)
+        fr->applied[c] += loads_total (f->loads[c], f->n_loads[c]);
+    }
+}
+
+static GArray *
+bearings_new (const TrbMember            *m,
+              const TrbFrameMemberResult *fm,
+              const GArray               *supports,
+              const GArray               *which)
+{
+  GArray *bearings = g_array_sized_new (FALSE, TRUE, sizeof (TrbMemberBearing), supports->len);
+
+  for (guint i = 0; i < supports->len; i++)
+    {
+      int w = g_array_index (which, int, i);
+      TrbMemberBearing b = { 0 };
+
+      b.x = g_array_index (supports, TrbSupport, i).x;
+      b.own = w < 0;
+      if (w >= 0)
+        {
+          const TrbBearing *fb = &fm->bearings[w];
+
+          b.kind = fb->kind;
+          /* the model's string, which outlives the frame */
+          b.id = fb->kind == TRB_BEARING_COLUMN
+                 ? ((const TrbColumn *) g_ptr_array_index (m->floor->columns, fb->index))->id
+                 : fb->kind == TRB_BEARING_WALL
+                 ? ((const TrbWall *) g_ptr_array_index (m->floor->walls, fb->index))->id
+                 : ((const TrbMember *) g_ptr_array_index (m->floor->members, fb->index))->id;
+          b.position = fb->position;
+        }
+      g_array_append_val (bearings, b);
+    }
+  return bearings;
+}
+
+static TrbMemberResult *
+not_analysed_result (const TrbProject *project,
+                     const TrbMember  *m,
+                     TrbStatus         status,
+                     const char       *reason)
+{
+  TrbMemberResult *r = member_result_new (project, m);
+
+  g_strlcpy (r->section, m->section, sizeof r->section);
+  set_status (r, status, "%s", reason);
+  return r;
+}
+
+static void
+append_loads (GArray        *to,
+              const TrbLoad *loads,
+              guint          n,
+              double         factor)
+{
+  for (guint i = 0; i < n; i++)
+    {
+      TrbLoad l = loads[i];
+
+      if (factor != 1)
+        {
+          l.w1 *= factor;
+          l.w2 *= factor;
+        }
+      g_array_append_val (to, l);
+    }
+}
+
+/* The live load reduction of a member with A_T area (m^2): K_LL 2 for beams and girders
+ * (interior beams, edge beams without cantilever slabs), 1 for cantilevered members (ASCE
+ * 7-16 Table 4.7-1); a member of a floor supports that floor only. */
+static void
+member_reduction (const FloorSolve *fs,
+                  double            area,
+                  gboolean          cantilever,
+                  TrbReductionUse  *use)
+{
+  TrbLiveReduction red;
+
+  use->area = area;
+  use->floors = 1;
+  use->factor = 1;
+  use->k_ll = trb_live_k_ll (cantilever ? TRB_LIVE_MEMBER_OTHER : TRB_LIVE_MEMBER_INTERIOR_BEAM);
+  use->rule = TRB_LIVE_RULE_SMALL_AREA;
+  if (!fs->reduction || !(fs->Lo > 0) || !(area > 0))
+    return;
+  if (trb_live_reduction_floor (fs->Lo, area,
+                                cantilever ? TRB_LIVE_MEMBER_OTHER
+                                           : TRB_LIVE_MEMBER_INTERIOR_BEAM,
+                                1, TRB_LIVE_OCCUPANCY_ORDINARY, &red, NULL))
+    {
+      use->applies = TRUE;
+      use->factor = red.factor;
+      use->rule = red.rule;
+      use->k_ll = red.k_ll;
+    }
+}
+
+static void
+solve_floor_member (Solver         *sv,
+                    FloorSolve     *fs,
+                    TrbFloorResult *fr,
+                    guint           idx,
+                    GHashTable     *results)
+{
+  const TrbProject *project = sv->project;
+  const TrbMember *m = g_ptr_array_index (fs->floor->members, idx);
+  const TrbFrameMemberResult *fm = trb_frame_get_member (fs->frame[0], idx);
+  const TrbFrameMemberResult *fmb = fs->frame[1] != NULL ? trb_frame_get_member (fs->frame[1],
+                                                                                 idx) : NULL;
+  g_autoptr(GArray) supports = g_array_new (FALSE, FALSE, sizeof (TrbSupport));
+  g_autoptr(GArray) which = g_array_new (FALSE, FALSE, sizeof (int));
+  g_autoptr(GArray) live_a = g_array_new (FALSE, FALSE, sizeof (TrbLoad));
+  g_autoptr(GArray) live_b = g_array_new (FALSE, FALSE, sizeof (TrbLoad));
+  g_autoptr(GByteArray) extra = g_byte_array_new ();
+  g_autoptr(GBytes) key = NULL;
+  GArray *loads[TRB_N_CASES];
+  MemberInput in = { 0 };
+  TrbReductionUse use = { 0 };
+  TrbMemberResult *r;
+  CacheEntry *entry = NULL;
+  g_autofree double *own_reactions[2] = { NULL, NULL };
+  double *reactions[2];
+  g_autofree double *frame_reactions = NULL;
+  guint n_beam;
+  gboolean cantilever;
+  double reducible = 0, other = 0;
+  double length = fm->length;
+
+  floor_count_applied (fs, fr, idx);
+  merge_supports (m, fm, supports, which);
+
+  for (guint c = 0; c < TRB_N_CASES; c++)
+    loads[c] = g_array_new (FALSE, FALSE, sizeof (TrbLoad));
+  for (guint i = 0; i < m->loads->len; i++)
+    {
+      const TrbMemberLoad *ml = &g_array_index (m->loads, TrbMemberLoad, i);
+
+      /* the member's own live loads are not reduced: they may be anything */
+      g_array_append_val (ml->lcase == TRB_CASE_L && fs->reduction ? live_b : loads[ml->lcase],
+                          ml->load);
+    }
+  for (guint c = 0; c < TRB_N_CASES; c++)
+    {
+      const TrbLoad *handed;
+      guint n;
+      GArray *to = c == TRB_CASE_L && fs->reduction ? live_a : loads[c];
+
+      append_loads (to, fm->loads[c], fm->n_loads[c], 1);
+      handed = trb_frame_takedown_get_member_loads (fs->takedown[0], idx, c, &n);
+      append_loads (to, handed, n, 1);
+    }
+  if (fs->reduction)
+    {
+      const TrbLoad *handed;
+      guint n;
+
+      if (fmb != NULL)
+        {
+          append_loads (live_b, fmb->loads[TRB_CASE_L], fmb->n_loads[TRB_CASE_L], 1);
+          handed = trb_frame_takedown_get_member_loads (fs->takedown[1], idx, TRB_CASE_L, &n);
+          append_loads (live_b, handed, n, 1);
+        }
+      reducible = loads_total ((const TrbLoad *) live_a->data, live_a->len);
+      other = loads_total ((const TrbLoad *) live_b->data, live_b->len);
+    }
+
+  cantilever = supports->len > 0 &&
+               (g_array_index (supports, TrbSupport, 0).x > TRB_FRAME_TOLERANCE ||
+                g_array_index (supports, TrbSupport, supports->len - 1).x <
+                  length - TRB_FRAME_TOLERANCE);
+  member_reduction (fs, fm->loaded_area[TRB_CASE_L] + fs->area_in[idx], cantilever, &use);
+  use.reducible = reducible;
+  use.other = other;
+  if (fs->reduction)
+    {
+      if (!(reducible > 0))
+        use.applies = FALSE, use.factor = 1;
+      append_loads (loads[TRB_CASE_L], (const TrbLoad *) live_a->data, live_a->len, use.factor);
+      append_loads (loads[TRB_CASE_L], (const TrbLoad *) live_b->data, live_b->len, 1);
+    }
+
+  in.length = length;
+  in.supports = (const TrbSupport *) supports->data;
+  in.n_supports = supports->len;
+  for (guint c = 0; c < TRB_N_CASES; c++)
+    {
+      in.loads[c] = (const TrbLoad *) loads[c]->data;
+      in.n_loads[c] = loads[c]->len;
+    }
+  in.repetitive_spacing = strip_spacing (fm);
+
+  /* the streams decide what is handed down, so they are part of what makes members equal */
+  key_int (extra, fs->reduction);
+  key_loads (extra, (const TrbLoad *) live_a->data, live_a->len);
+  key_loads (extra, (const TrbLoad *) live_b->data, live_b->len);
+  key = member_key (m, &in, sv->options->shortlist_max, extra);
+
+  if (sv->cache != NULL)
+    entry = g_hash_table_lookup (sv->cache, key);
+  if (entry == NULL)
+    {
+      entry = cache_entry_new (solve_input (project, m, &in, sv->options->shortlist_max,
+                                            sv->options->bounds),
+                               fs->reduction, live_a, live_b);
+      if (sv->cache != NULL)
+        g_hash_table_insert (sv->cache, g_bytes_ref (key), entry);
+    }
+  /* With the cache, the entry keeps its own result and every member gets a share of it, so
+   * that what one member's place in the floor changes (its bearings, an incomplete load)
+   * never reaches the others. */
+  if (sv->cache != NULL)
+    r = member_result_share (entry->result, m);
+  else
+    r = g_steal_pointer (&entry->result);
+
+  r->bearings = bearings_new (m, fm, supports, which);
+  r->reduction = use;
+  g_hash_table_insert (results, (gpointer) m, r);
+
+  if (!r->analysed)
+    {
+      if (sv->cache == NULL)
+        cache_entry_free (entry);
+      floor_strand (fs, fr, idx);
+      return;
+    }
+
+  fr->applied[TRB_CASE_D] += r->self_weight * length;
+
+  /* per support of the beam: map to the merged supports by position */
+  {
+    const TrbSupport *bs = trb_beam_get_supports (r->beam, &n_beam);
+    double total_a = 0;
+
+    reactions[0] = entry->reactions[0];
+    reactions[1] = entry->reactions[1];
+    frame_reactions = g_new0 (double, (fm->n_supports + 1) * TRB_N_CASES);
+    own_reactions[1] = g_new0 (double, (fmb != NULL ? fmb->n_supports : 0) * TRB_N_CASES + 1);
+
+    for (guint i = 0; i < n_beam; i++)
+      total_a += MAX (reactions[0][i * TRB_N_CASES + TRB_CASE_L], 0);
+
+    for (guint j = 0; j < supports->len; j++)
+      {
+        double x = g_array_index (supports, TrbSupport, j).x;
+        int w = g_array_index (which, int, j);
+        TrbMemberBearing *b = &g_array_index (r->bearings, TrbMemberBearing, j);
+        guint i = 0;
+
+        for (guint k = 1; k < n_beam; k++)
+          if (fabs (bs[k].x - x) < fabs (bs[i].x - x))
+            i = k;
+        for (guint c = 0; c < TRB_N_CASES; c++)
+          b->force[c] = reactions[0][i * TRB_N_CASES + c] + reactions[1][i * TRB_N_CASES + c];
+        if (w < 0)
+          {
+            for (guint c = 0; c < TRB_N_CASES; c++)
+              fr->supports[c] += b->force[c];
+            continue;
+          }
+        for (guint c = 0; c < TRB_N_CASES; c++)
+          frame_reactions[w * TRB_N_CASES + c] = reactions[0][i * TRB_N_CASES + c];
+        if (fmb != NULL)
+          own_reactions[1][w * TRB_N_CASES + TRB_CASE_L] =
+            reactions[1][i * TRB_N_CASES + TRB_CASE_L];
+
+        /* A_T goes down with the reducible live load it came with */
+        if (use.area > 0 && total_a > 0)
+          {
+            double share = use.area * MAX (reactions[0][i * TRB_N_CASES + TRB_CASE_L], 0) /
+                           total_a;
+
+            if (b->kind == TRB_BEARING_MEMBER)
+              fs->area_in[fm->bearings[w].index] += share;
+            else if (b->kind == TRB_BEARING_COLUMN)
+              fs->column_area[fm->bearings[w].index] += share;
+          }
+        /* the member runs on past the column: a cantilever over it (Table 4.7-1) */
+        if (b->kind == TRB_BEARING_COLUMN &&
+            ((j == 0 && x > TRB_FRAME_TOLERANCE) ||
+             (j + 1 == supports->len && x < length - TRB_FRAME_TOLERANCE)))
+          fs->column_cantilever[fm->bearings[w].index] = TRUE;
+      }
+  }
+
+  trb_frame_takedown_add (fs->takedown[0], idx, frame_reactions, fm->n_supports, NULL);
+  if (fmb != NULL)
+    trb_frame_takedown_add (fs->takedown[1], idx, own_reactions[1], fmb->n_supports, NULL);
+
+  if (fs->incomplete[idx] != NULL)
+    set_status (r, TRB_STATUS_NOT_DESIGNED, "loads incomplete: %s, which rests on it, could "
+                "not be analysed", fs->incomplete[idx]);
+
+  if (sv->cache == NULL)
+    cache_entry_free (entry);
+}
+
+static void
+floor_columns_walls (FloorSolve     *fs,
+                     TrbFloorResult *fr,
+                     guint           floors_above)
+{
+  const TrbFloor *floor = fs->floor;
+
+  for (guint i = 0; i < floor->columns->len; i++)
+    {
+      TrbColumnResult col = { 0 };
+      double other = 0;
+
+      col.column = g_ptr_array_index (floor->columns, i);
+      col.floor = floor;
+      col.cantilever = fs->column_cantilever[i];
+      for (guint s = 0; s < 2; s++)
+        if (fs->takedown[s] != NULL)
+          for (guint c = 0; c < TRB_N_CASES; c++)
+            col.force[c] += trb_frame_takedown_get_column_load (fs->takedown[s], i, c);
+      col.reduction.factor = 1;
+      col.reduction.floors = 1 + floors_above;
+      col.reduction.area = fs->column_area[i];
+      /* Table 4.7-1: 4 for interior columns and exterior ones without cantilever slabs; a
+       * column a member runs on past is taken as a corner column with cantilever slabs (2),
+       * the least of those rows, since which edge it is on is not known here */
+      col.reduction.k_ll = trb_live_k_ll (col.cantilever
+                                          ? TRB_LIVE_MEMBER_CORNER_COLUMN_CANTILEVER
+                                          : TRB_LIVE_MEMBER_INTERIOR_COLUMN);
+      col.live_reduced = col.force[TRB_CASE_L];
+      if (fs->reduction)
+        {
+          TrbLiveReduction red;
+
+          col.reduction.reducible = trb_frame_takedown_get_column_load (fs->takedown[0], i,
+                                                                        TRB_CASE_L);
+          other = fs->takedown[1] != NULL
+                  ? trb_frame_takedown_get_column_load (fs->takedown[1], i, TRB_CASE_L) : 0;
+          col.reduction.other = other;
+          if (col.reduction.reducible > 0 && fs->Lo > 0 && col.reduction.area > 0 &&
+              trb_live_reduction_floor (fs->Lo, col.reduction.area,
+                                        col.cantilever
+                                          ? TRB_LIVE_MEMBER_CORNER_COLUMN_CANTILEVER
+                                          : TRB_LIVE_MEMBER_INTERIOR_COLUMN,
+                                        col.reduction.floors, TRB_LIVE_OCCUPANCY_ORDINARY,
+                                        &red, NULL))
+            {
+              col.reduction.applies = TRUE;
+              col.reduction.factor = red.factor;
+              col.reduction.rule = red.rule;
+              col.live_reduced = red.factor * col.reduction.reducible + other;
+            }
+        }
+      for (guint c = 0; c < TRB_N_CASES; c++)
+        fr->reactions[c] += col.force[c];
+      g_array_append_val (fr->columns, col);
+    }
+
+  for (guint i = 0; i < floor->walls->len; i++)
+    {
+      TrbWallResult wr = { 0 };
+
+      wr.wall = g_ptr_array_index (floor->walls, i);
+      wr.floor = floor;
+      for (guint c = 0; c < TRB_N_CASES; c++)
+        {
+          wr.loads[c] = g_array_new (FALSE, FALSE, sizeof (TrbLoad));
+          for (guint s = 0; s < 2; s++)
+            {
+              const TrbLoad *l;
+              guint n;
+
+              if (fs->takedown[s] == NULL)
+                continue;
+              l = trb_frame_takedown_get_wall_loads (fs->takedown[s], i, c, &n);
+              for (guint k = 0; k < n; k++)
+                {
+                  guint at;
+
+                  /* merged by position, kept sorted */
+                  for (at = 0; at < wr.loads[c]->len; at++)
+                    if (g_array_index (wr.loads[c], TrbLoad, at).a >= l[k].a)
+                      break;
+                  if (at < wr.loads[c]->len && g_array_index (wr.loads[c], TrbLoad, at).a == l[k].a)
+                    g_array_index (wr.loads[c], TrbLoad, at).w1 += l[k].w1;
+                  else
+                    g_array_insert_val (wr.loads[c], at, l[k]);
+                }
+            }
+          wr.force[c] = loads_total ((const TrbLoad *) wr.loads[c]->data, wr.loads[c]->len);
+          fr->reactions[c] += wr.force[c];
+        }
+      g_array_append_val (fr->walls, wr);
+    }
+  for (guint c = 0; c < TRB_N_CASES; c++)
+    fr->reactions[c] += fr->supports[c];
+}
+
+static void
+floor_unassigned (const TrbFloor  *floor,
+                  TrbFrame        *frame,
+                  const FloorPlan *fp,
+                  GArray          *out)
+{
+  const guint *points;
+  const TrbFrameUnassigned *lines;
+  guint n;
+
+  lines = trb_frame_get_unassigned_lines (frame, &n);
+  for (guint i = 0; i < n; i++)
+    {
+      TrbUnassignedLoad u = { 0 };
+
+      u.line = g_ptr_array_index (floor->line_loads,
+                                  g_array_index (fp->line_map, guint, lines[i].index));
+      u.length = lines[i].length;
+      u.force = u.line->w * u.length;
+      g_array_append_val (out, u);
+    }
+  points = trb_frame_get_unassigned_points (frame, &n);
+  for (guint i = 0; i < n; i++)
+    {
+      TrbUnassignedLoad u = { 0 };
+
+      u.point = g_ptr_array_index (floor->point_loads,
+                                   g_array_index (fp->point_map, guint, points[i]));
+      u.force = u.point->P;
+      g_array_append_val (out, u);
+    }
+}
+
+/* The load takedown of one floor: frame, then every member from the top of the load path
+ * down, then what reached the columns and walls. Results go into results (member -> result). */
+static TrbFloorResult *
+solve_floor (Solver         *sv,
+             const TrbFloor *floor,
+             GHashTable     *results)
+{
+  const TrbSettings *settings = &sv->project->settings;
+  TrbFloorResult *fr = floor_result_new (floor);
+  FloorSolve fs = { 0 };
+  FloorPlan fp[2];
+  g_autoptr(GError) error = NULL;
+  guint n = floor->members->len;
+  guint n_order;
+  const guint *order;
+
+  fs.floor = floor;
+  fs.reduction = settings->live_load_reduction;
+  for (guint i = 0; fs.reduction && i < floor->area_loads->len; i++)
+    {
+      const TrbAreaLoad *al = g_ptr_array_index (floor->area_loads, i);
+
+      if (al->lcase == TRB_CASE_L && area_load_reducible (al))
+        fs.Lo = MAX (fs.Lo, al->pressure);
+    }
+
+  floor_plan_init (&fp[0], floor, fs.reduction, 0);
+  floor_plan_init (&fp[1], floor, fs.reduction, 1);
+  fs.frame[0] = trb_frame_new (&fp[0].plan, &error);
+  if (fs.frame[0] != NULL && fp[1].n_loads > 0)
+    fs.frame[1] = trb_frame_new (&fp[1].plan, &error);
+  if (fs.frame[0] == NULL || (fp[1].n_loads > 0 && fs.frame[1] == NULL))
+    {
+      fr->error = g_strdup (error->message);
+      for (guint i = 0; i < n; i++)
+        {
+          const TrbMember *m = g_ptr_array_index (floor->members, i);
+          g_autofree char *why = g_strdup_printf ("floor \"%s\" could not be framed: %s",
+                                                  floor->name != NULL ? floor->name : "",
+                                                  error->message);
+
+          g_hash_table_insert (results, (gpointer) m,
+                               not_analysed_result (sv->project, m, TRB_STATUS_ERROR, why));
+        }
+      g_clear_pointer (&fs.frame[0], trb_frame_free);
+      floor_plan_clear (&fp[0]);
+      floor_plan_clear (&fp[1]);
+      return fr;
+    }
+
+  for (guint s = 0; s < 2; s++)
+    if (fs.frame[s] != NULL)
+      fs.takedown[s] = trb_frame_takedown_new (fs.frame[s]);
+  fs.ok = g_new0 (gboolean, n + 1);
+  fs.reason = g_new0 (char *, n + 1);
+  fs.area_in = g_new0 (double, n + 1);
+  fs.incomplete = g_new0 (const char *, n + 1);
+  fs.column_area = g_new0 (double, floor->columns->len + 1);
+  fs.column_cantilever = g_new0 (gboolean, floor->columns->len + 1);
+
+  floor_statuses (&fs);
+
+  /* members in a cycle have no place in the order; what lies on them stays there */
+  for (guint i = 0; i < n; i++)
+    {
+      const TrbFrameMemberResult *fm = trb_frame_get_member (fs.frame[0], i);
+
+      if (fm->status == TRB_FRAME_IN_CYCLE)
+        {
+          const TrbMember *m = g_ptr_array_index (floor->members, i);
+          g_autoptr(GArray) supports = g_array_new (FALSE, FALSE, sizeof (TrbSupport));
+          g_autoptr(GArray) which = g_array_new (FALSE, FALSE, sizeof (int));
+          TrbMemberResult *r = not_analysed_result (sv->project, m, TRB_STATUS_ERROR,
+                                                    fs.reason[i]);
+
+          merge_supports (m, fm, supports, which);
+          r->bearings = bearings_new (m, fm, supports, which);
+          g_hash_table_insert (results, (gpointer) m, r);
+          floor_count_applied (&fs, fr, i);
+          floor_strand (&fs, fr, i);
+        }
+    }
+
+  order = trb_frame_get_order (fs.frame[0], &n_order);
+  for (guint k = 0; k < n_order; k++)
+    {
+      guint idx = order[k];
+
+      if (!fs.ok[idx])
+        {
+          const TrbMember *m = g_ptr_array_index (floor->members, idx);
+          const TrbFrameMemberResult *fm = trb_frame_get_member (fs.frame[0], idx);
+          g_autoptr(GArray) supports = g_array_new (FALSE, FALSE, sizeof (TrbSupport));
+          g_autoptr(GArray) which = g_array_new (FALSE, FALSE, sizeof (int));
+          TrbMemberResult *r = not_analysed_result (sv->project, m, TRB_STATUS_UNSUPPORTED,
+                                                    fs.reason[idx]);
+
+          merge_supports (m, fm, supports, which);
+          r->bearings = bearings_new (m, fm, supports, which);
+          g_hash_table_insert (results, (gpointer) m, r);
+          floor_count_applied (&fs, fr, idx);
+          floor_strand (&fs, fr, idx);
+          continue;
+        }
+      solve_floor_member (sv, &fs, fr, idx, results);
+    }
+
+  floor_columns_walls (&fs, fr, MAX (settings->floors_above, 0));
+  for (guint s = 0; s < 2; s++)
+    if (fs.frame[s] != NULL)
+      floor_unassigned (floor, fs.frame[s], &fp[s], fr->unassigned);
+
+  for (guint i = 0; i < n; i++)
+    g_free (fs.reason[i]);
+  g_free (fs.reason);
+  g_free (fs.ok);
+  g_free (fs.area_in);
+  g_free (fs.incomplete);
+  g_free (fs.column_area);
+  g_free (fs.column_cantilever);
+  for (guint s = 0; s < 2; s++)
+    {
+      g_clear_pointer (&fs.takedown[s], trb_frame_takedown_free);
+      g_clear_pointer (&fs.frame[s], trb_frame_free);
+      floor_plan_clear (&fp[s]);
+    }
+  return fr;
+}
+
+/* ---- the project ------------------------------------------------------------------------- */
+
+static TrbMemberResult *
+solve_standalone_cached (Solver          *sv,
+                         const TrbMember *member)
+{
+  g_autoptr(GArray) supports = NULL;
+  g_autoptr(GBytes) key = NULL;
+  GArray *loads[TRB_N_CASES];
+  MemberInput in;
+  CacheEntry *entry;
+  TrbMemberResult *r;
+
+  if (sv->cache == NULL)
+    return solve_standalone (sv->project, member, sv->options->shortlist_max,
+                             sv->options->bounds);
+
+  supports = g_array_new (FALSE, FALSE, sizeof (TrbSupport));
+  for (guint c = 0; c < TRB_N_CASES; c++)
+    loads[c] = g_array_new (FALSE, FALSE, sizeof (TrbLoad));
+  standalone_input (member, &in, supports, loads);
+  key = member_key (member, &in, sv->options->shortlist_max, NULL);
+  entry = g_hash_table_lookup (sv->cache, key);
+  if (entry == NULL)
+    {
+      entry = g_new0 (CacheEntry, 1);
+      entry->result = solve_input (sv->project, member, &in, sv->options->shortlist_max,
+                                   sv->options->bounds);
+      g_hash_table_insert (sv->cache, g_bytes_ref (key), entry);
+    }
+  r = member_result_share (entry->result, member);
+  for (guint c = 0; c < TRB_N_CASES; c++)
+    g_array_unref (loads[c]);
+  return r;
+}
+
+/**
+ * trb_solve_options_init:
+ * @options: (out caller-allocates): options to fill
+ *
+ * The defaults: a shortlist of %TRB_SHORTLIST_DEFAULT sections, the cache and the bounds on.
+ */
+void
+trb_solve_options_init (TrbSolveOptions *options)
+{
+  g_return_if_fail (options != NULL);
+
+  options->shortlist_max = TRB_SHORTLIST_DEFAULT;
+  options->cache = TRUE;
+  options->bounds = TRUE;
+}
+
+/* Solves the whole project, or only one floor's members (only_floor). */
+static TrbProjectResult *
+solve_project (const TrbProject      *project,
+               const TrbSolveOptions *options,
+               const TrbFloor        *only_floor)
+{
+  TrbProjectResult *pr;
+  g_autoptr(GHashTable) results = g_hash_table_new (NULL, NULL);
+  Solver sv = { project, options, NULL };
+
+  if (options->cache)
+    sv.cache = g_hash_table_new_full (g_bytes_hash, g_bytes_equal,
+                                      (GDestroyNotify) g_bytes_unref, cache_entry_free);
+
+  pr = g_new0 (TrbProjectResult, 1);
+  pr->project = project;
+  pr->members = g_ptr_array_new_with_free_func ((GDestroyNotify) trb_member_result_free);
+  pr->floors = g_ptr_array_new_with_free_func (floor_result_free);
+
+  for (guint f = 0; project->floors != NULL && f < project->floors->len; f++)
+    {
+      const TrbFloor *floor = g_ptr_array_index (project->floors, f);
+
+      if (only_floor != NULL && floor != only_floor)
+        continue;
+      g_ptr_array_add (pr->floors, solve_floor (&sv, floor, results));
+    }
+
+  for (guint i = 0; i < project->members->len; i++)
+    {
+      const TrbMember *m = g_ptr_array_index (project->members, i);
+      TrbMemberResult *r;
+
+      if (m->floor != NULL)
+        {
+          r = g_hash_table_lookup (results, m);
+          if (r == NULL)
+            continue;   /* not of the floor asked for */
+        }
+      else if (only_floor != NULL)
+        continue;
+      else
+        r = solve_standalone_cached (&sv, m);
+      g_ptr_array_add (pr->members, r);
+    }
+
+  g_clear_pointer (&sv.cache, g_hash_table_unref);
+  return pr;
+}
+
+/**
+ * trb_solve_project_full:
+ * @project: a project
+ * @options: (nullable): how to solve; %NULL for the defaults (trb_solve_options_init())
+ *
+ * Solves every member: standalone beams as they are given, each floor through its load
+ * takedown (docs/takedown.md): the frame, the members from the top of the load path down, each
+ * handing its reactions to what it rests on, then the column and wall loads and the totals.
+ * Pure: the same project and options give bit-identical results, and the options' shortcuts
+ * never change a result.
+ *
+ * Returns: (transfer full): every member's results in the project's order, and each floor's.
+ */
+TrbProjectResult *
+trb_solve_project_full (const TrbProject      *project,
+                        const TrbSolveOptions *options)
+{
+  TrbSolveOptions defaults;
+
+  g_return_val_if_fail (project != NULL, NULL);
+
+  if (options == NULL)
+    {
+      trb_solve_options_init (&defaults);
+      options = &defaults;
+    }
+  return solve_project (project, options, NULL);
+}
+
+/**
+ * trb_solve_project:
+ * @project: a project
+ *
+ * trb_solve_project_full() with the default options.
+ *
+ * Returns: (transfer full): every member's results, in the project's order, and each floor's.
+ */
+TrbProjectResult *
+trb_solve_project (const TrbProject *project)
+{
+  return trb_solve_project_full (project, NULL);
+}
+
+/**
+ * trb_solve_member_full:
+ * @project: the project, for its settings
+ * @member: one of its members
+ * @shortlist_max: how many passing sections to list at most (G_MAXUINT for all)
+ *
+ * Analyses and designs one member: a custom section is checked as given; a catalog section
+ * is checked and gets a shortlist of the passing sections; "auto" is sized: the lightest
+ * passing section of its family is chosen. Never fails: a member that cannot be analysed gets
+ * the status that says why, and a message. A member of a floor is solved with its floor,
+ * since what it carries comes down from the members above it.
+ *
+ * Returns: (transfer full): the member's results; they point into @member.
+ */
+TrbMemberResult *
+trb_solve_member_full (const TrbProject *project,
+                       const TrbMember  *member,
+                       guint             shortlist_max)
+{
+  g_return_val_if_fail (project != NULL && member != NULL, NULL);
+
+  if (member->floor != NULL)
+    {
+      g_autoptr(TrbProjectResult) pr = NULL;
+      TrbSolveOptions options;
+      const TrbMemberResult *found;
+      TrbMemberResult *r;
+
+      trb_solve_options_init (&options);
+      options.shortlist_max = shortlist_max;
+      pr = solve_project (project, &options, member->floor);
+      found = trb_project_result_find_member (pr, member);
+      g_return_val_if_fail (found != NULL, NULL);
+      r = member_result_share ((TrbMemberResult *) found, member);
+      r->bearings = found->bearings != NULL ? g_array_ref (found->bearings) : NULL;
+      return r;
+    }
+  return solve_standalone (project, member, shortlist_max, TRUE);
 }
 
 /**
@@ -1027,25 +2782,26 @@ trb_solve_member (const TrbProject *project,
 }
 
 /**
- * trb_solve_project:
- * @project: a project
+ * trb_project_result_find_member:
+ * @result: a project's results
+ * @member: one of its members
  *
- * Returns: (transfer full): every member's results, in the project's order.
+ * Returns: (transfer none) (nullable): the member's results
  */
-TrbProjectResult *
-trb_solve_project (const TrbProject *project)
+const TrbMemberResult *
+trb_project_result_find_member (const TrbProjectResult *result,
+                                const TrbMember        *member)
 {
-  TrbProjectResult *pr;
+  g_return_val_if_fail (result != NULL && member != NULL, NULL);
 
-  g_return_val_if_fail (project != NULL, NULL);
+  for (guint i = 0; i < result->members->len; i++)
+    {
+      const TrbMemberResult *r = g_ptr_array_index (result->members, i);
 
-  pr = g_new0 (TrbProjectResult, 1);
-  pr->project = project;
-  pr->members = g_ptr_array_new_with_free_func ((GDestroyNotify) trb_member_result_free);
-  for (guint i = 0; i < project->members->len; i++)
-    g_ptr_array_add (pr->members,
-                     trb_solve_member (project, g_ptr_array_index (project->members, i)));
-  return pr;
+      if (r->member == member)
+        return r;
+    }
+  return NULL;
 }
 
 void
@@ -1054,5 +2810,6 @@ trb_project_result_free (TrbProjectResult *result)
   if (result == NULL)
     return;
   g_clear_pointer (&result->members, g_ptr_array_unref);
+  g_clear_pointer (&result->floors, g_ptr_array_unref);
   g_free (result);
 }

@@ -7,6 +7,8 @@
 #include "trb-beam.h"
 #include "trb-combos.h"
 #include "trb-design.h"
+#include "trb-frame.h"
+#include "trb-live-reduction.h"
 #include "trb-model.h"
 #include "trb-types.h"
 
@@ -14,8 +16,12 @@ G_BEGIN_DECLS
 
 /* The per-member pipeline: build the beam, solve each load case (and each live-load region),
  * form the combinations of the member's method and the deflection sets, with live-load
- * patterns, take envelopes, then design. Pure: the same project gives bit-identical results.
- * The results are plain structs that the CLI, the report and the editor read. */
+ * patterns, take envelopes, then design. Floors go through the load takedown first: the frame
+ * (trb-frame) says what each member rests on and what it carries, the members are solved from
+ * the top of the load path down, and each one's reactions become loads on what is below it,
+ * down to the columns and walls (docs/takedown.md). Pure: the same project gives
+ * bit-identical results. The results are plain structs that the CLI, the report and the editor
+ * read. */
 
 typedef enum
 {
@@ -47,17 +53,19 @@ typedef struct
   TrbBeamExtremes ext;           /* over the whole member */
 } TrbComboResult;
 
-/* The extremes over a set of combinations and patterns, and which one gave each. */
+/* The extremes over a set of combinations and patterns, and which one gave each: the name of
+ * that entry of the set ("" when none), pointing into the set's entries, so that a floor of
+ * ten thousand results stays small. */
 typedef struct
 {
   gboolean        empty;         /* no combination in the set */
   TrbBeamExtremes ext;
-  char            V_max_by[160];
-  char            V_min_by[160];
-  char            M_max_by[160];
-  char            M_min_by[160];
-  char            defl_down_by[160];
-  char            defl_up_by[160];
+  const char     *V_max_by;
+  const char     *V_min_by;
+  const char     *M_max_by;
+  const char     *M_min_by;
+  const char     *defl_down_by;
+  const char     *defl_up_by;
   GArray         *reactions;     /* TrbReactionRange, one per support, sorted by x */
 } TrbEnvelope;
 
@@ -80,6 +88,33 @@ typedef struct
 /* How many passing sections trb_solve_member() lists. */
 #define TRB_SHORTLIST_DEFAULT 10
 
+/* What one support of a floor member rests on, and the reaction it hands down there. */
+typedef struct
+{
+  double          x;                    /* m along the member */
+  gboolean        own;                  /* a <support> the member gives itself: nothing in the
+                                         * plan takes its reaction (kind, id and position are
+                                         * unset) */
+  TrbBearingKind  kind;                 /* a column, a wall or a member below */
+  const char     *id;                   /* its mark (the model's string); NULL when own */
+  double          position;             /* m along the member or wall below; 0 on a column */
+  double          force[TRB_N_CASES];   /* N, downward on what is below; live load unreduced
+                                         * (ASCE 7-16 §4.7: each member reduces its own) */
+} TrbMemberBearing;
+
+/* Live load reduction (ASCE 7-16 §4.7) as one floor member or column used it. */
+typedef struct
+{
+  gboolean    applies;       /* reduction is on and it carries reducible live load */
+  double      area;          /* A_T, m^2: the area of reducible live load it carries */
+  double      k_ll;          /* Table 4.7-1 */
+  guint       floors;        /* how many floors it supports */
+  double      factor;        /* L/Lo on the reducible live load; 1 when not reduced */
+  TrbLiveRule rule;          /* which rule set the factor (when applies) */
+  double      reducible;     /* N: its reducible live load, unreduced */
+  double      other;         /* N: live load never reduced (partitions, loads over 100 psf,
+                              * garages, assembly uses, line and point loads) */
+} TrbReductionUse;
 typedef struct
 {
   const TrbMember  *member;      /* not owned: the project outlives its results */
@@ -112,13 +147,87 @@ typedef struct
   char              governing[40];  /* the name of the check with that ratio */
   GArray           *shortlist;   /* TrbShortlistEntry: passing sections, lightest first, ties
                                   * by depth; for catalog and "auto" members */
+
+  /* What was analysed: the supports (TrbSupport, sorted by x) and every load, case by case
+   * (TrbMemberLoad with line 0 for those that are not the member's own: the floor's strip,
+   * line and point loads and the reactions handed down, live load as reduced). NULL when the
+   * member was not analysed. Identical members of a floor share these and the results above:
+   * read them, never change them. */
+  GArray           *supports;
+  GArray           *loads;
+
+  /* Floor members (member->floor != NULL); NULL or zero for standalone beams. */
+  GArray           *bearings;    /* TrbMemberBearing, one per support, sorted by x; set even
+                                  * when the member could not be analysed (forces then 0) */
+  TrbReductionUse   reduction;
+
+  struct _TrbMemberKeep *keep;   /* private: owns beam and cases when they are shared */
 } TrbMemberResult;
+
+/* The load on one column of a floor, from everything that rests on it. */
+typedef struct
+{
+  const TrbColumn  *column;              /* not owned */
+  const TrbFloor   *floor;
+  double            force[TRB_N_CASES];  /* N, downward, live load unreduced */
+  TrbReductionUse   reduction;
+  double            live_reduced;        /* N: force[L] after reduction (the factor on the
+                                          * reducible part); force[L] when not reduced */
+  gboolean          cantilever;          /* a member resting on it runs on past it */
+} TrbColumnResult;
+
+/* The load along one wall: point loads at the distance along it from its first point. */
+typedef struct
+{
+  const TrbWall    *wall;                /* not owned */
+  const TrbFloor   *floor;
+  double            force[TRB_N_CASES];  /* N, the total per case, downward */
+  GArray           *loads[TRB_N_CASES];  /* TrbLoad (TRB_LOAD_POINT), sorted by position */
+} TrbWallResult;
+
+/* A load placed in plan that lies on no member, so nothing carries it. */
+typedef struct
+{
+  const TrbPointLoad *point;   /* one of point and line is set */
+  const TrbLineLoad  *line;
+  double              length;  /* m of the line load on no member; 0 for a point load */
+  double              force;   /* N: P, or w times that length */
+} TrbUnassignedLoad;
+
+typedef struct
+{
+  const TrbFloor   *floor;                      /* not owned */
+  char             *error;                      /* the plan could not be framed: why; NULL */
+  GArray           *columns;                    /* TrbColumnResult, in the floor's order */
+  GArray           *walls;                      /* TrbWallResult, in the floor's order */
+  GArray           *unassigned;                 /* TrbUnassignedLoad, in plan order */
+  /* Per case, N downward. applied: every load that reached a member (area loads over the
+   * strips, line and point loads, the members' own loads, self-weights of the members
+   * analysed). reactions: what reached the columns, walls and the members' own supports
+   * (supports, the last of these). not_carried: what stayed on members that could not be
+   * analysed (unsupported, in a cycle, errors). applied = reactions + not_carried. */
+  double            applied[TRB_N_CASES];
+  double            reactions[TRB_N_CASES];
+  double            supports[TRB_N_CASES];
+  double            not_carried[TRB_N_CASES];
+} TrbFloorResult;
 
 typedef struct
 {
   const TrbProject *project;     /* not owned */
   GPtrArray        *members;     /* TrbMemberResult, in the project's order */
+  GPtrArray        *floors;      /* TrbFloorResult, in the project's order */
 } TrbProjectResult;
+
+/* How trb_solve_project_full() works; the shortcuts never change a result, bit for bit. */
+typedef struct
+{
+  guint    shortlist_max;  /* passing sections listed per member; TRB_SHORTLIST_DEFAULT */
+  gboolean cache;          /* solve identical members once (same length, supports, loads
+                            * and design attributes); default TRUE */
+  gboolean bounds;         /* in sizing, reject sections by exact bounds (live deflection,
+                            * moment) before the full check; default TRUE */
+} TrbSolveOptions;
 
 const char       *trb_status_name           (TrbStatus               status);
 
@@ -129,8 +238,13 @@ TrbMemberResult  *trb_solve_member_full     (const TrbProject       *project,
                                              guint                   shortlist_max);
 void              trb_member_result_free    (TrbMemberResult        *result);
 
+void              trb_solve_options_init    (TrbSolveOptions        *options);
 TrbProjectResult *trb_solve_project         (const TrbProject       *project);
+TrbProjectResult *trb_solve_project_full    (const TrbProject       *project,
+                                             const TrbSolveOptions  *options);
 void              trb_project_result_free   (TrbProjectResult       *result);
+const TrbMemberResult *trb_project_result_find_member (const TrbProjectResult *result,
+                                                       const TrbMember        *member);
 
 G_DEFINE_AUTOPTR_CLEANUP_FUNC (TrbMemberResult, trb_member_result_free)
 G_DEFINE_AUTOPTR_CLEANUP_FUNC (TrbProjectResult, trb_project_result_free)
