@@ -568,6 +568,66 @@ test_modified (void)
   g_assert_true (trb_edit_history_is_modified (h));
 }
 
+/* The mezzanine's plan (tests/data/floor-mezzanine.trabeate), 1 ft = 0.3048 m exactly (NIST
+ * SP 811, Appendix B): columns C1 (0, 0) and C2 (0, 9.144); girder G1 from (0, 0) to
+ * (0, 9.144); joists J1 at y = 3.048 and J2 at y = 6.096 from x = 0 to 7.62; wall W1 along
+ * x = 7.62; grid lines A (x = 0) and 1 (y = 0). */
+static void
+test_snap (void)
+{
+  g_autoptr(TrbProject) p = load_mezzanine ();
+  TrbFloor *floor = first_floor (p);
+  TrbSnapOptions o = { 0.3048, TRUE, 0.3, NULL };
+  TrbFramePoint at;
+  TrbSnap snap;
+
+  /* near C1, G1's start and the crossing of A and 1, all at (0, 0): the column wins ties */
+  at = (TrbFramePoint) { 0.05, 0.02 };
+  g_assert_true (trb_edit_snap (floor, &at, &o, &snap));
+  g_assert_cmpint (snap.kind, ==, TRB_SNAP_COLUMN);
+  g_assert_true (snap.object == trb_project_find_column (p, "C1", NULL));
+  g_assert_cmpfloat (snap.point.x, ==, 0);
+  g_assert_cmpfloat (snap.point.y, ==, 0);
+
+  /* 52 mm above J1's line, no end nearby: onto the line, straight down */
+  at = (TrbFramePoint) { 3.0, 3.1 };
+  g_assert_true (trb_edit_snap (floor, &at, &o, &snap));
+  g_assert_cmpint (snap.kind, ==, TRB_SNAP_ON_MEMBER);
+  g_assert_true (snap.object == trb_project_find_member (p, "J1"));
+  g_assert_cmpfloat_with_epsilon (snap.point.x, 3.0, 1e-12);
+  g_assert_cmpfloat_with_epsilon (snap.point.y, 3.048, 1e-12);
+
+  /* 0.12 m short of the wall W1 */
+  at = (TrbFramePoint) { 7.5, 5.0 };
+  g_assert_true (trb_edit_snap (floor, &at, &o, &snap));
+  g_assert_cmpint (snap.kind, ==, TRB_SNAP_ON_WALL);
+  g_assert_cmpfloat_with_epsilon (snap.point.x, 7.62, 1e-12);
+  g_assert_cmpfloat_with_epsilon (snap.point.y, 5.0, 1e-12);
+
+  /* nothing within 0.3 m: the 1 ft grid, 4.4 m -> 14 ft = 4.2672 m, 1.3 m -> 4 ft = 1.2192 m */
+  at = (TrbFramePoint) { 4.4, 1.3 };
+  g_assert_true (trb_edit_snap (floor, &at, &o, &snap));
+  g_assert_cmpint (snap.kind, ==, TRB_SNAP_GRID);
+  g_assert_cmpfloat_with_epsilon (snap.point.x, 14 * 0.3048, 1e-12);
+  g_assert_cmpfloat_with_epsilon (snap.point.y, 4 * 0.3048, 1e-12);
+
+  /* dragging J1's start: J1 itself is skipped, and the start lands on G1's line */
+  o.skip = trb_project_find_member (p, "J1");
+  at = (TrbFramePoint) { 0.02, 3.2 };
+  g_assert_true (trb_edit_snap (floor, &at, &o, &snap));
+  g_assert_cmpint (snap.kind, ==, TRB_SNAP_ON_MEMBER);
+  g_assert_true (snap.object == trb_project_find_member (p, "G1"));
+  g_assert_cmpfloat_with_epsilon (snap.point.x, 0, 1e-12);
+  g_assert_cmpfloat_with_epsilon (snap.point.y, 3.2, 1e-12);
+
+  /* no grid, no objects: the point stays */
+  o = (TrbSnapOptions) { 0, FALSE, 0.3, NULL };
+  at = (TrbFramePoint) { 0.01, 0.01 };
+  g_assert_false (trb_edit_snap (floor, &at, &o, &snap));
+  g_assert_cmpint (snap.kind, ==, TRB_SNAP_NONE);
+  g_assert_cmpfloat (snap.point.x, ==, 0.01);
+}
+
 /* ---- random sequences ------------------------------------------------------------------------ */
 
 static const char * const sections[] = {
@@ -833,6 +893,7 @@ main (int   argc,
   g_test_add_func ("/trb/edit/floor-items", test_floor_items);
   g_test_add_func ("/trb/edit/group", test_group);
   g_test_add_func ("/trb/edit/modified", test_modified);
+  g_test_add_func ("/trb/edit/snap", test_snap);
   g_test_add_func ("/trb/edit/random-sequences", test_random_sequences);
 
   return g_test_run ();

@@ -1651,6 +1651,171 @@ trb_edit_set_settings (TrbProject         *project,
   return c;
 }
 
+/* ---- snapping -------------------------------------------------------------------------------- */
+
+static double
+distance (const TrbFramePoint *a,
+          const TrbFramePoint *b)
+{
+  return hypot (a->x - b->x, a->y - b->y);
+}
+
+/* The point of the segment a-b nearest to p. */
+static TrbFramePoint
+nearest_on_segment (const TrbFramePoint *p,
+                    const TrbFramePoint *a,
+                    const TrbFramePoint *b)
+{
+  double dx = b->x - a->x, dy = b->y - a->y;
+  double len2 = dx * dx + dy * dy;
+  double t = len2 > 0 ? ((p->x - a->x) * dx + (p->y - a->y) * dy) / len2 : 0;
+  TrbFramePoint q;
+
+  t = CLAMP (t, 0.0, 1.0);
+  q.x = a->x + t * dx;
+  q.y = a->y + t * dy;
+  return q;
+}
+
+/* Where the lines through a-b and c-d cross; FALSE when they are parallel. */
+static gboolean
+line_crossing (const TrbFramePoint *a,
+               const TrbFramePoint *b,
+               const TrbFramePoint *c,
+               const TrbFramePoint *d,
+               TrbFramePoint       *out)
+{
+  double rx = b->x - a->x, ry = b->y - a->y;
+  double sx = d->x - c->x, sy = d->y - c->y;
+  double den = rx * sy - ry * sx;
+  double t;
+
+  if (fabs (den) <= 1e-12 * hypot (rx, ry) * hypot (sx, sy))
+    return FALSE;
+  t = ((c->x - a->x) * sy - (c->y - a->y) * sx) / den;
+  out->x = a->x + t * rx;
+  out->y = a->y + t * ry;
+  return TRUE;
+}
+
+static void
+consider (TrbSnap             *best,
+          double              *best_d,
+          TrbSnapKind          kind,
+          const TrbFramePoint *q,
+          gconstpointer        object,
+          const TrbFramePoint *p)
+{
+  double d = distance (p, q);
+
+  if (d < *best_d)
+    {
+      *best_d = d;
+      best->kind = kind;
+      best->point = *q;
+      best->object = object;
+    }
+}
+
+/**
+ * trb_edit_snap:
+ * @floor: the floor drawn on
+ * @point: the point under the pointer, m
+ * @options: what to snap to
+ * @snap: (out): where the point lands and on what
+ *
+ * Points win over lines and lines over the drawing grid, since an end placed on a column or
+ * another member's end is what the engineer means when the pointer is near one: within
+ * @options->radius, the nearest column, member end or crossing of two grid lines; failing
+ * that, the nearest point on a member's line or a wall; failing that, the nearest
+ * intersection of the drawing grid. A pure function: the canvas tests nothing itself.
+ *
+ * Returns: %TRUE when the point snapped to something.
+ */
+gboolean
+trb_edit_snap (const TrbFloor       *floor,
+               const TrbFramePoint  *point,
+               const TrbSnapOptions *options,
+               TrbSnap              *snap)
+{
+  double best_d;
+
+  g_return_val_if_fail (floor != NULL && point != NULL && options != NULL, FALSE);
+  g_return_val_if_fail (snap != NULL, FALSE);
+
+  snap->kind = TRB_SNAP_NONE;
+  snap->point = *point;
+  snap->object = NULL;
+
+  if (options->objects && options->radius > 0)
+    {
+      best_d = options->radius;
+      for (guint i = 0; i < floor->columns->len; i++)
+        {
+          const TrbColumn *c = g_ptr_array_index (floor->columns, i);
+
+          consider (snap, &best_d, TRB_SNAP_COLUMN, &c->at, c, point);
+        }
+      for (guint i = 0; i < floor->members->len; i++)
+        {
+          const TrbMember *m = g_ptr_array_index (floor->members, i);
+
+          if (m == options->skip)
+            continue;
+          consider (snap, &best_d, TRB_SNAP_END, &m->start, m, point);
+          consider (snap, &best_d, TRB_SNAP_END, &m->end, m, point);
+        }
+      for (guint i = 0; i < floor->grids->len; i++)
+        for (guint j = i + 1; j < floor->grids->len; j++)
+          {
+            const TrbGridLine *g = g_ptr_array_index (floor->grids, i);
+            const TrbGridLine *h = g_ptr_array_index (floor->grids, j);
+            TrbFramePoint x;
+
+            if (line_crossing (&g->start, &g->end, &h->start, &h->end, &x))
+              consider (snap, &best_d, TRB_SNAP_GRID_CROSSING, &x, NULL, point);
+          }
+      if (snap->kind != TRB_SNAP_NONE)
+        return TRUE;
+
+      for (guint i = 0; i < floor->members->len; i++)
+        {
+          const TrbMember *m = g_ptr_array_index (floor->members, i);
+          TrbFramePoint q;
+
+          if (m == options->skip)
+            continue;
+          q = nearest_on_segment (point, &m->start, &m->end);
+          consider (snap, &best_d, TRB_SNAP_ON_MEMBER, &q, m, point);
+        }
+      for (guint i = 0; i < floor->walls->len; i++)
+        {
+          const TrbWall *w = g_ptr_array_index (floor->walls, i);
+
+          for (guint k = 0; k + 1 < w->points->len; k++)
+            {
+              TrbFramePoint q = nearest_on_segment (point,
+                                                    &g_array_index (w->points, TrbFramePoint, k),
+                                                    &g_array_index (w->points, TrbFramePoint,
+                                                                    k + 1));
+
+              consider (snap, &best_d, TRB_SNAP_ON_WALL, &q, w, point);
+            }
+        }
+      if (snap->kind != TRB_SNAP_NONE)
+        return TRUE;
+    }
+
+  if (options->grid > 0 && isfinite (options->grid))
+    {
+      snap->kind = TRB_SNAP_GRID;
+      snap->point.x = round (point->x / options->grid) * options->grid;
+      snap->point.y = round (point->y / options->grid) * options->grid;
+      return TRUE;
+    }
+  return FALSE;
+}
+
 /* ---- groups ---------------------------------------------------------------------------------- */
 
 static void

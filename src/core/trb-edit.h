@@ -161,6 +161,40 @@ void            trb_edit_floor_item_free       (TrbFloorItemKind      kind,
 GPtrArray      *trb_edit_floor_items           (TrbFloor             *floor,
                                                 TrbFloorItemKind      kind);
 
+/* ---- snapping: where a point drawn on the plan lands ------------------------------------- */
+
+typedef enum
+{
+  TRB_SNAP_NONE,            /* the point as given */
+  TRB_SNAP_GRID,            /* an intersection of the drawing grid */
+  TRB_SNAP_GRID_CROSSING,   /* where two of the floor's grid lines cross */
+  TRB_SNAP_COLUMN,          /* a column's centre */
+  TRB_SNAP_END,             /* a member's end */
+  TRB_SNAP_ON_MEMBER,       /* the nearest point on a member's line */
+  TRB_SNAP_ON_WALL,         /* the nearest point on a wall */
+} TrbSnapKind;
+
+typedef struct
+{
+  double           grid;     /* drawing grid spacing, m; 0 for none */
+  gboolean         objects;  /* snap to columns, member ends, grid crossings, member and wall
+                              * lines */
+  double           radius;   /* m: how far from the point an object may be */
+  const TrbMember *skip;     /* a member not to snap to (the one being drawn or dragged) */
+} TrbSnapOptions;
+
+typedef struct
+{
+  TrbSnapKind    kind;
+  TrbFramePoint  point;
+  gconstpointer  object;     /* the TrbMember, TrbColumn or TrbWall; NULL otherwise */
+} TrbSnap;
+
+gboolean        trb_edit_snap                  (const TrbFloor       *floor,
+                                                const TrbFramePoint  *point,
+                                                const TrbSnapOptions *options,
+                                                TrbSnap              *snap);
+
 /* ---- history ----------------------------------------------------------------------------- */
 
 TrbEditHistory *trb_edit_history_new           (TrbProject           *project);
