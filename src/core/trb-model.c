@@ -445,6 +445,55 @@ trb_member_set_plan (TrbMember     *member,
   member->length = hypot (end.x - start.x, end.y - start.y);
 }
 
+/**
+ * trb_member_copy_design:
+ * @member: a member
+ * @template: the member to copy from
+ *
+ * Gives @member the material, section, custom properties and design attributes of
+ * @template; not its mark, place, role, group, supports, loads, braces or bearing points,
+ * which belong to one member.
+ */
+void
+trb_member_copy_design (TrbMember       *member,
+                        const TrbMember *template)
+{
+  g_return_if_fail (member != NULL && template != NULL);
+
+  member->material = template->material;
+  g_free (member->section);
+  member->section = g_strdup (template->section);
+  member->E = template->E;
+  member->I = template->I;
+  member->S = template->S;
+  member->A = template->A;
+  member->d = template->d;
+  member->tw = template->tw;
+  member->weight = template->weight;
+  member->has_method = template->has_method;
+  member->method = template->method;
+  member->fb_allow = template->fb_allow;
+  member->fv_allow = template->fv_allow;
+  g_free (member->steel_grade);
+  member->steel_grade = g_strdup (template->steel_grade);
+  member->deflection_live = template->deflection_live;
+  member->deflection_total = template->deflection_total;
+  member->bracing = template->bracing;
+  member->max_depth = template->max_depth;
+  member->min_depth = template->min_depth;
+  g_strfreev (member->allowed);
+  member->allowed = g_strdupv (template->allowed);
+  member->max_plies = template->max_plies;
+  g_free (member->species);
+  member->species = g_strdup (template->species);
+  g_free (member->grade);
+  member->grade = g_strdup (template->grade);
+  member->wet_service = template->wet_service;
+  member->incised = template->incised;
+  member->repetitive = template->repetitive;
+  member->bearing_length = template->bearing_length;
+}
+
 void
 trb_member_add_bearing_point (TrbMember     *member,
                               TrbFramePoint  point)

@@ -287,6 +287,8 @@ void         trb_member_set_role           (TrbMember         *member,
 void         trb_member_set_plan           (TrbMember         *member,
                                             TrbFramePoint      start,
                                             TrbFramePoint      end);
+void         trb_member_copy_design        (TrbMember         *member,
+                                            const TrbMember   *template);
 void         trb_member_add_bearing_point  (TrbMember         *member,
                                             TrbFramePoint      point);
 
