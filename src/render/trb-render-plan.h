@@ -86,6 +86,7 @@ TrbPlanScene          *trb_plan_scene_new            (const TrbProject        *p
                                                       const TrbProjectResult  *results);
 void                   trb_plan_scene_free           (TrbPlanScene            *scene);
 const TrbFloor        *trb_plan_scene_get_floor      (const TrbPlanScene      *scene);
+TrbUnitSystem          trb_plan_scene_get_units      (const TrbPlanScene      *scene);
 /* Everything drawn: grid lines, columns, walls, members and loads. */
 void                   trb_plan_scene_get_bounds     (const TrbPlanScene      *scene,
                                                       TrbPlanBounds           *bounds);

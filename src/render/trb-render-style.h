@@ -4,6 +4,7 @@
 
 #include <cairo.h>
 #include <glib.h>
+#include <pango/pangocairo.h>
 
 #include "trb-solve.h"
 
@@ -62,5 +63,39 @@ void            trb_render_case_color          (const TrbRenderStyle    *style,
 
 void            trb_render_set_color           (cairo_t                 *cr,
                                                 const TrbRgba           *color);
+
+/* Text. size is in device units; the layout has hinted metrics off, so a page measures the
+ * same on every surface (PDF, SVG, PNG and the screen). */
+PangoLayout    *trb_render_layout_new          (cairo_t                 *cr,
+                                                const TrbRenderStyle    *style,
+                                                double                   size,
+                                                gboolean                 bold,
+                                                const char              *text);
+/* Draws text with the point (ax, ay) of its box at (x, y): (0, 0) its top left, (0.5, 0.5)
+ * its centre, (1, 1) its bottom right. Returns its width; height is set when not NULL. */
+double          trb_render_text                (cairo_t                 *cr,
+                                                const TrbRenderStyle    *style,
+                                                const char              *text,
+                                                double                   size,
+                                                gboolean                 bold,
+                                                double                   x,
+                                                double                   y,
+                                                double                   ax,
+                                                double                   ay,
+                                                double                  *height);
+double          trb_render_text_width          (cairo_t                 *cr,
+                                                const TrbRenderStyle    *style,
+                                                const char              *text,
+                                                double                   size,
+                                                gboolean                 bold);
+/* Draws text wrapped to width; returns its height. */
+double          trb_render_text_wrapped        (cairo_t                 *cr,
+                                                const TrbRenderStyle    *style,
+                                                const char              *text,
+                                                double                   size,
+                                                gboolean                 bold,
+                                                double                   x,
+                                                double                   y,
+                                                double                   width);
 
 G_END_DECLS
