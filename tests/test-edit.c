@@ -156,6 +156,20 @@ dump_project (const TrbProject *p)
   return g_string_free (s, FALSE);
 }
 
+/* The project as the file format writes it (canonical and byte-stable). */
+static char *
+save_bytes (const TrbProject *p)
+{
+  g_autoptr(GError) error = NULL;
+  gsize length = 0;
+  char *data = trb_project_save_data (p, &length, &error);
+
+  g_assert_no_error (error);
+  g_assert_nonnull (data);
+  g_assert_cmpuint (strlen (data), ==, length);
+  return data;
+}
+
 static TrbProject *
 load_mezzanine (void)
 {
@@ -816,7 +830,9 @@ test_random_sequences (void)
       g_autoptr(TrbProject) p = load_mezzanine ();
       g_autoptr(TrbEditHistory) h = trb_edit_history_new (p);
       g_autofree char *original = dump_project (p);
+      g_autofree char *original_bytes = save_bytes (p);
       g_autofree char *edited = NULL;
+      g_autofree char *edited_bytes = NULL;
       guint counter = 0;
 
       for (guint step = 0; step < 80; step++)
@@ -859,19 +875,24 @@ test_random_sequences (void)
       while (trb_edit_history_redo (h))
         ;
       edited = dump_project (p);
+      edited_bytes = save_bytes (p);
       while (trb_edit_history_undo (h))
         ;
       {
         g_autofree char *undone = dump_project (p);
+        g_autofree char *undone_bytes = save_bytes (p);
 
         g_assert_cmpstr (undone, ==, original);
+        g_assert_cmpstr (undone_bytes, ==, original_bytes);
       }
       while (trb_edit_history_redo (h))
         ;
       {
         g_autofree char *redone = dump_project (p);
+        g_autofree char *redone_bytes = save_bytes (p);
 
         g_assert_cmpstr (redone, ==, edited);
+        g_assert_cmpstr (redone_bytes, ==, edited_bytes);
       }
       /* every tenth run, free the history with commands on both stacks */
       if (run % 10 == 0)
