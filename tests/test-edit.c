@@ -540,6 +540,48 @@ test_group (void)
   g_assert_true (trb_edit_history_redo (h));
   g_assert_nonnull (trb_project_find_member (p, "J6"));
 
+  /* the layout's joist run as one command: as many joists as its preview, from J7 on (J3 to J6
+   * are the run above), one undo step */
+  {
+    TrbMember *a = trb_project_find_member (p, "J1");
+    TrbMember *b = trb_project_find_member (p, "J2");
+    g_autofree char *now = dump_project (p);
+    g_autoptr(GArray) lines = NULL;
+    TrbJoistRunSpec spec;
+    guint n = p->members->len;
+    TrbEditCommand *c;
+
+    trb_joist_run_spec_init (&spec, 0.4064);
+    lines = trb_layout_preview (a, b, &spec, &error);
+    g_assert_no_error (error);
+    g_assert_cmpuint (lines->len, >, 1);
+    c = trb_edit_add_joist_run (p, floor, a, b, &spec, &error);
+    push_ok (h, c, error);
+    g_assert_cmpuint (p->members->len, ==, n + lines->len);
+    for (guint i = 0; i < lines->len; i++)
+      {
+        TrbMember *m = g_ptr_array_index (p->members, n + i);
+        const TrbLayoutLine *line = &g_array_index (lines, TrbLayoutLine, i);
+        g_autofree char *mark = g_strdup_printf ("J%u", 7 + i);
+
+        /* laid out in the preview's order, with consecutive marks */
+        g_assert_cmpstr (m->id, ==, mark);
+        g_assert_cmpint (m->role, ==, TRB_FRAME_ROLE_JOIST);
+        g_assert_cmpfloat (m->start.x, ==, line->start.x);
+        g_assert_cmpfloat (m->end.y, ==, line->end.y);
+        g_assert_true (g_ptr_array_index (floor->members, floor->members->len - lines->len + i)
+                       == m);
+      }
+    g_assert_true (trb_edit_history_undo (h));
+    {
+      g_autofree char *undone = dump_project (p);
+
+      g_assert_cmpstr (undone, ==, now);
+    }
+    g_assert_true (trb_edit_history_redo (h));
+    g_assert_true (trb_edit_history_undo (h));
+  }
+
   /* a cancelled group leaves nothing behind */
   {
     g_autofree char *now = dump_project (p);

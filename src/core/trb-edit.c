@@ -1844,6 +1844,104 @@ group_clear (TrbEditCommand *c)
 
 static const CommandClass group_class = { group_apply, group_revert, group_clear };
 
+static TrbEditCommand *
+group_new (TrbProject *project,
+           char       *label)
+{
+  TrbEditCommand *c = command_new (&group_class, project, label);
+
+  c->u.children = g_ptr_array_new ();
+  return c;
+}
+
+/**
+ * trb_edit_add_joist_run:
+ * @project: a project
+ * @floor: the floor of both supports
+ * @support_a: the member the joists start on
+ * @support_b: the member they end on, parallel to @support_a
+ * @spec: spacing, starting end, offset, template, group and mark prefix (trb-layout.h)
+ * @error: return location for a #GError
+ *
+ * The joists trb_layout_joist_run() would lay out, each an ordinary new member with the next
+ * free mark, as one command, so that the run is undone and redone in one step.
+ *
+ * Returns: (transfer full) (nullable): the command, or %NULL when the layout refuses the
+ *   supports or the spacing.
+ */
+TrbEditCommand *
+trb_edit_add_joist_run (TrbProject             *project,
+                        TrbFloor               *floor,
+                        const TrbMember        *support_a,
+                        const TrbMember        *support_b,
+                        const TrbJoistRunSpec  *spec,
+                        GError                **error)
+{
+  g_autoptr(GArray) lines = NULL;
+  g_autofree char *group = NULL;
+  g_autofree char *first = NULL;
+  g_autofree char *last = NULL;
+  TrbEditCommand *run;
+  const char *prefix;
+  guint counter = 0;
+
+  g_return_val_if_fail (project != NULL && floor != NULL && spec != NULL, NULL);
+  g_return_val_if_fail (support_a != NULL && support_b != NULL, NULL);
+  g_return_val_if_fail (error == NULL || *error == NULL, NULL);
+
+  if (!check_floor (project, floor, error))
+    return NULL;
+  if (support_a->floor != floor || support_b->floor != floor)
+    {
+      g_set_error (error, TRB_ERROR, TRB_ERROR_INVALID,
+                   "a joist run rests on two members of its own floor");
+      return NULL;
+    }
+  lines = trb_layout_preview (support_a, support_b, spec, error);
+  if (lines == NULL)
+    return NULL;
+  if (lines->len == 0)
+    {
+      g_set_error (error, TRB_ERROR, TRB_ERROR_INVALID, "no joist fits between %s and %s",
+                   mark_of (support_a), mark_of (support_b));
+      return NULL;
+    }
+
+  group = spec->group != NULL ? g_strdup (spec->group) : trb_layout_next_group (project);
+  prefix = spec->prefix != NULL ? spec->prefix : "J";
+  run = group_new (project, NULL);
+  for (guint i = 0; i < lines->len; i++)
+    {
+      const TrbLayoutLine *line = &g_array_index (lines, TrbLayoutLine, i);
+      g_autofree char *mark = trb_project_next_mark (project, prefix, &counter);
+      TrbMember *m = trb_member_new (mark);
+      TrbEditCommand *c;
+
+      if (spec->template != NULL)
+        trb_member_copy_design (m, spec->template);
+      trb_member_set_role (m, TRB_FRAME_ROLE_JOIST);
+      m->group = g_strdup (group);
+      trb_member_set_plan (m, line->start, line->end);
+      c = trb_edit_add_member (project, floor, m, error);
+      if (c == NULL)
+        {
+          trb_edit_command_free (run);
+          return NULL;
+        }
+      /* made before any of them is applied: each goes after the ones before it */
+      c->u.member.project_index += i;
+      c->u.member.floor_index += i;
+      g_ptr_array_add (run->u.children, c);
+      if (i == 0)
+        first = g_strdup (mark);
+      g_free (last);
+      last = g_strdup (mark);
+    }
+  run->label = lines->len == 1 ? g_strdup_printf ("Lay out joist %s", first)
+                               : g_strdup_printf ("Lay out joists %s to %s", first, last);
+  return run;
+}
+
 /* ---- history --------------------------------------------------------------------------------- */
 
 struct _TrbEditHistory
@@ -1974,8 +2072,7 @@ trb_edit_history_begin_group (TrbEditHistory *history,
   g_return_if_fail (history != NULL && label != NULL);
   g_return_if_fail (history->group == NULL);
 
-  history->group = command_new (&group_class, history->project, g_strdup (label));
-  history->group->u.children = g_ptr_array_new ();
+  history->group = group_new (history->project, g_strdup (label));
   /* the children are applied as they are pushed */
   history->group->applied = TRUE;
 }

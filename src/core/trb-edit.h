@@ -4,6 +4,7 @@
 
 #include <glib.h>
 
+#include "trb-layout.h"
 #include "trb-model.h"
 
 G_BEGIN_DECLS
@@ -147,6 +148,13 @@ TrbEditCommand *trb_edit_replace_floor_item    (TrbProject           *project,
                                                 TrbFloorItemKind      kind,
                                                 gpointer              old_item,
                                                 gpointer              new_item,
+                                                GError              **error);
+
+TrbEditCommand *trb_edit_add_joist_run         (TrbProject           *project,
+                                                TrbFloor             *floor,
+                                                const TrbMember      *support_a,
+                                                const TrbMember      *support_b,
+                                                const TrbJoistRunSpec *spec,
                                                 GError              **error);
 
 TrbEditCommand *trb_edit_set_settings          (TrbProject           *project,
