@@ -191,10 +191,12 @@ trb_beam_new (double              length,
     }
   qsort (sorted, n_supports, sizeof (TrbSupport), compare_supports);
 
-  /* merge supports at the same x; the stronger one wins */
+  /* merge supports at the same x; the stronger one wins. "The same" within the tolerance of
+   * the ends: "6 ft" and "72 in" differ in the last bit, and two supports that close made a
+   * stiffness matrix singular to rounding, with reactions of 1e16 kip. */
   for (guint i = 0; i < n_supports; i++)
     {
-      if (n > 0 && sorted[n - 1].x == sorted[i].x)
+      if (n > 0 && sorted[i].x - sorted[n - 1].x <= tol)
         {
           if (support_strength (sorted[i].type) > support_strength (sorted[n - 1].type))
             sorted[n - 1].type = sorted[i].type;
