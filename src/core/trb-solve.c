@@ -190,6 +190,74 @@ member_result_new (const TrbProject *project,
   return r;
 }
 
+static gboolean
+extremes_finite (const TrbBeamExtremes *e)
+{
+  return isfinite (e->V_max) && isfinite (e->V_min) && isfinite (e->M_max) &&
+         isfinite (e->M_min) && isfinite (e->defl_down) && isfinite (e->defl_up) &&
+         isfinite (e->V_max_x) && isfinite (e->V_min_x) && isfinite (e->M_max_x) &&
+         isfinite (e->M_min_x) && isfinite (e->defl_down_x) && isfinite (e->defl_up_x);
+}
+
+/* The reactions, and the values on both sides of every break: with the extremes, every
+ * number a reader of the result may ask for. */
+static gboolean
+beam_result_finite (const TrbBeamResult *res)
+{
+  const TrbReaction *reactions;
+  const double *breaks;
+  guint n;
+
+  reactions = trb_beam_result_get_reactions (res, &n);
+  for (guint i = 0; i < n; i++)
+    if (!isfinite (reactions[i].force) || !isfinite (reactions[i].moment))
+      return FALSE;
+  breaks = trb_beam_result_get_breaks (res, &n);
+  for (guint i = 0; i < n; i++)
+    for (int side = TRB_SIDE_LEFT; side <= TRB_SIDE_RIGHT; side++)
+      {
+        TrbBeamValues v;
+
+        trb_beam_result_eval (res, breaks[i], side, &v);
+        if (!isfinite (v.V) || !isfinite (v.M) || !isfinite (v.theta) || !isfinite (v.defl))
+          return FALSE;
+      }
+  return TRUE;
+}
+
+static gboolean
+combo_set_finite (const TrbComboSetResult *set)
+{
+  for (guint i = 0; i < set->entries->len; i++)
+    {
+      const TrbComboResult *c = &g_array_index (set->entries, TrbComboResult, i);
+
+      if (!extremes_finite (&c->ext) || !beam_result_finite (c->result))
+        return FALSE;
+    }
+  for (guint i = 0; i < set->envelope.reactions->len; i++)
+    {
+      const TrbReactionRange *rr = &g_array_index (set->envelope.reactions,
+                                                   TrbReactionRange, i);
+
+      if (!isfinite (rr->force_max) || !isfinite (rr->force_min) ||
+          !isfinite (rr->moment_max) || !isfinite (rr->moment_min))
+        return FALSE;
+    }
+  return set->envelope.empty || extremes_finite (&set->envelope.ext);
+}
+
+static gboolean
+analysis_finite (const TrbMemberResult *r)
+{
+  for (guint c = 0; c < TRB_N_CASES; c++)
+    if (r->cases[c] != NULL &&
+        (!beam_result_finite (r->cases[c]) || !extremes_finite (&r->case_ext[c])))
+      return FALSE;
+  return combo_set_finite (&r->strength) && combo_set_finite (&r->live) &&
+         combo_set_finite (&r->total);
+}
+
 static void G_GNUC_PRINTF (3, 4)
 set_status (TrbMemberResult *r,
             TrbStatus        status,
@@ -550,6 +618,15 @@ analyse (const TrbProject  *project,
   evaluate_set (r, &rr, &r->total);
   region_results_clear (&rr, r->regions->len);
 
+  /* Each length, load and stiffness may be finite and still overflow with the others (a span
+   * of 1e308 ft, an I of 1e-308 in4): such a member is in error, never a result of inf. */
+  if (!analysis_finite (r))
+    {
+      set_status (r, TRB_STATUS_ERROR, "the analysis overflows: the lengths, loads or section "
+                  "properties are out of any real range");
+      return FALSE;
+    }
+
   r->analysed = TRUE;
   return TRUE;
 }
@@ -616,6 +693,17 @@ finish_status (TrbMemberResult *r,
         {
           any_unchecked = TRUE;
           continue;
+        }
+      /* A finite analysis can still overflow in a check (a deflection near the largest double
+       * over a span ratio): out of range, not a failure with a ratio of inf. A zero capacity
+       * under a finite demand stays a failure (trb_check_set()). */
+      if (!isfinite (ck->demand) || !isfinite (ck->capacity) ||
+          (!isfinite (ck->ratio) && ck->capacity != 0))
+        {
+          set_status (r, TRB_STATUS_ERROR, "the %s check overflows: the lengths, loads or "
+                      "section properties are out of any real range", ck->name);
+          r->ratio = NAN;
+          return;
         }
       if (ck->ratio > 1)
         any_fail = TRUE;
