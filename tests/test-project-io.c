@@ -5,8 +5,11 @@
 
 #include <glib/gstdio.h>
 #include <math.h>
+#include <signal.h>
 #include <stdlib.h>
 #include <string.h>
+#include <sys/resource.h>
+#include <unistd.h>
 
 #include "trb-error.h"
 #include "trb-model.h"
@@ -252,6 +255,806 @@ test_size_limit (void)
   g_assert_nonnull (strstr (error->message, "big.trabeate: the file is larger than 64 MiB"));
 }
 
+static const TrbFramePoint *
+point_at (const GArray *points,
+          guint         i)
+{
+  g_assert_cmpuint (i, <, points->len);
+  return &g_array_index (points, TrbFramePoint, i);
+}
+
+static void
+assert_point (const TrbFramePoint *p,
+              double               x,
+              double               y)
+{
+  assert_si (p->x, x);
+  assert_si (p->y, y);
+}
+
+/* The floor sample: every element of a floor, each value its text times the exact factors
+ * (NIST SP 811 Appendix B, via trb-units.h): 1 ft = 0.3048 m, 1 in = 0.0254 m,
+ * 1 psf = 4.4482216152605 N / 0.3048^2 m^2, 1 kip = 4448.2216152605 N, 1 kPa = 1000 Pa. */
+static void
+test_floor (void)
+{
+  g_autofree char *path = g_test_build_filename (G_TEST_DIST, "data", "floor-mezzanine.trabeate",
+                                                 NULL);
+  g_autoptr(GError) error = NULL;
+  g_autoptr(TrbProject) p = trb_project_load_file (path, &error);
+  const TrbFloor *f;
+  const TrbGridLine *g;
+  const TrbColumn *c;
+  const TrbWall *w;
+  const TrbMember *g1, *j1, *j2, *b1;
+  const TrbAreaLoad *a;
+  const TrbOpening *o;
+  const TrbLineLoad *ll;
+  const TrbPointLoad *pl;
+
+  g_assert_no_error (error);
+  g_assert_true (p->settings.live_load_reduction);
+  g_assert_cmpint (p->settings.floors_above, ==, 2);
+
+  g_assert_cmpuint (p->floors->len, ==, 1);
+  f = g_ptr_array_index (p->floors, 0);
+  g_assert_true (trb_project_find_floor (p, "Mezzanine") == f);
+  g_assert_cmpstr (f->name, ==, "Mezzanine");
+  g_assert_cmpint (f->line, ==, 11);
+
+  g_assert_cmpuint (f->grids->len, ==, 2);
+  g = g_ptr_array_index (f->grids, 0);
+  g_assert_cmpstr (g->name, ==, "A");
+  assert_point (&g->start, 0, -5 * TRB_FT);
+  assert_point (&g->end, 0, 35 * TRB_FT);
+  g_assert_cmpint (g->line, ==, 12);
+  g_assert_true (trb_floor_find_grid (f, "1") == g_ptr_array_index (f->grids, 1));
+
+  g_assert_cmpuint (f->columns->len, ==, 2);
+  c = trb_project_find_column (p, "C1", NULL);
+  g_assert_true (c == g_ptr_array_index (f->columns, 0));
+  assert_point (&c->at, 0, 0);
+  g_assert_cmpstr (c->section, ==, "HSS6X6X1/4");
+  c = trb_floor_find_column (f, "C2");
+  assert_point (&c->at, 0, 30 * TRB_FT);
+  g_assert_null (c->section);
+  g_assert_cmpint (c->line, ==, 15);
+
+  g_assert_cmpuint (f->walls->len, ==, 1);
+  w = trb_project_find_wall (p, "W1", NULL);
+  g_assert_cmpstr (w->material, ==, "masonry");
+  g_assert_cmpuint (w->points->len, ==, 2);
+  assert_point (point_at (w->points, 0), 25 * TRB_FT, -1 * TRB_FT);
+  assert_point (point_at (w->points, 1), 25 * TRB_FT, 31 * TRB_FT);
+  g_assert_cmpint (w->line, ==, 16);
+
+  /* every member in the project's array, in file order; the floor's are its own */
+  g_assert_cmpuint (p->members->len, ==, 4);
+  g_assert_cmpuint (f->members->len, ==, 3);
+  b1 = g_ptr_array_index (p->members, 0);
+  g_assert_cmpstr (b1->id, ==, "B1");
+  g_assert_null (b1->floor);
+  g1 = trb_project_find_member (p, "G1");
+  j1 = trb_project_find_member (p, "J1");
+  j2 = trb_project_find_member (p, "J2");
+  g_assert_true (g_ptr_array_index (f->members, 0) == g1);
+  g_assert_true (g_ptr_array_index (f->members, 2) == j2);
+
+  g_assert_true (g1->floor == f);
+  g_assert_cmpint (g1->role, ==, TRB_FRAME_ROLE_GIRDER);
+  g_assert_false (g1->carries_deck);        /* a girder's default */
+  assert_point (&g1->start, 0, 0);
+  assert_point (&g1->end, 0, 30 * TRB_FT);
+  assert_si (g1->length, 30 * TRB_FT);
+  g_assert_cmpint (g1->line, ==, 20);
+  g_assert_true (trb_member_is_auto (g1));
+  assert_si (g1->max_depth, 18 * TRB_IN);
+  g_assert_cmpstr (g1->steel_grade, ==, "A572 Gr 50");
+  g_assert_null (g1->group);
+  g_assert_cmpuint (g1->bearing_points->len, ==, 1);
+  assert_point (point_at (g1->bearing_points, 0), 0, 15 * TRB_FT);
+
+  g_assert_cmpint (j1->role, ==, TRB_FRAME_ROLE_JOIST);
+  g_assert_true (j1->carries_deck);         /* a joist's default */
+  g_assert_cmpstr (j1->group, ==, "R1");
+  /* the length comes from the plan; the 300 in given agrees with it */
+  assert_si (j1->length, 25 * TRB_FT);
+  g_assert_cmpint (j1->material, ==, TRB_MATERIAL_WOOD);
+  g_assert_true (j1->repetitive);
+  g_assert_cmpuint (j1->loads->len, ==, 1);
+  assert_si (load_at (j1, 0)->load.a, 12 * TRB_FT + 6 * TRB_IN);
+  assert_si (load_at (j1, 0)->load.w1, 500 * TRB_LBF);
+  g_assert_cmpint (load_at (j1, 0)->line, ==, 27);
+  /* a brace on a member with no bracing attribute: braced at points */
+  g_assert_cmpint (j1->bracing, ==, TRB_BRACING_POINTS);
+  assert_si (g_array_index (j1->braces, TrbMemberBrace, 0).x, 12.5 * TRB_FT);
+
+  g_assert_false (j2->carries_deck);        /* deck="no" */
+  assert_point (&j2->end, 7.62, 20 * TRB_FT);
+  assert_si (j2->length, 7.62);
+  g_assert_cmpuint (j2->supports->len, ==, 1);
+
+  g_assert_cmpuint (f->area_loads->len, ==, 2);
+  a = g_ptr_array_index (f->area_loads, 0);
+  g_assert_cmpint (a->lcase, ==, TRB_CASE_D);
+  g_assert_cmpint (a->kind, ==, TRB_AREA_LOAD_ORDINARY);
+  assert_si (a->pressure, 15 * TRB_PSF);
+  g_assert_cmpstr (a->label, ==, "deck and finishes");
+  g_assert_null (a->occupancy);
+  g_assert_cmpuint (a->points->len, ==, 4);
+  assert_point (point_at (a->points, 2), 25 * TRB_FT, 30 * TRB_FT);
+  g_assert_cmpint (a->line, ==, 34);
+  a = g_ptr_array_index (f->area_loads, 1);
+  g_assert_cmpint (a->lcase, ==, TRB_CASE_L);
+  g_assert_cmpint (a->kind, ==, TRB_AREA_LOAD_PARTITION);
+  assert_si (a->pressure, 720);
+  g_assert_null (a->label);
+  g_assert_cmpstr (a->occupancy, ==, "office");
+  g_assert_cmpuint (a->points->len, ==, 3);
+
+  g_assert_cmpuint (f->openings->len, ==, 1);
+  o = g_ptr_array_index (f->openings, 0);
+  g_assert_cmpuint (o->points->len, ==, 3);
+  assert_point (point_at (o->points, 2), 6 * TRB_FT, 6 * TRB_FT);
+  g_assert_cmpint (o->line, ==, 45);
+
+  g_assert_cmpuint (f->line_loads->len, ==, 1);
+  ll = g_ptr_array_index (f->line_loads, 0);
+  g_assert_cmpint (ll->lcase, ==, TRB_CASE_D);
+  assert_si (ll->w, 0.4 * TRB_KLF);
+  g_assert_cmpstr (ll->label, ==, "guard rail");
+  assert_point (point_at (ll->points, 1), 25 * TRB_FT, 30 * TRB_FT);
+
+  g_assert_cmpuint (f->point_loads->len, ==, 1);
+  pl = g_ptr_array_index (f->point_loads, 0);
+  g_assert_cmpint (pl->lcase, ==, TRB_CASE_L);
+  assert_si (pl->P, 2 * TRB_KIP);
+  assert_point (&pl->at, 12 * TRB_FT + 6 * TRB_IN, 10 * TRB_FT);
+  g_assert_cmpstr (pl->label, ==, "hoist");
+  g_assert_cmpint (pl->line, ==, 54);
+}
+
+/* New settings, absent: the documented defaults (live load reduction off: the engineer's
+ * call; no floors above). */
+static void
+test_settings_defaults (void)
+{
+  const char *text = "<trabeate-project format=\"1\"><settings/></trabeate-project>";
+  g_autoptr(GError) error = NULL;
+  g_autoptr(TrbProject) p = trb_project_load_data (text, strlen (text), "s", &error);
+
+  g_assert_no_error (error);
+  g_assert_false (p->settings.live_load_reduction);
+  g_assert_cmpint (p->settings.floors_above, ==, 0);
+  g_assert_cmpuint (p->floors->len, ==, 0);
+}
+
+/* ---- equality of two models, every field but the file lines ---- */
+
+static void
+assert_same_double (double a,
+                    double b)
+{
+  /* bit for bit, NaN equal to NaN (an unset attribute) */
+  if (isnan (a) && isnan (b))
+    return;
+  g_assert_cmpfloat (a, ==, b);
+}
+
+static void
+assert_same_points (const GArray *a,
+                    const GArray *b)
+{
+  g_assert_cmpuint (a->len, ==, b->len);
+  for (guint i = 0; i < a->len; i++)
+    {
+      assert_same_double (point_at (a, i)->x, point_at (b, i)->x);
+      assert_same_double (point_at (a, i)->y, point_at (b, i)->y);
+    }
+}
+
+static void
+assert_same_member (const TrbMember *a,
+                    const TrbMember *b)
+{
+  g_assert_cmpstr (a->id, ==, b->id);
+  assert_same_double (a->length, b->length);
+  g_assert_cmpint (a->material, ==, b->material);
+  g_assert_cmpstr (a->section, ==, b->section);
+  assert_same_double (a->E, b->E);
+  assert_same_double (a->I, b->I);
+  assert_same_double (a->S, b->S);
+  assert_same_double (a->A, b->A);
+  assert_same_double (a->d, b->d);
+  assert_same_double (a->tw, b->tw);
+  assert_same_double (a->weight, b->weight);
+  g_assert_cmpuint (a->supports->len, ==, b->supports->len);
+  for (guint i = 0; i < a->supports->len; i++)
+    {
+      const TrbMemberSupport *sa = &g_array_index (a->supports, TrbMemberSupport, i);
+      const TrbMemberSupport *sb = &g_array_index (b->supports, TrbMemberSupport, i);
+
+      g_assert_cmpint (sa->support.type, ==, sb->support.type);
+      assert_same_double (sa->support.x, sb->support.x);
+    }
+  g_assert_cmpuint (a->loads->len, ==, b->loads->len);
+  for (guint i = 0; i < a->loads->len; i++)
+    {
+      const TrbMemberLoad *la = load_at (a, i);
+      const TrbMemberLoad *lb = load_at (b, i);
+
+      g_assert_cmpint (la->lcase, ==, lb->lcase);
+      g_assert_cmpint (la->load.kind, ==, lb->load.kind);
+      assert_same_double (la->load.a, lb->load.a);
+      assert_same_double (la->load.b, lb->load.b);
+      assert_same_double (la->load.w1, lb->load.w1);
+      assert_same_double (la->load.w2, lb->load.w2);
+    }
+  g_assert_cmpint (a->has_method, ==, b->has_method);
+  if (a->has_method)
+    g_assert_cmpint (a->method, ==, b->method);
+  assert_same_double (a->fb_allow, b->fb_allow);
+  assert_same_double (a->fv_allow, b->fv_allow);
+  g_assert_cmpstr (a->steel_grade, ==, b->steel_grade);
+  assert_same_double (a->deflection_live, b->deflection_live);
+  assert_same_double (a->deflection_total, b->deflection_total);
+  g_assert_cmpint (a->bracing, ==, b->bracing);
+  g_assert_cmpuint (a->braces->len, ==, b->braces->len);
+  for (guint i = 0; i < a->braces->len; i++)
+    assert_same_double (g_array_index (a->braces, TrbMemberBrace, i).x,
+                        g_array_index (b->braces, TrbMemberBrace, i).x);
+  assert_same_double (a->max_depth, b->max_depth);
+  assert_same_double (a->min_depth, b->min_depth);
+  g_assert_cmpint (a->allowed == NULL, ==, b->allowed == NULL);
+  if (a->allowed != NULL)
+    g_assert_true (g_strv_equal ((const char * const *) a->allowed,
+                                 (const char * const *) b->allowed));
+  g_assert_cmpint (a->max_plies, ==, b->max_plies);
+  g_assert_cmpstr (a->species, ==, b->species);
+  g_assert_cmpstr (a->grade, ==, b->grade);
+  g_assert_cmpint (a->wet_service, ==, b->wet_service);
+  g_assert_cmpint (a->incised, ==, b->incised);
+  g_assert_cmpint (a->repetitive, ==, b->repetitive);
+  assert_same_double (a->bearing_length, b->bearing_length);
+
+  g_assert_cmpint (a->floor == NULL, ==, b->floor == NULL);
+  if (a->floor != NULL)
+    g_assert_cmpstr (a->floor->name, ==, b->floor->name);
+  assert_same_double (a->start.x, b->start.x);
+  assert_same_double (a->start.y, b->start.y);
+  assert_same_double (a->end.x, b->end.x);
+  assert_same_double (a->end.y, b->end.y);
+  g_assert_cmpint (a->role, ==, b->role);
+  g_assert_cmpint (a->carries_deck, ==, b->carries_deck);
+  g_assert_cmpstr (a->group, ==, b->group);
+  assert_same_points (a->bearing_points, b->bearing_points);
+}
+
+static void
+assert_same_floor (const TrbFloor *a,
+                   const TrbFloor *b)
+{
+  g_assert_cmpstr (a->name, ==, b->name);
+  g_assert_cmpuint (a->grids->len, ==, b->grids->len);
+  for (guint i = 0; i < a->grids->len; i++)
+    {
+      const TrbGridLine *ga = g_ptr_array_index (a->grids, i);
+      const TrbGridLine *gb = g_ptr_array_index (b->grids, i);
+
+      g_assert_cmpstr (ga->name, ==, gb->name);
+      assert_same_double (ga->start.x, gb->start.x);
+      assert_same_double (ga->start.y, gb->start.y);
+      assert_same_double (ga->end.x, gb->end.x);
+      assert_same_double (ga->end.y, gb->end.y);
+    }
+  g_assert_cmpuint (a->columns->len, ==, b->columns->len);
+  for (guint i = 0; i < a->columns->len; i++)
+    {
+      const TrbColumn *ca = g_ptr_array_index (a->columns, i);
+      const TrbColumn *cb = g_ptr_array_index (b->columns, i);
+
+      g_assert_cmpstr (ca->id, ==, cb->id);
+      g_assert_cmpstr (ca->section, ==, cb->section);
+      assert_same_double (ca->at.x, cb->at.x);
+      assert_same_double (ca->at.y, cb->at.y);
+    }
+  g_assert_cmpuint (a->walls->len, ==, b->walls->len);
+  for (guint i = 0; i < a->walls->len; i++)
+    {
+      const TrbWall *wa = g_ptr_array_index (a->walls, i);
+      const TrbWall *wb = g_ptr_array_index (b->walls, i);
+
+      g_assert_cmpstr (wa->id, ==, wb->id);
+      g_assert_cmpstr (wa->material, ==, wb->material);
+      assert_same_points (wa->points, wb->points);
+    }
+  g_assert_cmpuint (a->members->len, ==, b->members->len);
+  for (guint i = 0; i < a->members->len; i++)
+    g_assert_cmpstr (((TrbMember *) g_ptr_array_index (a->members, i))->id, ==,
+                     ((TrbMember *) g_ptr_array_index (b->members, i))->id);
+  g_assert_cmpuint (a->area_loads->len, ==, b->area_loads->len);
+  for (guint i = 0; i < a->area_loads->len; i++)
+    {
+      const TrbAreaLoad *la = g_ptr_array_index (a->area_loads, i);
+      const TrbAreaLoad *lb = g_ptr_array_index (b->area_loads, i);
+
+      g_assert_cmpint (la->lcase, ==, lb->lcase);
+      g_assert_cmpint (la->kind, ==, lb->kind);
+      assert_same_double (la->pressure, lb->pressure);
+      g_assert_cmpstr (la->label, ==, lb->label);
+      g_assert_cmpstr (la->occupancy, ==, lb->occupancy);
+      assert_same_points (la->points, lb->points);
+    }
+  g_assert_cmpuint (a->openings->len, ==, b->openings->len);
+  for (guint i = 0; i < a->openings->len; i++)
+    assert_same_points (((TrbOpening *) g_ptr_array_index (a->openings, i))->points,
+                        ((TrbOpening *) g_ptr_array_index (b->openings, i))->points);
+  g_assert_cmpuint (a->line_loads->len, ==, b->line_loads->len);
+  for (guint i = 0; i < a->line_loads->len; i++)
+    {
+      const TrbLineLoad *la = g_ptr_array_index (a->line_loads, i);
+      const TrbLineLoad *lb = g_ptr_array_index (b->line_loads, i);
+
+      g_assert_cmpint (la->lcase, ==, lb->lcase);
+      assert_same_double (la->w, lb->w);
+      g_assert_cmpstr (la->label, ==, lb->label);
+      assert_same_points (la->points, lb->points);
+    }
+  g_assert_cmpuint (a->point_loads->len, ==, b->point_loads->len);
+  for (guint i = 0; i < a->point_loads->len; i++)
+    {
+      const TrbPointLoad *la = g_ptr_array_index (a->point_loads, i);
+      const TrbPointLoad *lb = g_ptr_array_index (b->point_loads, i);
+
+      g_assert_cmpint (la->lcase, ==, lb->lcase);
+      assert_same_double (la->P, lb->P);
+      g_assert_cmpstr (la->label, ==, lb->label);
+      assert_same_double (la->at.x, lb->at.x);
+      assert_same_double (la->at.y, lb->at.y);
+    }
+}
+
+/* Two models equal in every field but file lines and display names. Members are matched by
+ * mark: saving writes the standalone beams before the floors. */
+static void
+assert_same_project (const TrbProject *a,
+                     const TrbProject *b)
+{
+  const TrbSettings *sa = &a->settings, *sb = &b->settings;
+
+  g_assert_cmpint (a->format, ==, b->format);
+  g_assert_cmpint (sa->method, ==, sb->method);
+  assert_same_double (sa->fb_allow, sb->fb_allow);
+  assert_same_double (sa->fv_allow, sb->fv_allow);
+  g_assert_cmpstr (sa->steel_grade, ==, sb->steel_grade);
+  g_assert_cmpint (sa->self_weight, ==, sb->self_weight);
+  g_assert_cmpint (sa->live_patterns, ==, sb->live_patterns);
+  assert_same_double (sa->deflection_live, sb->deflection_live);
+  assert_same_double (sa->deflection_total, sb->deflection_total);
+  g_assert_cmpint (sa->units, ==, sb->units);
+  g_assert_cmpint (sa->live_load_reduction, ==, sb->live_load_reduction);
+  g_assert_cmpint (sa->floors_above, ==, sb->floors_above);
+
+  g_assert_cmpuint (a->sections_sources->len, ==, b->sections_sources->len);
+  for (guint i = 0; i < a->sections_sources->len; i++)
+    {
+      const TrbSectionsSource *xa = g_ptr_array_index (a->sections_sources, i);
+      const TrbSectionsSource *xb = g_ptr_array_index (b->sections_sources, i);
+
+      g_assert_cmpstr (xa->file, ==, xb->file);
+      g_assert_cmpstr (xa->csv, ==, xb->csv);
+    }
+  g_assert_cmpint (a->sections == NULL, ==, b->sections == NULL);
+
+  g_assert_cmpuint (a->members->len, ==, b->members->len);
+  for (guint i = 0; i < a->members->len; i++)
+    {
+      const TrbMember *ma = g_ptr_array_index (a->members, i);
+      const TrbMember *mb = trb_project_find_member (b, ma->id);
+
+      g_assert_nonnull (mb);
+      assert_same_member (ma, mb);
+    }
+  g_assert_cmpuint (a->floors->len, ==, b->floors->len);
+  for (guint i = 0; i < a->floors->len; i++)
+    assert_same_floor (g_ptr_array_index (a->floors, i), g_ptr_array_index (b->floors, i));
+}
+
+/* load -> save -> load -> save: the same bytes twice, the same model three times, and the
+ * saved text within the schema. */
+static void
+test_round_trip (gconstpointer data)
+{
+  const char *path = data;
+  g_autoptr(GError) error = NULL;
+  g_autoptr(TrbProject) first = trb_project_load_file (path, &error);
+  g_autoptr(TrbProject) second = NULL;
+  g_autoptr(TrbProject) third = NULL;
+  g_autofree char *saved1 = NULL;
+  g_autofree char *saved2 = NULL;
+  gsize n1, n2;
+
+  g_assert_no_error (error);
+  saved1 = trb_project_save_data (first, &n1, &error);
+  g_assert_no_error (error);
+  g_assert_cmpuint (strlen (saved1), ==, n1);
+  g_assert_true (trb_project_check_schema (saved1, n1, "saved", &error));
+  g_assert_no_error (error);
+
+  second = trb_project_load_data (saved1, n1, "saved", &error);
+  g_assert_no_error (error);
+  assert_same_project (first, second);
+  saved2 = trb_project_save_data (second, &n2, &error);
+  g_assert_no_error (error);
+  g_assert_cmpmem (saved1, n1, saved2, n2);
+
+  third = trb_project_load_data (saved2, n2, "saved again", &error);
+  g_assert_no_error (error);
+  assert_same_project (first, third);
+}
+
+/* The layout the saver promises: declaration, 2-space indent, one element per line, the
+ * fixed attribute order, the project's units; comments are not kept. 312 in stays 312 in: as
+ * doubles, 312 x 0.0254 falls one bit short of 26 x 0.3048, and "26 ft" would not read back
+ * to it; "350 lb/ft" = 0.35 kip/ft exactly, and "0.35 kip/ft" has fewer digits. */
+static void
+test_save_layout (void)
+{
+  const char *text =
+    "<!-- a comment -->\n"
+    "<trabeate-project format=\"1\">\n"
+    "  <beam material=\"steel\" length=\"26 ft\" id=\"B1\"><!-- another -->\n"
+    "    <load w=\"350 lb/ft\" to=\"26 ft\" from=\"0 ft\" type=\"uniform\" case=\"D\"/>\n"
+    "    <support type=\"pin\" at=\"0 in\"/><support type=\"roller\" at=\"312 in\"/>\n"
+    "  </beam>\n"
+    "</trabeate-project>\n";
+  const char *expected =
+    "<?xml version=\"1.0\" encoding=\"UTF-8\"?>\n"
+    "<trabeate-project format=\"1\">\n"
+    "  <settings method=\"asd\" steel-grade=\"A992\" self-weight=\"include\" "
+    "live-patterns=\"on\" deflection-live=\"L/360\" deflection-total=\"L/240\" units=\"us\" "
+    "live-load-reduction=\"off\" floors-above=\"0\"/>\n"
+    "  <beam id=\"B1\" length=\"26 ft\" material=\"steel\" section=\"auto\">\n"
+    "    <support at=\"0 ft\" type=\"pin\"/>\n"
+    "    <support at=\"312 in\" type=\"roller\"/>\n"
+    "    <load case=\"D\" type=\"uniform\" from=\"0 ft\" to=\"26 ft\" w=\"0.35 kip/ft\"/>\n"
+    "  </beam>\n"
+    "</trabeate-project>\n";
+  g_autoptr(GError) error = NULL;
+  g_autoptr(TrbProject) p = trb_project_load_data (text, strlen (text), "t", &error);
+  g_autofree char *saved = NULL;
+
+  g_assert_no_error (error);
+  saved = trb_project_save_data (p, NULL, &error);
+  g_assert_no_error (error);
+  g_assert_cmpstr (saved, ==, expected);
+}
+
+/* Text that XML would otherwise change on reading: quotes, ampersands, angle brackets, tabs
+ * and line feeds in a label survive a round trip. */
+static void
+test_save_escapes (void)
+{
+  g_autoptr(TrbProject) p = trb_project_new ();
+  TrbFloor *f = trb_floor_new ("A & B <\"main\">");
+  TrbPointLoad *pl = trb_point_load_new (TRB_CASE_L, 1000, (TrbFramePoint) { 1, 2 },
+                                         "line 1\nline 2\ttab & \"quote\" <x>");
+  g_autoptr(TrbProject) q = NULL;
+  g_autoptr(GError) error = NULL;
+  g_autofree char *saved = NULL;
+  gsize n;
+
+  trb_project_add_floor (p, f);
+  g_ptr_array_add (f->point_loads, pl);
+  saved = trb_project_save_data (p, &n, &error);
+  g_assert_no_error (error);
+  q = trb_project_load_data (saved, n, "escapes", &error);
+  g_assert_no_error (error);
+  assert_same_project (p, q);
+}
+
+/* A model holding a number that is not finite cannot be saved, and says where. */
+static void
+test_save_not_finite (void)
+{
+  g_autoptr(TrbProject) p = trb_project_new ();
+  TrbMember *m = trb_member_new ("B7");
+  g_autoptr(GError) error = NULL;
+  g_autofree char *saved = NULL;
+
+  m->length = INFINITY;
+  trb_project_add_member (p, m);
+  saved = trb_project_save_data (p, NULL, &error);
+  g_assert_null (saved);
+  g_assert_error (error, TRB_ERROR, TRB_ERROR_INVALID);
+  g_assert_cmpstr (error->message, ==, "beam \"B7\": \"length\" is not a finite number");
+}
+
+/* Random values in every dimension, both unit systems, and values on a grid of round numbers
+ * in each unit: each saves to a text that reads back to exactly the same double, and saving
+ * again gives the same bytes. */
+static void
+test_save_random_values (void)
+{
+  static const TrbDimension dims[] = {
+    TRB_DIM_LENGTH, TRB_DIM_FORCE, TRB_DIM_LINE_LOAD, TRB_DIM_AREA_LOAD, TRB_DIM_MOMENT,
+  };
+  static const double round[] = {
+    TRB_FT, TRB_IN, TRB_KIP, TRB_LBF, TRB_KLF, TRB_PLF, TRB_PSF, TRB_KIP_FT, 1, 1e-3, 1e3,
+  };
+
+  for (int system = 0; system < 2; system++)
+    for (int round_trip = 0; round_trip < 400; round_trip++)
+      {
+        g_autoptr(TrbProject) p = trb_project_new ();
+        g_autoptr(TrbProject) q = NULL;
+        TrbFloor *f = trb_floor_new ("R");
+        TrbMember *m = trb_member_new ("M");
+        TrbMemberLoad l = { TRB_CASE_L, { 0 }, 0 };
+        g_autoptr(GError) error = NULL;
+        g_autofree char *s1 = NULL;
+        g_autofree char *s2 = NULL;
+        gsize n1, n2;
+        double v[6];
+
+        p->settings.units = system == 0 ? TRB_UNIT_SYSTEM_US : TRB_UNIT_SYSTEM_SI;
+        for (guint i = 0; i < G_N_ELEMENTS (v); i++)
+          {
+            /* half random doubles over many magnitudes, half round numbers of a unit */
+            if (round_trip % 2 == 0)
+              v[i] = g_test_rand_double_range (-1, 1) * pow (10, g_test_rand_int_range (-3, 7));
+            else
+              v[i] = g_test_rand_int_range (-2000, 2000) / 8.0 *
+                     round[g_test_rand_int_range (0, G_N_ELEMENTS (round))];
+          }
+        trb_project_add_floor (p, f);
+        trb_member_set_plan (m, (TrbFramePoint) { v[0], v[1] },
+                             (TrbFramePoint) { v[0] + fabs (v[2]) + 1, v[1] });
+        l.load.kind = TRB_LOAD_POINT;
+        l.load.a = l.load.b = 0.5;
+        l.load.w1 = v[3];
+        g_array_append_val (m->loads, l);
+        trb_floor_add_member (p, f, m);
+        g_ptr_array_add (f->area_loads,
+                         trb_area_load_new (TRB_CASE_D, TRB_AREA_LOAD_ORDINARY, v[4], NULL,
+                                            NULL));
+        for (int k = 0; k < 3; k++)
+          trb_points_append (((TrbAreaLoad *) g_ptr_array_index (f->area_loads, 0))->points,
+                             v[k], v[(k + 5) % 6]);
+        g_ptr_array_add (f->line_loads, trb_line_load_new (TRB_CASE_S, v[5], NULL));
+        trb_points_append (((TrbLineLoad *) g_ptr_array_index (f->line_loads, 0))->points,
+                           v[5], v[4]);
+        trb_points_append (((TrbLineLoad *) g_ptr_array_index (f->line_loads, 0))->points,
+                           v[3], v[2]);
+        g_ptr_array_add (f->point_loads, trb_point_load_new (TRB_CASE_D, v[2] * 1e3,
+                                                             (TrbFramePoint) { v[1], v[0] },
+                                                             NULL));
+
+        s1 = trb_project_save_data (p, &n1, &error);
+        g_assert_no_error (error);
+        q = trb_project_load_data (s1, n1, "random", &error);
+        g_assert_no_error (error);
+        assert_same_project (p, q);
+        s2 = trb_project_save_data (q, &n2, &error);
+        g_assert_no_error (error);
+        g_assert_cmpmem (s1, n1, s2, n2);
+      }
+  (void) dims;
+}
+
+static char *
+read_all (const char *path,
+          gsize      *n)
+{
+  char *text = NULL;
+
+  g_assert_true (g_file_get_contents (path, &text, n, NULL));
+  return text;
+}
+
+static guint
+count_files (const char *dir)
+{
+  g_autoptr(GDir) d = g_dir_open (dir, 0, NULL);
+  guint n = 0;
+
+  g_assert_nonnull (d);
+  while (g_dir_read_name (d) != NULL)
+    n++;
+  return n;
+}
+
+/* Saving writes a new file beside the old and renames it over: a save that fails part way
+ * leaves the old file whole and no stray file; a folder that is not there is an error naming
+ * the file; a good save keeps the file's permissions. */
+static void
+test_save_atomic (void)
+{
+  g_autofree char *src = g_test_build_filename (G_TEST_DIST, "data", "floor-two-levels.trabeate",
+                                                NULL);
+  g_autofree char *dir = g_dir_make_tmp ("trb-save-XXXXXX", NULL);
+  g_autofree char *path = g_build_filename (dir, "plan.trabeate", NULL);
+  g_autofree char *gone = g_build_filename (dir, "gone", "plan.trabeate", NULL);
+  g_autoptr(GError) error = NULL;
+  g_autoptr(TrbProject) p = trb_project_load_file (src, &error);
+  g_autoptr(TrbProject) big = trb_project_new ();
+  g_autofree char *expected = NULL;
+  g_autofree char *before = NULL;
+  g_autofree char *after = NULL;
+  gsize n_expected, n_before, n_after;
+  struct rlimit old_limit, limit;
+  GStatBuf st;
+  gboolean ok;
+
+  g_assert_no_error (error);
+
+  /* a good save: the bytes of trb_project_save_data(), and the permissions kept */
+  g_assert_true (trb_project_save_file (p, path, &error));
+  g_assert_no_error (error);
+  expected = trb_project_save_data (p, &n_expected, &error);
+  before = read_all (path, &n_before);
+  g_assert_cmpmem (expected, n_expected, before, n_before);
+  g_assert_cmpint (g_chmod (path, 0640), ==, 0);
+  g_assert_true (trb_project_save_file (p, path, &error));
+  g_assert_cmpint (g_stat (path, &st), ==, 0);
+  g_assert_cmpint (st.st_mode & 0777, ==, 0640);
+  g_assert_cmpuint (count_files (dir), ==, 1);
+
+  /* a folder that is not there */
+  ok = trb_project_save_file (p, gone, &error);
+  g_assert_false (ok);
+  g_assert_error (error, TRB_ERROR, TRB_ERROR_IO);
+  g_assert_true (g_str_has_prefix (error->message, gone));
+  g_assert_nonnull (strstr (error->message, ": cannot save: "));
+  g_clear_error (&error);
+
+  /* A write that fails part way over the existing file. The file size limit makes the write
+   * fail for any user, root included (who may write into a read-only folder): 100 members
+   * take well over the 4 KiB allowed. */
+  for (int i = 0; i < 100; i++)
+    {
+      g_autofree char *id = g_strdup_printf ("B%d", i);
+      TrbMember *m = trb_member_new (id);
+
+      m->length = 3 + i;
+      trb_project_add_member (big, m);
+    }
+  g_assert_cmpint (getrlimit (RLIMIT_FSIZE, &old_limit), ==, 0);
+  limit = old_limit;
+  limit.rlim_cur = 4096;
+  signal (SIGXFSZ, SIG_IGN);
+  g_assert_cmpint (setrlimit (RLIMIT_FSIZE, &limit), ==, 0);
+  ok = trb_project_save_file (big, path, &error);
+  g_assert_cmpint (setrlimit (RLIMIT_FSIZE, &old_limit), ==, 0);
+  g_assert_false (ok);
+  g_assert_error (error, TRB_ERROR, TRB_ERROR_IO);
+  g_assert_true (g_str_has_prefix (error->message, path));
+  after = read_all (path, &n_after);
+  g_assert_cmpmem (before, n_before, after, n_after);
+  g_assert_cmpuint (count_files (dir), ==, 1);
+  g_clear_error (&error);
+
+  /* a read-only folder, for users it binds */
+  if (geteuid () != 0)
+    {
+      g_autofree char *again = NULL;
+      gsize n_again;
+
+      g_assert_cmpint (g_chmod (dir, 0555), ==, 0);
+      ok = trb_project_save_file (big, path, &error);
+      g_assert_cmpint (g_chmod (dir, 0755), ==, 0);
+      g_assert_false (ok);
+      g_assert_error (error, TRB_ERROR, TRB_ERROR_IO);
+      again = read_all (path, &n_again);
+      g_assert_cmpmem (before, n_before, again, n_again);
+    }
+
+  g_assert_cmpint (g_remove (path), ==, 0);
+  g_assert_cmpint (g_rmdir (dir), ==, 0);
+}
+
+/* Saving through a symbolic link replaces the file it points to and keeps the link. */
+static void
+test_save_symlink (void)
+{
+  g_autofree char *dir = g_dir_make_tmp ("trb-link-XXXXXX", NULL);
+  g_autofree char *real = g_build_filename (dir, "real.trabeate", NULL);
+  g_autofree char *link = g_build_filename (dir, "link.trabeate", NULL);
+  g_autoptr(TrbProject) p = trb_project_new ();
+  g_autoptr(GError) error = NULL;
+  g_autofree char *saved = NULL;
+  g_autofree char *expected = NULL;
+  gsize n, n_expected;
+
+  g_assert_true (g_file_set_contents (real, "old", -1, NULL));
+  g_assert_cmpint (symlink ("real.trabeate", link), ==, 0);
+  g_assert_true (trb_project_save_file (p, link, &error));
+  g_assert_no_error (error);
+  g_assert_true (g_file_test (link, G_FILE_TEST_IS_SYMLINK));
+  saved = read_all (real, &n);
+  expected = trb_project_save_data (p, &n_expected, &error);
+  g_assert_cmpmem (saved, n, expected, n_expected);
+  g_remove (link);
+  g_remove (real);
+  g_rmdir (dir);
+}
+
+/* The schema accepts every sample and example (also by itself, without the loader's checks),
+ * and refuses what it should with the line. */
+static void
+test_schema (void)
+{
+  const char *dirs[] = { "data", "../data/examples" };
+  const char *unknown =
+    "<trabeate-project format=\"1\">\n"
+    "  <floor name=\"F\">\n"
+    "    <column id=\"C1\" x=\"0 ft\" y=\"0 ft\"/>\n"
+    "    <slab/>\n"
+    "  </floor>\n"
+    "</trabeate-project>\n";
+  const char *few_points =
+    "<trabeate-project format=\"1\">\n"
+    "  <floor name=\"F\">\n"
+    "    <opening>\n"
+    "      <point x=\"0 ft\" y=\"0 ft\"/>\n"
+    "    </opening>\n"
+    "  </floor>\n"
+    "</trabeate-project>\n";
+  const char *wrong_load =
+    "<trabeate-project format=\"1\">\n"
+    "  <beam id=\"B\" length=\"1 m\" material=\"steel\">\n"
+    "\n"
+    "    <load case=\"D\" type=\"point\" at=\"0 m\" w=\"1 kN/m\"/>\n"
+    "  </beam>\n"
+    "</trabeate-project>\n";
+  g_autoptr(GError) error = NULL;
+  guint n = 0;
+
+  for (guint k = 0; k < G_N_ELEMENTS (dirs); k++)
+    {
+      g_autofree char *dir = g_test_build_filename (G_TEST_DIST, dirs[k], NULL);
+      g_autoptr(GDir) d = g_dir_open (dir, 0, NULL);
+      const char *name;
+
+      g_assert_nonnull (d);
+      while ((name = g_dir_read_name (d)) != NULL)
+        {
+          g_autofree char *path = g_build_filename (dir, name, NULL);
+          g_autofree char *text = NULL;
+          gsize len;
+
+          if (!g_str_has_suffix (name, ".trabeate"))
+            continue;
+          text = read_all (path, &len);
+          if (!trb_project_check_schema (text, len, name, &error))
+            g_error ("%s", error->message);
+          n++;
+        }
+    }
+  g_assert_cmpuint (n, >=, 9);
+
+  g_assert_false (trb_project_check_schema (unknown, strlen (unknown), "u.trabeate", &error));
+  g_assert_error (error, TRB_ERROR, TRB_ERROR_INVALID);
+  g_assert_true (g_str_has_prefix (error->message,
+                                   "u.trabeate:4: does not match the project schema: "));
+  g_assert_nonnull (strstr (error->message, "slab"));
+  g_clear_error (&error);
+
+  g_assert_false (trb_project_check_schema (few_points, strlen (few_points), "f", &error));
+  g_assert_error (error, TRB_ERROR, TRB_ERROR_INVALID);
+  g_assert_true (g_str_has_prefix (error->message, "f:3: does not match the project schema: "));
+  g_clear_error (&error);
+
+  g_assert_false (trb_project_check_schema (wrong_load, strlen (wrong_load), "w", &error));
+  g_assert_error (error, TRB_ERROR, TRB_ERROR_INVALID);
+  g_assert_true (g_str_has_prefix (error->message, "w:4: does not match the project schema: "));
+  g_clear_error (&error);
+
+  /* the loader's own checks come first and say it better */
+  g_assert_null (trb_project_load_data (unknown, strlen (unknown), "u.trabeate", &error));
+  g_assert_cmpstr (error->message, ==, "u.trabeate:4: unknown element <slab> inside <floor>");
+}
+
 /* The expectation is the file's first line: <!-- expect: CODE line N: TEXT --> */
 typedef struct
 {
@@ -357,6 +1160,42 @@ main (int    argc,
   g_test_add_func ("/trb/project-io/missing-file", test_missing_file);
   g_test_add_func ("/trb/project-io/size-limit", test_size_limit);
   g_test_add_func ("/trb/project-io/display-name", test_display_name);
+  g_test_add_func ("/trb/project-io/floor", test_floor);
+  g_test_add_func ("/trb/project-io/settings-defaults", test_settings_defaults);
+  g_test_add_func ("/trb/project-io/save-layout", test_save_layout);
+  g_test_add_func ("/trb/project-io/save-escapes", test_save_escapes);
+  g_test_add_func ("/trb/project-io/save-not-finite", test_save_not_finite);
+  g_test_add_func ("/trb/project-io/save-random-values", test_save_random_values);
+  g_test_add_func ("/trb/project-io/save-atomic", test_save_atomic);
+  g_test_add_func ("/trb/project-io/save-symlink", test_save_symlink);
+  g_test_add_func ("/trb/project-io/schema", test_schema);
+
+  /* load, save, load, save every sample and example */
+  {
+    const char *dirs[] = { "data", "../data/examples" };
+
+    for (guint k = 0; k < G_N_ELEMENTS (dirs); k++)
+      {
+        g_autofree char *sdir = g_test_build_filename (G_TEST_DIST, dirs[k], NULL);
+        g_autoptr(GDir) sd = g_dir_open (sdir, 0, NULL);
+        g_autoptr(GPtrArray) files = g_ptr_array_new_with_free_func (g_free);
+
+        g_assert_nonnull (sd);
+        while ((name = g_dir_read_name (sd)) != NULL)
+          if (g_str_has_suffix (name, ".trabeate"))
+            g_ptr_array_add (files, g_strdup (name));
+        g_ptr_array_sort (files, compare_names);
+        for (guint i = 0; i < files->len; i++)
+          {
+            const char *n = g_ptr_array_index (files, i);
+            g_autofree char *stem = g_strndup (n, strlen (n) - strlen (".trabeate"));
+            g_autofree char *test = g_strdup_printf ("/trb/project-io/round-trip/%s", stem);
+
+            g_test_add_data_func_full (test, g_build_filename (sdir, n, NULL), test_round_trip,
+                                       g_free);
+          }
+      }
+  }
 
   /* one case per file in data/invalid, each of which must fail as its first line says */
   dir = g_test_build_filename (G_TEST_DIST, "data", "invalid", NULL);

@@ -1935,8 +1935,8 @@ static const char * const file_units_base[TRB_N_DIMS] = {
 };
 
 /* A number with `digits` significant digits, as the parser reads numbers: a point for the
- * decimal separator; plain decimals from 1e-6 to 1e21, else an exponent without "+" or
- * leading zeros ("1.5e-7", "2e25"). */
+ * decimal separator; plain decimals from 1e-4 to below 1e7, else an exponent without "+" or
+ * leading zeros ("1.5e-7", "3.33e8"). */
 static void
 format_number (char   *buf,
                gsize   size,
@@ -1953,7 +1953,7 @@ format_number (char   *buf,
   if (e == NULL)
     return;
   exponent = atoi (e + 1);
-  if (exponent >= -6 && exponent <= 21)
+  if (exponent >= -4 && exponent <= 6)
     {
       /* the same decimal without the exponent: rounding the double nearest to it to these
        * decimals gives it back */
@@ -2003,11 +2003,13 @@ reads_back (const char   *text,
   return trb_units_parse (text, dim, &v, NULL) && v == value;
 }
 
-/* The digits a text shows, exponents aside: what the shortest candidate is judged by. */
+/* The significant digits a text shows (from its first non-zero digit to its last, exponents
+ * aside): what candidates are judged by, so "400 mm" and "0.4 m" tie, and "26 ft" beats
+ * "7.9248 m". */
 static int
 count_digits (const char *text)
 {
-  int n = 0;
+  int first = -1, last = -1, n = 0;
 
   for (const char *p = text; *p != '\0'; p++)
     {
@@ -2015,9 +2017,17 @@ count_digits (const char *text)
         while (p[1] == '-' || g_ascii_isdigit (p[1]))
           p++;
       else if (g_ascii_isdigit (*p))
-        n++;
+        {
+          if (*p != '0')
+            {
+              if (first < 0)
+                first = n;
+              last = n;
+            }
+          n++;
+        }
     }
-  return n;
+  return first < 0 ? 0 : last - first + 1;
 }
 
 /* The fewest digits with which `prefix` + n + `suffix` reads back to exactly value; NULL if
@@ -2069,8 +2079,9 @@ consider (char       **best,
 
 /* The text a quantity is saved as: of the texts that read back to exactly `value`, in the
  * project's units (and, for US lengths, feet and inches) or in SI base units, the one with the
- * fewest digits; on a tie the earlier (the project's units, then SI). A function of the value
- * alone, so that saving what was loaded from a saved file gives the same bytes. */
+ * fewest significant digits; on a tie the earlier (the project's units in the order of the
+ * table, then SI). A function of the value alone, so that saving what was loaded from a saved
+ * file gives the same bytes. */
 static char *
 format_quantity (double         value,
                  TrbDimension   dim,
