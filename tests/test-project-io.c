@@ -696,7 +696,8 @@ test_round_trip (gconstpointer data)
 /* The layout the saver promises: declaration, 2-space indent, one element per line, the
  * fixed attribute order, the project's units; comments are not kept. 312 in stays 312 in: as
  * doubles, 312 x 0.0254 falls one bit short of 26 x 0.3048, and "26 ft" would not read back
- * to it; "350 lb/ft" = 0.35 kip/ft exactly, and "0.35 kip/ft" has fewer digits. */
+ * to it. "350 lb/ft" is written "350 plf": both US line-load units read it back exactly, and
+ * "350" is shorter than "0.35". */
 static void
 test_save_layout (void)
 {
@@ -717,7 +718,7 @@ test_save_layout (void)
     "  <beam id=\"B1\" length=\"26 ft\" material=\"steel\" section=\"auto\">\n"
     "    <support at=\"0 ft\" type=\"pin\"/>\n"
     "    <support at=\"312 in\" type=\"roller\"/>\n"
-    "    <load case=\"D\" type=\"uniform\" from=\"0 ft\" to=\"26 ft\" w=\"0.35 kip/ft\"/>\n"
+    "    <load case=\"D\" type=\"uniform\" from=\"0 ft\" to=\"26 ft\" w=\"350 plf\"/>\n"
     "  </beam>\n"
     "</trabeate-project>\n";
   g_autoptr(GError) error = NULL;

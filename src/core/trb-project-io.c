@@ -1934,9 +1934,9 @@ static const char * const file_units_base[TRB_N_DIMS] = {
   [TRB_DIM_DENSITY] = "N/m3",
 };
 
-/* A number with `digits` significant digits, as the parser reads numbers: a point for the
- * decimal separator; plain decimals from 1e-4 to below 1e7, else an exponent without "+" or
- * leading zeros ("1.5e-7", "3.33e8"). */
+/* A number with `digits` significant digits (trailing zeros dropped), as the parser reads
+ * numbers: a point for the decimal separator; plain decimals from 1e-4 to below 1e7 ("0.35",
+ * "300"), else an exponent without "+" or leading zeros ("1.5e-7", "1e8"). */
 static void
 format_number (char   *buf,
                gsize   size,
@@ -1944,35 +1944,44 @@ format_number (char   *buf,
                int     digits)
 {
   char fmt[16];
-  char *e;
+  char *e, *m;
   int exponent;
 
-  g_snprintf (fmt, sizeof fmt, "%%.%dg", digits);
-  g_ascii_formatd (buf, size, fmt, n);
-  e = strchr (buf, 'e');
-  if (e == NULL)
-    return;
-  exponent = atoi (e + 1);
-  if (exponent >= -4 && exponent <= 6)
+  if (n == 0 || (fabs (n) >= 1e-4 && fabs (n) < 1e7))
     {
-      /* the same decimal without the exponent: rounding the double nearest to it to these
-       * decimals gives it back */
-      double x = g_ascii_strtod (buf, NULL);
-
-      g_snprintf (fmt, sizeof fmt, "%%.%df", MAX (0, digits - 1 - exponent));
-      g_ascii_formatd (buf, size, fmt, x);
+      g_snprintf (fmt, sizeof fmt, "%%.%dg", digits);
+      g_ascii_formatd (buf, size, fmt, n);
+      e = strchr (buf, 'e');
+      if (e == NULL)
+        return;
+      /* %g chose an exponent (for fewer digits than the integer part has): write the same
+       * decimal without it; rounding the double nearest to it to no decimals gives it back */
+      g_ascii_formatd (buf, size, "%.0f", g_ascii_strtod (buf, NULL));
       return;
     }
-  g_snprintf (e + 1, size - (gsize) (e + 1 - buf), "%d", exponent);
+  g_snprintf (fmt, sizeof fmt, "%%.%de", digits - 1);
+  g_ascii_formatd (buf, size, fmt, n);
+  e = strchr (buf, 'e');
+  g_assert (e != NULL);
+  exponent = atoi (e + 1);
+  /* the mantissa without trailing zeros, then the exponent as the parser reads it */
+  m = e;
+  while (m > buf && m[-1] == '0')
+    m--;
+  if (m > buf && m[-1] == '.')
+    m--;
+  g_snprintf (m, size - (gsize) (m - buf), "e%d", exponent);
 }
 
-/* The shortest text of a plain number that reads back (g_ascii_strtod) to exactly n. */
+/* The shortest text of a plain number that reads back (g_ascii_strtod) to exactly n. With
+ * 15 significant digits, %g gives back any decimal of 15 digits or fewer that a double was
+ * read from, trailing zeros dropped (DBL_DIG is 15); only other doubles need 16 or 17. */
 static void
 format_shortest (char   *buf,
                  gsize   size,
                  double  n)
 {
-  for (int digits = 1; digits <= 17; digits++)
+  for (int digits = 15; digits <= 17; digits++)
     {
       format_number (buf, size, n, digits);
       if (g_ascii_strtod (buf, NULL) == n)
@@ -1980,17 +1989,41 @@ format_shortest (char   *buf,
     }
 }
 
-/* The factor of a unit spelling, as the parser applies it. */
+/* The units of the table with their factors, as the parser applies them, found once. */
 static double
 unit_factor (const char   *unit,
              TrbDimension  dim)
 {
-  g_autofree char *text = g_strconcat ("1 ", unit, NULL);
-  double f = NAN;
+  static double factors[2][TRB_N_DIMS][3];
+  static gsize done = 0;
 
-  if (!trb_units_parse (text, dim, &f, NULL))
-    g_critical ("the units module does not read \"%s\"", text);
-  return f;
+  if (g_once_init_enter (&done))
+    {
+      for (int system = 0; system < 2; system++)
+        for (int d = 0; d < TRB_N_DIMS; d++)
+          {
+            const char * const *units = system == 1 ? file_units_si[d] : file_units_us[d];
+
+            for (guint u = 0; u < 3 && units[u] != NULL; u++)
+              {
+                g_autofree char *text = g_strconcat ("1 ", units[u], NULL);
+
+                factors[system][d][u] = NAN;
+                if (!trb_units_parse (text, d, &factors[system][d][u], NULL))
+                  g_critical ("the units module does not read \"%s\"", text);
+              }
+          }
+      g_once_init_leave (&done, 1);
+    }
+  for (int system = 0; system < 2; system++)
+    {
+      const char * const *units = system == 1 ? file_units_si[dim] : file_units_us[dim];
+
+      for (guint u = 0; u < 3 && units[u] != NULL; u++)
+        if (units[u] == unit)
+          return factors[system][dim][u];
+    }
+  g_assert_not_reached ();
 }
 
 static gboolean
@@ -2003,68 +2036,75 @@ reads_back (const char   *text,
   return trb_units_parse (text, dim, &v, NULL) && v == value;
 }
 
-/* The significant digits a text shows (from its first non-zero digit to its last, exponents
- * aside): what candidates are judged by, so "400 mm" and "0.4 m" tie, and "26 ft" beats
- * "7.9248 m". */
+/* How long the numbers of a text are (every word that starts like a number; units never
+ * do): what candidates are judged by, so "26 ft" beats "300 in" and "7.9248 m", and "400 mm"
+ * and "0.4 m" tie. */
 static int
 count_digits (const char *text)
 {
-  int first = -1, last = -1, n = 0;
+  int n = 0;
+  gboolean in_number = FALSE;
 
   for (const char *p = text; *p != '\0'; p++)
     {
-      if (*p == 'e')
-        while (p[1] == '-' || g_ascii_isdigit (p[1]))
-          p++;
-      else if (g_ascii_isdigit (*p))
-        {
-          if (*p != '0')
-            {
-              if (first < 0)
-                first = n;
-              last = n;
-            }
-          n++;
-        }
+      if (*p == ' ')
+        in_number = FALSE;
+      else if (p == text || p[-1] == ' ')
+        in_number = g_ascii_isdigit (*p) || *p == '-' || *p == '.';
+      if (in_number)
+        n++;
     }
-  return first < 0 ? 0 : last - first + 1;
+  return n;
 }
 
-/* The fewest digits with which `prefix` + n + `suffix` reads back to exactly value; NULL if
- * none does. */
+/* The text "<n> <unit>" that reads back to exactly value, with as few digits as it takes
+ * (15, 16 or 17, trailing zeros dropped), or NULL. The parser reads it as the number times
+ * the unit's factor; the winner is read back once more by the parser itself. */
 static char *
-shortest_candidate (double        value,
-                    TrbDimension  dim,
-                    const char   *prefix,
-                    double        n,
-                    const char   *suffix)
+unit_candidate (double        value,
+                const char   *unit,
+                double        factor)
 {
+  double n = value / factor;
   char num[64];
-  char text[128];
 
   if (!isfinite (n))
     return NULL;
-  /* Most values that do not read back with 17 digits in a unit do not with fewer either;
-   * skipping those keeps saving a plan of random coordinates quick. */
-  format_number (num, sizeof num, n, 17);
-  g_snprintf (text, sizeof text, "%s%s%s", prefix, num, suffix);
-  if (!reads_back (text, dim, value))
-    return NULL;
-  for (int digits = 1; digits < 17; digits++)
+  for (int digits = 15; digits <= 17; digits++)
     {
       format_number (num, sizeof num, n, digits);
-      g_snprintf (text, sizeof text, "%s%s%s", prefix, num, suffix);
-      if (reads_back (text, dim, value))
-        break;
-      format_number (num, sizeof num, n, 17);
-      g_snprintf (text, sizeof text, "%s%s%s", prefix, num, suffix);
+      if (g_ascii_strtod (num, NULL) * factor == value)
+        return g_strdup_printf ("%s %s", num, unit);
     }
-  return g_strdup (text);
+  return NULL;
+}
+
+/* "F ft I in", which the parser reads as F ft + I in: not always the double of any one
+ * unit's number ("12 ft 6 in" is not "12.5 ft"). */
+static char *
+feet_inches_candidate (double value,
+                       double feet)
+{
+  double inches = (fabs (value) - feet * TRB_FT) / TRB_IN;
+  char num[64];
+
+  if (feet < 1 || !(inches >= 0 && inches < 12))
+    return NULL;
+  for (int digits = 15; digits <= 17; digits++)
+    {
+      g_autofree char *text = NULL;
+
+      format_number (num, sizeof num, inches, digits);
+      text = g_strdup_printf ("%s%.0f ft %s in", value < 0 ? "-" : "", feet, num);
+      if (reads_back (text, TRB_DIM_LENGTH, value))
+        return g_steal_pointer (&text);
+    }
+  return NULL;
 }
 
 static void
-consider (char       **best,
-          char        *candidate)
+consider (char **best,
+          char  *candidate)
 {
   if (candidate == NULL)
     return;
@@ -2079,7 +2119,7 @@ consider (char       **best,
 
 /* The text a quantity is saved as: of the texts that read back to exactly `value`, in the
  * project's units (and, for US lengths, feet and inches) or in SI base units, the one with the
- * fewest significant digits; on a tie the earlier (the project's units in the order of the
+ * shortest numbers; on a tie the earlier (the project's units in the order of the
  * table, then SI). A function of the value alone, so that saving what was loaded from a saved
  * file gives the same bytes. */
 static char *
@@ -2096,29 +2136,16 @@ format_quantity (double         value,
 
   value += 0.0;   /* -0 is saved as 0 */
   for (guint u = 0; units[u] != NULL; u++)
-    {
-      g_autofree char *suffix = g_strconcat (" ", units[u], NULL);
-
-      consider (&best, shortest_candidate (value, dim, "", value / unit_factor (units[u], dim),
-                                           suffix));
-    }
-  /* "12 ft 6 in" reads as 12 ft + 6 in, which is not always the double of "12.5 ft" */
+    consider (&best, unit_candidate (value, units[u], unit_factor (units[u], dim)));
   if (dim == TRB_DIM_LENGTH && system == TRB_UNIT_SYSTEM_US && fabs (value) >= TRB_FT)
     {
       double feet = floor (fabs (value) / TRB_FT);
 
-      for (int k = -1; k <= 0; k++)
-        {
-          double f = feet + k;
-          double inches = (fabs (value) - f * TRB_FT) / TRB_IN;
-          g_autofree char *prefix = NULL;
-
-          if (f < 1 || inches < 0 || inches >= 12)
-            continue;
-          prefix = g_strdup_printf ("%s%.0f ft ", value < 0 ? "-" : "", f);
-          consider (&best, shortest_candidate (value, dim, prefix, inches, " in"));
-        }
+      consider (&best, feet_inches_candidate (value, feet));
+      consider (&best, feet_inches_candidate (value, feet - 1));
     }
+  if (best != NULL && !reads_back (best, dim, value))
+    g_clear_pointer (&best, g_free);
   format_shortest (num, sizeof num, value);
   consider (&best, g_strdup_printf ("%s %s", num, file_units_base[dim]));
   return best;
