@@ -426,7 +426,7 @@ draw_loading (Frame  *f,
     for (int c = 0; c < TRB_N_CASES; c++)
       if (r->analysed && r->cases[c] != NULL)
         n_react++;
-    beam_y = y + height - (n_react + 3.2) * fs * 1.15;
+    beam_y = y + height - (n_react + 4.6) * fs * 1.15;
   }
   top = y + 1.4 * fs;
   band = n_cases > 0 ? (beam_y - top - 0.4 * fs) / n_cases : 0;
@@ -478,8 +478,8 @@ draw_loading (Frame  *f,
       double ry = beam_y + 2.8 * fs;
 
       trb_render_set_color (cr, &f->ink);
-      trb_render_text (cr, f->style, "Reactions, up +", fs * 0.85, TRUE, dev_x (f, 0) - 0.5 * fs,
-                       ry, 1.0, 0.0, NULL);
+      trb_render_text (cr, f->style, "Reactions by case, up +", fs * 0.85, TRUE,
+                       dev_x (f, 0) - 0.5 * fs, ry, 0.0, 0.0, NULL);
       row = 0;
       for (int c = 0; c < TRB_N_CASES; c++)
         {
@@ -539,19 +539,59 @@ draw_loading (Frame  *f,
           g_array_prepend_val (loads[c], sw);
         }
 
+      /* Distributed loads stacked where they overlap, each at least a little high so that
+       * a small one still shows: offset[i] is where load i starts above the member. */
+      {
+        guint nl = loads[c]->len;
+        g_autofree double *h_of = g_new0 (double, MAX (nl, 1) * 2);
+        g_autofree double *offset = g_new0 (double, MAX (nl, 1));
+        double top_stack = 0, squeeze = 1;
+
+        for (guint i = 0; i < nl; i++)
+          {
+            const TrbLoad *ld = &g_array_index (loads[c], TrbLoad, i);
+            double w2;
+
+            if (ld->kind != TRB_LOAD_UNIFORM && ld->kind != TRB_LOAD_LINEAR)
+              continue;
+            w2 = ld->kind == TRB_LOAD_LINEAR ? ld->w2 : ld->w1;
+            h_of[2 * i] = MAX (wmax > 0 ? fabs (ld->w1) / wmax * hmax : 0, 0);
+            h_of[2 * i + 1] = MAX (wmax > 0 ? fabs (w2) / wmax * hmax : 0, 0);
+            if (MAX (h_of[2 * i], h_of[2 * i + 1]) < 0.5 * fs)
+              {
+                double k = 0.5 * fs / MAX (MAX (h_of[2 * i], h_of[2 * i + 1]), 1e-9);
+
+                h_of[2 * i] = MIN (h_of[2 * i] * k, 0.5 * fs);
+                h_of[2 * i + 1] = MIN (h_of[2 * i + 1] * k, 0.5 * fs);
+              }
+            for (guint j = 0; j < i; j++)
+              {
+                const TrbLoad *lj = &g_array_index (loads[c], TrbLoad, j);
+
+                if ((lj->kind == TRB_LOAD_UNIFORM || lj->kind == TRB_LOAD_LINEAR) &&
+                    lj->a < ld->b - 1e-9 && ld->a < lj->b - 1e-9)
+                  offset[i] = MAX (offset[i], offset[j] + MAX (h_of[2 * j], h_of[2 * j + 1]) +
+                                              1.1 * fs);
+              }
+            top_stack = MAX (top_stack, offset[i] + MAX (h_of[2 * i], h_of[2 * i + 1]));
+          }
+        /* a stack taller than the band is squeezed to fit */
+        if (top_stack > band * 0.75)
+          squeeze = band * 0.75 / top_stack;
+
       for (guint i = 0; i < loads[c]->len; i++)
         {
           const TrbLoad *ld = &g_array_index (loads[c], TrbLoad, i);
           gboolean is_sw = c == TRB_CASE_D && r->self_weight > 0 && i == 0;
-          double base = b1 - 0.1 * band;
+          double base = b1 - 0.1 * band - offset[i] * squeeze;
 
           trb_render_set_color (cr, &col);
           cairo_set_line_width (cr, 0.6);
           if (ld->kind == TRB_LOAD_UNIFORM || ld->kind == TRB_LOAD_LINEAR)
             {
               double w1 = ld->w1, w2 = ld->kind == TRB_LOAD_LINEAR ? ld->w2 : ld->w1;
-              double h1 = wmax > 0 ? fabs (w1) / wmax * hmax : 0;
-              double h2 = wmax > 0 ? fabs (w2) / wmax * hmax : 0;
+              double h1 = h_of[2 * i] * squeeze;
+              double h2 = h_of[2 * i + 1] * squeeze;
               double xa = dev_x (f, ld->a), xb = dev_x (f, ld->b);
               int n = MAX (2, (int) ((xb - xa) / (1.6 * fs)) + 1);
               g_autofree char *t1 = trb_units_format (w1, TRB_DIM_LINE_LOAD, u);
@@ -590,13 +630,16 @@ draw_loading (Frame  *f,
               double xp = dev_x (f, ld->a);
               g_autofree char *t = trb_units_format (ld->w1, TRB_DIM_FORCE, u);
 
+              double bottom = b1 - 0.1 * band;
+
               cairo_set_line_width (cr, 1.0);
               if (ld->w1 >= 0)
-                arrow_down (cr, xp, base - band * 0.8, base, 0.6 * fs);
+                arrow_down (cr, xp, b0 + 0.15 * band, bottom, 0.6 * fs);
               else
-                arrow_down (cr, xp, base, base - band * 0.8, 0.6 * fs);
-              trb_render_text (cr, f->style, t, fs * 0.85, TRUE, xp + 0.3 * fs,
-                               base - band * 0.8, xp > dev_x (f, f->L * 0.8) ? 1.0 : 0.0, 0.0,
+                arrow_down (cr, xp, bottom, b0 + 0.15 * band, 0.6 * fs);
+              trb_render_text (cr, f->style, t, fs * 0.85, TRUE,
+                               xp > dev_x (f, f->L * 0.8) ? xp - 0.3 * fs : xp + 0.3 * fs,
+                               b0 + 0.15 * band, xp > dev_x (f, f->L * 0.8) ? 1.0 : 0.0, 0.0,
                                NULL);
             }
           else
@@ -612,6 +655,7 @@ draw_loading (Frame  *f,
                                0.0, 0.5, NULL);
             }
         }
+      }
     }
   for (int c = 0; c < TRB_N_CASES; c++)
     g_array_unref (loads[c]);
@@ -627,30 +671,37 @@ extreme_label (Frame        *f,
                double        y_top,
                double        y_bottom,
                TrbDimension  dim,
-               gboolean      small_length,
+               const char   *word,
                gboolean      above)
 {
   cairo_t *cr = f->cr;
   TrbUnitSystem u = f->r->units;
-  g_autofree char *v = small_length ? trb_units_format_small_length (value, u)
+  g_autofree char *v = word != NULL ? trb_units_format_small_length (value, u)
                                     : trb_units_format (value, dim, u);
   g_autofree char *xs = trb_units_format (xm, TRB_DIM_LENGTH, u);
-  g_autofree char *t = g_strdup_printf ("%s at %s", v, xs);
+  g_autofree char *t = g_strdup_printf ("%s%s%s at %s", v, word != NULL ? " " : "",
+                                        word != NULL ? word : "", xs);
   double px = dev_x (f, xm);
   double tw = trb_render_text_width (cr, f->style, t, f->fs * 0.85, TRUE);
   double ax = 0.5, ty;
+
+  /* near an end the label reads inward, clear of the diagram's closing line */
+  if (f->L > 0 && xm < 0.12 * f->L)
+    ax = -0.6 * f->fs / MAX (tw, 1);
+  else if (f->L > 0 && xm > 0.88 * f->L)
+    ax = 1 + 0.6 * f->fs / MAX (tw, 1);
 
   trb_render_set_color (cr, &f->ink);
   cairo_new_sub_path (cr);
   cairo_arc (cr, px, py, 1.3, 0, 2 * G_PI);
   cairo_fill (cr);
 
-  /* keep the label inside the diagram's width */
-  if (px - tw / 2 < f->x0 - 0.5 * f->fs)
+  /* keep a centred label inside the diagram's width */
+  if (ax == 0.5 && px - tw / 2 < f->x0 - 0.5 * f->fs)
     ax = (px - (f->x0 - 0.5 * f->fs)) / tw;
-  if (px + tw / 2 > f->x0 + f->w + 0.5 * f->fs)
+  if (ax == 0.5 && px + tw / 2 > f->x0 + f->w + 0.5 * f->fs)
     ax = 1 - ((f->x0 + f->w + 0.5 * f->fs) - px) / tw;
-  ax = CLAMP (ax, 0.0, 1.0);
+  ax = CLAMP (ax, -1.0, 2.0);
   ty = above ? MAX (py - 1.5, y_top + f->fs) : MIN (py + 1.5, y_bottom - f->fs);
   trb_render_text (cr, f->style, t, f->fs * 0.85, TRUE, px, ty, ax, above ? 1.0 : 0.0, NULL);
 }
@@ -780,28 +831,28 @@ draw_curve (Frame                  *f,
     {
       if (ext.V_max > 1e-9)
         extreme_label (f, ext.V_max_x, ext.V_max, base - ext.V_max * k, top, bottom,
-                       TRB_DIM_FORCE, FALSE, TRUE);
+                       TRB_DIM_FORCE, NULL, TRUE);
       if (ext.V_min < -1e-9)
         extreme_label (f, ext.V_min_x, ext.V_min, base - ext.V_min * k, top, bottom,
-                       TRB_DIM_FORCE, FALSE, FALSE);
+                       TRB_DIM_FORCE, NULL, FALSE);
     }
   else if (kind == TRB_DIAGRAM_MOMENT)
     {
       if (ext.M_max > 1e-9)
         extreme_label (f, ext.M_max_x, ext.M_max, base - ext.M_max * k, top, bottom,
-                       TRB_DIM_MOMENT, FALSE, TRUE);
+                       TRB_DIM_MOMENT, NULL, TRUE);
       if (ext.M_min < -1e-9)
         extreme_label (f, ext.M_min_x, ext.M_min, base - ext.M_min * k, top, bottom,
-                       TRB_DIM_MOMENT, FALSE, FALSE);
+                       TRB_DIM_MOMENT, NULL, FALSE);
     }
   else
     {
       if (ext.defl_down > 1e-12)
         extreme_label (f, ext.defl_down_x, ext.defl_down, base + ext.defl_down * k, top,
-                       bottom, TRB_DIM_LENGTH, TRUE, FALSE);
+                       bottom, TRB_DIM_LENGTH, "down", FALSE);
       if (ext.defl_up > 1e-12)
-        extreme_label (f, ext.defl_up_x, -ext.defl_up, base - ext.defl_up * k, top, bottom,
-                       TRB_DIM_LENGTH, TRUE, TRUE);
+        extreme_label (f, ext.defl_up_x, ext.defl_up, base - ext.defl_up * k, top, bottom,
+                       TRB_DIM_LENGTH, "up", TRUE);
     }
 }
 
@@ -887,6 +938,16 @@ trb_diagram_draw_stack (cairo_t                *cr,
   double yy = y;
 
   g_return_if_fail (cr != NULL && result != NULL && source != NULL && style != NULL);
+
+  if (!result->analysed)
+    {
+      /* no curves to draw: the sketch, and why */
+      trb_diagram_draw (cr, result, TRB_DIAGRAM_LOADING, source, style, x, y, width,
+                        height * 0.45);
+      trb_diagram_draw (cr, result, TRB_DIAGRAM_SHEAR, source, style, x, y + height * 0.45,
+                        width, height * 0.2);
+      return;
+    }
 
   for (int k = TRB_DIAGRAM_LOADING; k <= TRB_DIAGRAM_DEFLECTION; k++)
     {

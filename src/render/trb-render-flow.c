@@ -27,6 +27,7 @@ typedef struct
   double  *widths;        /* fractions summing to 1 */
   char    *align;
   int      status_column;
+  gboolean headless;      /* every title empty: no header row */
 } Table;
 
 typedef struct
@@ -36,6 +37,7 @@ typedef struct
   char           **cells;      /* row */
   double           scale;      /* paragraph */
   double           height;     /* space, block (negative: a fraction of the page) */
+  gboolean         fill;       /* block: the rest of the page, at least height */
   TrbFlowDrawFunc  draw;
   gpointer         data;
   GDestroyNotify   destroy;
@@ -172,6 +174,25 @@ trb_flow_block (TrbFlow         *flow,
 }
 
 void
+trb_flow_block_fill (TrbFlow         *flow,
+                     double           min_height,
+                     TrbFlowDrawFunc  draw,
+                     gpointer         data,
+                     GDestroyNotify   destroy)
+{
+  Item *item;
+
+  g_return_if_fail (flow != NULL && draw != NULL);
+
+  item = add (flow, ITEM_BLOCK);
+  item->height = MAX (min_height, 0);
+  item->fill = TRUE;
+  item->draw = draw;
+  item->data = data;
+  item->destroy = destroy;
+}
+
+void
 trb_flow_page_break (TrbFlow *flow)
 {
   g_return_if_fail (flow != NULL);
@@ -206,6 +227,10 @@ trb_flow_table_begin (TrbFlow           *flow,
     t->widths[i] = widths[i] / sum;
   t->align = g_strdup (align);
   t->status_column = status_column;
+  t->headless = TRUE;
+  for (guint i = 0; i < n_columns; i++)
+    if (titles[i] != NULL && titles[i][0] != '\0')
+      t->headless = FALSE;
   g_ptr_array_add (flow->tables, t);
   flow->open = t;
   add (flow, ITEM_TABLE_HEADER)->table = t;
@@ -337,6 +362,9 @@ measure (TrbFlow              *flow,
     default:
       {
         Table *t = item->table;
+
+        if (item->kind == ITEM_TABLE_HEADER && t->headless)
+          return 0;
         double h = 0;
         gboolean header = item->kind == ITEM_TABLE_HEADER;
 
@@ -416,6 +444,18 @@ trb_flow_paginate (TrbFlow              *flow,
                 n->kind == ITEM_BLOCK)
               break;
           }
+
+      if (it->kind == ITEM_BLOCK && it->fill)
+        {
+          if (height - y < it->height && page->len > 0)
+            {
+              page = g_array_new (FALSE, FALSE, sizeof (Placement));
+              g_ptr_array_add (flow->pages, page);
+              y = 0;
+            }
+          it->measured = MAX (height - y, 0);
+          need = it->measured;
+        }
 
       if (y + need > height + 1e-6 && page->len > 0 && it->kind != ITEM_SPACE)
         {
@@ -502,6 +542,16 @@ draw_row (TrbFlow              *flow,
   double cx = x;
 
   trb_render_ink_color (style, &ink);
+  if (header && t->headless)
+    return;
+  if (!header && t->headless && it->row_index == 0 && it->kind == ITEM_TABLE_ROW)
+    {
+      trb_render_set_color (cr, &ink);
+      cairo_set_line_width (cr, 0.8);
+      cairo_move_to (cr, x, y);
+      cairo_line_to (cr, x + W, y);
+      cairo_stroke (cr);
+    }
 
   if (header)
     {

@@ -49,11 +49,18 @@ void      trb_flow_block           (TrbFlow              *flow,
                                     TrbFlowDrawFunc       draw,
                                     gpointer              data,
                                     GDestroyNotify        destroy);
+/* A block that takes the rest of the page, at least min_height (device units); on a new
+ * page when less is left. */
+void      trb_flow_block_fill      (TrbFlow              *flow,
+                                    double                min_height,
+                                    TrbFlowDrawFunc       draw,
+                                    gpointer              data,
+                                    GDestroyNotify        destroy);
 void      trb_flow_page_break      (TrbFlow              *flow);
 
 /* A table: widths are fractions of the page's width (they are scaled to sum to 1); align is
  * one letter a column, 'l', 'r' or 'c'. status_column is the column coloured by a row's
- * status, or -1. */
+ * status, or -1. With every title empty the table has no header row. */
 void      trb_flow_table_begin     (TrbFlow              *flow,
                                     guint                 n_columns,
                                     const char *const    *titles,

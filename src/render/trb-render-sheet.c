@@ -759,19 +759,6 @@ draw_diagram_block (cairo_t              *cr,
 }
 
 static void
-add_diagram (TrbFlow               *flow,
-             const TrbMemberResult *r,
-             TrbDiagramKind         kind,
-             double                 fraction)
-{
-  DiagramBlock *b = g_new0 (DiagramBlock, 1);
-
-  b->result = r;
-  b->kind = kind;
-  trb_flow_block (flow, -fraction, draw_diagram_block, b, g_free);
-}
-
-static void
 extreme_row (TrbFlow       *flow,
              const char    *what,
              const char    *value,
@@ -1169,25 +1156,29 @@ trb_sheet_member_flow (TrbFlow               *flow,
 
   /* the first page: the loading and the diagrams, large enough to read the labels */
   trb_flow_space (flow, -0.5);
-  add_diagram (flow, r, TRB_DIAGRAM_LOADING, 0.25);
-  if (r->analysed)
-    {
-      add_diagram (flow, r, TRB_DIAGRAM_SHEAR, 0.155);
-      add_diagram (flow, r, TRB_DIAGRAM_MOMENT, 0.155);
-      add_diagram (flow, r, TRB_DIAGRAM_DEFLECTION, 0.155);
-      member_extremes (flow, r);
-    }
+  {
+    DiagramBlock *b = g_new0 (DiagramBlock, 1);
+
+    b->result = r;
+    b->stack = TRUE;
+    /* the rest of the page: a short summary leaves the diagrams more room */
+    trb_flow_block_fill (flow, 360, draw_diagram_block, b, g_free);
+  }
 
   /* the second: the numbers */
   trb_flow_page_break (flow);
   {
-    g_autofree char *h2 = g_strdup_printf ("Member %s, continued: checks and reactions", m->id);
+    g_autofree char *h2 = g_strdup_printf ("Member %s, continued: checks, extremes, reactions",
+                                           m->id);
 
     trb_flow_heading (flow, h2);
   }
   member_checks (flow, r);
   if (r->analysed)
-    member_reactions (flow, r);
+    {
+      member_extremes (flow, r);
+      member_reactions (flow, r);
+    }
   member_section_properties (flow, project, r);
   member_shortlist (flow, r);
 }
