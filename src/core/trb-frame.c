@@ -1328,7 +1328,9 @@ polygon_chords (const LocalPolygon *poly,
           g_array_append_val (crossings, v);
         }
     }
-  qsort (crossings->data, crossings->len, sizeof (double), compare_double);
+  /* an empty GArray's data may be NULL, which qsort must not be given */
+  if (crossings->len > 1)
+    qsort (crossings->data, crossings->len, sizeof (double), compare_double);
 }
 
 /* The union of the openings' chords at x, clipped to [lo, hi], as disjoint sorted intervals. */
