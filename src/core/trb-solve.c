@@ -2232,7 +2232,8 @@ solve_floor_member (Solver         *sv,
   TrbReductionUse use = { 0 };
   TrbMemberResult *r;
   CacheEntry *entry = NULL;
-  g_autofree double *own_reactions[2] = { NULL, NULL };
+  /* not g_autofree on an array of two: that frees the first element only */
+  g_autofree double *own_live = NULL;
   double *reactions[2];
   g_autofree double *frame_reactions = NULL;
   guint n_beam;
@@ -2349,7 +2350,7 @@ solve_floor_member (Solver         *sv,
     reactions[0] = entry->reactions[0];
     reactions[1] = entry->reactions[1];
     frame_reactions = g_new0 (double, (fm->n_supports + 1) * TRB_N_CASES);
-    own_reactions[1] = g_new0 (double, (fmb != NULL ? fmb->n_supports : 0) * TRB_N_CASES + 1);
+    own_live = g_new0 (double, (fmb != NULL ? fmb->n_supports : 0) * TRB_N_CASES + 1);
 
     for (guint i = 0; i < n_beam; i++)
       total_a += MAX (reactions[0][i * TRB_N_CASES + TRB_CASE_L], 0);
@@ -2375,7 +2376,7 @@ solve_floor_member (Solver         *sv,
         for (guint c = 0; c < TRB_N_CASES; c++)
           frame_reactions[w * TRB_N_CASES + c] = reactions[0][i * TRB_N_CASES + c];
         if (fmb != NULL)
-          own_reactions[1][w * TRB_N_CASES + TRB_CASE_L] =
+          own_live[w * TRB_N_CASES + TRB_CASE_L] =
             reactions[1][i * TRB_N_CASES + TRB_CASE_L];
 
         /* A_T goes down with the reducible live load it came with */
@@ -2399,7 +2400,7 @@ solve_floor_member (Solver         *sv,
 
   trb_frame_takedown_add (fs->takedown[0], idx, frame_reactions, fm->n_supports, NULL);
   if (fmb != NULL)
-    trb_frame_takedown_add (fs->takedown[1], idx, own_reactions[1], fmb->n_supports, NULL);
+    trb_frame_takedown_add (fs->takedown[1], idx, own_live, fmb->n_supports, NULL);
 
   if (fs->incomplete[idx] != NULL)
     set_status (r, TRB_STATUS_NOT_DESIGNED, "loads incomplete: %s, which rests on it, could "
