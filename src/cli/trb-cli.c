@@ -36,42 +36,17 @@
 static const char usage_text[] =
   "Usage:\n"
   "  trabeate-cli check FILE [--json] [--member ID]\n"
-  "  trabeate-cli schedule FILE [--csv] [--member ID]\n"
   "  trabeate-cli --help | --version\n"
   "\n"
   "Commands:\n"
-  "  check      analyse every member of a project file (floors through their load\n"
-  "             takedown) and print the results, column and wall loads and totals\n"
-  "  schedule   the member schedule and the column load table\n"
+  "  check    analyse every member of a project file and print the results\n"
   "\n"
-  "Options:\n"
-  "  --json         check: write the results as JSON (SI units) instead of a table\n"
-  "  --csv          schedule: write CSV (the project's units, named in the header)\n"
-  "  --member ID    only the member with this id and the members resting on it\n"
-  "  --no-shortcuts solve every member in full, without the cache of identical members\n"
-  "                 and the sizing bounds (for verification: the results are the same)\n"
+  "Options of check:\n"
+  "  --json         write the results as JSON (SI units) instead of a table\n"
+  "  --member ID    only the member with this id\n"
   "\n"
   "Exit status: 0 every member passes; 1 some member fails, is unstable or unsupported,\n"
   "or is not designed; 2 bad input or usage.\n";
-
-/* Output goes to standard output as it is made, a piece at a time, so that a floor of ten
- * thousand members never sits in memory as text. */
-static gboolean write_failed;
-
-static void
-flush_out (GString *out)
-{
-  if (out->len > 0 && fwrite (out->str, 1, out->len, stdout) != out->len)
-    write_failed = TRUE;
-  g_string_truncate (out, 0);
-}
-
-static void
-maybe_flush (GString *out)
-{
-  if (out->len >= 64 * 1024)
-    flush_out (out);
-}
 
 /* ---- JSON ---------------------------------------------------------------------------- */
 
@@ -323,112 +298,6 @@ json_checks (GString      *out,
 }
 
 static void
-json_support (GString          *out,
-              const TrbSupport *s)
-{
-  gboolean f = TRUE;
-
-  g_string_append_c (out, '{');
-  json_key_number (out, &f, "x", s->x);
-  json_key_string (out, &f, "type", trb_support_type_name (s->type));
-  g_string_append_c (out, '}');
-}
-
-static void
-json_cases (GString      *out,
-            const double *force)
-{
-  gboolean f = TRUE;
-
-  g_string_append_c (out, '{');
-  for (guint c = 0; c < TRB_N_CASES; c++)
-    json_key_number (out, &f, trb_load_case_name (c), force[c]);
-  g_string_append_c (out, '}');
-}
-
-static const char *
-bearing_on (const TrbMemberBearing *b)
-{
-  if (b->own)
-    return "support";
-  switch (b->kind)
-    {
-    case TRB_BEARING_COLUMN:
-      return "column";
-    case TRB_BEARING_WALL:
-      return "wall";
-    case TRB_BEARING_MEMBER:
-    default:
-      return "member";
-    }
-}
-
-static void
-json_reduction (GString               *out,
-                const TrbReductionUse *use)
-{
-  gboolean f = TRUE;
-
-  if (!use->applies)
-    {
-      g_string_append (out, "null");
-      return;
-    }
-  g_string_append_c (out, '{');
-  json_key_number (out, &f, "area", use->area);
-  json_key_number (out, &f, "k_ll", use->k_ll);
-  json_key_number (out, &f, "floors", use->floors);
-  json_key_number (out, &f, "factor", use->factor);
-  json_key_string (out, &f, "rule", trb_live_rule_describe (use->rule));
-  json_key_number (out, &f, "reducible", use->reducible);
-  json_key_number (out, &f, "not_reducible", use->other);
-  g_string_append_c (out, '}');
-}
-
-/* What a floor member adds: where it is, what each support rests on and what it hands down
- * there, and the live load reduction it used. */
-static void
-json_floor_member (GString               *out,
-                   gboolean              *first,
-                   const TrbMemberResult *r)
-{
-  const TrbMember *m = r->member;
-  gboolean f = TRUE;
-
-  json_key_string (out, first, "floor", m->floor->name);
-  json_key_string (out, first, "role", trb_role_name (m->role));
-  json_key (out, first, "plan");
-  g_string_append_c (out, '{');
-  json_key_number (out, &f, "x1", m->start.x);
-  json_key_number (out, &f, "y1", m->start.y);
-  json_key_number (out, &f, "x2", m->end.x);
-  json_key_number (out, &f, "y2", m->end.y);
-  g_string_append_c (out, '}');
-
-  json_key (out, first, "bearings");
-  g_string_append_c (out, '[');
-  for (guint i = 0; r->bearings != NULL && i < r->bearings->len; i++)
-    {
-      const TrbMemberBearing *b = &g_array_index (r->bearings, TrbMemberBearing, i);
-      gboolean g = TRUE;
-
-      if (i > 0)
-        g_string_append_c (out, ',');
-      g_string_append_c (out, '{');
-      json_key_number (out, &g, "x", b->x);
-      json_key_string (out, &g, "on", bearing_on (b));
-      json_key_string (out, &g, "id", b->id);
-      json_key_number (out, &g, "position", b->position);
-      json_key (out, &g, "forces");
-      json_cases (out, b->force);
-      g_string_append_c (out, '}');
-    }
-  g_string_append_c (out, ']');
-  json_key (out, first, "live_reduction");
-  json_reduction (out, &r->reduction);
-}
-
-static void
 json_member (GString               *out,
              const TrbProject      *project,
              const TrbMemberResult *r)
@@ -449,43 +318,19 @@ json_member (GString               *out,
 
   json_key (out, &first, "supports");
   g_string_append_c (out, '[');
-  if (r->supports != NULL)
+  for (guint i = 0; i < m->supports->len; i++)
     {
-      /* as analysed: a floor member's come from what it rests on */
-      for (guint i = 0; i < r->supports->len; i++)
-        {
-          const TrbSupport *s = &g_array_index (r->supports, TrbSupport, i);
+      const TrbMemberSupport *s = &g_array_index (m->supports, TrbMemberSupport, i);
+      gboolean f = TRUE;
 
-          if (i > 0)
-            g_string_append_c (out, ',');
-          json_support (out, s);
-        }
-    }
-  else if (r->bearings != NULL)
-    {
-      for (guint i = 0; i < r->bearings->len; i++)
-        {
-          const TrbMemberBearing *b = &g_array_index (r->bearings, TrbMemberBearing, i);
-          TrbSupport s = { b->x, TRB_SUPPORT_PIN };
-
-          if (i > 0)
-            g_string_append_c (out, ',');
-          json_support (out, &s);
-        }
-    }
-  else
-    {
-      for (guint i = 0; i < m->supports->len; i++)
-        {
-          if (i > 0)
-            g_string_append_c (out, ',');
-          json_support (out, &g_array_index (m->supports, TrbMemberSupport, i).support);
-        }
+      if (i > 0)
+        g_string_append_c (out, ',');
+      g_string_append_c (out, '{');
+      json_key_number (out, &f, "x", s->support.x);
+      json_key_string (out, &f, "type", trb_support_type_name (s->support.type));
+      g_string_append_c (out, '}');
     }
   g_string_append_c (out, ']');
-
-  if (m->floor != NULL)
-    json_floor_member (out, &first, r);
 
   json_key (out, &first, "notes");
   g_string_append_c (out, '[');
@@ -598,287 +443,12 @@ json_member (GString               *out,
   g_string_append (out, "]}");
 }
 
-/* Which members a command shows: all, or one and those resting on it, transitively. */
-typedef struct
-{
-  const TrbProjectResult *pr;
-  gboolean               *shown;     /* per entry of pr->members */
-  GHashTable             *columns;   /* const TrbColumn * shown (NULL: all) */
-  GHashTable             *walls;     /* const TrbWall * shown (NULL: all) */
-} Selection;
-
 static void
-selection_clear (Selection *sel)
+write_json (GString          *out,
+            const TrbProject *project,
+            GPtrArray        *results)
 {
-  g_clear_pointer (&sel->shown, g_free);
-  g_clear_pointer (&sel->columns, g_hash_table_unref);
-  g_clear_pointer (&sel->walls, g_hash_table_unref);
-}
-
-static gboolean
-column_shown (const Selection *sel,
-              const TrbColumn *column)
-{
-  return sel->columns == NULL || g_hash_table_contains (sel->columns, column);
-}
-
-static gboolean
-wall_shown (const Selection *sel,
-            const TrbWall   *wall)
-{
-  return sel->walls == NULL || g_hash_table_contains (sel->walls, wall);
-}
-
-/* FALSE when there is no such member. With an id: that member, every member resting on it
- * and on those, and the columns and walls the shown members rest on. */
-static gboolean
-selection_init (Selection              *sel,
-                const TrbProjectResult *pr,
-                const char             *member_id)
-{
-  guint n = pr->members->len;
-  g_autoptr(GHashTable) index = NULL;
-  gboolean found = FALSE;
-  gboolean grew = TRUE;
-
-  sel->pr = pr;
-  sel->shown = g_new0 (gboolean, n + 1);
-  sel->columns = sel->walls = NULL;
-  if (member_id == NULL)
-    {
-      for (guint i = 0; i < n; i++)
-        sel->shown[i] = TRUE;
-      return TRUE;
-    }
-
-  index = g_hash_table_new (g_str_hash, g_str_equal);
-  for (guint i = 0; i < n; i++)
-    {
-      const TrbMemberResult *r = g_ptr_array_index (pr->members, i);
-
-      g_hash_table_insert (index, r->member->id, GUINT_TO_POINTER (i + 1));
-      if (strcmp (r->member->id, member_id) == 0)
-        sel->shown[i] = found = TRUE;
-    }
-  if (!found)
-    return FALSE;
-
-  /* until nothing more rests on what is shown */
-  while (grew)
-    {
-      grew = FALSE;
-      for (guint i = 0; i < n; i++)
-        {
-          const TrbMemberResult *r = g_ptr_array_index (pr->members, i);
-
-          if (sel->shown[i] || r->bearings == NULL)
-            continue;
-          for (guint k = 0; k < r->bearings->len; k++)
-            {
-              const TrbMemberBearing *b = &g_array_index (r->bearings, TrbMemberBearing, k);
-              guint j;
-
-              if (b->own || b->kind != TRB_BEARING_MEMBER)
-                continue;
-              j = GPOINTER_TO_UINT (g_hash_table_lookup (index, b->id));
-              if (j > 0 && sel->shown[j - 1])
-                {
-                  sel->shown[i] = grew = TRUE;
-                  break;
-                }
-            }
-        }
-    }
-
-  sel->columns = g_hash_table_new (NULL, NULL);
-  sel->walls = g_hash_table_new (NULL, NULL);
-  for (guint i = 0; i < n; i++)
-    {
-      const TrbMemberResult *r = g_ptr_array_index (pr->members, i);
-
-      if (!sel->shown[i] || r->bearings == NULL)
-        continue;
-      for (guint k = 0; k < r->bearings->len; k++)
-        {
-          const TrbMemberBearing *b = &g_array_index (r->bearings, TrbMemberBearing, k);
-
-          if (b->own)
-            continue;
-          if (b->kind == TRB_BEARING_COLUMN)
-            g_hash_table_add (sel->columns,
-                              trb_floor_find_column (r->member->floor, b->id));
-          else if (b->kind == TRB_BEARING_WALL)
-            g_hash_table_add (sel->walls, trb_floor_find_wall (r->member->floor, b->id));
-        }
-    }
-  return TRUE;
-}
-
-static void
-json_floors (GString         *out,
-             gboolean        *first,
-             const Selection *sel)
-{
-  const TrbProjectResult *pr = sel->pr;
-  gboolean any = FALSE;
-  double totals[4][TRB_N_CASES] = { { 0 } };
-
-  json_key (out, first, "columns");
-  g_string_append_c (out, '[');
-  for (guint f = 0; f < pr->floors->len; f++)
-    {
-      const TrbFloorResult *fr = g_ptr_array_index (pr->floors, f);
-
-      for (guint i = 0; i < fr->columns->len; i++)
-        {
-          const TrbColumnResult *c = &g_array_index (fr->columns, TrbColumnResult, i);
-          gboolean g = TRUE;
-
-          if (!column_shown (sel, c->column))
-            continue;
-          if (any)
-            g_string_append_c (out, ',');
-          any = TRUE;
-          g_string_append_c (out, '{');
-          json_key_string (out, &g, "id", c->column->id);
-          json_key_string (out, &g, "floor", c->floor->name);
-          json_key_number (out, &g, "line", c->column->line);
-          json_key_number (out, &g, "x", c->column->at.x);
-          json_key_number (out, &g, "y", c->column->at.y);
-          json_key_string (out, &g, "section", c->column->section);
-          json_key (out, &g, "cases");
-          json_cases (out, c->force);
-          json_key (out, &g, "reduction");
-          json_reduction (out, &c->reduction);
-          json_key_number (out, &g, "live_reduced", c->live_reduced);
-          g_string_append_c (out, '}');
-          maybe_flush (out);
-        }
-    }
-  g_string_append_c (out, ']');
-
-  any = FALSE;
-  json_key (out, first, "walls");
-  g_string_append_c (out, '[');
-  for (guint f = 0; f < pr->floors->len; f++)
-    {
-      const TrbFloorResult *fr = g_ptr_array_index (pr->floors, f);
-
-      for (guint i = 0; i < fr->walls->len; i++)
-        {
-          const TrbWallResult *w = &g_array_index (fr->walls, TrbWallResult, i);
-          gboolean g = TRUE, h = TRUE;
-
-          if (!wall_shown (sel, w->wall))
-            continue;
-          if (any)
-            g_string_append_c (out, ',');
-          any = TRUE;
-          g_string_append_c (out, '{');
-          json_key_string (out, &g, "id", w->wall->id);
-          json_key_string (out, &g, "floor", w->floor->name);
-          json_key_number (out, &g, "line", w->wall->line);
-          json_key_string (out, &g, "material", w->wall->material);
-          json_key (out, &g, "cases");
-          json_cases (out, w->force);
-          json_key (out, &g, "loads");
-          g_string_append_c (out, '{');
-          for (guint c = 0; c < TRB_N_CASES; c++)
-            {
-              json_key (out, &h, trb_load_case_name (c));
-              g_string_append_c (out, '[');
-              for (guint k = 0; k < w->loads[c]->len; k++)
-                {
-                  const TrbLoad *l = &g_array_index (w->loads[c], TrbLoad, k);
-                  gboolean e = TRUE;
-
-                  if (k > 0)
-                    g_string_append_c (out, ',');
-                  g_string_append_c (out, '{');
-                  json_key_number (out, &e, "at", l->a);
-                  json_key_number (out, &e, "force", l->w1);
-                  g_string_append_c (out, '}');
-                }
-              g_string_append_c (out, ']');
-            }
-          g_string_append (out, "}}");
-          maybe_flush (out);
-        }
-    }
-  g_string_append_c (out, ']');
-
-  any = FALSE;
-  json_key (out, first, "unassigned");
-  g_string_append_c (out, '[');
-  for (guint f = 0; f < pr->floors->len; f++)
-    {
-      const TrbFloorResult *fr = g_ptr_array_index (pr->floors, f);
-
-      for (guint i = 0; i < fr->unassigned->len; i++)
-        {
-          const TrbUnassignedLoad *u = &g_array_index (fr->unassigned, TrbUnassignedLoad, i);
-          gboolean g = TRUE;
-
-          if (any)
-            g_string_append_c (out, ',');
-          any = TRUE;
-          g_string_append_c (out, '{');
-          json_key_string (out, &g, "floor", fr->floor->name);
-          json_key_string (out, &g, "kind", u->point != NULL ? "point" : "line");
-          json_key_number (out, &g, "line", u->point != NULL ? u->point->line : u->line->line);
-          json_key_string (out, &g, "label", u->point != NULL ? u->point->label
-                                                                : u->line->label);
-          json_key_string (out, &g, "case",
-                           trb_load_case_name (u->point != NULL ? u->point->lcase
-                                                                : u->line->lcase));
-          json_key_number (out, &g, "length", u->length);
-          json_key_number (out, &g, "force", u->force);
-          g_string_append_c (out, '}');
-        }
-    }
-  g_string_append_c (out, ']');
-
-  for (guint f = 0; f < pr->floors->len; f++)
-    {
-      const TrbFloorResult *fr = g_ptr_array_index (pr->floors, f);
-
-      for (guint c = 0; c < TRB_N_CASES; c++)
-        {
-          totals[0][c] += fr->applied[c];
-          totals[1][c] += fr->reactions[c];
-          totals[2][c] += fr->not_carried[c];
-          totals[3][c] += fr->supports[c];
-        }
-    }
-  json_key (out, first, "totals");
-  g_string_append_c (out, '{');
-  {
-    gboolean g = TRUE;
-
-    for (guint c = 0; c < TRB_N_CASES && pr->floors->len > 0; c++)
-      {
-        gboolean h = TRUE;
-
-        json_key (out, &g, trb_load_case_name (c));
-        g_string_append_c (out, '{');
-        json_key_number (out, &h, "applied", totals[0][c]);
-        json_key_number (out, &h, "reactions", totals[1][c]);
-        json_key_number (out, &h, "not_carried", totals[2][c]);
-        json_key_number (out, &h, "supports", totals[3][c]);
-        g_string_append_c (out, '}');
-      }
-  }
-  g_string_append_c (out, '}');
-}
-
-static void
-write_json (GString         *out,
-            const Selection *sel)
-{
-  const TrbProjectResult *pr = sel->pr;
-  const TrbProject *project = pr->project;
   gboolean first = TRUE;
-  gboolean any = FALSE;
 
   g_string_append_c (out, '{');
   json_key_number (out, &first, "format", 1);
@@ -889,19 +459,13 @@ write_json (GString         *out,
   json_key_string (out, &first, "file", project->name);
   json_key (out, &first, "members");
   g_string_append_c (out, '[');
-  for (guint i = 0; i < pr->members->len; i++)
+  for (guint i = 0; i < results->len; i++)
     {
-      if (!sel->shown[i])
-        continue;
-      if (any)
+      if (i > 0)
         g_string_append_c (out, ',');
-      any = TRUE;
-      json_member (out, project, g_ptr_array_index (pr->members, i));
-      maybe_flush (out);
+      json_member (out, project, g_ptr_array_index (results, i));
     }
-  g_string_append_c (out, ']');
-  json_floors (out, &first, sel);
-  g_string_append (out, "}\n");
+  g_string_append (out, "]}\n");
 }
 
 /* ---- the table ----------------------------------------------------------------------- */
