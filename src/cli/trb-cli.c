@@ -36,17 +36,42 @@
 static const char usage_text[] =
   "Usage:\n"
   "  trabeate-cli check FILE [--json] [--member ID]\n"
+  "  trabeate-cli schedule FILE [--csv] [--member ID]\n"
   "  trabeate-cli --help | --version\n"
   "\n"
   "Commands:\n"
-  "  check    analyse every member of a project file and print the results\n"
+  "  check      analyse every member of a project file (floors through their load\n"
+  "             takedown) and print the results, column and wall loads and totals\n"
+  "  schedule   the member schedule and the column load table\n"
   "\n"
-  "Options of check:\n"
-  "  --json         write the results as JSON (SI units) instead of a table\n"
-  "  --member ID    only the member with this id\n"
+  "Options:\n"
+  "  --json         check: write the results as JSON (SI units) instead of a table\n"
+  "  --csv          schedule: write CSV (the project's units, named in the header)\n"
+  "  --member ID    only the member with this id and the members resting on it\n"
+  "  --no-shortcuts solve every member in full, without the cache of identical members\n"
+  "                 and the sizing bounds (for verification: the results are the same)\n"
   "\n"
   "Exit status: 0 every member passes; 1 some member fails, is unstable or unsupported,\n"
   "or is not designed; 2 bad input or usage.\n";
+
+/* Output goes to standard output as it is made, a piece at a time, so that a floor of ten
+ * thousand members never sits in memory as text. */
+static gboolean write_failed;
+
+static void
+flush_out (GString *out)
+{
+  if (out->len > 0 && fwrite (out->str, 1, out->len, stdout) != out->len)
+    write_failed = TRUE;
+  g_string_truncate (out, 0);
+}
+
+static void
+maybe_flush (GString *out)
+{
+  if (out->len >= 64 * 1024)
+    flush_out (out);
+}
 
 /* ---- JSON ---------------------------------------------------------------------------- */
 
@@ -298,6 +323,113 @@ json_checks (GString      *out,
 }
 
 static void
+json_support (GString          *out,
+              const TrbSupport *s)
+{
+  gboolean f = TRUE;
+
+  g_string_append_c (out, '{');
+  json_key_number (out, &f, "x", s->x);
+  json_key_string (out, &f, "type", trb_support_type_name (s->type));
+  g_string_append_c (out, '}');
+}
+
+static void
+json_cases (GString      *out,
+            const double *force)
+{
+  gboolean f = TRUE;
+
+  g_string_append_c (out, '{');
+  for (guint c = 0; c < TRB_N_CASES; c++)
+    json_key_number (out, &f, trb_load_case_name (c), force[c]);
+  g_string_append_c (out, '}');
+}
+
+static const char *
+bearing_on (const TrbMemberBearing *b)
+{
+  if (b->own)
+    return "support";
+  switch (b->kind)
+    {
+    case TRB_BEARING_COLUMN:
+      return "column";
+    case TRB_BEARING_WALL:
+      return "wall";
+    case TRB_BEARING_MEMBER:
+    default:
+      return "member";
+    }
+}
+
+static void
+json_reduction (GString               *out,
+                const TrbReductionUse *use)
+{
+  gboolean f = TRUE;
+
+  if (!use->applies)
+    {
+      g_string_append (out, "null");
+      return;
+    }
+  g_string_append_c (out, '{');
+  json_key_number (out, &f, "area", use->area);
+  json_key_number (out, &f, "k_ll", use->k_ll);
+  json_key_number (out, &f, "floors", use->floors);
+  json_key_number (out, &f, "factor", use->factor);
+  json_key_string (out, &f, "rule", trb_live_rule_describe (use->rule));
+  json_key_number (out, &f, "reducible", use->reducible);
+  json_key_number (out, &f, "not_reducible", use->other);
+  g_string_append_c (out, '}');
+}
+
+/* What a floor member adds: where it is, what each support rests on and what it hands down
+ * there, and the live load reduction it used. */
+static void
+json_floor_member (GString               *out,
+                   gboolean              *first,
+                   const TrbMemberResult *r)
+{
+  const TrbMember *m = r->member;
+  gboolean f = TRUE;
+
+  json_key_string (out, first, "floor", m->floor->name);
+  json_key_string (out, first, "role", trb_role_name (m->role));
+  json_key (out, first, "plan");
+  g_string_append_c (out, '{');
+  json_key_number (out, &f, "x1", m->start.x);
+  json_key_number (out, &f, "y1", m->start.y);
+  json_key_number (out, &f, "x2", m->end.x);
+  json_key_number (out, &f, "y2", m->end.y);
+  g_string_append_c (out, '}');
+
+  json_key (out, first, "bearings");
+  g_string_append_c (out, '[');
+  for (guint i = 0; r->bearings != NULL && i < r->bearings->len; i++)
+    {
+      const TrbMemberBearing *b = &g_array_index (r->bearings, TrbMemberBearing, i);
+      gboolean g = TRUE;
+
+      if (i > 0)
+        g_string_append_c (out, ',');
+      g_string_append_c (out, '{');
+      json_key_number (out, &g, "x", b->x);
+      json_key_string (out, &g, "on", bearing_on (b));
+      json_key_string (out, &g, "id", b->id);
+      json_key_number (out, &g, "position", b->position);
+      json_key (out, &g, "forces");
+      json_cases (out, b->force);
+      g_string_append_c (out, '}');
+    }
+  g_string_append_c (out, ']');
+  json_key (out, first, "live_reduction");
+  json_reduction (out, &r->reduction);
+  json_key_string (out, first, "plan_note", r->plan_note);
+}
+
+static void
 json_member (GString               *out,
              const TrbProject      *project,
              const TrbMemberResult *r)
@@ -318,19 +450,43 @@ json_member (GString               *out,
 
   json_key (out, &first, "supports");
   g_string_append_c (out, '[');
-  for (guint i = 0; i < m->supports->len; i++)
+  if (r->supports != NULL)
     {
-      const TrbMemberSupport *s = &g_array_index (m->supports, TrbMemberSupport, i);
-      gboolean f = TRUE;
+      /* as analysed: a floor member's come from what it rests on */
+      for (guint i = 0; i < r->supports->len; i++)
+        {
+          const TrbSupport *s = &g_array_index (r->supports, TrbSupport, i);
 
-      if (i > 0)
-        g_string_append_c (out, ',');
-      g_string_append_c (out, '{');
-      json_key_number (out, &f, "x", s->support.x);
-      json_key_string (out, &f, "type", trb_support_type_name (s->support.type));
-      g_string_append_c (out, '}');
+          if (i > 0)
+            g_string_append_c (out, ',');
+          json_support (out, s);
+        }
+    }
+  else if (r->bearings != NULL)
+    {
+      for (guint i = 0; i < r->bearings->len; i++)
+        {
+          const TrbMemberBearing *b = &g_array_index (r->bearings, TrbMemberBearing, i);
+          TrbSupport s = { b->x, TRB_SUPPORT_PIN };
+
+          if (i > 0)
+            g_string_append_c (out, ',');
+          json_support (out, &s);
+        }
+    }
+  else
+    {
+      for (guint i = 0; i < m->supports->len; i++)
+        {
+          if (i > 0)
+            g_string_append_c (out, ',');
+          json_support (out, &g_array_index (m->supports, TrbMemberSupport, i).support);
+        }
     }
   g_string_append_c (out, ']');
+
+  if (m->floor != NULL)
+    json_floor_member (out, &first, r);
 
   json_key (out, &first, "notes");
   g_string_append_c (out, '[');
@@ -443,12 +599,287 @@ json_member (GString               *out,
   g_string_append (out, "]}");
 }
 
-static void
-write_json (GString          *out,
-            const TrbProject *project,
-            GPtrArray        *results)
+/* Which members a command shows: all, or one and those resting on it, transitively. */
+typedef struct
 {
+  const TrbProjectResult *pr;
+  gboolean               *shown;     /* per entry of pr->members */
+  GHashTable             *columns;   /* const TrbColumn * shown (NULL: all) */
+  GHashTable             *walls;     /* const TrbWall * shown (NULL: all) */
+} Selection;
+
+static void
+selection_clear (Selection *sel)
+{
+  g_clear_pointer (&sel->shown, g_free);
+  g_clear_pointer (&sel->columns, g_hash_table_unref);
+  g_clear_pointer (&sel->walls, g_hash_table_unref);
+}
+
+static gboolean
+column_shown (const Selection *sel,
+              const TrbColumn *column)
+{
+  return sel->columns == NULL || g_hash_table_contains (sel->columns, column);
+}
+
+static gboolean
+wall_shown (const Selection *sel,
+            const TrbWall   *wall)
+{
+  return sel->walls == NULL || g_hash_table_contains (sel->walls, wall);
+}
+
+/* FALSE when there is no such member. With an id: that member, every member resting on it
+ * and on those, and the columns and walls the shown members rest on. */
+static gboolean
+selection_init (Selection              *sel,
+                const TrbProjectResult *pr,
+                const char             *member_id)
+{
+  guint n = pr->members->len;
+  g_autoptr(GHashTable) index = NULL;
+  gboolean found = FALSE;
+  gboolean grew = TRUE;
+
+  sel->pr = pr;
+  sel->shown = g_new0 (gboolean, n + 1);
+  sel->columns = sel->walls = NULL;
+  if (member_id == NULL)
+    {
+      for (guint i = 0; i < n; i++)
+        sel->shown[i] = TRUE;
+      return TRUE;
+    }
+
+  index = g_hash_table_new (g_str_hash, g_str_equal);
+  for (guint i = 0; i < n; i++)
+    {
+      const TrbMemberResult *r = g_ptr_array_index (pr->members, i);
+
+      g_hash_table_insert (index, r->member->id, GUINT_TO_POINTER (i + 1));
+      if (strcmp (r->member->id, member_id) == 0)
+        sel->shown[i] = found = TRUE;
+    }
+  if (!found)
+    return FALSE;
+
+  /* until nothing more rests on what is shown */
+  while (grew)
+    {
+      grew = FALSE;
+      for (guint i = 0; i < n; i++)
+        {
+          const TrbMemberResult *r = g_ptr_array_index (pr->members, i);
+
+          if (sel->shown[i] || r->bearings == NULL)
+            continue;
+          for (guint k = 0; k < r->bearings->len; k++)
+            {
+              const TrbMemberBearing *b = &g_array_index (r->bearings, TrbMemberBearing, k);
+              guint j;
+
+              if (b->own || b->kind != TRB_BEARING_MEMBER)
+                continue;
+              j = GPOINTER_TO_UINT (g_hash_table_lookup (index, b->id));
+              if (j > 0 && sel->shown[j - 1])
+                {
+                  sel->shown[i] = grew = TRUE;
+                  break;
+                }
+            }
+        }
+    }
+
+  sel->columns = g_hash_table_new (NULL, NULL);
+  sel->walls = g_hash_table_new (NULL, NULL);
+  for (guint i = 0; i < n; i++)
+    {
+      const TrbMemberResult *r = g_ptr_array_index (pr->members, i);
+
+      if (!sel->shown[i] || r->bearings == NULL)
+        continue;
+      for (guint k = 0; k < r->bearings->len; k++)
+        {
+          const TrbMemberBearing *b = &g_array_index (r->bearings, TrbMemberBearing, k);
+
+          if (b->own)
+            continue;
+          if (b->kind == TRB_BEARING_COLUMN)
+            g_hash_table_add (sel->columns,
+                              trb_floor_find_column (r->member->floor, b->id));
+          else if (b->kind == TRB_BEARING_WALL)
+            g_hash_table_add (sel->walls, trb_floor_find_wall (r->member->floor, b->id));
+        }
+    }
+  return TRUE;
+}
+
+static void
+json_floors (GString         *out,
+             gboolean        *first,
+             const Selection *sel)
+{
+  const TrbProjectResult *pr = sel->pr;
+  gboolean any = FALSE;
+  double totals[4][TRB_N_CASES] = { { 0 } };
+
+  json_key (out, first, "columns");
+  g_string_append_c (out, '[');
+  for (guint f = 0; f < pr->floors->len; f++)
+    {
+      const TrbFloorResult *fr = g_ptr_array_index (pr->floors, f);
+
+      for (guint i = 0; i < fr->columns->len; i++)
+        {
+          const TrbColumnResult *c = &g_array_index (fr->columns, TrbColumnResult, i);
+          gboolean g = TRUE;
+
+          if (!column_shown (sel, c->column))
+            continue;
+          if (any)
+            g_string_append_c (out, ',');
+          any = TRUE;
+          g_string_append_c (out, '{');
+          json_key_string (out, &g, "id", c->column->id);
+          json_key_string (out, &g, "floor", c->floor->name);
+          json_key_number (out, &g, "line", c->column->line);
+          json_key_number (out, &g, "x", c->column->at.x);
+          json_key_number (out, &g, "y", c->column->at.y);
+          json_key_string (out, &g, "section", c->column->section);
+          json_key (out, &g, "cases");
+          json_cases (out, c->force);
+          json_key (out, &g, "reduction");
+          json_reduction (out, &c->reduction);
+          json_key_number (out, &g, "live_reduced", c->live_reduced);
+          g_string_append_c (out, '}');
+          maybe_flush (out);
+        }
+    }
+  g_string_append_c (out, ']');
+
+  any = FALSE;
+  json_key (out, first, "walls");
+  g_string_append_c (out, '[');
+  for (guint f = 0; f < pr->floors->len; f++)
+    {
+      const TrbFloorResult *fr = g_ptr_array_index (pr->floors, f);
+
+      for (guint i = 0; i < fr->walls->len; i++)
+        {
+          const TrbWallResult *w = &g_array_index (fr->walls, TrbWallResult, i);
+          gboolean g = TRUE, h = TRUE;
+
+          if (!wall_shown (sel, w->wall))
+            continue;
+          if (any)
+            g_string_append_c (out, ',');
+          any = TRUE;
+          g_string_append_c (out, '{');
+          json_key_string (out, &g, "id", w->wall->id);
+          json_key_string (out, &g, "floor", w->floor->name);
+          json_key_number (out, &g, "line", w->wall->line);
+          json_key_string (out, &g, "material", w->wall->material);
+          json_key (out, &g, "cases");
+          json_cases (out, w->force);
+          json_key (out, &g, "loads");
+          g_string_append_c (out, '{');
+          for (guint c = 0; c < TRB_N_CASES; c++)
+            {
+              json_key (out, &h, trb_load_case_name (c));
+              g_string_append_c (out, '[');
+              for (guint k = 0; k < w->loads[c]->len; k++)
+                {
+                  const TrbLoad *l = &g_array_index (w->loads[c], TrbLoad, k);
+                  gboolean e = TRUE;
+
+                  if (k > 0)
+                    g_string_append_c (out, ',');
+                  g_string_append_c (out, '{');
+                  json_key_number (out, &e, "at", l->a);
+                  json_key_number (out, &e, "force", l->w1);
+                  g_string_append_c (out, '}');
+                }
+              g_string_append_c (out, ']');
+            }
+          g_string_append (out, "}}");
+          maybe_flush (out);
+        }
+    }
+  g_string_append_c (out, ']');
+
+  any = FALSE;
+  json_key (out, first, "unassigned");
+  g_string_append_c (out, '[');
+  for (guint f = 0; f < pr->floors->len; f++)
+    {
+      const TrbFloorResult *fr = g_ptr_array_index (pr->floors, f);
+
+      for (guint i = 0; i < fr->unassigned->len; i++)
+        {
+          const TrbUnassignedLoad *u = &g_array_index (fr->unassigned, TrbUnassignedLoad, i);
+          gboolean g = TRUE;
+
+          if (any)
+            g_string_append_c (out, ',');
+          any = TRUE;
+          g_string_append_c (out, '{');
+          json_key_string (out, &g, "floor", fr->floor->name);
+          json_key_string (out, &g, "kind", u->point != NULL ? "point" : "line");
+          json_key_number (out, &g, "line", u->point != NULL ? u->point->line : u->line->line);
+          json_key_string (out, &g, "label", u->point != NULL ? u->point->label
+                                                                : u->line->label);
+          json_key_string (out, &g, "case",
+                           trb_load_case_name (u->point != NULL ? u->point->lcase
+                                                                : u->line->lcase));
+          json_key_number (out, &g, "length", u->length);
+          json_key_number (out, &g, "force", u->force);
+          g_string_append_c (out, '}');
+        }
+    }
+  g_string_append_c (out, ']');
+
+  for (guint f = 0; f < pr->floors->len; f++)
+    {
+      const TrbFloorResult *fr = g_ptr_array_index (pr->floors, f);
+
+      for (guint c = 0; c < TRB_N_CASES; c++)
+        {
+          totals[0][c] += fr->applied[c];
+          totals[1][c] += fr->reactions[c];
+          totals[2][c] += fr->not_carried[c];
+          totals[3][c] += fr->supports[c];
+        }
+    }
+  json_key (out, first, "totals");
+  g_string_append_c (out, '{');
+  {
+    gboolean g = TRUE;
+
+    for (guint c = 0; c < TRB_N_CASES && pr->floors->len > 0; c++)
+      {
+        gboolean h = TRUE;
+
+        json_key (out, &g, trb_load_case_name (c));
+        g_string_append_c (out, '{');
+        json_key_number (out, &h, "applied", totals[0][c]);
+        json_key_number (out, &h, "reactions", totals[1][c]);
+        json_key_number (out, &h, "not_carried", totals[2][c]);
+        json_key_number (out, &h, "supports", totals[3][c]);
+        g_string_append_c (out, '}');
+      }
+  }
+  g_string_append_c (out, '}');
+}
+
+static void
+write_json (GString         *out,
+            const Selection *sel)
+{
+  const TrbProjectResult *pr = sel->pr;
+  const TrbProject *project = pr->project;
   gboolean first = TRUE;
+  gboolean any = FALSE;
 
   g_string_append_c (out, '{');
   json_key_number (out, &first, "format", 1);
@@ -459,13 +890,19 @@ write_json (GString          *out,
   json_key_string (out, &first, "file", project->name);
   json_key (out, &first, "members");
   g_string_append_c (out, '[');
-  for (guint i = 0; i < results->len; i++)
+  for (guint i = 0; i < pr->members->len; i++)
     {
-      if (i > 0)
+      if (!sel->shown[i])
+        continue;
+      if (any)
         g_string_append_c (out, ',');
-      json_member (out, project, g_ptr_array_index (results, i));
+      any = TRUE;
+      json_member (out, project, g_ptr_array_index (pr->members, i));
+      maybe_flush (out);
     }
-  g_string_append (out, "]}\n");
+  g_string_append_c (out, ']');
+  json_floors (out, &first, sel);
+  g_string_append (out, "}\n");
 }
 
 /* ---- the table ----------------------------------------------------------------------- */
@@ -670,6 +1107,98 @@ table_shortlist (GString               *out,
     }
 }
 
+static char *
+fmt_point (double        x,
+           double        y,
+           TrbUnitSystem u)
+{
+  g_autofree char *xs = fmt (x, TRB_DIM_LENGTH, u);
+  g_autofree char *ys = fmt (y, TRB_DIM_LENGTH, u);
+
+  return g_strdup_printf ("(%s, %s)", xs, ys);
+}
+
+/* A_T in the unit ASCE 7 states it in (ft^2), or m^2. */
+static double
+area_display (double        area,
+              TrbUnitSystem u)
+{
+  return u == TRB_UNIT_SYSTEM_SI ? area : area / (TRB_FT * TRB_FT);
+}
+
+static const char *
+area_unit (TrbUnitSystem u)
+{
+  return u == TRB_UNIT_SYSTEM_SI ? "m²" : "ft²";
+}
+
+static char *
+reduction_text (const TrbReductionUse *use,
+                TrbUnitSystem          u)
+{
+  g_autofree char *area = g_strdup_printf ("%.0f %s", area_display (use->area, u),
+                                           area_unit (u));
+
+  return g_strdup_printf ("A_T %s, K_LL %.0f, %u floor%s: factor %.3f (%s)", area, use->k_ll,
+                          use->floors, use->floors == 1 ? "" : "s", use->factor,
+                          trb_live_rule_describe (use->rule));
+}
+
+/* Where a floor member lies, what each support rests on and hands down, and its live load
+ * reduction. */
+static void
+table_floor_member (GString               *out,
+                    const TrbMemberResult *r)
+{
+  const TrbMember *m = r->member;
+  TrbUnitSystem u = r->units;
+  g_autofree char *from = fmt_point (m->start.x, m->start.y, u);
+  g_autofree char *to = fmt_point (m->end.x, m->end.y, u);
+
+  g_string_append_printf (out, "  Floor %s: %s from %s to %s\n", m->floor->name,
+                          trb_role_name (m->role), from, to);
+  g_string_append (out, "  Supports (reactions handed down, live load unreduced):\n");
+  if (r->bearings == NULL || r->bearings->len == 0)
+    g_string_append (out, "    none\n");
+  for (guint i = 0; r->bearings != NULL && i < r->bearings->len; i++)
+    {
+      const TrbMemberBearing *b = &g_array_index (r->bearings, TrbMemberBearing, i);
+      g_autofree char *x = fmt (b->x, TRB_DIM_LENGTH, u);
+      g_autofree char *on = NULL;
+
+      if (b->own)
+        on = g_strdup ("its own support");
+      else if (b->kind == TRB_BEARING_MEMBER || b->kind == TRB_BEARING_WALL)
+        {
+          g_autofree char *pos = fmt (b->position, TRB_DIM_LENGTH, u);
+
+          on = g_strdup_printf ("%s %s at %s", bearing_on (b), b->id, pos);
+        }
+      else
+        on = g_strdup_printf ("column %s", b->id);
+      g_string_append_printf (out, "    at %-10s on %s", x, on);
+      if (r->analysed)
+        for (guint c = 0; c < TRB_N_CASES; c++)
+          {
+            g_autofree char *f = NULL;
+
+            if (b->force[c] == 0)
+              continue;
+            f = fmt (b->force[c], TRB_DIM_FORCE, u);
+            g_string_append_printf (out, "; %s %s", trb_load_case_name (c), f);
+          }
+      g_string_append_c (out, '\n');
+    }
+  if (r->reduction.applies)
+    {
+      g_autofree char *text = reduction_text (&r->reduction, u);
+
+      g_string_append_printf (out, "  Live load reduction: %s\n", text);
+    }
+  if (r->plan_note != NULL)
+    g_string_append_printf (out, "  Note: %s\n", r->plan_note);
+}
+
 static void
 table_member (GString               *out,
               const TrbProject      *project,
@@ -689,16 +1218,21 @@ table_member (GString               *out,
   g_string_append_printf (out, "\nMember %s (line %d): %s, section %s, length %s, method %s\n",
                           m->id, m->line, trb_material_name (m->material), section, len,
                           trb_method_name (r->method));
-  g_string_append (out, "  Supports:");
-  for (guint i = 0; i < m->supports->len; i++)
+  if (m->floor != NULL)
+    table_floor_member (out, r);
+  else
     {
-      const TrbMemberSupport *s = &g_array_index (m->supports, TrbMemberSupport, i);
-      g_autofree char *x = fmt (s->support.x, TRB_DIM_LENGTH, u);
+      g_string_append (out, "  Supports:");
+      for (guint i = 0; i < m->supports->len; i++)
+        {
+          const TrbMemberSupport *s = &g_array_index (m->supports, TrbMemberSupport, i);
+          g_autofree char *x = fmt (s->support.x, TRB_DIM_LENGTH, u);
 
-      g_string_append_printf (out, "%s %s at %s", i > 0 ? ";" : "",
-                              trb_support_type_name (s->support.type), x);
+          g_string_append_printf (out, "%s %s at %s", i > 0 ? ";" : "",
+                                  trb_support_type_name (s->support.type), x);
+        }
+      g_string_append (out, m->supports->len == 0 ? " none\n" : "\n");
     }
-  g_string_append (out, m->supports->len == 0 ? " none\n" : "\n");
   g_string_append_printf (out, "  Status: %s%s%s\n", status_text (r->status),
                           r->message != NULL ? " - " : "", r->message != NULL ? r->message : "");
   if (r->analysed && r->self_weight > 0)
@@ -728,9 +1262,11 @@ table_member (GString               *out,
 
 /* One line a member: what the engineer looks for first. */
 static void
-table_summary (GString   *out,
-               GPtrArray *results)
+table_summary (GString         *out,
+               const Selection *sel)
 {
+  GPtrArray *results = sel->pr->members;
+
   g_string_append (out, "\nSummary\n  mark       section          status         ratio  governing\n");
   for (guint i = 0; i < results->len; i++)
     {
@@ -738,37 +1274,460 @@ table_summary (GString   *out,
       g_autofree char *ratio = isnan (r->ratio) ? g_strdup ("-")
                                                 : g_strdup_printf ("%.3f", r->ratio);
 
+      if (!sel->shown[i])
+        continue;
       g_string_append_printf (out, "  %-10s %-16s %-13s %6s  %s\n", r->member->id,
                               r->section[0] != '\0' ? r->section : r->member->section,
                               status_text (r->status), ratio,
                               r->governing[0] != '\0' ? r->governing : "-");
+      maybe_flush (out);
+    }
+}
+
+/* The cases any of these forces carry, so that a table has no empty columns. */
+static void
+cases_present (const Selection *sel,
+               gboolean        *present)
+{
+  const TrbProjectResult *pr = sel->pr;
+
+  for (guint c = 0; c < TRB_N_CASES; c++)
+    present[c] = c == TRB_CASE_D || c == TRB_CASE_L;
+  for (guint i = 0; i < pr->members->len; i++)
+    {
+      const TrbMemberResult *r = g_ptr_array_index (pr->members, i);
+
+      for (guint c = 0; c < TRB_N_CASES && sel->shown[i]; c++)
+        present[c] |= r->cases[c] != NULL;
+    }
+  for (guint f = 0; f < pr->floors->len; f++)
+    {
+      const TrbFloorResult *fr = g_ptr_array_index (pr->floors, f);
+
+      for (guint c = 0; c < TRB_N_CASES; c++)
+        present[c] |= fr->applied[c] != 0;
     }
 }
 
 static void
-write_table (GString          *out,
-             const TrbProject *project,
-             GPtrArray        *results)
+table_floors (GString         *out,
+              const Selection *sel,
+              TrbUnitSystem    u)
 {
+  const TrbProjectResult *pr = sel->pr;
+  gboolean present[TRB_N_CASES];
+
+  if (pr->floors->len == 0)
+    return;
+  cases_present (sel, present);
+
+  for (guint f = 0; f < pr->floors->len; f++)
+    {
+      const TrbFloorResult *fr = g_ptr_array_index (pr->floors, f);
+      const char *name = fr->floor->name != NULL ? fr->floor->name : "";
+
+      if (fr->error != NULL)
+        g_string_append_printf (out, "\nFloor %s could not be framed: %s\n", name, fr->error);
+
+      if (fr->columns->len > 0)
+        {
+          g_string_append_printf (out, "\nColumn loads, floor %s (down +; live load unreduced, "
+                                  "then reduced)\n  %-8s %-22s", name, "column", "at");
+          for (guint c = 0; c < TRB_N_CASES; c++)
+            if (present[c])
+              g_string_append_printf (out, " %12s", trb_load_case_name (c));
+          g_string_append_printf (out, " %12s  %s\n", "L reduced", "reduction");
+          for (guint i = 0; i < fr->columns->len; i++)
+            {
+              const TrbColumnResult *c = &g_array_index (fr->columns, TrbColumnResult, i);
+              g_autofree char *at = fmt_point (c->column->at.x, c->column->at.y, u);
+              g_autofree char *lr = fmt (c->live_reduced, TRB_DIM_FORCE, u);
+              g_autofree char *red = c->reduction.applies
+                                     ? reduction_text (&c->reduction, u) : g_strdup ("none");
+
+              if (!column_shown (sel, c->column))
+                continue;
+              g_string_append_printf (out, "  %-8s %-22s", c->column->id, at);
+              for (guint k = 0; k < TRB_N_CASES; k++)
+                if (present[k])
+                  {
+                    g_autofree char *v = fmt (c->force[k], TRB_DIM_FORCE, u);
+
+                    g_string_append_printf (out, " %12s", v);
+                  }
+              g_string_append_printf (out, " %12s  %s\n", lr, red);
+              maybe_flush (out);
+            }
+        }
+
+      if (fr->walls->len > 0)
+        {
+          g_string_append_printf (out, "\nWall loads, floor %s (totals, down +)\n  %-8s", name,
+                                  "wall");
+          for (guint c = 0; c < TRB_N_CASES; c++)
+            if (present[c])
+              g_string_append_printf (out, " %12s", trb_load_case_name (c));
+          g_string_append (out, "  loads\n");
+          for (guint i = 0; i < fr->walls->len; i++)
+            {
+              const TrbWallResult *w = &g_array_index (fr->walls, TrbWallResult, i);
+              guint n = 0;
+
+              if (!wall_shown (sel, w->wall))
+                continue;
+              g_string_append_printf (out, "  %-8s", w->wall->id);
+              for (guint c = 0; c < TRB_N_CASES; c++)
+                {
+                  n = MAX (n, w->loads[c]->len);
+                  if (present[c])
+                    {
+                      g_autofree char *v = fmt (w->force[c], TRB_DIM_FORCE, u);
+
+                      g_string_append_printf (out, " %12s", v);
+                    }
+                }
+              g_string_append_printf (out, "  %u point%s along it\n", n, n == 1 ? "" : "s");
+            }
+        }
+
+      g_string_append_printf (out, "\nTotals, floor %s (down +)\n  %-5s %14s %14s %14s\n", name,
+                              "case", "applied", "reactions", "not carried");
+      for (guint c = 0; c < TRB_N_CASES; c++)
+        {
+          g_autofree char *a = fmt (fr->applied[c], TRB_DIM_FORCE, u);
+          g_autofree char *r = fmt (fr->reactions[c], TRB_DIM_FORCE, u);
+          g_autofree char *n = fmt (fr->not_carried[c], TRB_DIM_FORCE, u);
+
+          if (!present[c])
+            continue;
+          g_string_append_printf (out, "  %-5s %14s %14s %14s\n", trb_load_case_name (c), a, r,
+                                  n);
+        }
+      for (guint i = 0; i < fr->unassigned->len; i++)
+        {
+          const TrbUnassignedLoad *ul = &g_array_index (fr->unassigned, TrbUnassignedLoad, i);
+          g_autofree char *force = fmt (ul->force, TRB_DIM_FORCE, u);
+
+          if (ul->point != NULL)
+            {
+              g_autofree char *at = fmt_point (ul->point->at.x, ul->point->at.y, u);
+
+              g_string_append_printf (out, "WARNING: point load (line %d, %s%s%s) of %s at %s "
+                                      "lies on no member: nothing carries it\n",
+                                      ul->point->line, trb_load_case_name (ul->point->lcase),
+                                      ul->point->label != NULL ? ", " : "",
+                                      ul->point->label != NULL ? ul->point->label : "",
+                                      force, at);
+            }
+          else
+            {
+              g_autofree char *len = fmt (ul->length, TRB_DIM_LENGTH, u);
+
+              g_string_append_printf (out, "WARNING: %s of the line load (line %d, %s%s%s) lies "
+                                      "on no member: %s that nothing carries\n", len,
+                                      ul->line->line, trb_load_case_name (ul->line->lcase),
+                                      ul->line->label != NULL ? ", " : "",
+                                      ul->line->label != NULL ? ul->line->label : "", force);
+            }
+        }
+    }
+  g_string_append (out, "\n" TRB_CAUTION_COLUMNS "\n");
+}
+
+static void
+write_table (GString         *out,
+             const Selection *sel)
+{
+  const TrbProjectResult *pr = sel->pr;
+  const TrbProject *project = pr->project;
   guint counts[TRB_STATUS_ERROR + 1] = { 0 };
+  guint shown = 0;
 
   g_string_append_printf (out, "Trabeate %s: check of %s\n", PACKAGE_VERSION, project->name);
   g_string_append (out, "CAUTION: " CAUTION_1 "\n" CAUTION_2 "\n");
-  for (guint i = 0; i < results->len; i++)
+  for (guint i = 0; i < pr->members->len; i++)
     {
-      const TrbMemberResult *r = g_ptr_array_index (results, i);
+      const TrbMemberResult *r = g_ptr_array_index (pr->members, i);
 
+      if (!sel->shown[i])
+        continue;
+      shown++;
       counts[r->status]++;
       table_member (out, project, r);
+      maybe_flush (out);
     }
   g_string_append_printf (out, "\n%u member%s: %u pass, %u fail, %u unstable, %u unsupported, "
                           "%u not designed, %u error\n",
-                          results->len, results->len == 1 ? "" : "s",
+                          shown, shown == 1 ? "" : "s",
                           counts[TRB_STATUS_PASS], counts[TRB_STATUS_FAIL],
                           counts[TRB_STATUS_UNSTABLE], counts[TRB_STATUS_UNSUPPORTED],
                           counts[TRB_STATUS_NOT_DESIGNED], counts[TRB_STATUS_ERROR]);
-  table_summary (out, results);
+  table_summary (out, sel);
+  table_floors (out, sel, project->settings.units);
   g_string_append (out, "CAUTION: " CAUTION_1 "\n" CAUTION_2 "\n" CAUTION_3 "\n");
+}
+
+/* ---- the schedule -------------------------------------------------------------------- */
+
+/* The longest distance between neighbouring supports; for a lone fixed support, the length
+ * it reaches out. */
+static double
+member_span (const TrbMemberResult *r)
+{
+  double span = 0;
+  const TrbSupport *s;
+  guint n;
+
+  if (r->supports == NULL || r->supports->len == 0)
+    return NAN;
+  s = (const TrbSupport *) r->supports->data;
+  n = r->supports->len;
+  if (n == 1)
+    return MAX (s[0].x, r->member->length - s[0].x);
+  for (guint i = 0; i + 1 < n; i++)
+    span = MAX (span, fabs (s[i + 1].x - s[i].x));
+  return span;
+}
+
+/* A value in the project's display unit, rounded as the tables round it; "" for NAN. */
+static char *
+sched_value (double        v,
+             TrbDimension  dim,
+             TrbUnitSystem u)
+{
+  double d;
+
+  if (!isfinite (v))
+    return g_strdup ("");
+  d = trb_units_to_display (v, dim, u);
+  return trb_units_format_with_unit (d, NULL, trb_units_display_decimals (d, dim, u));
+}
+
+static void
+csv_field (GString    *out,
+           const char *s)
+{
+  if (s == NULL)
+    s = "";
+  if (strpbrk (s, ",\"\n\r") == NULL)
+    {
+      g_string_append (out, s);
+      return;
+    }
+  g_string_append_c (out, '"');
+  for (const char *p = s; *p != '\0'; p++)
+    {
+      if (*p == '"')
+        g_string_append_c (out, '"');
+      g_string_append_c (out, *p);
+    }
+  g_string_append_c (out, '"');
+}
+
+/* Writes one row: CSV, or columns padded to widths for the table. */
+static void
+row_out (GString     *out,
+         gboolean     csv,
+         GPtrArray   *cells,
+         const int   *widths)
+{
+  for (guint i = 0; i < cells->len; i++)
+    {
+      const char *c = g_ptr_array_index (cells, i);
+
+      if (csv)
+        {
+          if (i > 0)
+            g_string_append_c (out, ',');
+          csv_field (out, c);
+        }
+      else
+        g_string_append_printf (out, "%s%-*s", i > 0 ? "  " : "", widths[i], c);
+    }
+  if (!csv)
+    while (out->len > 0 && out->str[out->len - 1] == ' ')
+      g_string_truncate (out, out->len - 1);
+  g_string_append_c (out, '\n');
+}
+
+static void
+table_out (GString   *out,
+           gboolean   csv,
+           GPtrArray *rows)
+{
+  g_autofree int *widths = NULL;
+  guint n_cols = 0;
+
+  for (guint i = 0; i < rows->len; i++)
+    n_cols = MAX (n_cols, ((GPtrArray *) g_ptr_array_index (rows, i))->len);
+  widths = g_new0 (int, n_cols + 1);
+  for (guint i = 0; i < rows->len && !csv; i++)
+    {
+      GPtrArray *cells = g_ptr_array_index (rows, i);
+
+      for (guint k = 0; k < cells->len; k++)
+        widths[k] = MAX (widths[k], (int) g_utf8_strlen (g_ptr_array_index (cells, k), -1));
+    }
+  for (guint i = 0; i < rows->len; i++)
+    {
+      row_out (out, csv, g_ptr_array_index (rows, i), widths);
+      maybe_flush (out);
+    }
+}
+
+static GPtrArray *
+row_new (void)
+{
+  return g_ptr_array_new_with_free_func (g_free);
+}
+
+static void
+write_schedule (GString         *out,
+                const Selection *sel,
+                gboolean         csv)
+{
+  const TrbProjectResult *pr = sel->pr;
+  const TrbProject *project = pr->project;
+  TrbUnitSystem u = project->settings.units;
+  const char *lu = trb_units_display_unit (TRB_DIM_LENGTH, u);
+  const char *fu = trb_units_display_unit (TRB_DIM_FORCE, u);
+  g_autoptr(GPtrArray) rows = g_ptr_array_new_with_free_func ((GDestroyNotify) g_ptr_array_unref);
+  gboolean present[TRB_N_CASES];
+  gboolean any_columns = FALSE;
+  GPtrArray *row;
+
+  cases_present (sel, present);
+
+  if (!csv)
+    {
+      g_string_append_printf (out, "Trabeate %s: schedule of %s\n", PACKAGE_VERSION,
+                              project->name);
+      g_string_append (out, "CAUTION: " CAUTION_1 "\n" CAUTION_2 "\n\nMember schedule "
+                       "(end reactions up +, as analysed: live load after the member's own "
+                       "reduction)\n");
+    }
+
+  row = row_new ();
+  g_ptr_array_add (row, g_strdup ("mark"));
+  g_ptr_array_add (row, g_strdup ("floor"));
+  g_ptr_array_add (row, g_strdup ("role"));
+  g_ptr_array_add (row, g_strdup ("material"));
+  g_ptr_array_add (row, g_strdup ("section"));
+  g_ptr_array_add (row, g_strdup_printf ("length (%s)", lu));
+  g_ptr_array_add (row, g_strdup_printf ("span (%s)", lu));
+  g_ptr_array_add (row, g_strdup ("status"));
+  g_ptr_array_add (row, g_strdup ("ratio"));
+  g_ptr_array_add (row, g_strdup ("governing"));
+  for (guint end = 0; end < 2; end++)
+    for (guint c = 0; c < TRB_N_CASES; c++)
+      if (present[c])
+        g_ptr_array_add (row, g_strdup_printf ("R%s %s (%s)", end == 0 ? "1" : "2",
+                                               trb_load_case_name (c), fu));
+  g_ptr_array_add (row, g_strdup ("live factor"));
+  g_ptr_array_add (rows, row);
+
+  for (guint i = 0; i < pr->members->len; i++)
+    {
+      const TrbMemberResult *r = g_ptr_array_index (pr->members, i);
+      const TrbMember *m = r->member;
+
+      if (!sel->shown[i])
+        continue;
+      row = row_new ();
+      g_ptr_array_add (row, g_strdup (m->id));
+      g_ptr_array_add (row, g_strdup (m->floor != NULL && m->floor->name != NULL
+                                      ? m->floor->name : ""));
+      g_ptr_array_add (row, g_strdup (m->floor != NULL ? trb_role_name (m->role) : "beam"));
+      g_ptr_array_add (row, g_strdup (trb_material_name (m->material)));
+      g_ptr_array_add (row, g_strdup (r->section[0] != '\0' ? r->section : m->section));
+      g_ptr_array_add (row, sched_value (m->length, TRB_DIM_LENGTH, u));
+      g_ptr_array_add (row, sched_value (member_span (r), TRB_DIM_LENGTH, u));
+      g_ptr_array_add (row, g_strdup (trb_status_name (r->status)));
+      g_ptr_array_add (row, isnan (r->ratio) ? g_strdup ("") : g_strdup_printf ("%.3f",
+                                                                               r->ratio));
+      g_ptr_array_add (row, g_strdup (r->governing));
+      for (guint end = 0; end < 2; end++)
+        for (guint c = 0; c < TRB_N_CASES; c++)
+          {
+            const TrbReaction *re;
+            guint n;
+
+            if (!present[c])
+              continue;
+            if (!r->analysed || r->cases[c] == NULL)
+              {
+                g_ptr_array_add (row, g_strdup (r->analysed ? "0" : ""));
+                continue;
+              }
+            re = trb_beam_result_get_reactions (r->cases[c], &n);
+            g_ptr_array_add (row, sched_value (re[end == 0 ? 0 : n - 1].force, TRB_DIM_FORCE,
+                                               u));
+          }
+      g_ptr_array_add (row, r->reduction.applies ? g_strdup_printf ("%.3f",
+                                                                    r->reduction.factor)
+                                                 : g_strdup (""));
+      g_ptr_array_add (rows, row);
+    }
+  table_out (out, csv, rows);
+  g_ptr_array_set_size (rows, 0);
+
+  for (guint f = 0; f < pr->floors->len; f++)
+    {
+      const TrbFloorResult *fr = g_ptr_array_index (pr->floors, f);
+
+      for (guint i = 0; i < fr->columns->len; i++)
+        {
+          const TrbColumnResult *c = &g_array_index (fr->columns, TrbColumnResult, i);
+
+          if (!column_shown (sel, c->column))
+            continue;
+          if (!any_columns)
+            {
+              row = row_new ();
+              g_ptr_array_add (row, g_strdup ("column"));
+              g_ptr_array_add (row, g_strdup ("floor"));
+              g_ptr_array_add (row, g_strdup_printf ("x (%s)", lu));
+              g_ptr_array_add (row, g_strdup_printf ("y (%s)", lu));
+              g_ptr_array_add (row, g_strdup ("section"));
+              for (guint k = 0; k < TRB_N_CASES; k++)
+                if (present[k])
+                  g_ptr_array_add (row, g_strdup_printf ("%s (%s)", trb_load_case_name (k),
+                                                         fu));
+              g_ptr_array_add (row, g_strdup_printf ("L reduced (%s)", fu));
+              g_ptr_array_add (row, g_strdup_printf ("A_T (%s)", u == TRB_UNIT_SYSTEM_SI
+                                                                  ? "m^2" : "ft^2"));
+              g_ptr_array_add (row, g_strdup ("live factor"));
+              g_ptr_array_add (rows, row);
+              any_columns = TRUE;
+            }
+          row = row_new ();
+          g_ptr_array_add (row, g_strdup (c->column->id));
+          g_ptr_array_add (row, g_strdup (c->floor->name != NULL ? c->floor->name : ""));
+          g_ptr_array_add (row, sched_value (c->column->at.x, TRB_DIM_LENGTH, u));
+          g_ptr_array_add (row, sched_value (c->column->at.y, TRB_DIM_LENGTH, u));
+          g_ptr_array_add (row, g_strdup (c->column->section != NULL ? c->column->section : ""));
+          for (guint k = 0; k < TRB_N_CASES; k++)
+            if (present[k])
+              g_ptr_array_add (row, sched_value (c->force[k], TRB_DIM_FORCE, u));
+          g_ptr_array_add (row, sched_value (c->live_reduced, TRB_DIM_FORCE, u));
+          g_ptr_array_add (row, c->reduction.applies
+                                ? g_strdup_printf ("%.1f", area_display (c->reduction.area, u))
+                                : g_strdup (""));
+          g_ptr_array_add (row, c->reduction.applies
+                                ? g_strdup_printf ("%.3f", c->reduction.factor)
+                                : g_strdup (""));
+          g_ptr_array_add (rows, row);
+        }
+    }
+  if (any_columns)
+    {
+      g_string_append (out, csv ? "\n" : "\nColumn loads (down +; live load unreduced, then "
+                                         "reduced)\n");
+      table_out (out, csv, rows);
+    }
+  if (!csv)
+    g_string_append (out, "\n" TRB_CAUTION_COLUMNS "\nCAUTION: " CAUTION_1 "\n" CAUTION_2
+                     "\n" CAUTION_3 "\n");
 }
 
 /* ---- commands ------------------------------------------------------------------------ */
@@ -780,31 +1739,55 @@ usage_error (const char *message)
   return EXIT_USAGE;
 }
 
+/* check and schedule: load, solve every member (floors through their takedown), write. */
 static int
-cmd_check (int    argc,
-           char **argv)
+cmd_run (int       argc,
+         char    **argv,
+         gboolean  schedule)
 {
   gboolean json = FALSE;
+  gboolean csv = FALSE;
+  gboolean no_shortcuts = FALSE;
   g_autofree char *member_id = NULL;
-  const GOptionEntry entries[] = {
+  const GOptionEntry check_entries[] = {
     { "json", 0, 0, G_OPTION_ARG_NONE, &json, "Write JSON (SI units)", NULL },
-    { "member", 0, 0, G_OPTION_ARG_STRING, &member_id, "Only the member with this id", "ID" },
+    { "member", 0, 0, G_OPTION_ARG_STRING, &member_id, "Only this member and what rests on it",
+      "ID" },
+    { "no-shortcuts", 0, 0, G_OPTION_ARG_NONE, &no_shortcuts, "Solve every member in full",
+      NULL },
+    { NULL }
+  };
+  const GOptionEntry schedule_entries[] = {
+    { "csv", 0, 0, G_OPTION_ARG_NONE, &csv, "Write CSV", NULL },
+    { "member", 0, 0, G_OPTION_ARG_STRING, &member_id, "Only this member and what rests on it",
+      "ID" },
+    { "no-shortcuts", 0, 0, G_OPTION_ARG_NONE, &no_shortcuts, "Solve every member in full",
+      NULL },
     { NULL }
   };
   g_autoptr(GOptionContext) context = g_option_context_new ("FILE");
   g_autoptr(GError) error = NULL;
   g_autoptr(TrbProject) project = NULL;
-  g_autoptr(GPtrArray) results = NULL;
+  g_autoptr(TrbProjectResult) pr = NULL;
   g_autoptr(GString) out = g_string_new (NULL);
+  const char *command = schedule ? "schedule" : "check";
+  TrbSolveOptions options;
+  Selection sel = { NULL };
   int status = EXIT_PASS;
 
   g_option_context_set_help_enabled (context, FALSE);
-  g_option_context_add_main_entries (context, entries, NULL);
+  g_option_context_add_main_entries (context, schedule ? schedule_entries : check_entries,
+                                     NULL);
   if (!g_option_context_parse (context, &argc, &argv, &error))
     return usage_error (error->message);
-  /* argv[0] is "check" */
+  /* argv[0] is the command */
   if (argc != 2)
-    return usage_error (argc < 2 ? "check needs a FILE" : "check takes one FILE");
+    {
+      g_autofree char *msg = g_strdup_printf (argc < 2 ? "%s needs a FILE"
+                                                       : "%s takes one FILE", command);
+
+      return usage_error (msg);
+    }
   if (argv[1][0] == '-' && argv[1][1] != '\0')
     return usage_error ("unknown option");
 
@@ -814,36 +1797,32 @@ cmd_check (int    argc,
       fprintf (stderr, "%s\n", error->message);
       return EXIT_USAGE;
     }
-
-  results = g_ptr_array_new_with_free_func ((GDestroyNotify) trb_member_result_free);
-  if (member_id != NULL)
+  if (member_id != NULL && trb_project_find_member (project, member_id) == NULL)
     {
-      const TrbMember *m = trb_project_find_member (project, member_id);
-
-      if (m == NULL)
-        {
-          fprintf (stderr, "%s: no member with id \"%s\"\n", project->name, member_id);
-          return EXIT_USAGE;
-        }
-      g_ptr_array_add (results, trb_solve_member (project, m));
-    }
-  else
-    {
-      for (guint i = 0; i < project->members->len; i++)
-        g_ptr_array_add (results, trb_solve_member (project,
-                                                    g_ptr_array_index (project->members, i)));
+      fprintf (stderr, "%s: no member with id \"%s\"\n", project->name, member_id);
+      return EXIT_USAGE;
     }
 
-  for (guint i = 0; i < results->len; i++)
-    if (((TrbMemberResult *) g_ptr_array_index (results, i))->status != TRB_STATUS_PASS)
+  trb_solve_options_init (&options);
+  if (no_shortcuts)
+    options.cache = options.bounds = FALSE;
+  pr = trb_solve_project_full (project, &options);
+  selection_init (&sel, pr, member_id);
+
+  for (guint i = 0; i < pr->members->len; i++)
+    if (sel.shown[i] &&
+        ((TrbMemberResult *) g_ptr_array_index (pr->members, i))->status != TRB_STATUS_PASS)
       status = EXIT_FAILS;
 
-  if (json)
-    write_json (out, project, results);
+  if (schedule)
+    write_schedule (out, &sel, csv);
+  else if (json)
+    write_json (out, &sel);
   else
-    write_table (out, project, results);
-  fwrite (out->str, 1, out->len, stdout);
-  if (fflush (stdout) != 0)
+    write_table (out, &sel);
+  flush_out (out);
+  selection_clear (&sel);
+  if (write_failed || fflush (stdout) != 0)
     return EXIT_USAGE;
   return status;
 }
@@ -871,7 +1850,7 @@ main (int    argc,
     return trb_cli_report (argc - 1, argv + 1);
   if (strcmp (argv[1], "plan") == 0)
     return trb_cli_plan (argc - 1, argv + 1);
-  if (strcmp (argv[1], "check") == 0)
+  if (strcmp (argv[1], "check") == 0 || strcmp (argv[1], "schedule") == 0)
     {
       for (int i = 2; i < argc; i++)
         if (strcmp (argv[i], "--help") == 0 || strcmp (argv[i], "-h") == 0)
@@ -879,7 +1858,7 @@ main (int    argc,
             fputs (usage_text, stdout);
             return EXIT_PASS;
           }
-      return cmd_check (argc - 1, argv + 1);
+      return cmd_run (argc - 1, argv + 1, strcmp (argv[1], "schedule") == 0);
     }
   {
     g_autofree char *msg = g_strdup_printf ("unknown command \"%s\"", argv[1]);
