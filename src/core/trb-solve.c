@@ -2331,6 +2331,9 @@ solve_floor_member (Solver         *sv,
   r->bearings = bearings_new (m, fm, supports, which);
   r->reduction = use;
   g_hash_table_insert (results, (gpointer) m, r);
+  /* the loads of each case were read by the solve above, and by nothing after */
+  for (guint c = 0; c < TRB_N_CASES; c++)
+    g_array_unref (loads[c]);
 
   if (!r->analysed)
     {
