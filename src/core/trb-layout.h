@@ -42,21 +42,21 @@ typedef struct
   TrbFramePoint end;
 } TrbLayoutLine;
 
-void        trb_joist_run_spec_init (TrbJoistRunSpec    *spec,
-                                     double              spacing);
+void        trb_joist_run_spec_init (TrbJoistRunSpec        *spec,
+                                     double                  spacing);
 
-GArray     *trb_layout_preview      (const TrbMember    *support_a,
-                                     const TrbMember    *support_b,
-                                     const TrbJoistRunSpec *spec,
-                                     GError            **error);
+GArray     *trb_layout_preview      (const TrbMember        *support_a,
+                                     const TrbMember        *support_b,
+                                     const TrbJoistRunSpec  *spec,
+                                     GError                **error);
 
-GPtrArray  *trb_layout_joist_run    (TrbProject         *project,
-                                     TrbFloor           *floor,
-                                     const TrbMember    *support_a,
-                                     const TrbMember    *support_b,
-                                     const TrbJoistRunSpec *spec,
-                                     GError            **error);
+GPtrArray  *trb_layout_joist_run    (TrbProject             *project,
+                                     TrbFloor               *floor,
+                                     const TrbMember        *support_a,
+                                     const TrbMember        *support_b,
+                                     const TrbJoistRunSpec  *spec,
+                                     GError                **error);
 
-char       *trb_layout_next_group   (const TrbProject   *project);
+char       *trb_layout_next_group   (const TrbProject       *project);
 
 G_END_DECLS

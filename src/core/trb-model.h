@@ -346,10 +346,10 @@ TrbColumn   *trb_project_find_column       (const TrbProject  *project,
 TrbWall     *trb_project_find_wall         (const TrbProject  *project,
                                             const char        *id,
                                             TrbFloor         **floor);
-void         trb_project_add_sections_source (TrbProject  *project,
-                                              const char  *file,
-                                              const char  *csv,
-                                              int          line);
+void         trb_project_add_sections_source (TrbProject        *project,
+                                              const char        *file,
+                                              const char        *csv,
+                                              int                line);
 char        *trb_project_next_mark         (const TrbProject  *project,
                                             const char        *prefix,
                                             guint             *counter);
