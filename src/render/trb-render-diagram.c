@@ -335,20 +335,44 @@ arrow_down (cairo_t *cr,
   cairo_fill (cr);
 }
 
-/* The loads of one case on the member: its own, and the self-weight in D. */
+/* The loads of one case on the member, without the self-weight (drawn apart). */
 static GArray *
 case_loads (const TrbMemberResult *r,
             TrbLoadCase            lcase)
 {
-  const TrbMember *m = r->member;
+  /* what was analysed when there is a record of it (a floor member's strip, plan loads and
+   * the reactions handed down to it), else the member's own loads */
+  const GArray *loads = r->loads != NULL ? r->loads : r->member->loads;
   GArray *out = g_array_new (FALSE, TRUE, sizeof (TrbLoad));
 
-  for (guint i = 0; m->loads != NULL && i < m->loads->len; i++)
-    {
-      const TrbMemberLoad *ml = &g_array_index (m->loads, TrbMemberLoad, i);
+  double L = r->member->length;
 
-      if (ml->lcase == lcase)
-        g_array_append_val (out, ml->load);
+  for (guint i = 0; loads != NULL && i < loads->len; i++)
+    {
+      const TrbMemberLoad *ml = &g_array_index (loads, TrbMemberLoad, i);
+      const TrbLoad *ld = &ml->load;
+      gboolean merged = FALSE;
+
+      if (ml->lcase != lcase)
+        continue;
+      /* a load of nothing (a case a member above does not carry) draws nothing */
+      if (ld->w1 == 0 && (ld->kind != TRB_LOAD_LINEAR || ld->w2 == 0))
+        continue;
+      /* point loads at one place (two joists from either side) read as their sum */
+      if (ld->kind == TRB_LOAD_POINT)
+        for (guint k = 0; k < out->len; k++)
+          {
+            TrbLoad *q = &g_array_index (out, TrbLoad, k);
+
+            if (q->kind == TRB_LOAD_POINT && fabs (q->a - ld->a) <= 1e-9 * MAX (L, 1))
+              {
+                q->w1 += ld->w1;
+                merged = TRUE;
+                break;
+              }
+          }
+      if (!merged)
+        g_array_append_val (out, *ld);
     }
   return out;
 }
@@ -441,6 +465,11 @@ draw_loading (Frame  *f,
   /* supports: the beam's when analysed (merged, sorted), else the file's */
   if (r->beam != NULL)
     sup = trb_beam_get_supports (r->beam, &n_sup);
+  else if (r->supports != NULL)
+    {
+      sup = (const TrbSupport *) r->supports->data;
+      n_sup = r->supports->len;
+    }
   else
     {
       sups = g_array_new (FALSE, TRUE, sizeof (TrbSupport));
@@ -579,6 +608,11 @@ draw_loading (Frame  *f,
         if (top_stack > band * 0.75)
           squeeze = band * 0.75 / top_stack;
 
+      guint n_points = 0;
+
+      for (guint i = 0; i < loads[c]->len; i++)
+        n_points += g_array_index (loads[c], TrbLoad, i).kind == TRB_LOAD_POINT;
+
       for (guint i = 0; i < loads[c]->len; i++)
         {
           const TrbLoad *ld = &g_array_index (loads[c], TrbLoad, i);
@@ -622,8 +656,10 @@ draw_loading (Frame  *f,
                 t = g_strdup_printf ("%s to %s", t1, t2);
               else
                 t = g_strdup_printf ("%s%s", t1, is_sw ? " self-weight" : "");
-              trb_render_text (cr, f->style, t, fs * 0.85, FALSE, (xa + xb) / 2,
-                               base - MAX (h1, h2) - 1, 0.5, 1.0, NULL);
+              /* a piece too short for its label (a strip cut by an opening) goes without */
+              if (trb_render_text_width (cr, f->style, t, fs * 0.85, FALSE) < xb - xa + 2 * fs)
+                trb_render_text (cr, f->style, t, fs * 0.85, FALSE, (xa + xb) / 2,
+                                 base - MAX (h1, h2) - 1, 0.5, 1.0, NULL);
             }
           else if (ld->kind == TRB_LOAD_POINT)
             {
@@ -637,10 +673,13 @@ draw_loading (Frame  *f,
                 arrow_down (cr, xp, b0 + 0.15 * band, bottom, 0.6 * fs);
               else
                 arrow_down (cr, xp, bottom, b0 + 0.15 * band, 0.6 * fs);
-              trb_render_text (cr, f->style, t, fs * 0.85, TRUE,
-                               xp > dev_x (f, f->L * 0.8) ? xp - 0.3 * fs : xp + 0.3 * fs,
-                               b0 + 0.15 * band, xp > dev_x (f, f->L * 0.8) ? 1.0 : 0.0, 0.0,
-                               NULL);
+              /* a row of joists bearing on a girder: too many labels to read, so the
+               * reader finds each in the table of loads instead */
+              if (n_points <= 8)
+                trb_render_text (cr, f->style, t, fs * 0.85, TRUE,
+                                 xp > dev_x (f, f->L * 0.8) ? xp - 0.3 * fs : xp + 0.3 * fs,
+                                 b0 + 0.15 * band, xp > dev_x (f, f->L * 0.8) ? 1.0 : 0.0, 0.0,
+                                 NULL);
             }
           else
             {

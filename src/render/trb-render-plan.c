@@ -228,6 +228,20 @@ trb_plan_scene_new (const TrbProject       *project,
           g_hash_table_insert (scene->member_results, (gpointer) r->member, (gpointer) r);
       }
 
+  /* the floor solve's column loads, in the floor's column order */
+  for (guint f = 0; results != NULL && results->floors != NULL && f < results->floors->len; f++)
+    {
+      const TrbFloorResult *fr = g_ptr_array_index (results->floors, f);
+
+      if (fr->floor != floor || fr->columns == NULL || fr->columns->len != floor->columns->len)
+        continue;
+      scene->column_loads = g_new0 (double, MAX (fr->columns->len, 1) * TRB_N_CASES);
+      for (guint i = 0; i < fr->columns->len; i++)
+        memcpy (scene->column_loads + i * TRB_N_CASES,
+                g_array_index (fr->columns, TrbColumnResult, i).force,
+                sizeof (double) * TRB_N_CASES);
+    }
+
   trb_plan_bounds_init (&scene->bounds);
   for (guint i = 0; i < floor->grids->len; i++)
     {
@@ -766,6 +780,64 @@ centroid (const GArray *points,
   *y = cy / (3 * a);
 }
 
+/* Does a device rectangle cross a member's line? */
+static gboolean
+box_hits_member (DrawContext         *dc,
+                 const TrbPlanBounds *box)
+{
+  const TrbFloor *floor = dc->scene->floor;
+
+  for (guint i = 0; i < floor->members->len; i++)
+    {
+      const TrbMember *m = g_ptr_array_index (floor->members, i);
+      double ax, ay, bx, by;
+
+      trb_plan_view_to_device (dc->view, m->start.x, m->start.y, &ax, &ay);
+      trb_plan_view_to_device (dc->view, m->end.x, m->end.y, &bx, &by);
+      if (MAX (ax, bx) < box->min_x || MIN (ax, bx) > box->max_x ||
+          MAX (ay, by) < box->min_y || MIN (ay, by) > box->max_y)
+        continue;
+      if (segment_touches_rect (ax, ay, bx, by, box))
+        return TRUE;
+    }
+  return FALSE;
+}
+
+/* Moves a label centred at (x, y) to the nearest of a few places nearby, inside its polygon,
+ * where it crosses no member's line and so hides no member's label; where there is none, it
+ * stays. */
+static void
+label_clear_of_members (DrawContext  *dc,
+                        const GArray *polygon,
+                        const char   *text,
+                        double        size,
+                        double       *x,
+                        double       *y)
+{
+  double w = trb_render_text_width (dc->cr, dc->style, text, size, FALSE);
+  double h = size * 1.3;
+
+  for (int k = 0; k < 25; k++)
+    {
+      /* 0, +1, -1, +2, -2, ... steps of a line height, then sideways */
+      int step = (k + 1) / 2 * (k % 2 == 1 ? 1 : -1);
+      double cx = *x + (k >= 13 ? (k % 2 == 1 ? 1 : -1) * w * 0.6 : 0);
+      double cy = *y + (k >= 13 ? (step % 7) : step) * h;
+      TrbPlanBounds box = { cx - w / 2, cy - h / 2, cx + w / 2, cy + h / 2 };
+      double px, py;
+
+      trb_plan_view_to_plan (dc->view, cx, cy, &px, &py);
+      if (k > 0 && !polygon_contains (polygon, px, py))
+        continue;
+      if (!box_hits_member (dc, &box))
+        {
+          *x = cx;
+          *y = cy;
+          return;
+        }
+    }
+}
+
 static void
 draw_area_loads (DrawContext *dc)
 {
@@ -823,14 +895,15 @@ draw_area_loads (DrawContext *dc)
         text = g_strdup_printf ("%s %s%s%s%s", trb_load_case_name (a->lcase), p,
                                 a->kind == TRB_AREA_LOAD_PARTITION ? " partitions" : "",
                                 a->label != NULL ? " " : "", a->label != NULL ? a->label : "");
+        dy += n * dc->fs * 1.3;
+        label_clear_of_members (dc, a->points, text, dc->fs * 0.95, &dx, &dy);
         trb_render_case_color (dc->style, a->lcase, &c);
         /* the case hue is too light for text on white: darken it */
         c.r *= 0.6;
         c.g *= 0.6;
         c.b *= 0.6;
         trb_render_set_color (dc->cr, &c);
-        trb_render_text (dc->cr, dc->style, text, dc->fs * 0.95, FALSE, dx,
-                         dy + n * dc->fs * 1.3, 0.5, 0.5, NULL);
+        trb_render_text (dc->cr, dc->style, text, dc->fs * 0.95, FALSE, dx, dy, 0.5, 0.5, NULL);
       }
   }
 }

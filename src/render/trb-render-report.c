@@ -22,7 +22,7 @@
 /* Room kept around a plan on its sheet for the grid bubbles and labels beyond its lines. */
 #define PLAN_PAD 30.0
 /* The plan sheet's legend strip (trb_sheet_draw_plan). */
-#define PLAN_LEGEND 36.0
+#define PLAN_LEGEND 46.0
 
 /* Failing members listed by name on the summary; the rest are in the schedule. */
 #define SUMMARY_MAX_LISTED 20

@@ -6,6 +6,7 @@
 #include "trb-render-schedule.h"
 
 #include <math.h>
+#include <string.h>
 
 #include "trb-combos.h"
 #include "trb-render-sheet.h"
@@ -38,7 +39,7 @@ trb_schedule_members_flow (TrbFlow          *flow,
 
     trb_flow_paragraph (flow, t, 1);
   }
-  trb_flow_table_begin (flow, 8, titles, widths, "lllllrrl", 5);
+  trb_flow_table_begin (flow, 8, titles, widths, "llllrlrl", 5);
   for (guint i = 0; i < results->len; i++)
     {
       const TrbMemberResult *r = g_ptr_array_index (results, i);
@@ -70,10 +71,25 @@ trb_schedule_column_loads (const TrbProjectResult *results,
 {
   g_return_val_if_fail (floor != NULL && force != NULL, FALSE);
 
-  /* the floor solve's column results are not there yet */
-  (void) results;
-  (void) column;
+  for (guint f = 0; results != NULL && results->floors != NULL && f < results->floors->len; f++)
+    {
+      const TrbFloorResult *fr = g_ptr_array_index (results->floors, f);
+
+      if (fr->floor != floor || fr->columns == NULL || column >= fr->columns->len)
+        continue;
+      memcpy (force, g_array_index (fr->columns, TrbColumnResult, column).force,
+              sizeof (double) * TRB_N_CASES);
+      return TRUE;
+    }
   return FALSE;
+}
+
+static char *
+force_or_dash (gboolean      have,
+               double        v,
+               TrbUnitSystem u)
+{
+  return have ? trb_units_format (v, TRB_DIM_FORCE, u) : g_strdup ("-");
 }
 
 gboolean
@@ -82,59 +98,130 @@ trb_schedule_columns_flow (TrbFlow                *flow,
                            const TrbProjectResult *results)
 {
   static const char *titles[] = { "Column", "Floor", "Section", "D", "L", "Lr", "S",
-                                  "Sum of cases" };
-  static const double widths[] = { 0.1, 0.16, 0.18, 0.11, 0.11, 0.11, 0.11, 0.12 };
+                                  "Sum of cases", "L reduced" };
+  static const double widths[] = { 0.09, 0.13, 0.15, 0.1, 0.1, 0.1, 0.1, 0.12, 0.11 };
+  static const char *wall_titles[] = { "Wall", "Floor", "Material", "D", "L", "Lr", "S",
+                                       "Sum of cases" };
+  static const double wall_widths[] = { 0.09, 0.13, 0.15, 0.11, 0.11, 0.11, 0.11, 0.19 };
   TrbUnitSystem u;
-  gboolean any = FALSE;
+  guint n_columns = 0, n_walls = 0;
+  gboolean reduce;
 
   g_return_val_if_fail (flow != NULL && project != NULL, FALSE);
 
   for (guint f = 0; f < project->floors->len; f++)
-    any |= ((TrbFloor *) g_ptr_array_index (project->floors, f))->columns->len > 0;
-  if (!any)
-    return FALSE;
-
-  u = project->settings.units;
-  trb_flow_heading (flow, "Column loads");
-  {
-    g_autofree char *t =
-      g_strdup_printf ("Loads delivered to each column by the members resting on it, per load "
-                       "case, unfactored, live load unreduced; in %s. The columns themselves "
-                       "are not designed.", trb_units_display_unit (TRB_DIM_FORCE, u));
-
-    trb_flow_paragraph (flow, t, 1);
-  }
-  trb_flow_table_begin (flow, 8, titles, widths, "lllrrrrr", -1);
-  for (guint f = 0; f < project->floors->len; f++)
     {
       const TrbFloor *floor = g_ptr_array_index (project->floors, f);
 
-      for (guint i = 0; i < floor->columns->len; i++)
-        {
-          const TrbColumn *c = g_ptr_array_index (floor->columns, i);
-          double force[TRB_N_CASES] = { 0 };
-          gboolean have = results != NULL &&
-                          trb_schedule_column_loads (results, floor, i, force);
-          char *v[TRB_N_CASES + 1] = { NULL };
-          double sum = 0;
-
-          for (int k = 0; k < TRB_N_CASES; k++)
-            {
-              v[k] = have ? trb_units_format (force[k], TRB_DIM_FORCE, u) : g_strdup ("-");
-              sum += force[k];
-            }
-          v[TRB_N_CASES] = have ? trb_units_format (sum, TRB_DIM_FORCE, u) : g_strdup ("-");
-          {
-            const char *cells[] = { c->id, floor->name != NULL ? floor->name : "-",
-                                    c->section != NULL ? c->section : "-",
-                                    v[0], v[1], v[2], v[3], v[4] };
-
-            trb_flow_table_row (flow, cells, TRB_FLOW_ROW_PLAIN, TRB_RENDER_STATUS_OK);
-          }
-          for (int k = 0; k <= TRB_N_CASES; k++)
-            g_free (v[k]);
-        }
+      n_columns += floor->columns->len;
+      n_walls += floor->walls->len;
     }
-  trb_flow_table_end (flow);
+  if (n_columns == 0 && n_walls == 0)
+    return FALSE;
+
+  u = project->settings.units;
+  reduce = project->settings.live_load_reduction;
+  if (n_columns > 0)
+    {
+      g_autofree char *t =
+        g_strdup_printf ("Loads delivered to each column by the members resting on it, per "
+                         "load case, unfactored, live load unreduced%s. The columns themselves "
+                         "are not designed.",
+                         reduce ? "; then the live load as reduced for the column "
+                                  "(ASCE 7-16 §4.7)" : "");
+
+      trb_flow_heading (flow, "Column loads");
+      trb_flow_paragraph (flow, t, 1);
+      trb_flow_table_begin (flow, reduce ? 9 : 8, titles, widths,
+                            reduce ? "lllrrrrrr" : "lllrrrrr", -1);
+      for (guint f = 0; f < project->floors->len; f++)
+        {
+          const TrbFloor *floor = g_ptr_array_index (project->floors, f);
+          const TrbFloorResult *fr = NULL;
+
+          for (guint k = 0; results != NULL && results->floors != NULL &&
+                            k < results->floors->len; k++)
+            if (((TrbFloorResult *) g_ptr_array_index (results->floors, k))->floor == floor)
+              fr = g_ptr_array_index (results->floors, k);
+
+          for (guint i = 0; i < floor->columns->len; i++)
+            {
+              const TrbColumn *c = g_ptr_array_index (floor->columns, i);
+              double force[TRB_N_CASES] = { 0 };
+              gboolean have = results != NULL &&
+                              trb_schedule_column_loads (results, floor, i, force);
+              char *v[TRB_N_CASES + 2] = { NULL };
+              double sum = 0;
+
+              for (int k = 0; k < TRB_N_CASES; k++)
+                {
+                  v[k] = force_or_dash (have, force[k], u);
+                  sum += force[k];
+                }
+              v[TRB_N_CASES] = force_or_dash (have, sum, u);
+              v[TRB_N_CASES + 1] =
+                force_or_dash (have && fr != NULL && i < fr->columns->len,
+                               fr != NULL && i < fr->columns->len
+                               ? g_array_index (fr->columns, TrbColumnResult, i).live_reduced
+                               : 0, u);
+              {
+                const char *cells[] = { c->id, floor->name != NULL ? floor->name : "-",
+                                        c->section != NULL ? c->section : "-",
+                                        v[0], v[1], v[2], v[3], v[4], v[5] };
+
+                trb_flow_table_row (flow, cells, TRB_FLOW_ROW_PLAIN, TRB_RENDER_STATUS_OK);
+              }
+              for (int k = 0; k < TRB_N_CASES + 2; k++)
+                g_free (v[k]);
+            }
+        }
+      trb_flow_table_end (flow);
+    }
+
+  if (n_walls > 0)
+    {
+      trb_flow_heading (flow, "Wall loads");
+      trb_flow_paragraph (flow, "The total each bearing wall receives from the members resting "
+                                "on it, per load case, unfactored. The walls are not designed.",
+                          1);
+      trb_flow_table_begin (flow, 8, wall_titles, wall_widths, "lllrrrrr", -1);
+      for (guint f = 0; f < project->floors->len; f++)
+        {
+          const TrbFloor *floor = g_ptr_array_index (project->floors, f);
+          const TrbFloorResult *fr = NULL;
+
+          for (guint k = 0; results != NULL && results->floors != NULL &&
+                            k < results->floors->len; k++)
+            if (((TrbFloorResult *) g_ptr_array_index (results->floors, k))->floor == floor)
+              fr = g_ptr_array_index (results->floors, k);
+
+          for (guint i = 0; i < floor->walls->len; i++)
+            {
+              const TrbWall *w = g_ptr_array_index (floor->walls, i);
+              gboolean have = fr != NULL && fr->walls != NULL && i < fr->walls->len;
+              const TrbWallResult *wr = have ? &g_array_index (fr->walls, TrbWallResult, i)
+                                             : NULL;
+              char *v[TRB_N_CASES + 1] = { NULL };
+              double sum = 0;
+
+              for (int k = 0; k < TRB_N_CASES; k++)
+                {
+                  v[k] = force_or_dash (have, have ? wr->force[k] : 0, u);
+                  sum += have ? wr->force[k] : 0;
+                }
+              v[TRB_N_CASES] = force_or_dash (have, sum, u);
+              {
+                const char *cells[] = { w->id, floor->name != NULL ? floor->name : "-",
+                                        w->material != NULL ? w->material : "-",
+                                        v[0], v[1], v[2], v[3], v[4] };
+
+                trb_flow_table_row (flow, cells, TRB_FLOW_ROW_PLAIN, TRB_RENDER_STATUS_OK);
+              }
+              for (int k = 0; k <= TRB_N_CASES; k++)
+                g_free (v[k]);
+            }
+        }
+      trb_flow_table_end (flow);
+    }
   return TRUE;
 }

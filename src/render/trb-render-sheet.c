@@ -12,6 +12,7 @@
 #include "trb-catalog.h"
 #include "trb-combos.h"
 #include "trb-error.h"
+#include "trb-live-reduction.h"
 #include "trb-render-diagram.h"
 #include "trb-units.h"
 
@@ -431,7 +432,7 @@ trb_sheet_draw_plan (cairo_t               *cr,
   TrbPlanDrawOptions options;
   TrbPlanView view;
   TrbPlanBounds b;
-  double legend_h = 36, ly, lx;
+  double legend_h = 46, ly, lx;
   TrbRgba c;
   g_autofree char *heading = NULL;
   const TrbFloor *floor;
@@ -506,10 +507,10 @@ trb_sheet_draw_plan (cairo_t               *cr,
       lx = legend_entry (cr, style, &c, 3, trb_load_case_name (k), lx, ly + 17);
     }
   cairo_set_source_rgb (cr, 0, 0, 0);
-  trb_render_text (cr, style,
-                   "Labels: mark and section above each member, utilization ratio below. "
-                   "Column loads per case, unfactored.",
-                   6.2, FALSE, x + width * 0.42, ly + 22.5, 0, 0, NULL);
+  trb_render_text_wrapped (cr, style,
+                           "Mark and section above each member, utilization ratio below; "
+                           "column loads per case, unfactored.",
+                           6.2, FALSE, x + width * 0.42, ly + 22.5, width * 0.58);
 
   /* what the clouds ring, by mark */
   if (clouded != NULL && g_hash_table_size (clouded) > 0)
@@ -531,8 +532,7 @@ trb_sheet_draw_plan (cairo_t               *cr,
                                 ((const TrbMember *) g_ptr_array_index (marks, i))->id);
       if (marks->len == 0)
         g_string_append (s, " none on this floor");
-      trb_render_text_wrapped (cr, style, s->str, 6.2, TRUE, x + width * 0.42, ly + 29.5,
-                               width * 0.58);
+      trb_render_text_wrapped (cr, style, s->str, 6.2, TRUE, x, ly + 37, width);
     }
   cairo_restore (cr);
 }
@@ -674,6 +674,25 @@ supports_text (const TrbMemberResult *r)
       }
   if (s->len == 0)
     g_string_append (s, "none");
+  return g_string_free (s, FALSE);
+}
+
+/* What a floor member's supports rest on: "C1 at 0'-0"; G2 at 10'-0"". */
+static char *
+bearings_text (const TrbMemberResult *r)
+{
+  GString *s = g_string_new (NULL);
+
+  for (guint i = 0; r->bearings != NULL && i < r->bearings->len; i++)
+    {
+      const TrbMemberBearing *b = &g_array_index (r->bearings, TrbMemberBearing, i);
+      g_autofree char *x = fmt (b->x, TRB_DIM_LENGTH, r->units);
+
+      g_string_append_printf (s, "%s%s at %s", i > 0 ? "; " : "",
+                              b->own ? "own support" : b->id != NULL ? b->id : "?", x);
+    }
+  if (s->len == 0)
+    g_string_append (s, "nothing");
   return g_string_free (s, FALSE);
 }
 
@@ -1133,7 +1152,9 @@ trb_sheet_member_flow (TrbFlow               *flow,
                                                            ? m->floor->name : "-",
                                                 trb_role_name (m->role));
 
-      kv_row (flow, "Floor", where, "Group", m->group != NULL ? m->group : "-");
+      g_autofree char *rests = bearings_text (r);
+
+      kv_row (flow, "Floor", where, "Rests on", rests);
     }
   {
     g_autofree char *st = g_strdup_printf ("%s%s%s", trb_sheet_status_text (r->status),
@@ -1146,6 +1167,17 @@ trb_sheet_member_flow (TrbFlow               *flow,
     trb_flow_table_row (flow, cells, TRB_FLOW_ROW_BOLD, trb_render_status_of (r));
   }
   trb_flow_table_end (flow);
+  if (r->reduction.applies)
+    {
+      g_autofree char *area = fmt (r->reduction.area, TRB_DIM_AREA, u);
+      g_autofree char *t =
+        g_strdup_printf ("Live load reduction (ASCE 7-16 §4.7): A_T = %s, K_LL = %g, "
+                         "L/Lo = %.3f on the reducible live load (%s).", area,
+                         r->reduction.k_ll, r->reduction.factor,
+                         trb_live_rule_describe (r->reduction.rule));
+
+      trb_flow_paragraph (flow, t, 0.95);
+    }
   for (guint i = 0; r->notes != NULL && i < r->notes->len; i++)
     {
       g_autofree char *t = g_strdup_printf ("Note: %s", (const char *) g_ptr_array_index (r->notes,
