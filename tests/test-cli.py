@@ -7,18 +7,22 @@
 #
 # Usage: test-cli.py PATH-TO-trabeate-cli   (tests/data is found beside this script)
 
+import csv
 import glob
+import io
 import json
 import math
 import os
 import re
 import subprocess
 import sys
+import tempfile
 import unittest
 import xml.etree.ElementTree as ET
 
 CLI = None
 DATA = os.path.join(os.path.dirname(os.path.abspath(__file__)), 'data')
+EXAMPLES = os.path.join(os.path.dirname(os.path.abspath(__file__)), '..', 'data', 'examples')
 
 # Exact factors to SI (NIST SP 811 (2008) Appendix B: the foot is 0.3048 m and the pound-force
 # 4.4482216152605 N, exactly).
@@ -100,10 +104,13 @@ class ExitCodes(unittest.TestCase):
         code, out, err = run('--help')
         self.assertEqual(code, 0)
         self.assertIn('trabeate-cli check FILE [--json] [--member ID]', out)
+        self.assertIn('trabeate-cli schedule FILE [--csv] [--member ID]', out)
 
     def test_usage_errors(self):
         for args in [(), ('frobnicate',), ('check',), ('check', 'a', 'b'),
-                     ('check', '--bogus', data('cli-pass.trabeate'))]:
+                     ('check', '--bogus', data('cli-pass.trabeate')), ('schedule',),
+                     ('schedule', '--json', data('cli-pass.trabeate')),
+                     ('check', '--csv', data('cli-pass.trabeate'))]:
             code, out, err = run(*args)
             self.assertEqual(code, 2, args)
             self.assertEqual(out, '', args)
@@ -272,6 +279,253 @@ class Json(unittest.TestCase):
 
     def test_no_nan_tokens(self):
         self.assertIsNone(re.search(r'\b(NaN|Infinity|nan|inf)\b', self.text))
+
+
+# ENGINEERING.md §8 item 2, by statics: girders 24 ft, beams 20 ft at 8 ft, D = L = 50 psf,
+# self-weight excluded, two by two bays (40 x 48 ft), custom sections that are analysed only.
+def takedown_floor(extra=''):
+    out = ['<trabeate-project format="1"><settings self-weight="exclude"/><floor name="F">']
+    for i in range(3):
+        for j in range(3):
+            out.append('<column id="C%d%d" x="%d ft" y="%d ft"/>' % (i, j, 20 * i, 24 * j))
+    member = ('<member id="%s" role="%s" x1="%d ft" y1="%d ft" x2="%d ft" y2="%d ft" '
+              'material="steel" section="custom" E="29000 ksi" I="510 in4" weight="0 plf"/>')
+    for i in range(3):
+        for j in range(2):
+            out.append(member % ('G%d%d' % (i, j), 'girder', 20 * i, 24 * j, 20 * i,
+                                 24 * (j + 1)))
+    for i in range(2):
+        for k in range(7):
+            out.append(member % ('B%d%d' % (i, k), 'beam', 20 * i, 8 * k, 20 * (i + 1), 8 * k))
+    for case in 'DL':
+        out.append('<area-load case="%s" pressure="50 psf">' % case)
+        for x, y in [(0, 0), (40, 0), (40, 48), (0, 48)]:
+            out.append('<point x="%d ft" y="%d ft"/>' % (x, y))
+        out.append('</area-load>')
+    out.append(extra)
+    out.append('</floor></trabeate-project>')
+    return '\n'.join(out)
+
+
+class Floors(unittest.TestCase):
+    @classmethod
+    def setUpClass(cls):
+        cls.tmp = tempfile.TemporaryDirectory()
+        cls.demo = os.path.join(EXAMPLES, 'demo-floor.trabeate')
+        code, out, err = run('check', '--json', cls.demo)
+        assert code in (0, 1), err
+        cls.doc = json.loads(out)
+
+    @classmethod
+    def tearDownClass(cls):
+        cls.tmp.cleanup()
+
+    def write(self, name, text):
+        path = os.path.join(self.tmp.name, name)
+        with open(path, 'w', encoding='utf-8') as f:
+            f.write(text)
+        return path
+
+    def test_takedown_by_hand(self):
+        code, out, err = run('check', '--json', self.write('takedown.trabeate',
+                                                          takedown_floor()))
+        self.assertEqual(err, '')
+        doc = json.loads(out)
+        members = {m['id']: m for m in doc['members']}
+        columns = {c['id']: c for c in doc['columns']}
+        # beam strip 8 ft: w = 400 plf per case, R = 4.0 k D + 4.0 k L (§8 item 2)
+        beam = members['B01']
+        for b in beam['bearings']:
+            self.assertEqual(b['on'], 'member')
+            self.assertAlmostEqual(b['forces']['D'] / KIP, 4.0, delta=1e-9)
+            self.assertAlmostEqual(b['forces']['L'] / KIP, 4.0, delta=1e-9)
+        # interior girder: 16 k at the third points, M = 16 x 24 / 3 = 128 k-ft (D + L)
+        girder = members['G10']
+        self.assertAlmostEqual((girder['cases']['D']['M_max'] + girder['cases']['L']['M_max'])
+                               / (KIP * FT), 128.0, delta=1e-6)
+        # interior column: 2 x 16 + 2 x 8 = 48 k = 480 ft^2 x 0.100 ksf (§8 item 2)
+        c = columns['C11']
+        self.assertAlmostEqual((c['cases']['D'] + c['cases']['L']) / KIP, 48.0, delta=1e-6)
+        self.assertIsNone(c['reduction'])
+        # all nine: 40 x 48 ft x 0.100 ksf = 192 k
+        self.assertAlmostEqual(sum(c['cases']['D'] + c['cases']['L']
+                                   for c in doc['columns']) / KIP, 192.0, delta=1e-6)
+        for case in 'DL':
+            t = doc['totals'][case]
+            self.assertAlmostEqual(t['applied'] / KIP, 96.0, delta=1e-6)
+            self.assertAlmostEqual(t['reactions'] / KIP, 96.0, delta=1e-6)
+            self.assertEqual(t['not_carried'], 0)
+
+    def test_demo_contract(self):
+        doc = self.doc
+        for key in ['members', 'columns', 'walls', 'totals', 'unassigned']:
+            self.assertIn(key, doc)
+        self.assertEqual(doc['unassigned'], [])
+        self.assertEqual(sorted(c['id'] for c in doc['columns']), ['A2', 'B2', 'C2'])
+        for c in doc['columns']:
+            self.assertEqual(set(c['cases']), {'D', 'L', 'Lr', 'S'})
+            for key in ['x', 'y', 'floor', 'reduction', 'live_reduced']:
+                self.assertIn(key, c)
+        self.assertEqual([w['id'] for w in doc['walls']], ['W1'])
+        for m in doc['members']:
+            self.assertEqual(m['floor'], 'Mezzanine')
+            self.assertIn(m['role'], ['girder', 'beam', 'joist'])
+            self.assertEqual(len(m['bearings']), len(m['supports']))
+            self.assertIn('live_reduction', m)
+
+    def test_demo_equilibrium(self):
+        """Applied = reactions + not carried, per case (statics); and what the members hand to
+        each column and the wall is what the column and the wall report."""
+        doc = self.doc
+        for case, t in doc['totals'].items():
+            scale = max(abs(t['applied']), 1.0)
+            self.assertAlmostEqual((t['reactions'] + t['not_carried']) / scale,
+                                   t['applied'] / scale, delta=1e-9, msg=case)
+        on_column, on_wall = {}, {}
+        for m in doc['members']:
+            for b in m['bearings']:
+                into = on_column if b['on'] == 'column' else on_wall if b['on'] == 'wall' \
+                    else None
+                if into is None:
+                    continue
+                for case, f in b['forces'].items():
+                    into[(b['id'], case)] = into.get((b['id'], case), 0.0) + f
+        for c in doc['columns']:
+            for case, f in c['cases'].items():
+                self.assertAlmostEqual(on_column.get((c['id'], case), 0.0), f,
+                                       delta=1e-9 * max(abs(f), 1.0))
+        for w in doc['walls']:
+            for case, f in w['cases'].items():
+                self.assertAlmostEqual(on_wall.get((w['id'], case), 0.0), f,
+                                       delta=1e-9 * max(abs(f), 1.0))
+                self.assertAlmostEqual(sum(p['force'] for p in w['loads'][case]), f,
+                                       delta=1e-9 * max(abs(f), 1.0))
+
+    def test_demo_cantilever_and_reduction(self):
+        members = {m['id']: m for m in self.doc['members']}
+        columns = {c['id']: c for c in self.doc['columns']}
+        g2 = members['G2']
+        self.assertGreater(g2['length'], 25 * FT)   # runs past C2 at 20 ft
+        self.assertEqual([b['id'] for b in g2['bearings']], ['B2', 'C2'])
+        edge = members['J42']
+        self.assertEqual([b['id'] for b in edge['bearings']], ['W1', 'G2'])
+        # the column with a cantilever over it: K_LL of a corner column with cantilever slabs
+        # (ASCE 7-16 Table 4.7-1, from memory), and the reduced load never above the unreduced
+        for c in columns.values():
+            if c['reduction'] is not None:
+                self.assertLessEqual(c['live_reduced'], c['cases']['L'] * (1 + 1e-12))
+                self.assertGreaterEqual(c['reduction']['factor'], 0.5)
+        self.assertEqual(columns['C2']['reduction']['k_ll'], 2)
+        self.assertEqual(columns['B2']['reduction']['k_ll'], 4)
+
+    def test_repeatable_without_shortcuts(self):
+        """Identical members solved once and the sizing bounds change no byte; nor does a
+        second run."""
+        for name in ['demo-floor.trabeate', 'overhang-beam.trabeate', 'demo-beams.trabeate']:
+            path = os.path.join(EXAMPLES, name)
+            code1, a, err = run('check', '--json', path)
+            code2, b, err = run('check', '--json', '--no-shortcuts', path)
+            code3, c, err = run('check', '--json', path)
+            self.assertEqual(code1, code2, name)
+            self.assertEqual(a, b, name)
+            self.assertEqual(a, c, name)
+            _, ta, _ = run('schedule', '--csv', path)
+            _, tb, _ = run('schedule', '--csv', '--no-shortcuts', path)
+            self.assertEqual(ta, tb, name)
+
+    def test_member_and_what_rests_on_it(self):
+        code, out, err = run('check', '--json', '--member', 'G1', self.demo)
+        doc = json.loads(out)
+        ids = [m['id'] for m in doc['members']]
+        self.assertIn('G1', ids)
+        # the tail joists rest on the header, which rests on the trimmers, which rest on G1
+        for mark in ['H1', 'T1', 'T4']:
+            self.assertIn(mark, ids)
+        self.assertNotIn('G2', ids)
+        self.assertNotIn('J1', ids)       # on the wall and column A2, not on G1
+        for m in doc['members']:
+            if m['id'] != 'G1':
+                on = {b['id'] for b in m['bearings']}
+                self.assertTrue(on & set(ids), m['id'])
+        self.assertEqual(sorted(c['id'] for c in doc['columns']), ['A2', 'B2'])
+        code, table, err = run('check', '--member', 'T1', self.demo)
+        self.assertIn('Member T1', table)
+        self.assertNotIn('Member H1', table)
+        self.assertIn(CAUTION, table)
+
+    def test_table(self):
+        code, out, err = run('check', self.demo)
+        self.assertEqual(err, '')
+        self.assertLess(out.index(CAUTION), out.index('Member G1'))
+        self.assertGreater(out.rindex(CAUTION), out.index('Column loads'))
+        self.assertIn('Columns and walls are shown with the loads they receive', out)
+        self.assertIn('Wall loads, floor Mezzanine', out)
+        self.assertIn('Totals, floor Mezzanine', out)
+        self.assertRegex(out, r'at 0\'-0"\s+on wall W1 at ')
+
+    def test_unassigned_and_unsupported(self):
+        extra = ('<point-load case="L" p="3 kip" x="70 ft" y="70 ft" label="hoist"/>'
+                 '<member id="X1" role="beam" x1="40 ft" y1="20 ft" x2="52 ft" y2="20 ft" '
+                 'material="steel" section="W8X10"/>')
+        path = self.write('unassigned.trabeate', takedown_floor(extra))
+        code, out, err = run('check', path)
+        self.assertEqual(code, 1)
+        self.assertIn('WARNING: point load', out)
+        self.assertIn('hoist', out)
+        self.assertIn('UNSUPPORTED', out)
+        code, out, err = run('check', '--json', path)
+        doc = json.loads(out)
+        self.assertEqual(len(doc['unassigned']), 1)
+        u = doc['unassigned'][0]
+        self.assertEqual((u['kind'], u['case'], u['label']), ('point', 'L', 'hoist'))
+        self.assertAlmostEqual(u['force'] / KIP, 3.0, delta=1e-12)
+        x1 = {m['id']: m for m in doc['members']}['X1']
+        self.assertEqual(x1['status'], 'unsupported')
+        self.assertIn('one support', x1['message'])
+
+    def test_schedule(self):
+        code, out, err = run('schedule', self.demo)
+        self.assertEqual(err, '')
+        self.assertIn(CAUTION, out)
+        self.assertIn('Member schedule', out)
+        self.assertIn('Column loads', out)
+        code_csv, text, err = run('schedule', '--csv', self.demo)
+        self.assertEqual(code_csv, code)
+        member_part, column_part = text.split('\n\n')
+        rows = list(csv.reader(io.StringIO(member_part)))
+        head = rows[0]
+        for col in ['mark', 'role', 'material', 'section', 'length (ft)', 'span (ft)', 'status',
+                    'ratio', 'governing', 'R1 D (kip)', 'R2 L (kip)', 'live factor']:
+            self.assertIn(col, head)
+        self.assertEqual(len(rows) - 1, len(self.doc['members']))
+        members = {m['id']: m for m in self.doc['members']}
+        for row in rows[1:]:
+            r = dict(zip(head, row))
+            m = members[r['mark']]
+            self.assertEqual(r['status'], m['status'])
+            self.assertEqual(r['section'], m['section'])
+            self.assertAlmostEqual(float(r['length (ft)']), m['length'] / FT, delta=0.006)
+            # end reactions as analysed, in kip to the table's rounding (3 figures)
+            r1 = m['cases']['D']['reactions'][0]['force'] / KIP
+            self.assertAlmostEqual(float(r['R1 D (kip)']), r1, delta=max(abs(r1) * 0.006, 0.006))
+        rows = list(csv.reader(io.StringIO(column_part)))
+        head = rows[0]
+        self.assertEqual(head[:5], ['column', 'floor', 'x (ft)', 'y (ft)', 'section'])
+        self.assertIn('L reduced (kip)', head)
+        columns = {c['id']: c for c in self.doc['columns']}
+        for row in rows[1:]:
+            r = dict(zip(head, row))
+            c = columns[r['column']]
+            self.assertAlmostEqual(float(r['D (kip)']), c['cases']['D'] / KIP,
+                                   delta=max(c['cases']['D'] / KIP * 0.006, 0.006))
+            self.assertAlmostEqual(float(r['L reduced (kip)']), c['live_reduced'] / KIP,
+                                   delta=max(c['live_reduced'] / KIP * 0.006, 0.006))
+        # the schedule of a file that fails exits as check does
+        code, out, err = run('schedule', data('cli-fail.trabeate'))
+        self.assertEqual(code, 1)
+        code, out, err = run('schedule', '--csv', '--member', 'NOPE', self.demo)
+        self.assertEqual(code, 2)
+        self.assertEqual(out, '')
 
 
 if __name__ == '__main__':
