@@ -367,7 +367,7 @@ grid_query (Grid      *grid,
               }
           }
       }
-  if (sorted)
+  if (sorted && out->len > 1)
     qsort (out->data, out->len, sizeof (guint), compare_guint);
 }
 
@@ -816,7 +816,9 @@ find_supports (Context              *ctx,
   guint i = 0;
 
   collect_candidates (ctx, m, candidates);
-  qsort (candidates->data, candidates->len, sizeof (Candidate), compare_candidates);
+  /* an empty GArray's data may be NULL, which qsort must not be given */
+  if (candidates->len > 1)
+    qsort (candidates->data, candidates->len, sizeof (Candidate), compare_candidates);
 
   while (i < candidates->len)
     {
