@@ -803,19 +803,31 @@ box_hits_member (DrawContext         *dc,
   return FALSE;
 }
 
+static gboolean
+boxes_overlap (const TrbPlanBounds *a,
+               const TrbPlanBounds *b)
+{
+  return a->min_x < b->max_x && b->min_x < a->max_x && a->min_y < b->max_y &&
+         b->min_y < a->max_y;
+}
+
 /* Moves a label centred at (x, y) to the nearest of a few places nearby, inside its polygon,
- * where it crosses no member's line and so hides no member's label; where there is none, it
- * stays. */
+ * clear of the members' lines and of the labels along them (a band of two text heights each
+ * side), and of the labels placed before it (taken, device boxes, to which it adds its own);
+ * where there is no such place, it stays. */
 static void
 label_clear_of_members (DrawContext  *dc,
                         const GArray *polygon,
                         const char   *text,
                         double        size,
+                        GArray       *taken,
                         double       *x,
                         double       *y)
 {
   double w = trb_render_text_width (dc->cr, dc->style, text, size, FALSE);
   double h = size * 1.3;
+  double band = 1.6 * dc->fs;
+  TrbPlanBounds mine = { *x - w / 2, *y - h / 2, *x + w / 2, *y + h / 2 };
 
   for (int k = 0; k < 25; k++)
     {
@@ -824,18 +836,25 @@ label_clear_of_members (DrawContext  *dc,
       double cx = *x + (k >= 13 ? (k % 2 == 1 ? 1 : -1) * w * 0.6 : 0);
       double cy = *y + (k >= 13 ? (step % 7) : step) * h;
       TrbPlanBounds box = { cx - w / 2, cy - h / 2, cx + w / 2, cy + h / 2 };
+      TrbPlanBounds wide = { box.min_x - band, box.min_y - band, box.max_x + band,
+                             box.max_y + band };
+      gboolean clear = TRUE;
       double px, py;
 
       trb_plan_view_to_plan (dc->view, cx, cy, &px, &py);
       if (k > 0 && !polygon_contains (polygon, px, py))
         continue;
-      if (!box_hits_member (dc, &box))
+      for (guint i = 0; clear && i < taken->len; i++)
+        clear = !boxes_overlap (&box, &g_array_index (taken, TrbPlanBounds, i));
+      if (clear && !box_hits_member (dc, &wide))
         {
           *x = cx;
           *y = cy;
-          return;
+          mine = box;
+          break;
         }
     }
+  g_array_append_val (taken, mine);
 }
 
 static void
@@ -874,6 +893,7 @@ draw_area_loads (DrawContext *dc)
     return;
   {
     g_autoptr(GHashTable) placed = g_hash_table_new_full (g_str_hash, g_str_equal, g_free, NULL);
+    g_autoptr(GArray) taken = g_array_new (FALSE, FALSE, sizeof (TrbPlanBounds));
 
     for (guint i = 0; i < floor->area_loads->len; i++)
       {
@@ -896,7 +916,7 @@ draw_area_loads (DrawContext *dc)
                                 a->kind == TRB_AREA_LOAD_PARTITION ? " partitions" : "",
                                 a->label != NULL ? " " : "", a->label != NULL ? a->label : "");
         dy += n * dc->fs * 1.3;
-        label_clear_of_members (dc, a->points, text, dc->fs * 0.95, &dx, &dy);
+        label_clear_of_members (dc, a->points, text, dc->fs * 0.95, taken, &dx, &dy);
         trb_render_case_color (dc->style, a->lcase, &c);
         /* the case hue is too light for text on white: darken it */
         c.r *= 0.6;
