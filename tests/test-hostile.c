@@ -981,6 +981,10 @@ static const char utf16le[] =
   "\xff\xfe<\0t\0r\0a\0b\0e\0a\0t\0e\0-\0p\0r\0o\0j\0e\0c\0t\0 \0f\0o\0r\0m\0a\0t\0=\0\"\0"
   "1\0\"\0/\0>\0\n\0";
 
+static const char nul_inside[] =
+  "<trabeate-project format=\"1\">\n<beam id=\"B\0\" length=\"1 m\" material=\"steel\"/>\n"
+  "</trabeate-project>\n";
+
 static const BytesCase bytes_cases[] = {
   { "invalid-utf8-attribute", PROJECT_WITH ("B\xff"), 0, FALSE },
   { "invalid-utf8-comment",
@@ -992,8 +996,7 @@ static const BytesCase bytes_cases[] = {
   { "beyond-unicode", PROJECT_WITH ("B\xf4\x90\x80\x80"), 0, FALSE },
   { "truncated-sequence", PROJECT_WITH ("B\xe6\xa2"), 0, FALSE },
   { "control-character", PROJECT_WITH ("B\x01"), 0, FALSE },
-  { "nul-inside", "<trabeate-project format=\"1\">\n<beam id=\"B\0\" length=\"1 m\" "
-    "material=\"steel\"/>\n</trabeate-project>\n", 105, FALSE },
+  { "nul-inside", nul_inside, sizeof nul_inside - 1, FALSE },
   { "only-bom", "\xef\xbb\xbf", 0, FALSE },
   { "bom-then-project", "\xef\xbb\xbf" PROJECT_WITH ("B1"), 0, TRUE },
   { "latin1-declared", "<?xml version=\"1.0\" encoding=\"ISO-8859-1\"?>\n"
