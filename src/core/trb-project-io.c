@@ -53,12 +53,16 @@ fail_at (Loader     *ld,
          const char *format,
          ...)
 {
+  g_autofree char *raw = NULL;
   g_autofree char *msg = NULL;
   va_list args;
 
   va_start (args, format);
-  msg = g_strdup_vprintf (format, args);
+  raw = g_strdup_vprintf (format, args);
   va_end (args);
+  /* libxml2's messages may quote the bad bytes of a file that is not UTF-8 as they are; a
+   * message goes to a screen, so its bytes must be valid UTF-8 whatever the file held. */
+  msg = g_utf8_make_valid (raw, -1);
 
   if (line > 0)
     g_set_error (ld->error, TRB_ERROR, code, "%s:%d: %s", ld->name, line, msg);
