@@ -991,6 +991,9 @@ static const BytesCase bytes_cases[] = {
     "<trabeate-project format=\"1\">\n<!-- \xfe\xff -->\n</trabeate-project>\n", 0, FALSE },
   { "invalid-utf8-name", "<trabeate-project format=\"1\">\n<be\xc3m/>\n</trabeate-project>\n",
     0, FALSE },
+  /* libxml2 quotes these bytes as they are in its message (found by fuzz-project) */
+  { "invalid-bytes-quoted", "<\xff\xfftrabeate-project format=\"1\">\n</trabeate-project>\n", 0,
+    FALSE },
   { "overlong-slash", PROJECT_WITH ("B\xc0\xaf"), 0, FALSE },
   { "surrogate", PROJECT_WITH ("B\xed\xa0\x80"), 0, FALSE },
   { "beyond-unicode", PROJECT_WITH ("B\xf4\x90\x80\x80"), 0, FALSE },
