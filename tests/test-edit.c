@@ -331,7 +331,7 @@ test_refused (void)
   {
     TrbMemberLoad l = { TRB_CASE_D, { TRB_LOAD_POINT, 4.0, 0, 1000, 0 }, 0 };
 
-    g_assert_null (trb_edit_insert_member_element (p, b1, TRB_MEMBER_LIST_LOADS, -1, &l,
+    g_assert_null (trb_edit_insert_member_element (p, b1, TRB_MEMBER_ARRAY_LOADS, -1, &l,
                                                    &error));
     g_assert_error (error, TRB_ERROR, TRB_ERROR_INVALID);
     g_clear_error (&error);
@@ -427,21 +427,21 @@ test_elements (void)
   g_assert_nonnull (b1);
   g_assert_cmpuint (b1->loads->len, ==, 1);
 
-  push_ok (h, trb_edit_insert_member_element (p, b1, TRB_MEMBER_LIST_LOADS, -1, &l, &error),
+  push_ok (h, trb_edit_insert_member_element (p, b1, TRB_MEMBER_ARRAY_LOADS, -1, &l, &error),
            error);
   g_assert_cmpuint (b1->loads->len, ==, 2);
   g_assert_cmpint (g_array_index (b1->loads, TrbMemberLoad, 1).lcase, ==, TRB_CASE_L);
 
   /* braces stay sorted by x whatever the order they come in */
-  push_ok (h, trb_edit_insert_member_element (p, b1, TRB_MEMBER_LIST_BRACES, -1, &late,
+  push_ok (h, trb_edit_insert_member_element (p, b1, TRB_MEMBER_ARRAY_BRACES, -1, &late,
                                               &error), error);
-  push_ok (h, trb_edit_insert_member_element (p, b1, TRB_MEMBER_LIST_BRACES, -1, &early,
+  push_ok (h, trb_edit_insert_member_element (p, b1, TRB_MEMBER_ARRAY_BRACES, -1, &early,
                                               &error), error);
   g_assert_cmpuint (b1->braces->len, ==, 2);
   g_assert_cmpfloat (g_array_index (b1->braces, TrbMemberBrace, 0).x, ==, 1.0);
   g_assert_cmpfloat (g_array_index (b1->braces, TrbMemberBrace, 1).x, ==, 3.0);
 
-  push_ok (h, trb_edit_remove_member_element (p, b1, TRB_MEMBER_LIST_SUPPORTS, 0, &error),
+  push_ok (h, trb_edit_remove_member_element (p, b1, TRB_MEMBER_ARRAY_SUPPORTS, 0, &error),
            error);
   g_assert_cmpuint (b1->supports->len, ==, 1);
 
@@ -795,11 +795,11 @@ random_command (TrbProject *p,
           TrbMemberBrace b = { g_rand_double_range (r, 0, m->length), 0 };
 
           if (g_rand_boolean (r))
-            c = trb_edit_insert_member_element (p, m, TRB_MEMBER_LIST_LOADS,
+            c = trb_edit_insert_member_element (p, m, TRB_MEMBER_ARRAY_LOADS,
                                                 g_rand_int_range (r, -1, m->loads->len + 1), &l,
                                                 &error);
           else
-            c = trb_edit_insert_member_element (p, m, TRB_MEMBER_LIST_BRACES, -1, &b, &error);
+            c = trb_edit_insert_member_element (p, m, TRB_MEMBER_ARRAY_BRACES, -1, &b, &error);
         }
       break;
     case 9:

@@ -69,10 +69,10 @@ struct _TrbEditCommand
 
     struct
     {
-      TrbMember     *member;
-      TrbMemberList  list;
-      guint          index;
-      MemberElement  element;
+      TrbMember      *member;
+      TrbMemberArray  list;
+      guint           index;
+      MemberElement   element;
     } element;
 
     struct
@@ -864,18 +864,18 @@ trb_edit_set_member_number (TrbProject      *project,
 /* ---- a member's own arrays --------------------------------------------------------------- */
 
 static GArray *
-member_array (TrbMember     *m,
-              TrbMemberList  list)
+member_array (TrbMember      *m,
+              TrbMemberArray  list)
 {
   switch (list)
     {
-    case TRB_MEMBER_LIST_SUPPORTS:
+    case TRB_MEMBER_ARRAY_SUPPORTS:
       return m->supports;
-    case TRB_MEMBER_LIST_LOADS:
+    case TRB_MEMBER_ARRAY_LOADS:
       return m->loads;
-    case TRB_MEMBER_LIST_BRACES:
+    case TRB_MEMBER_ARRAY_BRACES:
       return m->braces;
-    case TRB_MEMBER_LIST_BEARING_POINTS:
+    case TRB_MEMBER_ARRAY_BEARING_POINTS:
       return m->bearing_points;
     default:
       g_assert_not_reached ();
@@ -917,7 +917,7 @@ within (double x,
 
 static gboolean
 check_element (const TrbMember      *m,
-               TrbMemberList         list,
+               TrbMemberArray        list,
                const MemberElement  *e,
                GError              **error)
 {
@@ -926,10 +926,10 @@ check_element (const TrbMember      *m,
 
   switch (list)
     {
-    case TRB_MEMBER_LIST_SUPPORTS:
+    case TRB_MEMBER_ARRAY_SUPPORTS:
       ok = within (e->support.support.x, L) && e->support.support.type <= TRB_SUPPORT_FIXED;
       break;
-    case TRB_MEMBER_LIST_LOADS:
+    case TRB_MEMBER_ARRAY_LOADS:
       {
         const TrbLoad *l = &e->load.load;
 
@@ -942,10 +942,10 @@ check_element (const TrbMember      *m,
           ok = FALSE;
       }
       break;
-    case TRB_MEMBER_LIST_BRACES:
+    case TRB_MEMBER_ARRAY_BRACES:
       ok = within (e->brace.x, L);
       break;
-    case TRB_MEMBER_LIST_BEARING_POINTS:
+    case TRB_MEMBER_ARRAY_BEARING_POINTS:
       ok = isfinite (e->point.x) && isfinite (e->point.y);
       break;
     }
@@ -970,7 +970,7 @@ check_element (const TrbMember      *m,
 TrbEditCommand *
 trb_edit_insert_member_element (TrbProject     *project,
                                 TrbMember      *member,
-                                TrbMemberList   list,
+                                TrbMemberArray  list,
                                 int             index,
                                 gconstpointer   element,
                                 GError        **error)
@@ -981,7 +981,7 @@ trb_edit_insert_member_element (TrbProject     *project,
   guint size;
 
   g_return_val_if_fail (project != NULL && member != NULL && element != NULL, NULL);
-  g_return_val_if_fail (list <= TRB_MEMBER_LIST_BEARING_POINTS, NULL);
+  g_return_val_if_fail (list <= TRB_MEMBER_ARRAY_BEARING_POINTS, NULL);
   g_return_val_if_fail (error == NULL || *error == NULL, NULL);
 
   a = member_array (member, list);
@@ -999,7 +999,7 @@ trb_edit_insert_member_element (TrbProject     *project,
   if (!check_element (member, list, &e, error))
     return NULL;
 
-  if (list == TRB_MEMBER_LIST_BRACES)
+  if (list == TRB_MEMBER_ARRAY_BRACES)
     {
       /* the model keeps braces sorted by x */
       index = 0;
@@ -1031,7 +1031,7 @@ trb_edit_insert_member_element (TrbProject     *project,
 TrbEditCommand *
 trb_edit_remove_member_element (TrbProject     *project,
                                 TrbMember      *member,
-                                TrbMemberList   list,
+                                TrbMemberArray  list,
                                 guint           index,
                                 GError        **error)
 {
@@ -1039,7 +1039,7 @@ trb_edit_remove_member_element (TrbProject     *project,
   GArray *a;
 
   g_return_val_if_fail (project != NULL && member != NULL, NULL);
-  g_return_val_if_fail (list <= TRB_MEMBER_LIST_BEARING_POINTS, NULL);
+  g_return_val_if_fail (list <= TRB_MEMBER_ARRAY_BEARING_POINTS, NULL);
   g_return_val_if_fail (error == NULL || *error == NULL, NULL);
 
   a = member_array (member, list);

@@ -79,11 +79,11 @@ typedef enum
 /* What a member's own arrays hold (standalone beams and extra bearing points). */
 typedef enum
 {
-  TRB_MEMBER_LIST_SUPPORTS,          /* TrbMemberSupport */
-  TRB_MEMBER_LIST_LOADS,             /* TrbMemberLoad */
-  TRB_MEMBER_LIST_BRACES,            /* TrbMemberBrace, kept sorted by x */
-  TRB_MEMBER_LIST_BEARING_POINTS,    /* TrbFramePoint */
-} TrbMemberList;
+  TRB_MEMBER_ARRAY_SUPPORTS,          /* TrbMemberSupport */
+  TRB_MEMBER_ARRAY_LOADS,             /* TrbMemberLoad */
+  TRB_MEMBER_ARRAY_BRACES,            /* TrbMemberBrace, kept sorted by x */
+  TRB_MEMBER_ARRAY_BEARING_POINTS,    /* TrbFramePoint */
+} TrbMemberArray;
 
 /* ---- commands ---------------------------------------------------------------------------- */
 
@@ -123,13 +123,13 @@ TrbEditCommand *trb_edit_assign_section        (TrbProject           *project,
                                                 GError              **error);
 TrbEditCommand *trb_edit_insert_member_element (TrbProject           *project,
                                                 TrbMember            *member,
-                                                TrbMemberList         list,
+                                                TrbMemberArray        list,
                                                 int                   index,
                                                 gconstpointer         element,
                                                 GError              **error);
 TrbEditCommand *trb_edit_remove_member_element (TrbProject           *project,
                                                 TrbMember            *member,
-                                                TrbMemberList         list,
+                                                TrbMemberArray        list,
                                                 guint                 index,
                                                 GError              **error);
 
