@@ -931,7 +931,8 @@ def main():
         if not args.cli:
             ap.error("give the path to trabeate-cli")
         passed, failed = check_with_cli(args.cli, workdir, args.jobs)
-        print("%d passed, %d failed (%.1f s)" % (passed, failed, time.monotonic() - t0))
+        print("took %.1f s" % (time.monotonic() - t0))
+        print("%d passed, %d failed" % (passed, failed))
         return 0 if failed == 0 and passed > 0 else 1
     finally:
         if args.keep:
