@@ -1,0 +1,522 @@
+/* SPDX-FileCopyrightText: 2026 The Trabeate developers
+ * SPDX-License-Identifier: GPL-3.0-or-later */
+
+#include "config.h"
+
+#include <glib/gi18n.h>
+
+#include "trb-document.h"
+#include "trb-error.h"
+#include "trb-project-io.h"
+
+struct _TrbDocument
+{
+  GObject           parent_instance;
+
+  GFile            *file;
+  TrbProject       *project;
+  TrbEditHistory   *history;
+  TrbProjectResult *results;
+  GHashTable       *result_index;   /* const TrbMember * -> const TrbMemberResult * */
+  double            solve_time;     /* ms, of the last solve */
+  gboolean          touched;        /* edited or saved since it was made */
+  gboolean          in_group;       /* pushes apply now and re-solve at the group's end */
+};
+
+G_DEFINE_FINAL_TYPE (TrbDocument, trb_document, G_TYPE_OBJECT)
+
+enum {
+  PROP_0,
+  PROP_FILE,
+  PROP_TITLE,
+  PROP_MODIFIED,
+  PROP_CAN_UNDO,
+  PROP_CAN_REDO,
+  N_PROPS
+};
+
+enum {
+  CHANGED,
+  SOLVED,
+  N_SIGNALS
+};
+
+static GParamSpec *properties[N_PROPS];
+static guint signals[N_SIGNALS];
+
+static void
+trb_document_dispose (GObject *object)
+{
+  TrbDocument *self = TRB_DOCUMENT (object);
+
+  g_clear_pointer (&self->result_index, g_hash_table_unref);
+  g_clear_pointer (&self->results, trb_project_result_free);
+  /* the history holds members taken out of the project: free it while the project lives */
+  g_clear_pointer (&self->history, trb_edit_history_free);
+  g_clear_pointer (&self->project, trb_project_free);
+  g_clear_object (&self->file);
+
+  G_OBJECT_CLASS (trb_document_parent_class)->dispose (object);
+}
+
+static void
+trb_document_get_property (GObject    *object,
+                           guint       prop_id,
+                           GValue     *value,
+                           GParamSpec *pspec)
+{
+  TrbDocument *self = TRB_DOCUMENT (object);
+
+  switch (prop_id)
+    {
+    case PROP_FILE:
+      g_value_set_object (value, self->file);
+      break;
+    case PROP_TITLE:
+      g_value_take_string (value, trb_document_dup_title (self));
+      break;
+    case PROP_MODIFIED:
+      g_value_set_boolean (value, trb_document_get_modified (self));
+      break;
+    case PROP_CAN_UNDO:
+      g_value_set_boolean (value, trb_document_get_can_undo (self));
+      break;
+    case PROP_CAN_REDO:
+      g_value_set_boolean (value, trb_document_get_can_redo (self));
+      break;
+    default:
+      G_OBJECT_WARN_INVALID_PROPERTY_ID (object, prop_id, pspec);
+    }
+}
+
+static void
+trb_document_class_init (TrbDocumentClass *klass)
+{
+  GObjectClass *object_class = G_OBJECT_CLASS (klass);
+
+  object_class->dispose = trb_document_dispose;
+  object_class->get_property = trb_document_get_property;
+
+  properties[PROP_FILE] =
+    g_param_spec_object ("file", NULL, NULL, G_TYPE_FILE,
+                         G_PARAM_READABLE | G_PARAM_STATIC_STRINGS);
+  properties[PROP_TITLE] =
+    g_param_spec_string ("title", NULL, NULL, NULL,
+                         G_PARAM_READABLE | G_PARAM_STATIC_STRINGS);
+  properties[PROP_MODIFIED] =
+    g_param_spec_boolean ("modified", NULL, NULL, FALSE,
+                          G_PARAM_READABLE | G_PARAM_STATIC_STRINGS);
+  properties[PROP_CAN_UNDO] =
+    g_param_spec_boolean ("can-undo", NULL, NULL, FALSE,
+                          G_PARAM_READABLE | G_PARAM_STATIC_STRINGS);
+  properties[PROP_CAN_REDO] =
+    g_param_spec_boolean ("can-redo", NULL, NULL, FALSE,
+                          G_PARAM_READABLE | G_PARAM_STATIC_STRINGS);
+  g_object_class_install_properties (object_class, N_PROPS, properties);
+
+  /**
+   * TrbDocument::changed:
+   *
+   * The model changed: an edit, an undo or a redo. The old results are gone; ::solved
+   * follows with the new ones.
+   */
+  signals[CHANGED] =
+    g_signal_new ("changed", G_TYPE_FROM_CLASS (klass), G_SIGNAL_RUN_LAST, 0, NULL, NULL,
+                  NULL, G_TYPE_NONE, 0);
+  /**
+   * TrbDocument::solved:
+   *
+   * New results are in.
+   */
+  signals[SOLVED] =
+    g_signal_new ("solved", G_TYPE_FROM_CLASS (klass), G_SIGNAL_RUN_LAST, 0, NULL, NULL,
+                  NULL, G_TYPE_NONE, 0);
+}
+
+static void
+trb_document_init (TrbDocument *self)
+{
+  self->result_index = g_hash_table_new (NULL, NULL);
+}
+
+static void
+solve (TrbDocument *self)
+{
+  gint64 t0 = g_get_monotonic_time ();
+
+  g_hash_table_remove_all (self->result_index);
+  g_clear_pointer (&self->results, trb_project_result_free);
+  self->results = trb_solve_project (self->project);
+  for (guint i = 0; i < self->results->members->len; i++)
+    {
+      const TrbMemberResult *r = g_ptr_array_index (self->results->members, i);
+
+      g_hash_table_insert (self->result_index, (gpointer) r->member, (gpointer) r);
+    }
+  self->solve_time = (g_get_monotonic_time () - t0) / 1000.0;
+  g_debug ("solved %u members in %.1f ms", self->project->members->len, self->solve_time);
+}
+
+static TrbDocument *
+document_new_for_project (TrbProject *project,
+                          GFile      *file)
+{
+  TrbDocument *self = g_object_new (TRB_TYPE_DOCUMENT, NULL);
+
+  self->project = project;
+  self->file = file != NULL ? g_object_ref (file) : NULL;
+  self->history = trb_edit_history_new (project);
+  solve (self);
+  return self;
+}
+
+/**
+ * trb_document_new:
+ * @defaults: (nullable): the settings of a new project (copied), or %NULL for the project
+ *   defaults
+ *
+ * Returns: (transfer full): an untitled project with one empty floor to draw on.
+ */
+TrbDocument *
+trb_document_new (const TrbSettings *defaults)
+{
+  TrbProject *project = trb_project_new ();
+
+  if (defaults != NULL)
+    {
+      trb_settings_clear (&project->settings);
+      project->settings = *defaults;
+      project->settings.steel_grade = g_strdup (defaults->steel_grade);
+    }
+  trb_project_add_floor (project, trb_floor_new (_("Floor 1")));
+  return document_new_for_project (project, NULL);
+}
+
+/**
+ * trb_document_new_for_file:
+ * @file: a project file
+ * @error: return location for a #GError
+ *
+ * Returns: (transfer full) (nullable): the project loaded and solved, or %NULL with the
+ *   loader's error (which names the file and line).
+ */
+TrbDocument *
+trb_document_new_for_file (GFile   *file,
+                           GError **error)
+{
+  g_autofree char *path = NULL;
+  TrbProject *project;
+
+  g_return_val_if_fail (G_IS_FILE (file), NULL);
+
+  path = g_file_get_path (file);
+  if (path == NULL)
+    {
+      g_autofree char *uri = g_file_get_uri (file);
+
+      g_set_error (error, TRB_ERROR, TRB_ERROR_IO, _("%s: only local files can be opened"),
+                   uri);
+      return NULL;
+    }
+  project = trb_project_load_file (path, error);
+  if (project == NULL)
+    return NULL;
+  return document_new_for_project (project, file);
+}
+
+/**
+ * trb_document_save:
+ * @self: a document
+ * @file: (nullable): where to save; %NULL for the document's own file
+ * @error: return location for a #GError
+ *
+ * Saves atomically; on success the document takes @file as its own and is no longer modified.
+ */
+gboolean
+trb_document_save (TrbDocument  *self,
+                   GFile        *file,
+                   GError      **error)
+{
+  g_autofree char *path = NULL;
+
+  g_return_val_if_fail (TRB_IS_DOCUMENT (self), FALSE);
+
+  if (file == NULL)
+    file = self->file;
+  g_return_val_if_fail (G_IS_FILE (file), FALSE);
+
+  path = g_file_get_path (file);
+  if (path == NULL)
+    {
+      g_autofree char *uri = g_file_get_uri (file);
+
+      g_set_error (error, TRB_ERROR, TRB_ERROR_IO, _("%s: only local files can be saved"), uri);
+      return FALSE;
+    }
+  if (!trb_project_save_file (self->project, path, error))
+    return FALSE;
+
+  if (file != self->file)
+    {
+      g_set_object (&self->file, file);
+      g_object_notify_by_pspec (G_OBJECT (self), properties[PROP_FILE]);
+    }
+  trb_edit_history_mark_saved (self->history);
+  self->touched = TRUE;
+  g_object_notify_by_pspec (G_OBJECT (self), properties[PROP_TITLE]);
+  g_object_notify_by_pspec (G_OBJECT (self), properties[PROP_MODIFIED]);
+  return TRUE;
+}
+
+GFile *
+trb_document_get_file (TrbDocument *self)
+{
+  g_return_val_if_fail (TRB_IS_DOCUMENT (self), NULL);
+  return self->file;
+}
+
+/**
+ * trb_document_dup_title:
+ * @self: a document
+ *
+ * Returns: (transfer full): the file's name, or "Untitled Project".
+ */
+char *
+trb_document_dup_title (TrbDocument *self)
+{
+  g_return_val_if_fail (TRB_IS_DOCUMENT (self), NULL);
+
+  if (self->file != NULL)
+    return g_file_get_basename (self->file);
+  return g_strdup (_("Untitled Project"));
+}
+
+gboolean
+trb_document_get_modified (TrbDocument *self)
+{
+  g_return_val_if_fail (TRB_IS_DOCUMENT (self), FALSE);
+  return trb_edit_history_is_modified (self->history);
+}
+
+/**
+ * trb_document_is_untouched:
+ * @self: a document
+ *
+ * Returns: %TRUE for a new project nobody has drawn in or saved: opening a file may replace
+ *   it in its window.
+ */
+gboolean
+trb_document_is_untouched (TrbDocument *self)
+{
+  g_return_val_if_fail (TRB_IS_DOCUMENT (self), FALSE);
+  return self->file == NULL && !self->touched
+         && trb_edit_history_get_n_undo (self->history) == 0
+         && trb_edit_history_get_n_redo (self->history) == 0;
+}
+
+TrbProject *
+trb_document_get_project (TrbDocument *self)
+{
+  g_return_val_if_fail (TRB_IS_DOCUMENT (self), NULL);
+  return self->project;
+}
+
+/**
+ * trb_document_get_floor:
+ * @self: a document
+ *
+ * Returns: (transfer none) (nullable): the floor the editor shows (the first), or %NULL for a
+ *   project of standalone beams only.
+ */
+TrbFloor *
+trb_document_get_floor (TrbDocument *self)
+{
+  g_return_val_if_fail (TRB_IS_DOCUMENT (self), NULL);
+
+  if (self->project->floors->len == 0)
+    return NULL;
+  return g_ptr_array_index (self->project->floors, 0);
+}
+
+const TrbProjectResult *
+trb_document_get_results (TrbDocument *self)
+{
+  g_return_val_if_fail (TRB_IS_DOCUMENT (self), NULL);
+  return self->results;
+}
+
+const TrbMemberResult *
+trb_document_lookup_result (TrbDocument     *self,
+                            const TrbMember *member)
+{
+  g_return_val_if_fail (TRB_IS_DOCUMENT (self), NULL);
+  return g_hash_table_lookup (self->result_index, member);
+}
+
+const TrbFloorResult *
+trb_document_get_floor_result (TrbDocument *self)
+{
+  TrbFloor *floor;
+
+  g_return_val_if_fail (TRB_IS_DOCUMENT (self), NULL);
+
+  floor = trb_document_get_floor (self);
+  if (floor == NULL || self->results == NULL || self->results->floors == NULL)
+    return NULL;
+  for (guint i = 0; i < self->results->floors->len; i++)
+    {
+      const TrbFloorResult *fr = g_ptr_array_index (self->results->floors, i);
+
+      if (fr->floor == floor)
+        return fr;
+    }
+  return NULL;
+}
+
+/**
+ * trb_document_get_solve_time:
+ * @self: a document
+ *
+ * Returns: how long the last solve took, in milliseconds.
+ */
+double
+trb_document_get_solve_time (TrbDocument *self)
+{
+  g_return_val_if_fail (TRB_IS_DOCUMENT (self), 0);
+  return self->solve_time;
+}
+
+static void
+changed (TrbDocument *self)
+{
+  self->touched = TRUE;
+  g_signal_emit (self, signals[CHANGED], 0);
+  solve (self);
+  g_signal_emit (self, signals[SOLVED], 0);
+  g_object_notify_by_pspec (G_OBJECT (self), properties[PROP_MODIFIED]);
+  g_object_notify_by_pspec (G_OBJECT (self), properties[PROP_CAN_UNDO]);
+  g_object_notify_by_pspec (G_OBJECT (self), properties[PROP_CAN_REDO]);
+}
+
+/**
+ * trb_document_push:
+ * @self: a document
+ * @command: (transfer full) (nullable): a command made against the document's project
+ *
+ * Applies and records @command, then re-solves. %NULL (a refused command) does nothing, so
+ * that callers can pass a constructor's result straight in.
+ *
+ * Returns: %TRUE when a command was applied.
+ */
+gboolean
+trb_document_push (TrbDocument    *self,
+                   TrbEditCommand *command)
+{
+  g_return_val_if_fail (TRB_IS_DOCUMENT (self), FALSE);
+
+  if (command == NULL)
+    return FALSE;
+  trb_edit_history_push (self->history, command);
+  if (!self->in_group)
+    changed (self);
+  return TRUE;
+}
+
+/**
+ * trb_document_begin_group:
+ * @self: a document
+ * @label: what the group does as one step
+ *
+ * The commands pushed until trb_document_end_group() are one undo step; each is applied as
+ * it comes (so the next can be made against it), and the project is re-solved once, at the
+ * end.
+ */
+void
+trb_document_begin_group (TrbDocument *self,
+                          const char  *label)
+{
+  g_return_if_fail (TRB_IS_DOCUMENT (self));
+  g_return_if_fail (!self->in_group);
+
+  self->in_group = TRUE;
+  trb_edit_history_begin_group (self->history, label);
+}
+
+void
+trb_document_end_group (TrbDocument *self)
+{
+  g_return_if_fail (TRB_IS_DOCUMENT (self));
+  g_return_if_fail (self->in_group);
+
+  self->in_group = FALSE;
+  trb_edit_history_end_group (self->history);
+  changed (self);
+}
+
+/**
+ * trb_document_cancel_group:
+ * @self: a document
+ *
+ * Reverts what the open group did: the project is as it was at trb_document_begin_group().
+ */
+void
+trb_document_cancel_group (TrbDocument *self)
+{
+  g_return_if_fail (TRB_IS_DOCUMENT (self));
+  g_return_if_fail (self->in_group);
+
+  self->in_group = FALSE;
+  trb_edit_history_cancel_group (self->history);
+  /* the model is back as it was, but the old results went with the pushes' scene: re-solve */
+  changed (self);
+}
+
+gboolean
+trb_document_undo (TrbDocument *self)
+{
+  g_return_val_if_fail (TRB_IS_DOCUMENT (self), FALSE);
+
+  if (!trb_edit_history_undo (self->history))
+    return FALSE;
+  changed (self);
+  return TRUE;
+}
+
+gboolean
+trb_document_redo (TrbDocument *self)
+{
+  g_return_val_if_fail (TRB_IS_DOCUMENT (self), FALSE);
+
+  if (!trb_edit_history_redo (self->history))
+    return FALSE;
+  changed (self);
+  return TRUE;
+}
+
+gboolean
+trb_document_get_can_undo (TrbDocument *self)
+{
+  g_return_val_if_fail (TRB_IS_DOCUMENT (self), FALSE);
+  return trb_edit_history_can_undo (self->history);
+}
+
+gboolean
+trb_document_get_can_redo (TrbDocument *self)
+{
+  g_return_val_if_fail (TRB_IS_DOCUMENT (self), FALSE);
+  return trb_edit_history_can_redo (self->history);
+}
+
+const char *
+trb_document_get_undo_label (TrbDocument *self)
+{
+  g_return_val_if_fail (TRB_IS_DOCUMENT (self), NULL);
+  return trb_edit_history_get_undo_label (self->history);
+}
+
+const char *
+trb_document_get_redo_label (TrbDocument *self)
+{
+  g_return_val_if_fail (TRB_IS_DOCUMENT (self), NULL);
+  return trb_edit_history_get_redo_label (self->history);
+}

@@ -1,0 +1,578 @@
+/* SPDX-FileCopyrightText: 2026 The Trabeate developers
+ * SPDX-License-Identifier: GPL-3.0-or-later */
+
+#include "config.h"
+
+#include <glib/gi18n.h>
+#include <math.h>
+#include <string.h>
+
+#include "trb-catalog.h"
+#include "trb-member-item.h"
+#include "trb-member-list.h"
+#include "trb-units.h"
+
+struct _TrbMemberList
+{
+  AdwBin              parent_instance;
+
+  TrbDocument        *document;
+  GListStore         *store;
+  GtkFilterListModel *filtered;
+  GtkSortListModel   *sorted;
+  GtkSingleSelection *selection;
+  GtkCustomFilter    *failing_filter;
+  gboolean            show_failing;
+  gboolean            updating;     /* selection changes made here, not by the user */
+  TrbMember          *member;       /* the member shown on the panels */
+  char               *summary;
+
+  GtkColumnView      *view;
+  GtkLabel           *summary_label;
+  GtkLabel           *title_label;
+};
+
+G_DEFINE_FINAL_TYPE (TrbMemberList, trb_member_list, ADW_TYPE_BIN)
+
+enum {
+  PROP_0,
+  PROP_SHOW_FAILING,
+  N_PROPS
+};
+
+enum {
+  MEMBER_ACTIVATED,
+  N_SIGNALS
+};
+
+static GParamSpec *properties[N_PROPS];
+static guint signals[N_SIGNALS];
+
+GtkWidget *
+trb_member_list_new (void)
+{
+  return g_object_new (TRB_TYPE_MEMBER_LIST, NULL);
+}
+
+/* ---- summary --------------------------------------------------------------------------------- */
+
+static const TrbSection *
+lookup_section (const TrbProject *project,
+                const char       *designation)
+{
+  const TrbSection *s = NULL;
+
+  if (designation == NULL || designation[0] == '\0')
+    return NULL;
+  if (project->sections != NULL)
+    s = trb_catalog_lookup (project->sections, designation);
+  if (s == NULL)
+    s = trb_catalog_lookup (trb_catalog_get_default (), designation);
+  return s;
+}
+
+static void
+update_summary (TrbMemberList *self)
+{
+  TrbProject *project;
+  guint n = 0, failing = 0;
+  double steel = 0, timber = 0;   /* N and m^3 */
+  g_autofree char *steel_text = NULL;
+  g_autofree char *timber_text = NULL;
+  GString *s;
+
+  g_clear_pointer (&self->summary, g_free);
+  if (self->document == NULL)
+    {
+      gtk_label_set_text (self->summary_label, "");
+      return;
+    }
+  project = trb_document_get_project (self->document);
+  for (guint i = 0; i < project->members->len; i++)
+    {
+      TrbMember *m = g_ptr_array_index (project->members, i);
+      const TrbMemberResult *r = trb_document_lookup_result (self->document, m);
+      const TrbSection *section;
+
+      n++;
+      if (r == NULL)
+        continue;
+      if (r->status != TRB_STATUS_PASS)
+        failing++;
+      section = lookup_section (project, r->section);
+      if (m->material == TRB_MATERIAL_STEEL && section != NULL)
+        steel += section->weight * m->length;
+      else if (m->material == TRB_MATERIAL_WOOD && section != NULL)
+        timber += section->b * section->d * m->length;
+    }
+
+  if (project->settings.units == TRB_UNIT_SYSTEM_SI)
+    {
+      /* steel by mass, as it is bought, under standard gravity (NIST SP 811) */
+      steel_text = g_strdup_printf (_("steel %.0f kg"), steel / TRB_STANDARD_GRAVITY);
+      timber_text = g_strdup_printf (_("timber %.2f m³"), timber);
+    }
+  else
+    {
+      steel_text = g_strdup_printf (_("steel %.0f lb"), steel / TRB_LBF);
+      timber_text = g_strdup_printf (_("timber %.1f ft³"), timber / (TRB_FT * TRB_FT * TRB_FT));
+    }
+
+  s = g_string_new (NULL);
+  g_string_append_printf (s, ngettext ("%u member", "%u members", n), n);
+  g_string_append (s, " · ");
+  if (failing == 0)
+    g_string_append (s, _("none failing"));
+  else
+    g_string_append_printf (s, ngettext ("%u needs attention", "%u need attention", failing),
+                            failing);
+  g_string_append_printf (s, " · %s · %s", steel_text, timber_text);
+  self->summary = g_string_free (s, FALSE);
+  gtk_label_set_text (self->summary_label, self->summary);
+}
+
+const char *
+trb_member_list_get_summary (TrbMemberList *self)
+{
+  g_return_val_if_fail (TRB_IS_MEMBER_LIST (self), NULL);
+  return self->summary;
+}
+
+/* ---- rows ------------------------------------------------------------------------------------ */
+
+static guint
+find_position (TrbMemberList *self,
+               TrbMember     *member)
+{
+  GListModel *model = G_LIST_MODEL (self->sorted);
+  guint n = g_list_model_get_n_items (model);
+
+  for (guint i = 0; i < n; i++)
+    {
+      g_autoptr(TrbMemberItem) item = g_list_model_get_item (model, i);
+
+      if (trb_member_item_get_member (item) == member)
+        return i;
+    }
+  return GTK_INVALID_LIST_POSITION;
+}
+
+static void
+scroll_to (TrbMemberList *self,
+           guint          position)
+{
+  /* GTK 4.8 has no gtk_column_view_scroll_to(); its list view child has the action */
+  for (GtkWidget *child = gtk_widget_get_first_child (GTK_WIDGET (self->view)); child != NULL;
+       child = gtk_widget_get_next_sibling (child))
+    if (GTK_IS_LIST_VIEW (child))
+      gtk_widget_activate_action (child, "list.scroll-to-item", "u", position);
+}
+
+static void
+select_member (TrbMemberList *self,
+               TrbMember     *member,
+               gboolean       scroll)
+{
+  guint position = member != NULL ? find_position (self, member) : GTK_INVALID_LIST_POSITION;
+
+  self->updating = TRUE;
+  gtk_single_selection_set_selected (self->selection, position);
+  self->updating = FALSE;
+  if (scroll && position != GTK_INVALID_LIST_POSITION)
+    scroll_to (self, position);
+}
+
+static void
+rebuild (TrbMemberList *self)
+{
+  g_autoptr(GPtrArray) items = g_ptr_array_new_with_free_func (g_object_unref);
+
+  if (self->document != NULL)
+    {
+      TrbProject *project = trb_document_get_project (self->document);
+
+      for (guint i = 0; i < project->members->len; i++)
+        {
+          TrbMember *m = g_ptr_array_index (project->members, i);
+
+          g_ptr_array_add (items,
+                           trb_member_item_new (m, trb_document_lookup_result (self->document,
+                                                                               m)));
+        }
+    }
+  self->updating = TRUE;
+  g_list_store_splice (self->store, 0, g_list_model_get_n_items (G_LIST_MODEL (self->store)),
+                       items->pdata, items->len);
+  self->updating = FALSE;
+  select_member (self, self->member, FALSE);
+  update_summary (self);
+}
+
+static void
+on_document_solved (TrbMemberList *self)
+{
+  TrbProject *project = trb_document_get_project (self->document);
+
+  if (self->member != NULL && !g_ptr_array_find (project->members, self->member, NULL))
+    self->member = NULL;
+  rebuild (self);
+}
+
+void
+trb_member_list_set_document (TrbMemberList *self,
+                              TrbDocument   *document)
+{
+  g_return_if_fail (TRB_IS_MEMBER_LIST (self));
+
+  if (self->document != NULL)
+    g_signal_handlers_disconnect_by_data (self->document, self);
+  g_set_object (&self->document, document);
+  self->member = NULL;
+  if (document != NULL)
+    g_signal_connect_object (document, "solved", G_CALLBACK (on_document_solved), self,
+                             G_CONNECT_SWAPPED);
+  rebuild (self);
+}
+
+/**
+ * trb_member_list_set_member:
+ * @self: the list
+ * @member: (nullable): the member the panels show
+ *
+ * Selects its row and scrolls to it, without emitting ::member-activated.
+ */
+void
+trb_member_list_set_member (TrbMemberList *self,
+                            TrbMember     *member)
+{
+  g_return_if_fail (TRB_IS_MEMBER_LIST (self));
+
+  self->member = member;
+  select_member (self, member, TRUE);
+}
+
+/**
+ * trb_member_list_get_model:
+ * @self: the list
+ *
+ * Returns: (transfer none): the rows as shown (#TrbMemberItem), filtered and sorted.
+ */
+GListModel *
+trb_member_list_get_model (TrbMemberList *self)
+{
+  g_return_val_if_fail (TRB_IS_MEMBER_LIST (self), NULL);
+  return G_LIST_MODEL (self->sorted);
+}
+
+/**
+ * trb_member_list_activate_row:
+ * @self: the list
+ * @position: a row as shown
+ *
+ * Selects the row as a click would.
+ */
+void
+trb_member_list_activate_row (TrbMemberList *self,
+                              guint          position)
+{
+  g_return_if_fail (TRB_IS_MEMBER_LIST (self));
+
+  gtk_single_selection_set_selected (self->selection, position);
+}
+
+static void
+on_selected (TrbMemberList *self)
+{
+  TrbMemberItem *item;
+
+  if (self->updating)
+    return;
+  item = gtk_single_selection_get_selected_item (self->selection);
+  if (item == NULL)
+    return;
+  self->member = trb_member_item_get_member (item);
+  g_signal_emit (self, signals[MEMBER_ACTIVATED], 0, self->member);
+}
+
+/* ---- columns --------------------------------------------------------------------------------- */
+
+typedef enum
+{
+  COLUMN_MARK,
+  COLUMN_ROLE,
+  COLUMN_SECTION,
+  COLUMN_STATUS,
+  COLUMN_RATIO,
+  COLUMN_GOVERNING,
+} Column;
+
+static void
+setup_label (GtkSignalListItemFactory *factory,
+             GtkListItem              *list_item,
+             gpointer                  user_data)
+{
+  Column column = GPOINTER_TO_INT (user_data);
+  GtkWidget *label = gtk_label_new (NULL);
+
+  gtk_label_set_xalign (GTK_LABEL (label), column == COLUMN_RATIO ? 1.0 : 0.0);
+  gtk_label_set_ellipsize (GTK_LABEL (label), PANGO_ELLIPSIZE_END);
+  if (column == COLUMN_RATIO)
+    gtk_widget_add_css_class (label, "numeric");
+  if (column == COLUMN_MARK)
+    gtk_widget_add_css_class (label, "heading");
+
+  if (column == COLUMN_STATUS)
+    {
+      GtkWidget *box = gtk_box_new (GTK_ORIENTATION_HORIZONTAL, 6);
+      GtkWidget *dot = gtk_drawing_area_new ();
+
+      gtk_widget_set_size_request (dot, 10, 10);
+      gtk_widget_set_valign (dot, GTK_ALIGN_CENTER);
+      gtk_widget_add_css_class (dot, "trb-status-dot");
+      gtk_box_append (GTK_BOX (box), dot);
+      gtk_box_append (GTK_BOX (box), label);
+      gtk_list_item_set_child (list_item, box);
+    }
+  else
+    gtk_list_item_set_child (list_item, label);
+}
+
+static void
+bind_label (GtkSignalListItemFactory *factory,
+            GtkListItem              *list_item,
+            gpointer                  user_data)
+{
+  Column column = GPOINTER_TO_INT (user_data);
+  TrbMemberItem *item = gtk_list_item_get_item (list_item);
+  GtkWidget *child = gtk_list_item_get_child (list_item);
+  GtkWidget *label = column == COLUMN_STATUS ? gtk_widget_get_last_child (child) : child;
+  g_autofree char *text = NULL;
+
+  switch (column)
+    {
+    case COLUMN_MARK:
+      text = g_strdup (trb_member_item_get_mark (item));
+      break;
+    case COLUMN_ROLE:
+      text = g_strdup (trb_member_item_get_role (item));
+      break;
+    case COLUMN_SECTION:
+      text = g_strdup (trb_member_item_get_section (item));
+      break;
+    case COLUMN_STATUS:
+      {
+        GtkWidget *dot = gtk_widget_get_first_child (child);
+        static const char * const classes[] = { "ok", "near", "fail", "none" };
+
+        for (guint i = 0; i < G_N_ELEMENTS (classes); i++)
+          gtk_widget_remove_css_class (dot, classes[i]);
+        gtk_widget_add_css_class (dot, trb_member_item_get_status_class (item));
+        text = g_strdup (trb_member_item_get_status (item));
+      }
+      break;
+    case COLUMN_RATIO:
+      {
+        double r = trb_member_item_get_ratio (item);
+
+        text = isnan (r) ? g_strdup ("—") : g_strdup_printf ("%.2f", r);
+      }
+      break;
+    case COLUMN_GOVERNING:
+      text = g_strdup (trb_member_item_get_governing (item));
+      break;
+    default:
+      break;
+    }
+  gtk_label_set_text (GTK_LABEL (label), text);
+}
+
+/* Marks sort as people read them: B2 before B10. */
+static int
+compare_marks (gconstpointer a,
+               gconstpointer b,
+               gpointer      user_data)
+{
+  g_autofree char *ka = g_utf8_collate_key_for_filename (trb_member_item_get_mark ((gpointer) a),
+                                                         -1);
+  g_autofree char *kb = g_utf8_collate_key_for_filename (trb_member_item_get_mark ((gpointer) b),
+                                                         -1);
+
+  return strcmp (ka, kb);
+}
+
+static void
+add_column (TrbMemberList *self,
+            const char    *title,
+            Column         column,
+            GtkSorter     *sorter,
+            gboolean       expand,
+            int            fixed_width)
+{
+  GtkListItemFactory *factory = gtk_signal_list_item_factory_new ();
+  GtkColumnViewColumn *col;
+
+  g_signal_connect (factory, "setup", G_CALLBACK (setup_label), GINT_TO_POINTER (column));
+  g_signal_connect (factory, "bind", G_CALLBACK (bind_label), GINT_TO_POINTER (column));
+  col = gtk_column_view_column_new (title, factory);
+  gtk_column_view_column_set_sorter (col, sorter);
+  gtk_column_view_column_set_expand (col, expand);
+  gtk_column_view_column_set_resizable (col, TRUE);
+  if (fixed_width > 0)
+    gtk_column_view_column_set_fixed_width (col, fixed_width);
+  gtk_column_view_append_column (self->view, col);
+  g_object_unref (col);
+  g_clear_object (&sorter);
+}
+
+static GtkSorter *
+string_sorter (const char *property)
+{
+  return GTK_SORTER (gtk_string_sorter_new (gtk_property_expression_new (TRB_TYPE_MEMBER_ITEM,
+                                                                         NULL, property)));
+}
+
+static gboolean
+failing_filter (gpointer item,
+                gpointer user_data)
+{
+  TrbMemberList *self = user_data;
+
+  return !self->show_failing || trb_member_item_get_failing (item);
+}
+
+/* ---- object ---------------------------------------------------------------------------------- */
+
+static void
+trb_member_list_dispose (GObject *object)
+{
+  TrbMemberList *self = TRB_MEMBER_LIST (object);
+
+  if (self->document != NULL)
+    g_signal_handlers_disconnect_by_data (self->document, self);
+  gtk_widget_dispose_template (GTK_WIDGET (self), TRB_TYPE_MEMBER_LIST);
+  g_clear_object (&self->document);
+  g_clear_object (&self->selection);
+
+  G_OBJECT_CLASS (trb_member_list_parent_class)->dispose (object);
+}
+
+static void
+trb_member_list_finalize (GObject *object)
+{
+  TrbMemberList *self = TRB_MEMBER_LIST (object);
+
+  g_free (self->summary);
+
+  G_OBJECT_CLASS (trb_member_list_parent_class)->finalize (object);
+}
+
+static void
+trb_member_list_get_property (GObject    *object,
+                              guint       prop_id,
+                              GValue     *value,
+                              GParamSpec *pspec)
+{
+  TrbMemberList *self = TRB_MEMBER_LIST (object);
+
+  switch (prop_id)
+    {
+    case PROP_SHOW_FAILING:
+      g_value_set_boolean (value, self->show_failing);
+      break;
+    default:
+      G_OBJECT_WARN_INVALID_PROPERTY_ID (object, prop_id, pspec);
+    }
+}
+
+static void
+trb_member_list_set_property (GObject      *object,
+                              guint         prop_id,
+                              const GValue *value,
+                              GParamSpec   *pspec)
+{
+  TrbMemberList *self = TRB_MEMBER_LIST (object);
+
+  switch (prop_id)
+    {
+    case PROP_SHOW_FAILING:
+      if (self->show_failing != g_value_get_boolean (value))
+        {
+          self->show_failing = g_value_get_boolean (value);
+          self->updating = TRUE;
+          gtk_filter_changed (GTK_FILTER (self->failing_filter),
+                              self->show_failing ? GTK_FILTER_CHANGE_MORE_STRICT
+                                                 : GTK_FILTER_CHANGE_LESS_STRICT);
+          self->updating = FALSE;
+          select_member (self, self->member, FALSE);
+          g_object_notify_by_pspec (object, pspec);
+        }
+      break;
+    default:
+      G_OBJECT_WARN_INVALID_PROPERTY_ID (object, prop_id, pspec);
+    }
+}
+
+static void
+trb_member_list_class_init (TrbMemberListClass *klass)
+{
+  GObjectClass *object_class = G_OBJECT_CLASS (klass);
+  GtkWidgetClass *widget_class = GTK_WIDGET_CLASS (klass);
+
+  object_class->dispose = trb_member_list_dispose;
+  object_class->finalize = trb_member_list_finalize;
+  object_class->get_property = trb_member_list_get_property;
+  object_class->set_property = trb_member_list_set_property;
+
+  properties[PROP_SHOW_FAILING] =
+    g_param_spec_boolean ("show-failing", NULL, NULL, FALSE,
+                          G_PARAM_READWRITE | G_PARAM_EXPLICIT_NOTIFY | G_PARAM_STATIC_STRINGS);
+  g_object_class_install_properties (object_class, N_PROPS, properties);
+
+  /**
+   * TrbMemberList::member-activated:
+   * @member: (type gpointer): the #TrbMember of the row picked
+   */
+  signals[MEMBER_ACTIVATED] =
+    g_signal_new ("member-activated", G_TYPE_FROM_CLASS (klass), G_SIGNAL_RUN_LAST, 0,
+                  NULL, NULL, NULL, G_TYPE_NONE, 1, G_TYPE_POINTER);
+
+  gtk_widget_class_set_template_from_resource (widget_class,
+                                               "/org/trabeate/Trabeate/ui/trb-member-list.ui");
+  gtk_widget_class_bind_template_child (widget_class, TrbMemberList, view);
+  gtk_widget_class_bind_template_child (widget_class, TrbMemberList, summary_label);
+  gtk_widget_class_bind_template_child (widget_class, TrbMemberList, title_label);
+}
+
+static void
+trb_member_list_init (TrbMemberList *self)
+{
+  GtkSorter *ratio_sorter;
+
+  gtk_widget_init_template (GTK_WIDGET (self));
+
+  self->store = g_list_store_new (TRB_TYPE_MEMBER_ITEM);
+  self->failing_filter = gtk_custom_filter_new (failing_filter, self, NULL);
+  self->filtered = gtk_filter_list_model_new (G_LIST_MODEL (self->store),
+                                              GTK_FILTER (self->failing_filter));
+  self->sorted = gtk_sort_list_model_new (G_LIST_MODEL (self->filtered),
+                                          g_object_ref (gtk_column_view_get_sorter (self->view)));
+  self->selection = gtk_single_selection_new (G_LIST_MODEL (self->sorted));
+  gtk_single_selection_set_autoselect (self->selection, FALSE);
+  gtk_single_selection_set_can_unselect (self->selection, TRUE);
+  g_signal_connect_swapped (self->selection, "notify::selected", G_CALLBACK (on_selected),
+                            self);
+  gtk_column_view_set_model (self->view, GTK_SELECTION_MODEL (self->selection));
+
+  ratio_sorter = GTK_SORTER (gtk_numeric_sorter_new (
+    gtk_property_expression_new (TRB_TYPE_MEMBER_ITEM, NULL, "ratio")));
+  gtk_numeric_sorter_set_sort_order (GTK_NUMERIC_SORTER (ratio_sorter), GTK_SORT_DESCENDING);
+
+  add_column (self, _("Mark"), COLUMN_MARK,
+              GTK_SORTER (gtk_custom_sorter_new (compare_marks, NULL, NULL)), FALSE, 80);
+  add_column (self, _("Role"), COLUMN_ROLE, string_sorter ("role"), FALSE, 80);
+  add_column (self, _("Section"), COLUMN_SECTION, string_sorter ("section"), FALSE, 150);
+  add_column (self, _("Status"), COLUMN_STATUS, string_sorter ("status"), FALSE, 130);
+  add_column (self, _("Ratio"), COLUMN_RATIO, ratio_sorter, FALSE, 70);
+  add_column (self, _("Governing Check"), COLUMN_GOVERNING, string_sorter ("governing"), TRUE,
+              -1);
+}

@@ -1,0 +1,459 @@
+/* SPDX-FileCopyrightText: 2026 The Trabeate developers
+ * SPDX-License-Identifier: GPL-3.0-or-later */
+
+#include "config.h"
+
+#include <glib/gstdio.h>
+#include <gtk/gtk.h>
+#include <math.h>
+#include <stdlib.h>
+#include <string.h>
+
+#include "trb-application.h"
+#include "trb-diagram-view.h"
+#include "trb-document.h"
+#include "trb-member-item.h"
+#include "trb-member-list.h"
+#include "trb-member-panel.h"
+#include "trb-plan-canvas.h"
+#include "trb-project-io.h"
+#include "trb-shortlist-panel.h"
+#include "trb-window.h"
+
+/* The editor on the demo floor, driven as the engineer would: through the window's actions
+ * and its widgets' own entry points, checking what they show. Runs under a virtual X server
+ * (build-aux/test) with GSK_RENDERER=cairo and the memory settings backend. */
+
+static TrbApplication *app;
+
+typedef struct
+{
+  TrbWindow   *window;
+  TrbDocument *document;
+} Fixture;
+
+static char *
+demo_path (void)
+{
+  return g_test_build_filename (G_TEST_DIST, "..", "data", "examples", "demo-floor.trabeate",
+                                NULL);
+}
+
+/* Runs the main loop until the window is on the screen and its frame clock has drawn. */
+static void
+wait_for_frames (GtkWidget *widget,
+                 guint      n)
+{
+  gint64 until = g_get_monotonic_time () + 5 * G_USEC_PER_SEC;
+
+  while (!gtk_widget_get_mapped (widget) && g_get_monotonic_time () < until)
+    g_main_context_iteration (NULL, TRUE);
+  for (guint i = 0; i < n; i++)
+    {
+      gint64 frame_until = g_get_monotonic_time () + 50000;
+
+      while (g_get_monotonic_time () < frame_until)
+        g_main_context_iteration (NULL, FALSE);
+    }
+}
+
+static void
+fixture_set_up (Fixture       *f,
+                gconstpointer  data)
+{
+  g_autofree char *path = demo_path ();
+  g_autoptr(GFile) file = g_file_new_for_path (path);
+
+  f->window = trb_window_new (app);
+  trb_application_open_file (app, file, GTK_WINDOW (f->window));
+  f->document = trb_window_get_document (f->window);
+  g_assert_nonnull (f->document);
+  g_assert_true (g_file_equal (trb_document_get_file (f->document), file));
+  gtk_window_set_default_size (GTK_WINDOW (f->window), 1400, 900);
+  gtk_window_present (GTK_WINDOW (f->window));
+  wait_for_frames (GTK_WIDGET (f->window), 3);
+}
+
+static void
+fixture_tear_down (Fixture       *f,
+                   gconstpointer  data)
+{
+  gtk_window_destroy (GTK_WINDOW (f->window));
+  while (g_main_context_iteration (NULL, FALSE))
+    ;
+}
+
+static TrbMemberItem *
+find_row (GListModel *rows,
+          TrbMember  *member,
+          guint      *position)
+{
+  for (guint i = 0; i < g_list_model_get_n_items (rows); i++)
+    {
+      g_autoptr(TrbMemberItem) item = g_list_model_get_item (rows, i);
+
+      if (trb_member_item_get_member (item) == member)
+        {
+          if (position != NULL)
+            *position = i;
+          return item;
+        }
+    }
+  return NULL;
+}
+
+static void
+test_open_demo (Fixture       *f,
+                gconstpointer  data)
+{
+  TrbProject *project = trb_document_get_project (f->document);
+  TrbMemberList *list = TRB_MEMBER_LIST (trb_window_get_member_list (f->window));
+  GListModel *rows = trb_member_list_get_model (list);
+  g_autofree char *expected_count = NULL;
+
+  /* the demo floor: one floor, and a row for every member of the file */
+  g_assert_cmpuint (project->floors->len, ==, 1);
+  g_assert_cmpuint (project->members->len, >, 0);
+  g_assert_cmpuint (g_list_model_get_n_items (rows), ==, project->members->len);
+  for (guint i = 0; i < project->members->len; i++)
+    g_assert_nonnull (find_row (rows, g_ptr_array_index (project->members, i), NULL));
+
+  /* every member was solved, and the summary counts them */
+  g_assert_nonnull (trb_document_get_results (f->document));
+  for (guint i = 0; i < project->members->len; i++)
+    g_assert_nonnull (trb_document_lookup_result (f->document,
+                                                  g_ptr_array_index (project->members, i)));
+  expected_count = g_strdup_printf ("%u members", project->members->len);
+  g_assert_true (g_str_has_prefix (trb_member_list_get_summary (list), expected_count));
+
+  /* the title names the file, not modified */
+  g_assert_false (trb_document_get_modified (f->document));
+  g_assert_nonnull (strstr (gtk_window_get_title (GTK_WINDOW (f->window)),
+                            "demo-floor.trabeate"));
+  g_assert_null (strstr (gtk_window_get_title (GTK_WINDOW (f->window)), "•"));
+}
+
+static void
+test_select_member (Fixture       *f,
+                    gconstpointer  data)
+{
+  TrbMemberList *list = TRB_MEMBER_LIST (trb_window_get_member_list (f->window));
+  TrbPlanCanvas *canvas = TRB_PLAN_CANVAS (trb_window_get_canvas (f->window));
+  TrbMemberPanel *panel = TRB_MEMBER_PANEL (trb_window_get_member_panel (f->window));
+  TrbDiagramView *diagrams = TRB_DIAGRAM_VIEW (trb_window_get_diagram_view (f->window));
+  GListModel *rows = trb_member_list_get_model (list);
+  g_autoptr(TrbMemberItem) item = NULL;
+  TrbMember *member;
+  const TrbMemberResult *r;
+
+  g_assert_null (trb_member_panel_get_title (panel));
+
+  /* a row picked in the list selects the member on the plan and fills the panels */
+  trb_member_list_activate_row (list, 0);
+  item = g_list_model_get_item (rows, 0);
+  member = trb_member_item_get_member (item);
+  g_assert_true (trb_plan_canvas_get_selected_member (canvas) == member);
+  g_assert_cmpstr (trb_member_panel_get_title (panel), ==, member->id);
+  r = trb_document_lookup_result (f->document, member);
+  g_assert_nonnull (r);
+  if (r->analysed)
+    {
+      /* the envelope, each combination entry and each load case present */
+      guint n = 1 + r->strength.entries->len;
+
+      for (guint c = 0; c < TRB_N_CASES; c++)
+        n += r->cases[c] != NULL;
+      g_assert_cmpuint (trb_diagram_view_get_n_sources (diagrams), ==, n);
+    }
+
+  /* picked on the plan: the list follows */
+  {
+    TrbFloor *floor = trb_document_get_floor (f->document);
+    TrbMember *other = g_ptr_array_index (floor->members, floor->members->len - 1);
+    double x = (other->start.x + other->end.x) / 2, y = (other->start.y + other->end.y) / 2;
+
+    trb_plan_canvas_set_tool (canvas, TRB_TOOL_SELECT);
+    trb_plan_canvas_click_plan (canvas, x, y, 0);
+    g_assert_true (trb_plan_canvas_get_selected_member (canvas) == other);
+    g_assert_cmpstr (trb_member_panel_get_title (panel), ==, other->id);
+  }
+}
+
+static void
+test_shortlist_assign (Fixture       *f,
+                       gconstpointer  data)
+{
+  TrbProject *project = trb_document_get_project (f->document);
+  TrbMemberList *list = TRB_MEMBER_LIST (trb_window_get_member_list (f->window));
+  TrbShortlistPanel *shortlist = TRB_SHORTLIST_PANEL (trb_window_get_shortlist (f->window));
+  g_autofree char *before = NULL;
+  g_autofree char *chosen = NULL;
+  TrbMember *member = NULL;
+  const TrbMemberResult *r;
+  guint position;
+
+  /* Make a member fail the way an engineer would: pick the lightest W shape for a girder
+   * (W8X10 of the AISC Shapes Database v16.0, 10 lb/ft), far too light for its span. */
+  for (guint i = 0; i < project->members->len && member == NULL; i++)
+    {
+      TrbMember *m = g_ptr_array_index (project->members, i);
+
+      if (m->role == TRB_FRAME_ROLE_GIRDER && m->material == TRB_MATERIAL_STEEL)
+        member = m;
+    }
+  g_assert_nonnull (member);
+  trb_plan_canvas_select_member (TRB_PLAN_CANVAS (trb_window_get_canvas (f->window)), member,
+                                 TRUE);
+  g_assert_true (trb_shortlist_panel_get_n_rows (shortlist) > 0);
+
+  before = g_strdup (member->section);
+  g_assert_true (trb_document_push (f->document,
+                                    trb_edit_assign_section (project, member, "W8X10", NULL)));
+  r = trb_document_lookup_result (f->document, member);
+  g_assert_cmpint (r->status, ==, TRB_STATUS_FAIL);
+  g_assert_nonnull (find_row (trb_member_list_get_model (list), member, &position));
+  {
+    g_autoptr(TrbMemberItem) row = g_list_model_get_item (trb_member_list_get_model (list),
+                                                          position);
+
+    g_assert_cmpstr (trb_member_item_get_status (row), ==, "Fails");
+  }
+
+  /* the shortlist offers sizing first (the member has a section of its own), then the
+   * passing sections lightest first; choosing the lightest assigns it and the member passes */
+  g_assert_cmpstr (trb_shortlist_panel_get_row_section (shortlist, 0), ==, "auto");
+  g_assert_true (trb_shortlist_panel_get_n_rows (shortlist) >= 2);
+  chosen = g_strdup (trb_shortlist_panel_get_row_section (shortlist, 1));
+  g_assert_true (trb_shortlist_panel_choose (shortlist, 1));
+  g_assert_cmpstr (member->section, ==, chosen);
+  r = trb_document_lookup_result (f->document, member);
+  g_assert_cmpint (r->status, ==, TRB_STATUS_PASS);
+  g_assert_true (r->ratio <= 1.0);
+  {
+    g_autoptr(TrbMemberItem) row = NULL;
+
+    g_assert_nonnull (find_row (trb_member_list_get_model (list), member, &position));
+    row = g_list_model_get_item (trb_member_list_get_model (list), position);
+    g_assert_cmpstr (trb_member_item_get_status (row), ==, "Passes");
+  }
+  g_assert_true (trb_document_get_modified (f->document));
+  g_assert_nonnull (strstr (gtk_window_get_title (GTK_WINDOW (f->window)), "•"));
+
+  /* Undo, through the window's action, gives back the failing section */
+  g_assert_true (gtk_widget_activate_action (GTK_WIDGET (f->window), "win.undo", NULL));
+  g_assert_cmpstr (member->section, ==, "W8X10");
+  r = trb_document_lookup_result (f->document, member);
+  g_assert_cmpint (r->status, ==, TRB_STATUS_FAIL);
+  g_assert_true (gtk_widget_activate_action (GTK_WIDGET (f->window), "win.undo", NULL));
+  g_assert_cmpstr (member->section, ==, before);
+  g_assert_false (trb_document_get_modified (f->document));
+  g_assert_true (gtk_widget_activate_action (GTK_WIDGET (f->window), "win.redo", NULL));
+  g_assert_cmpstr (member->section, ==, "W8X10");
+}
+
+static void
+test_draw_beam (Fixture       *f,
+                gconstpointer  data)
+{
+  TrbPlanCanvas *canvas = TRB_PLAN_CANVAS (trb_window_get_canvas (f->window));
+  TrbProject *project = trb_document_get_project (f->document);
+  TrbMemberList *list = TRB_MEMBER_LIST (trb_window_get_member_list (f->window));
+  guint n = project->members->len;
+  TrbMember *added;
+
+  /* the beam tool from its key, as the plan has it */
+  gtk_widget_grab_focus (GTK_WIDGET (canvas));
+  g_assert_true (gtk_widget_activate_action (GTK_WIDGET (canvas), "canvas.tool", "s", "beam"));
+  g_assert_cmpint (trb_plan_canvas_get_tool (canvas), ==, TRB_TOOL_BEAM);
+
+  /* two clicks, 3 m apart in clear floor south of the wall (the demo's wall runs along
+   * y = 0): a new member B1 with its row in the list */
+  trb_plan_canvas_click_plan (canvas, 1.0, -3.0, 0);
+  g_assert_cmpuint (project->members->len, ==, n);
+  trb_plan_canvas_click_plan (canvas, 4.0, -3.0, 0);
+  g_assert_cmpuint (project->members->len, ==, n + 1);
+  added = g_ptr_array_index (project->members, n);
+  g_assert_cmpint (added->role, ==, TRB_FRAME_ROLE_BEAM);
+  g_assert_true (trb_plan_canvas_get_selected_member (canvas) == added);
+  g_assert_cmpuint (g_list_model_get_n_items (trb_member_list_get_model (list)), ==, n + 1);
+  /* on nothing but the grid: unsupported, and the list says so */
+  g_assert_cmpint (trb_document_lookup_result (f->document, added)->status, ==,
+                   TRB_STATUS_UNSUPPORTED);
+
+  /* Escape leaves the tool */
+  trb_plan_canvas_cancel (canvas);
+  g_assert_cmpint (trb_plan_canvas_get_tool (canvas), ==, TRB_TOOL_SELECT);
+
+  g_assert_true (gtk_widget_activate_action (GTK_WIDGET (f->window), "win.undo", NULL));
+  g_assert_cmpuint (project->members->len, ==, n);
+  g_assert_cmpuint (g_list_model_get_n_items (trb_member_list_get_model (list)), ==, n);
+  g_assert_null (trb_plan_canvas_get_selected_member (canvas));
+}
+
+static void
+test_save_round_trip (Fixture       *f,
+                      gconstpointer  data)
+{
+  TrbProject *project = trb_document_get_project (f->document);
+  g_autofree char *dir = g_dir_make_tmp ("trabeate-test-app-XXXXXX", NULL);
+  g_autofree char *path = g_build_filename (dir, "saved.trabeate", NULL);
+  g_autoptr(GFile) file = g_file_new_for_path (path);
+  g_autoptr(GError) error = NULL;
+  g_autoptr(TrbProject) loaded = NULL;
+  g_autofree char *ours = NULL;
+  g_autofree char *theirs = NULL;
+  TrbMember *member = g_ptr_array_index (project->members, 0);
+
+  /* an edit, then Save through the window's action, to a file the document has */
+  g_assert_true (trb_document_save (f->document, file, &error));
+  g_assert_no_error (error);
+  g_assert_true (trb_document_push (f->document,
+                                    trb_edit_set_member_number (project, member,
+                                                                TRB_MEMBER_FIELD_DEFLECTION_LIVE,
+                                                                480, NULL)));
+  g_assert_true (trb_document_get_modified (f->document));
+  g_assert_true (gtk_widget_activate_action (GTK_WIDGET (f->window), "win.save", NULL));
+  g_assert_false (trb_document_get_modified (f->document));
+
+  /* the file reads back to the same project, byte for byte when written again */
+  loaded = trb_project_load_file (path, &error);
+  g_assert_no_error (error);
+  g_assert_cmpfloat (trb_project_find_member (loaded, member->id)->deflection_live, ==, 480);
+  ours = trb_project_save_data (project, NULL, &error);
+  g_assert_no_error (error);
+  theirs = trb_project_save_data (loaded, NULL, &error);
+  g_assert_no_error (error);
+  g_assert_cmpstr (ours, ==, theirs);
+
+  g_remove (path);
+  g_rmdir (dir);
+}
+
+static void
+test_bad_file (Fixture       *f,
+               gconstpointer  data)
+{
+  g_autofree char *path = g_test_build_filename (G_TEST_DIST, "data", "invalid",
+                                                 "unit-missing.trabeate", NULL);
+  g_autoptr(GFile) file = g_file_new_for_path (path);
+  TrbProject *before = trb_document_get_project (f->document);
+  const char *error;
+
+  /* the window keeps its project and shows the loader's message, with the file and line */
+  trb_application_open_file (app, file, GTK_WINDOW (f->window));
+  g_assert_true (trb_window_get_document (f->window) == f->document);
+  g_assert_true (trb_document_get_project (f->document) == before);
+  error = trb_window_get_error (f->window);
+  g_assert_nonnull (error);
+  g_assert_nonnull (strstr (error, "unit-missing.trabeate:"));
+  g_assert_nonnull (strstr (error, "unit"));
+}
+
+/* ---- the screenshot -------------------------------------------------------------------------- */
+
+static GdkTexture *
+render_window (GtkWidget *window)
+{
+  int w = gtk_widget_get_width (window), h = gtk_widget_get_height (window);
+  GdkPaintable *paintable = gtk_widget_paintable_new (window);
+  GtkSnapshot *snapshot = gtk_snapshot_new ();
+  GskRenderNode *node;
+  GdkTexture *texture;
+
+  gdk_paintable_snapshot (paintable, snapshot, w, h);
+  node = gtk_snapshot_free_to_node (snapshot);
+  g_assert_nonnull (node);
+  texture = gsk_renderer_render_texture (gtk_native_get_renderer (GTK_NATIVE (window)), node,
+                                         &GRAPHENE_RECT_INIT (0, 0, w, h));
+  gsk_render_node_unref (node);
+  g_object_unref (paintable);
+  return texture;
+}
+
+/* How many distinct colours, counted on a coarse grid: a blank window has one or two. */
+static guint
+count_colours (GdkTexture *texture)
+{
+  int w = gdk_texture_get_width (texture), h = gdk_texture_get_height (texture);
+  g_autofree guint32 *pixels = g_new (guint32, (gsize) w * h);
+  g_autoptr(GHashTable) seen = g_hash_table_new (NULL, NULL);
+
+  gdk_texture_download (texture, (guchar *) pixels, (gsize) w * 4);
+  for (int y = 0; y < h; y += 3)
+    for (int x = 0; x < w; x += 3)
+      g_hash_table_add (seen, GUINT_TO_POINTER (pixels[(gsize) y * w + x]));
+  return g_hash_table_size (seen);
+}
+
+static void
+test_screenshot (Fixture       *f,
+                 gconstpointer  data)
+{
+  TrbPlanCanvas *canvas = TRB_PLAN_CANVAS (trb_window_get_canvas (f->window));
+  const char *out = g_getenv ("TRB_SCREENSHOT");
+  g_autofree char *path = NULL;
+  g_autoptr(GdkTexture) texture = NULL;
+  TrbFloor *floor = trb_document_get_floor (f->document);
+  TrbMember *shown = NULL;
+
+  /* a girder picked, as an engineer looking at the floor would have it */
+  for (guint i = 0; i < floor->members->len && shown == NULL; i++)
+    {
+      TrbMember *m = g_ptr_array_index (floor->members, i);
+
+      if (m->role == TRB_FRAME_ROLE_GIRDER)
+        shown = m;
+    }
+  trb_plan_canvas_select_member (canvas, shown, TRUE);
+  trb_plan_canvas_zoom_to_fit (canvas);
+  wait_for_frames (GTK_WIDGET (f->window), 5);
+
+  texture = render_window (GTK_WIDGET (f->window));
+  path = out != NULL ? g_strdup (out) : g_test_build_filename (G_TEST_BUILT, "editor.png", NULL);
+  g_assert_true (gdk_texture_save_to_png (texture, path));
+
+  /* the window's size, about what it was given (fixture_set_up; the window manager of the
+   * virtual display may take a few pixels for its frame) */
+  g_assert_cmpint (gdk_texture_get_width (texture), ==, gtk_widget_get_width (GTK_WIDGET (f->window)));
+  g_assert_cmpint (gdk_texture_get_height (texture), ==, gtk_widget_get_height (GTK_WIDGET (f->window)));
+  g_assert_cmpint (abs (gdk_texture_get_width (texture) - 1400), <=, 20);
+  g_assert_cmpint (abs (gdk_texture_get_height (texture) - 900), <=, 20);
+  g_assert_cmpuint (count_colours (texture), >, 50);
+  g_test_message ("screenshot: %s", path);
+}
+
+int
+main (int   argc,
+      char *argv[])
+{
+  g_autoptr(GError) error = NULL;
+  int status;
+
+  gtk_test_init (&argc, &argv, NULL);
+
+  app = trb_application_new ("org.trabeate.Trabeate.Test", G_APPLICATION_NON_UNIQUE);
+  g_application_register (G_APPLICATION (app), NULL, &error);
+  g_assert_no_error (error);
+  if (g_getenv ("TRB_SCREENSHOT_DARK") != NULL)
+    adw_style_manager_set_color_scheme (adw_style_manager_get_default (),
+                                        ADW_COLOR_SCHEME_FORCE_DARK);
+
+  g_test_add ("/trb/app/open-demo", Fixture, NULL, fixture_set_up, test_open_demo,
+              fixture_tear_down);
+  g_test_add ("/trb/app/select-member", Fixture, NULL, fixture_set_up, test_select_member,
+              fixture_tear_down);
+  g_test_add ("/trb/app/shortlist-assign", Fixture, NULL, fixture_set_up,
+              test_shortlist_assign, fixture_tear_down);
+  g_test_add ("/trb/app/draw-beam", Fixture, NULL, fixture_set_up, test_draw_beam,
+              fixture_tear_down);
+  g_test_add ("/trb/app/save-round-trip", Fixture, NULL, fixture_set_up, test_save_round_trip,
+              fixture_tear_down);
+  g_test_add ("/trb/app/bad-file", Fixture, NULL, fixture_set_up, test_bad_file,
+              fixture_tear_down);
+  g_test_add ("/trb/app/screenshot", Fixture, NULL, fixture_set_up, test_screenshot,
+              fixture_tear_down);
+
+  status = g_test_run ();
+  g_object_unref (app);
+  return status;
+}
