@@ -67,7 +67,7 @@ def summary_rows(table):
     rows = []
     part = table.split('\nSummary\n', 1)[1]
     for line in part.splitlines()[1:]:
-        if line.startswith('CAUTION'):
+        if line.strip() == '' or line.startswith('CAUTION'):
             break
         m = re.match(r'  (\S+)\s+(\S+)\s+(passes|FAILS|UNSTABLE|UNSUPPORTED|not designed|'
                      r'ERROR)\s+(\S+)\s+(.*)$', line)
@@ -129,8 +129,10 @@ class Report(unittest.TestCase):
         # each member's sheets carry the extremes exactly as the table prints them
         blocks = member_blocks(table)
         for mark, block in blocks.items():
+            # the sheet's title in the title block names the member
             pages = [i for i in range(1, pdf_pages(pdf) + 1)
-                     if squeeze(pdf_text(pdf, i)).startswith('Member %s' % mark)]
+                     if re.search(r'SHEET Member %s\b' % re.escape(mark),
+                                  squeeze(pdf_text(pdf, i)))]
             self.assertEqual(len(pages), 2, mark)
             sheet = squeeze(pdf_text(pdf, pages[0]) + pdf_text(pdf, pages[1]))
             for label in ('shear max', 'moment max (+)'):
@@ -191,6 +193,13 @@ class Report(unittest.TestCase):
         self.assertRegex(row[0], r'0\.65 kip\s+2\.16 kip\s+0\.00 kip\s+0\.00 kip\s+2\.81 kip')
         for c in ('C2', 'C3', 'C4'):
             self.assertRegex(schedule, r'%s\s.*0\.65 kip\s+2\.16 kip' % c)
+        # the same strings as the CLI's own column table
+        cli = dict((m.group(1), m.group(2).split('kip')[:2])
+                   for m in re.finditer(r'^  (C\d)\s+\(.*?\)\s+(.*)$', table, re.M))
+        self.assertEqual(sorted(cli), ['C1', 'C2', 'C3', 'C4'])
+        for c, (d, l) in cli.items():
+            self.assertRegex(schedule, r'%s\s.*%s kip\s+%s kip' % (c, re.escape(d.strip()),
+                                                                  re.escape(l.strip())))
         # and the plan shows them beside the columns
         self.assertIn('D 0.65 kip', plan)
         self.assertIn('L 2.16 kip', plan)
