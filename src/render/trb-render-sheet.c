@@ -1134,10 +1134,15 @@ trb_sheet_member_flow (TrbFlow               *flow,
 
     limits = g_strdup_printf ("live %s, total %s", ll, tl);
   }
-  sw = r->analysed && r->self_weight > 0
-       ? g_strdup_printf ("%s, in case D", trb_units_format (r->self_weight,
-                                                             TRB_DIM_WEIGHT_PER_LENGTH, u))
-       : g_strdup ("not included");
+  if (r->analysed && r->self_weight > 0)
+    {
+      /* trb_units_format() gives a new string */
+      g_autofree char *w = trb_units_format (r->self_weight, TRB_DIM_WEIGHT_PER_LENGTH, u);
+
+      sw = g_strdup_printf ("%s, in case D", w);
+    }
+  else
+    sw = g_strdup ("not included");
   method = g_strdup_printf ("%s: %s", method_text (r->method),
                             trb_combo_set_title (r->strength.set));
 
