@@ -381,9 +381,12 @@ test_draw_ten_thousand (void)
   g_test_message ("10,000 members at 1920 x 1080: %.1f ms whole, %.1f ms zoomed in", whole,
                   zoomed);
 
-  /* a frame at 60 Hz is 16.7 ms: the editor redraws within one (the brief's budget: 16 ms) */
+  /* a frame at 60 Hz is 16.7 ms: the editor redraws within one (the brief's budget: 16 ms).
+   * Not timed under AddressSanitizer, which slows every memory access several times. */
+#if !defined(__SANITIZE_ADDRESS__)
   g_assert_cmpfloat (whole, <=, 16.0);
   g_assert_cmpfloat (zoomed, <=, 16.0);
+#endif
 
   cairo_destroy (cr);
   cairo_surface_destroy (s);
