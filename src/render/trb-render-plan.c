@@ -828,6 +828,8 @@ label_clear_of_members (DrawContext  *dc,
   double h = size * 1.3;
   double band = 1.6 * dc->fs;
   TrbPlanBounds mine = { *x - w / 2, *y - h / 2, *x + w / 2, *y + h / 2 };
+  gboolean have_fallback = FALSE;
+  double fx = *x, fy = *y;
 
   for (int k = 0; k < 25; k++)
     {
@@ -846,14 +848,26 @@ label_clear_of_members (DrawContext  *dc,
         continue;
       for (guint i = 0; clear && i < taken->len; i++)
         clear = !boxes_overlap (&box, &g_array_index (taken, TrbPlanBounds, i));
+      if (clear && !have_fallback)
+        {
+          /* in a tight run of joists no place is clear of them: then the nearest place clear
+           * of the other load labels, on its own background */
+          have_fallback = TRUE;
+          fx = cx;
+          fy = cy;
+        }
       if (clear && !box_hits_member (dc, &wide))
         {
           *x = cx;
           *y = cy;
           mine = box;
-          break;
+          g_array_append_val (taken, mine);
+          return;
         }
     }
+  *x = fx;
+  *y = fy;
+  mine = (TrbPlanBounds) { fx - w / 2, fy - h / 2, fx + w / 2, fy + h / 2 };
   g_array_append_val (taken, mine);
 }
 
@@ -913,7 +927,9 @@ draw_area_loads (DrawContext *dc)
         n = GPOINTER_TO_INT (g_hash_table_lookup (placed, key));
         g_hash_table_insert (placed, g_steal_pointer (&key), GINT_TO_POINTER (n + 1));
         text = g_strdup_printf ("%s %s%s%s%s", trb_load_case_name (a->lcase), p,
-                                a->kind == TRB_AREA_LOAD_PARTITION ? " partitions" : "",
+                                a->kind == TRB_AREA_LOAD_PARTITION &&
+                                (a->label == NULL || strstr (a->label, "partition") == NULL)
+                                ? " partitions" : "",
                                 a->label != NULL ? " " : "", a->label != NULL ? a->label : "");
         dy += n * dc->fs * 1.3;
         label_clear_of_members (dc, a->points, text, dc->fs * 0.95, taken, &dx, &dy);
@@ -922,6 +938,16 @@ draw_area_loads (DrawContext *dc)
         c.r *= 0.6;
         c.g *= 0.6;
         c.b *= 0.6;
+        {
+          /* a paper-coloured ground, so that the label reads over the lines under it */
+          double tw = trb_render_text_width (dc->cr, dc->style, text, dc->fs * 0.95, FALSE);
+          TrbRgba ground = dc->paper;
+
+          ground.a = 0.85;
+          trb_render_set_color (dc->cr, &ground);
+          cairo_rectangle (dc->cr, dx - tw / 2 - 1.5, dy - dc->fs * 0.65, tw + 3, dc->fs * 1.3);
+          cairo_fill (dc->cr);
+        }
         trb_render_set_color (dc->cr, &c);
         trb_render_text (dc->cr, dc->style, text, dc->fs * 0.95, FALSE, dx, dy, 0.5, 0.5, NULL);
       }
@@ -1287,6 +1313,297 @@ draw_flag (DrawContext *dc,
   trb_render_text (cr, dc->style, "!", s * 1.1, TRUE, x, y + s * 0.05, 0.5, 0.5, NULL);
 }
 
+/* One label: a member's, or a joist run's. */
+typedef struct
+{
+  guint           member;      /* the member it sits on (the run's middle one) */
+  char           *top;         /* mark and section */
+  char           *bottom;      /* ratio and status */
+  TrbRenderStatus status;
+  int             priority;    /* lower first: failures, then runs, girders, beams, joists */
+} Label;
+
+static void
+label_clear (Label *l)
+{
+  g_free (l->top);
+  g_free (l->bottom);
+}
+
+static int
+cmp_label (gconstpointer a,
+           gconstpointer b)
+{
+  const Label *x = a, *y = b;
+
+  if (x->priority != y->priority)
+    return x->priority - y->priority;
+  return (x->member > y->member) - (x->member < y->member);
+}
+
+static char *
+ratio_text (const TrbMemberResult *r)
+{
+  if (r != NULL && !isnan (r->ratio))
+    return g_strdup_printf ("%.3f%s%s", r->ratio, r->status != TRB_STATUS_PASS ? " " : "",
+                            r->status != TRB_STATUS_PASS ? status_word (r) : "");
+  return g_strdup (status_word (r));
+}
+
+typedef struct
+{
+  guint  member;
+  double along;   /* the midpoint's distance along the run's normal, device units */
+} RunEntry;
+
+static int
+cmp_run_entry (gconstpointer a,
+               gconstpointer b)
+{
+  const RunEntry *x = a, *y = b;
+
+  return (x->along > y->along) - (x->along < y->along);
+}
+
+/* Joists of one run, of one section, that pass: drawn too close together for a label each
+ * (the trade labels such a run once), they get one label on their middle member, with the
+ * first and last marks, the count and the largest ratio. Returns the labels, and marks the
+ * members so labelled in skip. */
+static void
+run_labels (DrawContext *dc,
+            const guint8 *vis,
+            guint8       *skip,
+            GArray       *labels)
+{
+  const TrbFloor *floor = dc->scene->floor;
+  g_autoptr(GHashTable) runs = g_hash_table_new_full (g_str_hash, g_str_equal, g_free,
+                                                      (GDestroyNotify) g_array_unref);
+  GHashTableIter it;
+  gpointer key, value;
+
+  for (guint i = 0; i < floor->members->len; i++)
+    {
+      const TrbMember *m = g_ptr_array_index (floor->members, i);
+      const TrbMemberResult *r;
+      GArray *run;
+      char *k;
+
+      if (!vis[i] || m->group == NULL)
+        continue;
+      r = trb_plan_scene_lookup_result (dc->scene, m);
+      /* a member that does not pass keeps its own label */
+      if (r == NULL || r->status != TRB_STATUS_PASS)
+        continue;
+      k = g_strdup_printf ("%s\n%s\n%d", m->group, member_section (m, r), m->role);
+      run = g_hash_table_lookup (runs, k);
+      if (run == NULL)
+        {
+          run = g_array_new (FALSE, FALSE, sizeof (RunEntry));
+          g_hash_table_insert (runs, k, run);
+        }
+      else
+        g_free (k);
+      {
+        RunEntry e = { i, 0 };
+
+        g_array_append_val (run, e);
+      }
+    }
+
+  g_hash_table_iter_init (&it, runs);
+  while (g_hash_table_iter_next (&it, &key, &value))
+    {
+      GArray *run = value;
+      const TrbMember *first;
+      double ax, ay, bx, by, len, nx, ny, gap = INFINITY, worst = -INFINITY;
+      const TrbMemberResult *worst_r = NULL;
+      const TrbMember *lo, *hi, *mid;
+      Label l = { 0 };
+
+      if (run->len < 3)
+        continue;
+      first = g_ptr_array_index (floor->members, g_array_index (run, RunEntry, 0).member);
+      trb_plan_view_to_device (dc->view, first->start.x, first->start.y, &ax, &ay);
+      trb_plan_view_to_device (dc->view, first->end.x, first->end.y, &bx, &by);
+      len = hypot (bx - ax, by - ay);
+      if (len < 1e-9)
+        continue;
+      nx = -(by - ay) / len;
+      ny = (bx - ax) / len;
+      for (guint k = 0; k < run->len; k++)
+        {
+          RunEntry *e = &g_array_index (run, RunEntry, k);
+          const TrbMember *m = g_ptr_array_index (floor->members, e->member);
+          double mx, my;
+
+          trb_plan_view_to_device (dc->view, (m->start.x + m->end.x) / 2,
+                                   (m->start.y + m->end.y) / 2, &mx, &my);
+          e->along = mx * nx + my * ny;
+        }
+      g_array_sort (run, cmp_run_entry);
+      for (guint k = 1; k < run->len; k++)
+        gap = MIN (gap, g_array_index (run, RunEntry, k).along -
+                        g_array_index (run, RunEntry, k - 1).along);
+      /* room for a label above and below each line: leave them one each */
+      if (gap >= 3.2 * dc->fs)
+        continue;
+
+      for (guint k = 0; k < run->len; k++)
+        {
+          guint i = g_array_index (run, RunEntry, k).member;
+          const TrbMemberResult *r = trb_plan_scene_lookup_result (dc->scene,
+                                                                   g_ptr_array_index (floor->members,
+                                                                                      i));
+
+          skip[i] = 1;
+          if (r != NULL && !isnan (r->ratio) && r->ratio > worst)
+            {
+              worst = r->ratio;
+              worst_r = r;
+            }
+        }
+      lo = g_ptr_array_index (floor->members, g_array_index (run, RunEntry, 0).member);
+      hi = g_ptr_array_index (floor->members,
+                              g_array_index (run, RunEntry, run->len - 1).member);
+      l.member = g_array_index (run, RunEntry, run->len / 2).member;
+      mid = g_ptr_array_index (floor->members, l.member);
+      l.top = g_strdup_printf ("%s to %s (%u) %s", lo->id, hi->id, run->len,
+                               member_section (mid, trb_plan_scene_lookup_result (dc->scene,
+                                                                                  mid)));
+      l.bottom = worst_r != NULL ? g_strdup_printf ("max %.3f", worst) : g_strdup ("");
+      l.status = trb_render_status_of (worst_r);
+      l.priority = 1;
+      g_array_append_val (labels, l);
+    }
+}
+
+/* The corners of a label's two lines, rotated onto the member, as a device box. */
+static void
+label_box (double         cx,
+           double         cy,
+           double         ang,
+           double         half_w,
+           double         above,
+           double         below,
+           TrbPlanBounds *box)
+{
+  double c = cos (ang), s = sin (ang);
+  double pts[4][2] = { { -half_w, -above }, { half_w, -above }, { half_w, below },
+                       { -half_w, below } };
+
+  trb_plan_bounds_init (box);
+  for (int k = 0; k < 4; k++)
+    trb_plan_bounds_add (box, cx + c * pts[k][0] - s * pts[k][1],
+                         cy + s * pts[k][0] + c * pts[k][1]);
+}
+
+static void
+draw_member_labels (DrawContext  *dc,
+                    const guint8 *vis)
+{
+  cairo_t *cr = dc->cr;
+  const TrbFloor *floor = dc->scene->floor;
+  guint n = floor->members->len;
+  g_autofree guint8 *skip = g_new0 (guint8, MAX (n, 1));
+  g_autoptr(GArray) labels = g_array_new (FALSE, TRUE, sizeof (Label));
+  g_autoptr(GArray) placed = g_array_new (FALSE, FALSE, sizeof (TrbPlanBounds));
+  guint n_visible = 0;
+
+  /* labels, when there is room: mark and section above the line, ratio and status below */
+  if (!(dc->options->layers & TRB_PLAN_LAYER_LABELS))
+    return;
+  for (guint i = 0; i < n; i++)
+    n_visible += vis[i];
+  /* beyond this many on the screen at once, labels are an unreadable grey: leave them out */
+  if (!dc->style->print && n_visible > 3000)
+    return;
+
+  g_array_set_clear_func (labels, (GDestroyNotify) label_clear);
+  run_labels (dc, vis, skip, labels);
+  for (guint i = 0; i < n; i++)
+    {
+      const TrbMember *m = g_ptr_array_index (floor->members, i);
+      const TrbMemberResult *r;
+      Label l = { 0 };
+
+      if (!vis[i] || skip[i])
+        continue;
+      r = trb_plan_scene_lookup_result (dc->scene, m);
+      l.member = i;
+      l.status = trb_render_status_of (r);
+      l.top = g_strdup_printf ("%s %s", m->id, member_section (m, r));
+      l.bottom = ratio_text (r);
+      l.priority = l.status == TRB_RENDER_STATUS_FAIL ? 0
+                   : m->role == TRB_FRAME_ROLE_GIRDER ? 2
+                   : m->role == TRB_FRAME_ROLE_BEAM ? 3 : 4;
+      g_array_append_val (labels, l);
+    }
+  g_array_sort (labels, cmp_label);
+
+  for (guint k = 0; k < labels->len; k++)
+    {
+      const Label *l = &g_array_index (labels, Label, k);
+      const TrbMember *m = g_ptr_array_index (floor->members, l->member);
+      double ax, ay, bx, by, len, ang, off, tw, bw, fs = dc->fs;
+      TrbPlanBounds box;
+      gboolean clear = TRUE;
+      TrbRgba c;
+
+      trb_plan_view_to_device (dc->view, m->start.x, m->start.y, &ax, &ay);
+      trb_plan_view_to_device (dc->view, m->end.x, m->end.y, &bx, &by);
+      len = hypot (bx - ax, by - ay);
+      /* a label needs a few characters' room at least */
+      if (len < 4 * fs)
+        continue;
+      tw = trb_render_text_width (cr, dc->style, l->top, fs, TRUE);
+      if (tw > len * 0.95)
+        {
+          /* a smaller size still fits on a short member; below that, leave it out */
+          fs = fs * len * 0.95 / tw;
+          if (fs < dc->fs * 0.7)
+            continue;
+          tw = len * 0.95;
+        }
+      bw = trb_render_text_width (cr, dc->style, l->bottom, fs, TRUE) +
+           (l->status == TRB_RENDER_STATUS_FAIL ? 2.5 * fs : 0);
+
+      ang = atan2 (by - ay, bx - ax);
+      if (ang > G_PI / 2 + 1e-9 || ang <= -G_PI / 2 + 1e-9)
+        ang += G_PI;
+      off = dc->lw * role_width (m->role) * (l->status == TRB_RENDER_STATUS_FAIL ? 1.5 : 0.5) +
+            1.2;
+
+      /* a label that would cover one placed before it is left out; a failure's never is */
+      label_box ((ax + bx) / 2, (ay + by) / 2, ang, MAX (tw, bw) / 2, off + fs * 1.2,
+                 off + fs * 1.2, &box);
+      for (guint j = 0; clear && j < placed->len; j++)
+        clear = !boxes_overlap (&box, &g_array_index (placed, TrbPlanBounds, j));
+      if (!clear && l->priority > 0)
+        continue;
+      g_array_append_val (placed, box);
+
+      cairo_save (cr);
+      cairo_translate (cr, (ax + bx) / 2, (ay + by) / 2);
+      cairo_rotate (cr, ang);
+      trb_render_set_color (cr, &dc->ink);
+      trb_render_text (cr, dc->style, l->top, fs, TRUE, 0, -off, 0.5, 1.0, NULL);
+      trb_render_status_color (dc->style, l->status, &c);
+      /* amber text on white is faint: print the ratio in ink, the line carries colour */
+      if (dc->style->print && l->status == TRB_RENDER_STATUS_NEAR)
+        c = dc->ink;
+      trb_render_set_color (cr, &c);
+      {
+        double w = trb_render_text (cr, dc->style, l->bottom, fs,
+                                    l->status == TRB_RENDER_STATUS_FAIL, 0, off, 0.5, 0.0,
+                                    NULL);
+
+        if (l->status == TRB_RENDER_STATUS_FAIL)
+          draw_flag (dc, -w / 2 - fs * 1.0, off + fs * 0.6, &c);
+      }
+      cairo_restore (cr);
+    }
+}
+
 static void
 draw_members (DrawContext *dc)
 {
@@ -1295,7 +1612,6 @@ draw_members (DrawContext *dc)
   guint n = floor->members->len;
   g_autofree guint8 *vis = g_new0 (guint8, MAX (n, 1));
   g_autofree guint8 *status = g_new0 (guint8, MAX (n, 1));
-  guint n_visible = 0;
   TrbRgba sel;
 
   for (guint i = 0; i < n; i++)
@@ -1306,7 +1622,6 @@ draw_members (DrawContext *dc)
         continue;
       vis[i] = 1;
       status[i] = trb_render_status_of (trb_plan_scene_lookup_result (dc->scene, m));
-      n_visible++;
     }
 
   cairo_set_line_cap (cr, CAIRO_LINE_CAP_BUTT);
@@ -1375,76 +1690,7 @@ draw_members (DrawContext *dc)
           }
       }
 
-  /* labels, when there is room: mark and section above the line, ratio and status below */
-  if (!(dc->options->layers & TRB_PLAN_LAYER_LABELS))
-    return;
-  /* beyond this many on the screen at once, labels are an unreadable grey: leave them out */
-  if (!dc->style->print && n_visible > 3000)
-    return;
-  for (guint i = 0; i < n; i++)
-    {
-      const TrbMember *m = g_ptr_array_index (floor->members, i);
-      const TrbMemberResult *r;
-      double ax, ay, bx, by, len, ang, off, tw;
-      g_autofree char *top = NULL;
-      g_autofree char *bottom = NULL;
-      TrbRenderStatus st;
-      TrbRgba c;
-      double fs = dc->fs;
-
-      if (!vis[i])
-        continue;
-      trb_plan_view_to_device (dc->view, m->start.x, m->start.y, &ax, &ay);
-      trb_plan_view_to_device (dc->view, m->end.x, m->end.y, &bx, &by);
-      len = hypot (bx - ax, by - ay);
-      /* a label needs a few characters' room at least */
-      if (len < 4 * fs)
-        continue;
-      r = trb_plan_scene_lookup_result (dc->scene, m);
-      st = trb_render_status_of (r);
-      top = g_strdup_printf ("%s %s", m->id, member_section (m, r));
-      if (r != NULL && !isnan (r->ratio))
-        bottom = g_strdup_printf ("%.3f%s%s", r->ratio,
-                                  r->status != TRB_STATUS_PASS ? " " : "",
-                                  r->status != TRB_STATUS_PASS ? status_word (r) : "");
-      else
-        bottom = g_strdup (status_word (r));
-
-      tw = trb_render_text_width (cr, dc->style, top, fs, FALSE);
-      if (tw > len * 0.95)
-        {
-          /* a smaller size still fits on a short member; below that, leave it out */
-          fs = fs * len * 0.95 / tw;
-          if (fs < dc->fs * 0.7)
-            continue;
-        }
-
-      ang = atan2 (by - ay, bx - ax);
-      if (ang > G_PI / 2 + 1e-9 || ang <= -G_PI / 2 + 1e-9)
-        ang += G_PI;
-      off = dc->lw * role_width (m->role) * (st == TRB_RENDER_STATUS_FAIL ? 1.5 : 0.5) + 1.2;
-      cairo_save (cr);
-      cairo_translate (cr, (ax + bx) / 2, (ay + by) / 2);
-      cairo_rotate (cr, ang);
-      trb_render_set_color (cr, &dc->ink);
-      trb_render_text (cr, dc->style, top, fs, TRUE, 0, -off, 0.5, 1.0, NULL);
-      trb_render_status_color (dc->style, st, &c);
-      if (dc->style->print)
-        {
-          /* amber text on white is faint: print the ratio in ink, the line carries colour */
-          if (st == TRB_RENDER_STATUS_NEAR)
-            c = dc->ink;
-        }
-      trb_render_set_color (cr, &c);
-      {
-        double bw = trb_render_text (cr, dc->style, bottom, fs, st == TRB_RENDER_STATUS_FAIL,
-                                     0, off, 0.5, 0.0, NULL);
-
-        if (st == TRB_RENDER_STATUS_FAIL)
-          draw_flag (dc, -bw / 2 - fs * 1.0, off + fs * 0.6, &c);
-      }
-      cairo_restore (cr);
-    }
+  draw_member_labels (dc, vis);
 }
 
 static void
