@@ -144,6 +144,38 @@ class Report(unittest.TestCase):
                 for value in re.findall(r'-?\d+\.\d+ kip', m.group(2)):
                     self.assertIn(value, sheet, (mark, m.group(1)))
 
+    def test_demo_floor(self):
+        # the demo the run script prints: every mark, section, status and ratio of the CLI's
+        # summary in the schedule, and the CLI's column loads in the column table
+        demo = os.path.join(HERE, '..', 'data', 'examples', 'demo-floor.trabeate')
+        pdf = self.out('demo-floor.pdf')
+        code, stdout, stderr = run('report', demo, '-o', pdf)
+        self.assertEqual(code, 0, stderr)
+        code, table, _ = run('check', demo)
+        rows = summary_rows(table)
+        n = pdf_pages(pdf)
+        titles = [re.search(r'SHEET (.+?) (?:ENGINEER|DATE|REVISION|PAGE)',
+                            squeeze(pdf_text(pdf, i))).group(1) for i in range(1, n + 1)]
+        n_schedule = titles.count('Schedule')
+        self.assertGreaterEqual(n_schedule, 1)
+        # a summary, one plan (one floor), two pages a member, the schedule
+        self.assertEqual(n, 1 + 1 + 2 * len(rows) + n_schedule)
+        schedule = squeeze(''.join(pdf_text(pdf, i) for i in range(1, n + 1)
+                                   if titles[i - 1] == 'Schedule'))
+        for mark, section, status, ratio, governing in rows:
+            self.assertEqual(titles.count('Member ' + mark), 2, mark)
+            self.assertRegex(schedule, r'\b%s\b.*?\b%s\b.*?%s %s %s' %
+                             (re.escape(mark), re.escape(section), re.escape(status),
+                              re.escape(ratio), re.escape(governing)))
+        columns = re.findall(r'^  (\S+)\s+\(.*?\)\s+(-?\d+\.\d+ kip)\s+(-?\d+\.\d+ kip)',
+                             table, re.M)
+        self.assertGreater(len(columns), 0)
+        layout = ''.join(pdf_text(pdf, i, layout=True) for i in range(1, n + 1)
+                         if titles[i - 1] == 'Schedule')
+        for mark, d, l in columns:
+            self.assertRegex(layout, r'(?m)^\s*%s\s.*%s\s+%s' % (re.escape(mark), re.escape(d),
+                                                                  re.escape(l)))
+
     def test_caution_on_every_page(self):
         pdf = self.out('demo.pdf')
         self.assertEqual(run('report', DEMO, '-o', pdf)[0], 0)
