@@ -609,9 +609,30 @@ draw_loading (Frame  *f,
           squeeze = band * 0.75 / top_stack;
 
       guint n_points = 0;
+      double p_min = INFINITY, p_max = -INFINITY;
 
       for (guint i = 0; i < loads[c]->len; i++)
-        n_points += g_array_index (loads[c], TrbLoad, i).kind == TRB_LOAD_POINT;
+        if (g_array_index (loads[c], TrbLoad, i).kind == TRB_LOAD_POINT)
+          {
+            double p = g_array_index (loads[c], TrbLoad, i).w1;
+
+            n_points++;
+            p_min = MIN (p_min, p);
+            p_max = MAX (p_max, p);
+          }
+      if (n_points > 8)
+        {
+          /* too many to label one by one (joists on a girder): their number and range */
+          g_autofree char *a = trb_units_format (p_min, TRB_DIM_FORCE, u);
+          g_autofree char *b = trb_units_format (p_max, TRB_DIM_FORCE, u);
+          g_autofree char *t = g_strcmp0 (a, b) == 0
+                               ? g_strdup_printf ("%u point loads of %s", n_points, a)
+                               : g_strdup_printf ("%u point loads, %s to %s", n_points, a, b);
+
+          trb_render_set_color (cr, &col);
+          trb_render_text (cr, f->style, t, fs * 0.85, TRUE, dev_x (f, f->L), b0, 1.0, 1.0,
+                           NULL);
+        }
 
       for (guint i = 0; i < loads[c]->len; i++)
         {

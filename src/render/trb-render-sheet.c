@@ -842,7 +842,7 @@ member_checks (TrbFlow               *flow,
 {
   static const char *titles[] = { "Check", "Clause", "Demand", "Capacity", "Ratio", "At",
                                   "Governing combination" };
-  static const double widths[] = { 0.14, 0.19, 0.11, 0.12, 0.07, 0.09, 0.28 };
+  static const double widths[] = { 0.14, 0.23, 0.11, 0.12, 0.07, 0.08, 0.25 };
   TrbUnitSystem u = r->units;
 
   trb_flow_heading (flow, "Checks");
@@ -1174,7 +1174,11 @@ trb_sheet_member_flow (TrbFlow               *flow,
   trb_flow_table_end (flow);
   if (r->reduction.applies)
     {
-      g_autofree char *area = fmt (r->reduction.area, TRB_DIM_AREA, u);
+      /* tributary areas read in square feet or metres, not the section tables' in^2 */
+      g_autofree char *area = u == TRB_UNIT_SYSTEM_US
+                              ? g_strdup_printf ("%.0f ft^2", r->reduction.area /
+                                                              (TRB_FT * TRB_FT))
+                              : g_strdup_printf ("%.1f m^2", r->reduction.area);
       g_autofree char *t =
         g_strdup_printf ("Live load reduction (ASCE 7-16 §4.7): A_T = %s, K_LL = %g, "
                          "L/Lo = %.3f on the reducible live load (%s).", area,
