@@ -125,6 +125,7 @@ trb_member_result_free (TrbMemberResult *result)
   g_clear_pointer (&result->supports, g_array_unref);
   g_clear_pointer (&result->loads, g_array_unref);
   g_clear_pointer (&result->bearings, g_array_unref);
+  g_free (result->plan_note);
   g_free (result);
 }
 
@@ -162,6 +163,7 @@ member_result_share (TrbMemberResult *r,
   c->supports = r->supports != NULL ? g_array_ref (r->supports) : NULL;
   c->loads = r->loads != NULL ? g_array_ref (r->loads) : NULL;
   c->bearings = NULL;
+  c->plan_note = NULL;
   return c;
 }
 
@@ -361,14 +363,70 @@ is_patterned_case (TrbLoadCase c)
   return c == TRB_CASE_L || c == TRB_CASE_LR;
 }
 
+/* What a solve looks up again and again and that depends on nothing but its key: the
+ * combinations of a set for the cases present, and the wood design values of a species and
+ * grade in each size. Lookups only: a memo never changes a result. */
+#define COMBO_SETS 5
+
+typedef struct
+{
+  GArray     *combos[COMBO_SETS][1 << TRB_N_CASES];   /* TrbCombo */
+  GHashTable *grades;   /* "species\x1fgrade" -> GHashTable (section -> grade, or GRADE_NONE) */
+} Memo;
+
+/* a size without design values, remembered as such */
+static const char grade_none;
+#define GRADE_NONE ((gpointer) &grade_none)
+
+static Memo *
+memo_new (void)
+{
+  Memo *memo = g_new0 (Memo, 1);
+
+  memo->grades = g_hash_table_new_full (g_str_hash, g_str_equal, g_free,
+                                        (GDestroyNotify) g_hash_table_unref);
+  return memo;
+}
+
+static void
+memo_free (Memo *memo)
+{
+  if (memo == NULL)
+    return;
+  for (guint s = 0; s < COMBO_SETS; s++)
+    for (guint k = 0; k < (1 << TRB_N_CASES); k++)
+      g_clear_pointer (&memo->combos[s][k], g_array_unref);
+  g_hash_table_unref (memo->grades);
+  g_free (memo);
+}
+
+G_DEFINE_AUTOPTR_CLEANUP_FUNC (Memo, memo_free)
+
+static GArray *
+combos_for (Memo           *memo,
+            TrbComboSet     set,
+            const gboolean *has_case)
+{
+  guint key = 0;
+
+  if (memo == NULL || (guint) set >= COMBO_SETS)
+    return trb_combos_build (set, has_case);
+  for (guint c = 0; c < TRB_N_CASES; c++)
+    key |= has_case[c] ? 1u << c : 0;
+  if (memo->combos[set][key] == NULL)
+    memo->combos[set][key] = trb_combos_build (set, has_case);
+  return g_array_ref (memo->combos[set][key]);
+}
+
 /* Evaluates every combination of set, under every pattern where it carries a patterned case,
  * and takes the envelope. */
 static void
 evaluate_set (TrbMemberResult     *r,
               const RegionResults *rr,
+              Memo                *memo,
               TrbComboSetResult   *out)
 {
-  g_autoptr(GArray) combos = trb_combos_build (out->set, r->has_case);
+  g_autoptr(GArray) combos = combos_for (memo, out->set, r->has_case);
   gboolean patterns_on = r->patterns->len > 0;
   double length = trb_beam_get_length (r->beam);
 
@@ -481,6 +539,7 @@ typedef struct
   const TrbLoad    *loads[TRB_N_CASES];
   guint             n_loads[TRB_N_CASES];
   double            repetitive_spacing;  /* m; NAN: from the member's "repetitive" flag */
+  Memo             *memo;                /* lookups to reuse; may be NULL */
 } MemberInput;
 
 /* The analysis with a given stiffness and self-weight (N/m, added to D); with E or I NAN only
@@ -613,9 +672,9 @@ analyse (const TrbProject  *project,
         }
     }
 
-  evaluate_set (r, &rr, &r->strength);
-  evaluate_set (r, &rr, &r->live);
-  evaluate_set (r, &rr, &r->total);
+  evaluate_set (r, &rr, in->memo, &r->strength);
+  evaluate_set (r, &rr, in->memo, &r->live);
+  evaluate_set (r, &rr, in->memo, &r->total);
   region_results_clear (&rr, r->regions->len);
 
   /* Each length, load and stiffness may be finite and still overflow with the others (a span
@@ -855,18 +914,44 @@ custom_section (const TrbMember *m,
 
 /* The wood grade for a section, or NULL with the reason in *why. */
 static const TrbWoodGrade *
-wood_grade_for (const TrbMember  *m,
-                const TrbSection *section,
-                char            **why)
+wood_grade_for (const TrbMember   *m,
+                const MemberInput *in,
+                const TrbSection  *section,
+                char             **why)
 {
   const TrbWoodGrade *grade;
+  GHashTable *sizes = NULL;
 
   if (m->species == NULL || m->grade == NULL)
     {
       *why = g_strdup ("a wood member needs species and grade");
       return NULL;
     }
+  if (in->memo != NULL)
+    {
+      g_autofree char *key = g_strconcat (m->species, "\x1f", m->grade, NULL);
+      gpointer found;
+
+      sizes = g_hash_table_lookup (in->memo->grades, key);
+      if (sizes == NULL)
+        {
+          sizes = g_hash_table_new (NULL, NULL);
+          g_hash_table_insert (in->memo->grades, g_steal_pointer (&key), sizes);
+        }
+      found = g_hash_table_lookup (sizes, section);
+      if (found != NULL)
+        {
+          grade = found == GRADE_NONE ? NULL : found;
+          if (grade == NULL)
+            *why = g_strdup_printf ("no design values for %s %s in size %s", m->species,
+                                    m->grade, section->designation);
+          return grade;
+        }
+    }
   grade = trb_catalog_lookup_grade (trb_catalog_get_default (), m->species, m->grade, section);
+  if (sizes != NULL)
+    g_hash_table_insert (sizes, (gpointer) section,
+                         grade != NULL ? (gpointer) grade : GRADE_NONE);
   if (grade == NULL)
     *why = g_strdup_printf ("no design values for %s %s in size %s", m->species, m->grade,
                             section->designation);
@@ -901,7 +986,7 @@ solve_with_section (const TrbProject  *project,
           set_status (r, TRB_STATUS_ERROR, "%s is not a timber section", section->designation);
           return r;
         }
-      wood_grade = wood_grade_for (m, section, &why);
+      wood_grade = wood_grade_for (m, in, section, &why);
       if (wood_grade == NULL)
         {
           set_status (r, TRB_STATUS_ERROR, "%s", why);
@@ -1119,8 +1204,9 @@ bounds_init (Bounds                *b,
   return TRUE;
 }
 
-/* The flexural capacity no check of the method can exceed for one combination, N*m; NAN when
- * no flexure check is sure to be made (so no bound). */
+/* The flexural capacity no check of the method can exceed, N*m, for a combination with load
+ * duration factor 1 (*per_cd TRUE: timber, times the combination's C_D) or for any (steel,
+ * allowable stress); NAN when no flexure check is sure to be made (so no bound). */
 static double
 capacity_bound (const TrbProject   *project,
                 const TrbMember    *m,
@@ -1128,8 +1214,9 @@ capacity_bound (const TrbProject   *project,
                 const TrbSection   *section,
                 const TrbWoodGrade *wood_grade,
                 TrbMethod           method,
-                const double       *factors)
+                gboolean           *per_cd)
 {
+  *per_cd = FALSE;
   const TrbSettings *s = &project->settings;
 
   if (method == TRB_METHOD_ALLOWABLE)
@@ -1153,7 +1240,8 @@ capacity_bound (const TrbProject   *project,
       Fb = wood_grade->Fb;
       if (isfinite (wood_grade->Fb_neg))
         Fb = MAX (Fb, wood_grade->Fb_neg);
-      return S * Fb * trb_design_wood_cd (factors) *
+      *per_cd = TRUE;
+      return S * Fb *
              trb_design_wood_cm (section, wood_grade, TRB_WOOD_FB, options.wet_service) *
              trb_design_wood_cf (section, wood_grade, TRB_WOOD_FB) *
              trb_design_wood_ci (section, TRB_WOOD_FB, options.incised) *
@@ -1187,7 +1275,8 @@ bounds_reject (const Bounds      *b,
   const TrbSettings *s = &project->settings;
   const TrbWoodGrade *wood_grade = NULL;
   double self_weight = s->self_weight ? section->weight : 0;
-  double E;
+  double E, cap_base;
+  gboolean per_cd;
 
   if (!b->ready || (self_weight > 0) != (b->self_weight > 0))
     return FALSE;
@@ -1199,7 +1288,7 @@ bounds_reject (const Bounds      *b,
 
       if (section->kind != TRB_SHAPE_SAWN && section->kind != TRB_SHAPE_GLULAM)
         return FALSE;
-      wood_grade = wood_grade_for (m, section, &why);
+      wood_grade = wood_grade_for (m, in, section, &why);
       if (wood_grade == NULL)
         return FALSE;
       wood_options_for (m, in, &options);
@@ -1219,10 +1308,13 @@ bounds_reject (const Bounds      *b,
       b->live_ratio * (b->EI / (E * section->Ix)) > 1 + BOUND_MARGIN)
     return TRUE;
 
+  cap_base = capacity_bound (project, m, in, section, wood_grade, method, &per_cd);
+  if (!isfinite (cap_base) || !(cap_base > 0))
+    return FALSE;
   for (guint i = 0; i < b->m_abs->len; i++)
     {
       const double *factors = &g_array_index (b->factors, double, i * TRB_N_CASES);
-      double cap = capacity_bound (project, m, in, section, wood_grade, method, factors);
+      double cap = per_cd ? cap_base * trb_design_wood_cd (factors) : cap_base;
       double low = g_array_index (b->m_abs, double, i) -
                    fabs (g_array_index (b->f_dead, double, i)) *
                    fabs (self_weight - b->self_weight) * b->m_unit;
@@ -1440,10 +1532,12 @@ solve_standalone (const TrbProject *project,
   GArray *loads[TRB_N_CASES];
   MemberInput in;
   TrbMemberResult *r;
+  g_autoptr(Memo) memo = memo_new ();
 
   for (guint c = 0; c < TRB_N_CASES; c++)
     loads[c] = g_array_new (FALSE, FALSE, sizeof (TrbLoad));
   standalone_input (member, &in, supports, loads);
+  in.memo = memo;
   r = solve_input (project, member, &in, shortlist_max, use_bounds);
   for (guint c = 0; c < TRB_N_CASES; c++)
     g_array_unref (loads[c]);
@@ -1639,6 +1733,7 @@ typedef struct
   const TrbProject      *project;
   const TrbSolveOptions *options;
   GHashTable            *cache;    /* GBytes -> CacheEntry; NULL without the cache */
+  Memo                  *memo;
 } Solver;
 
 /* ---- floors ------------------------------------------------------------------------------ */
@@ -1691,9 +1786,11 @@ area_load_reducible (const TrbAreaLoad *al)
   return TRUE;
 }
 
-/* The plan of one floor for the frame: stream 0 takes every load but the live load that is
- * never reduced, stream 1 that live load alone (only when reduction is on). The maps give,
- * for each of the plan's line and point loads, the floor's index. */
+/* The plan of one floor for the frame. With live load reduction, the floor's loads make two
+ * streams: stream 0 every load but the live load that is never reduced, stream 1 that live
+ * load alone. A plan takes the streams in its mask; stream 1's loads go in case slot b_slot
+ * (a slot the floor does not use, so that one frame carries both, or L in a frame of their
+ * own). The maps give, for each of the plan's line and point loads, the floor's index. */
 typedef struct
 {
   TrbFramePlan       plan;
@@ -1723,11 +1820,20 @@ floor_plan_clear (FloorPlan *fp)
   g_clear_pointer (&fp->point_map, g_array_unref);
 }
 
+static guint
+load_stream (gboolean    reduction,
+             TrbLoadCase lcase,
+             gboolean    reducible)
+{
+  return reduction && lcase == TRB_CASE_L && !reducible ? 1 : 0;
+}
+
 static void
 floor_plan_init (FloorPlan      *fp,
                  const TrbFloor *floor,
                  gboolean        reduction,
-                 guint           stream)
+                 guint           mask,
+                 TrbLoadCase     b_slot)
 {
   memset (fp, 0, sizeof *fp);
   fp->columns = g_array_new (FALSE, TRUE, sizeof (TrbFrameColumn));
@@ -1766,11 +1872,11 @@ floor_plan_init (FloorPlan      *fp,
   for (guint i = 0; i < floor->area_loads->len; i++)
     {
       const TrbAreaLoad *al = g_ptr_array_index (floor->area_loads, i);
-      guint s = reduction && al->lcase == TRB_CASE_L && !area_load_reducible (al) ? 1 : 0;
-      TrbFrameAreaLoad fa = { al->lcase, al->pressure, (const TrbFramePoint *) al->points->data,
-                              al->points->len };
+      guint s = load_stream (reduction, al->lcase, area_load_reducible (al));
+      TrbFrameAreaLoad fa = { s == 1 ? b_slot : al->lcase, al->pressure,
+                              (const TrbFramePoint *) al->points->data, al->points->len };
 
-      if (s != stream)
+      if (!(mask & (1u << s)))
         continue;
       g_array_append_val (fp->area_loads, fa);
       fp->n_loads++;
@@ -1787,11 +1893,11 @@ floor_plan_init (FloorPlan      *fp,
   for (guint i = 0; i < floor->line_loads->len; i++)
     {
       const TrbLineLoad *ll = g_ptr_array_index (floor->line_loads, i);
-      guint s = reduction && ll->lcase == TRB_CASE_L ? 1 : 0;
-      TrbFrameLineLoad fl = { ll->lcase, ll->w, (const TrbFramePoint *) ll->points->data,
-                              ll->points->len };
+      guint s = load_stream (reduction, ll->lcase, FALSE);
+      TrbFrameLineLoad fl = { s == 1 ? b_slot : ll->lcase, ll->w,
+                              (const TrbFramePoint *) ll->points->data, ll->points->len };
 
-      if (s != stream)
+      if (!(mask & (1u << s)))
         continue;
       g_array_append_val (fp->line_loads, fl);
       g_array_append_val (fp->line_map, i);
@@ -1800,10 +1906,10 @@ floor_plan_init (FloorPlan      *fp,
   for (guint i = 0; i < floor->point_loads->len; i++)
     {
       const TrbPointLoad *pl = g_ptr_array_index (floor->point_loads, i);
-      guint s = reduction && pl->lcase == TRB_CASE_L ? 1 : 0;
-      TrbFramePointLoad fq = { pl->lcase, pl->P, pl->at.x, pl->at.y };
+      guint s = load_stream (reduction, pl->lcase, FALSE);
+      TrbFramePointLoad fq = { s == 1 ? b_slot : pl->lcase, pl->P, pl->at.x, pl->at.y };
 
-      if (s != stream)
+      if (!(mask & (1u << s)))
         continue;
       g_array_append_val (fp->point_loads, fq);
       g_array_append_val (fp->point_map, i);
@@ -1978,8 +2084,10 @@ typedef struct
   const TrbFloor        *floor;
   gboolean               reduction;
   double                 Lo;                 /* the largest reducible live pressure, Pa */
-  TrbFrame              *frame[2];
+  TrbFrame              *frame[2];            /* frame[1]: stream 1 alone, when needed */
   TrbFrameTakedown      *takedown[2];
+  int                    b_frame;             /* which frame carries stream 1; -1: none */
+  TrbLoadCase            b_slot;              /* and in which case slot */
   gboolean              *ok;                 /* per member: can be analysed */
   char                 **reason;             /* per member: why not */
   double                *area_in;            /* per member: A_T handed down from above, m^2 */
@@ -1987,6 +2095,29 @@ typedef struct
   double                *column_area;        /* per column: A_T, m^2 */
   gboolean              *column_cantilever;
 } FloorSolve;
+
+/* What frame f (and its takedown) carries in case slot c: which case of which stream. */
+static gboolean
+slot_of (const FloorSolve *fs,
+         guint             f,
+         guint             c,
+         TrbLoadCase      *lcase,
+         guint            *stream)
+{
+  if (fs->frame[f] == NULL)
+    return FALSE;
+  if (f == 1 || (fs->b_frame == 0 && c == fs->b_slot))
+    {
+      if (f == 1 && c != TRB_CASE_L)
+        return FALSE;
+      *lcase = TRB_CASE_L;
+      *stream = 1;
+      return TRUE;
+    }
+  *lcase = c;
+  *stream = 0;
+  return TRUE;
+}
 
 static const char *
 frame_status_word (const FloorSolve *fs,
@@ -2067,21 +2198,21 @@ floor_strand (FloorSolve     *fs,
 
       fr->not_carried[ml->lcase] += loads_total (&ml->load, 1);
     }
-  for (guint s = 0; s < 2; s++)
-    {
-      if (fs->frame[s] == NULL)
-        continue;
-      for (guint c = 0; c < TRB_N_CASES; c++)
-        {
-          const TrbFrameMemberResult *f = trb_frame_get_member (fs->frame[s], idx);
-          const TrbLoad *handed;
-          guint n;
+  for (guint f = 0; f < 2; f++)
+    for (guint c = 0; c < TRB_N_CASES; c++)
+      {
+        const TrbFrameMemberResult *fm2;
+        const TrbLoad *handed;
+        TrbLoadCase lc;
+        guint s, n;
 
-          fr->not_carried[c] += loads_total (f->loads[c], f->n_loads[c]);
-          handed = trb_frame_takedown_get_member_loads (fs->takedown[s], idx, c, &n);
-          fr->not_carried[c] += loads_total (handed, n);
-        }
-    }
+        if (!slot_of (fs, f, c, &lc, &s))
+          continue;
+        fm2 = trb_frame_get_member (fs->frame[f], idx);
+        fr->not_carried[lc] += loads_total (fm2->loads[c], fm2->n_loads[c]);
+        handed = trb_frame_takedown_get_member_loads (fs->takedown[f], idx, c, &n);
+        fr->not_carried[lc] += loads_total (handed, n);
+      }
   for (guint s = 0; s < fm->n_supports; s++)
     if (fm->bearings[s].kind == TRB_BEARING_MEMBER && fs->incomplete[fm->bearings[s].index] == NULL)
       fs->incomplete[fm->bearings[s].index] = m->id;
@@ -2102,16 +2233,18 @@ floor_count_applied (FloorSolve     *fs,
 
       fr->applied[ml->lcase] += loads_total (&ml->load, 1);
     }
-  for (guint s = 0; s < 2; s++)
-    {
-      const TrbFrameMemberResult *f;
+  for (guint f = 0; f < 2; f++)
+    for (guint c = 0; c < TRB_N_CASES; c++)
+      {
+        const TrbFrameMemberResult *fm2;
+        TrbLoadCase lc;
+        guint s;
 
-      if (fs->frame[s] == NULL)
-        continue;
-      f = trb_frame_get_member (fs->frame[s], idx);
-      for (guint c = 0; c < TRB_N_CASES; c++)
-        fr->applied[c] += loads_total (f->loads[c], f->n_loads[c]);
-    }
+        if (!slot_of (fs, f, c, &lc, &s))
+          continue;
+        fm2 = trb_frame_get_member (fs->frame[f], idx);
+        fr->applied[lc] += loads_total (fm2->loads[c], fm2->n_loads[c]);
+      }
 }
 
 static GArray *
@@ -2157,6 +2290,8 @@ not_analysed_result (const TrbProject *project,
 
   g_strlcpy (r->section, m->section, sizeof r->section);
   set_status (r, status, "%s", reason);
+  if (m->floor != NULL)
+    r->reduction.factor = 1;
   return r;
 }
 
@@ -2170,6 +2305,9 @@ append_loads (GArray        *to,
     {
       TrbLoad l = loads[i];
 
+      /* a case a member hands down without load (no snow on it) is no load here */
+      if (l.w1 == 0 && (l.kind != TRB_LOAD_LINEAR || l.w2 == 0))
+        continue;
       if (factor != 1)
         {
           l.w1 *= factor;
@@ -2219,8 +2357,6 @@ solve_floor_member (Solver         *sv,
   const TrbProject *project = sv->project;
   const TrbMember *m = g_ptr_array_index (fs->floor->members, idx);
   const TrbFrameMemberResult *fm = trb_frame_get_member (fs->frame[0], idx);
-  const TrbFrameMemberResult *fmb = fs->frame[1] != NULL ? trb_frame_get_member (fs->frame[1],
-                                                                                 idx) : NULL;
   g_autoptr(GArray) supports = g_array_new (FALSE, FALSE, sizeof (TrbSupport));
   g_autoptr(GArray) which = g_array_new (FALSE, FALSE, sizeof (int));
   g_autoptr(GArray) live_a = g_array_new (FALSE, FALSE, sizeof (TrbLoad));
@@ -2232,10 +2368,11 @@ solve_floor_member (Solver         *sv,
   TrbReductionUse use = { 0 };
   TrbMemberResult *r;
   CacheEntry *entry = NULL;
-  /* not g_autofree on an array of two: that frees the first element only */
-  g_autofree double *own_live = NULL;
   double *reactions[2];
-  g_autofree double *frame_reactions = NULL;
+  /* not g_autofree on an array of two: that frees the first element only */
+  g_autofree double *handed_0 = NULL;
+  g_autofree double *handed_1 = NULL;
+  double *handed[2];
   guint n_beam;
   gboolean cantilever;
   double reducible = 0, other = 0;
@@ -2254,27 +2391,25 @@ solve_floor_member (Solver         *sv,
       g_array_append_val (ml->lcase == TRB_CASE_L && fs->reduction ? live_b : loads[ml->lcase],
                           ml->load);
     }
-  for (guint c = 0; c < TRB_N_CASES; c++)
-    {
-      const TrbLoad *handed;
-      guint n;
-      GArray *to = c == TRB_CASE_L && fs->reduction ? live_a : loads[c];
+  for (guint f = 0; f < 2; f++)
+    for (guint c = 0; c < TRB_N_CASES; c++)
+      {
+        const TrbFrameMemberResult *fm2;
+        const TrbLoad *down;
+        TrbLoadCase lc;
+        guint st, n;
+        GArray *to;
 
-      append_loads (to, fm->loads[c], fm->n_loads[c], 1);
-      handed = trb_frame_takedown_get_member_loads (fs->takedown[0], idx, c, &n);
-      append_loads (to, handed, n, 1);
-    }
+        if (!slot_of (fs, f, c, &lc, &st))
+          continue;
+        fm2 = trb_frame_get_member (fs->frame[f], idx);
+        to = st == 1 ? live_b : lc == TRB_CASE_L && fs->reduction ? live_a : loads[lc];
+        append_loads (to, fm2->loads[c], fm2->n_loads[c], 1);
+        down = trb_frame_takedown_get_member_loads (fs->takedown[f], idx, c, &n);
+        append_loads (to, down, n, 1);
+      }
   if (fs->reduction)
     {
-      const TrbLoad *handed;
-      guint n;
-
-      if (fmb != NULL)
-        {
-          append_loads (live_b, fmb->loads[TRB_CASE_L], fmb->n_loads[TRB_CASE_L], 1);
-          handed = trb_frame_takedown_get_member_loads (fs->takedown[1], idx, TRB_CASE_L, &n);
-          append_loads (live_b, handed, n, 1);
-        }
       reducible = loads_total ((const TrbLoad *) live_a->data, live_a->len);
       other = loads_total ((const TrbLoad *) live_b->data, live_b->len);
     }
@@ -2303,6 +2438,7 @@ solve_floor_member (Solver         *sv,
       in.n_loads[c] = loads[c]->len;
     }
   in.repetitive_spacing = strip_spacing (fm);
+  in.memo = sv->memo;
 
   /* the streams decide what is handed down, so they are part of what makes members equal */
   key_int (extra, fs->reduction);
@@ -2329,6 +2465,7 @@ solve_floor_member (Solver         *sv,
     r = g_steal_pointer (&entry->result);
 
   r->bearings = bearings_new (m, fm, supports, which);
+  r->plan_note = g_strdup (fm->note);
   r->reduction = use;
   g_hash_table_insert (results, (gpointer) m, r);
   /* the loads of each case were read by the solve above, and by nothing after */
@@ -2352,8 +2489,10 @@ solve_floor_member (Solver         *sv,
 
     reactions[0] = entry->reactions[0];
     reactions[1] = entry->reactions[1];
-    frame_reactions = g_new0 (double, (fm->n_supports + 1) * TRB_N_CASES);
-    own_live = g_new0 (double, (fmb != NULL ? fmb->n_supports : 0) * TRB_N_CASES + 1);
+    /* what each frame's takedown gets, slot by slot (the frames share their geometry, so
+     * their supports are the same) */
+    handed[0] = handed_0 = g_new0 (double, (fm->n_supports + 1) * TRB_N_CASES);
+    handed[1] = handed_1 = g_new0 (double, (fm->n_supports + 1) * TRB_N_CASES);
 
     for (guint i = 0; i < n_beam; i++)
       total_a += MAX (reactions[0][i * TRB_N_CASES + TRB_CASE_L], 0);
@@ -2376,11 +2515,15 @@ solve_floor_member (Solver         *sv,
               fr->supports[c] += b->force[c];
             continue;
           }
-        for (guint c = 0; c < TRB_N_CASES; c++)
-          frame_reactions[w * TRB_N_CASES + c] = reactions[0][i * TRB_N_CASES + c];
-        if (fmb != NULL)
-          own_live[w * TRB_N_CASES + TRB_CASE_L] =
-            reactions[1][i * TRB_N_CASES + TRB_CASE_L];
+        for (guint f = 0; f < 2; f++)
+          for (guint c = 0; c < TRB_N_CASES; c++)
+            {
+              TrbLoadCase lc;
+              guint st;
+
+              if (slot_of (fs, f, c, &lc, &st))
+                handed[f][w * TRB_N_CASES + c] = reactions[st][i * TRB_N_CASES + lc];
+            }
 
         /* A_T goes down with the reducible live load it came with */
         if (use.area > 0 && total_a > 0)
@@ -2401,9 +2544,9 @@ solve_floor_member (Solver         *sv,
       }
   }
 
-  trb_frame_takedown_add (fs->takedown[0], idx, frame_reactions, fm->n_supports, NULL);
-  if (fmb != NULL)
-    trb_frame_takedown_add (fs->takedown[1], idx, own_live, fmb->n_supports, NULL);
+  for (guint f = 0; f < 2; f++)
+    if (fs->takedown[f] != NULL)
+      trb_frame_takedown_add (fs->takedown[f], idx, handed[f], fm->n_supports, NULL);
 
   if (fs->incomplete[idx] != NULL)
     set_status (r, TRB_STATUS_NOT_DESIGNED, "loads incomplete: %s, which rests on it, could "
@@ -2411,6 +2554,16 @@ solve_floor_member (Solver         *sv,
 
   if (sv->cache == NULL)
     cache_entry_free (entry);
+}
+
+static int
+compare_load_position (gconstpointer a,
+                       gconstpointer b)
+{
+  const TrbLoad *la = a;
+  const TrbLoad *lb = b;
+
+  return la->a < lb->a ? -1 : la->a > lb->a ? 1 : 0;
 }
 
 static void
@@ -2428,10 +2581,22 @@ floor_columns_walls (FloorSolve     *fs,
       col.column = g_ptr_array_index (floor->columns, i);
       col.floor = floor;
       col.cantilever = fs->column_cantilever[i];
-      for (guint s = 0; s < 2; s++)
-        if (fs->takedown[s] != NULL)
-          for (guint c = 0; c < TRB_N_CASES; c++)
-            col.force[c] += trb_frame_takedown_get_column_load (fs->takedown[s], i, c);
+      for (guint f = 0; f < 2; f++)
+        for (guint c = 0; c < TRB_N_CASES; c++)
+          {
+            TrbLoadCase lc;
+            guint st;
+            double load;
+
+            if (!slot_of (fs, f, c, &lc, &st))
+              continue;
+            load = trb_frame_takedown_get_column_load (fs->takedown[f], i, c);
+            col.force[lc] += load;
+            if (lc == TRB_CASE_L && st == 0)
+              col.reduction.reducible += load;
+            else if (lc == TRB_CASE_L)
+              other += load;
+          }
       col.reduction.factor = 1;
       col.reduction.floors = 1 + floors_above;
       col.reduction.area = fs->column_area[i];
@@ -2446,10 +2611,6 @@ floor_columns_walls (FloorSolve     *fs,
         {
           TrbLiveReduction red;
 
-          col.reduction.reducible = trb_frame_takedown_get_column_load (fs->takedown[0], i,
-                                                                        TRB_CASE_L);
-          other = fs->takedown[1] != NULL
-                  ? trb_frame_takedown_get_column_load (fs->takedown[1], i, TRB_CASE_L) : 0;
           col.reduction.other = other;
           if (col.reduction.reducible > 0 && fs->Lo > 0 && col.reduction.area > 0 &&
               trb_live_reduction_floor (fs->Lo, col.reduction.area,
@@ -2477,30 +2638,38 @@ floor_columns_walls (FloorSolve     *fs,
       wr.wall = g_ptr_array_index (floor->walls, i);
       wr.floor = floor;
       for (guint c = 0; c < TRB_N_CASES; c++)
+        wr.loads[c] = g_array_new (FALSE, FALSE, sizeof (TrbLoad));
+      for (guint f = 0; f < 2; f++)
+        for (guint c = 0; c < TRB_N_CASES; c++)
+          {
+            const TrbLoad *l;
+            TrbLoadCase lc;
+            guint st, n;
+
+            if (!slot_of (fs, f, c, &lc, &st))
+              continue;
+            l = trb_frame_takedown_get_wall_loads (fs->takedown[f], i, c, &n);
+            for (guint k = 0; k < n; k++)
+              if (l[k].w1 != 0)
+                g_array_append_val (wr.loads[lc], l[k]);
+          }
+      for (guint c = 0; c < TRB_N_CASES; c++)
         {
-          wr.loads[c] = g_array_new (FALSE, FALSE, sizeof (TrbLoad));
-          for (guint s = 0; s < 2; s++)
+          GArray *a = wr.loads[c];
+          guint out = 0;
+
+          /* sorted by position, those at one place added into one */
+          g_array_sort (a, compare_load_position);
+          for (guint k = 0; k < a->len; k++)
             {
-              const TrbLoad *l;
-              guint n;
+              TrbLoad *l = &g_array_index (a, TrbLoad, k);
 
-              if (fs->takedown[s] == NULL)
-                continue;
-              l = trb_frame_takedown_get_wall_loads (fs->takedown[s], i, c, &n);
-              for (guint k = 0; k < n; k++)
-                {
-                  guint at;
-
-                  /* merged by position, kept sorted */
-                  for (at = 0; at < wr.loads[c]->len; at++)
-                    if (g_array_index (wr.loads[c], TrbLoad, at).a >= l[k].a)
-                      break;
-                  if (at < wr.loads[c]->len && g_array_index (wr.loads[c], TrbLoad, at).a == l[k].a)
-                    g_array_index (wr.loads[c], TrbLoad, at).w1 += l[k].w1;
-                  else
-                    g_array_insert_val (wr.loads[c], at, l[k]);
-                }
+              if (out > 0 && g_array_index (a, TrbLoad, out - 1).a == l->a)
+                g_array_index (a, TrbLoad, out - 1).w1 += l->w1;
+              else
+                g_array_index (a, TrbLoad, out++) = *l;
             }
+          g_array_set_size (a, out);
           wr.force[c] = loads_total ((const TrbLoad *) wr.loads[c]->data, wr.loads[c]->len);
           fr->reactions[c] += wr.force[c];
         }
@@ -2508,6 +2677,22 @@ floor_columns_walls (FloorSolve     *fs,
     }
   for (guint c = 0; c < TRB_N_CASES; c++)
     fr->reactions[c] += fr->supports[c];
+}
+
+static int
+compare_unassigned (gconstpointer a,
+                    gconstpointer b)
+{
+  const TrbUnassignedLoad *ua = a;
+  const TrbUnassignedLoad *ub = b;
+  int la = ua->line != NULL ? 0 : 1;
+  int lb = ub->line != NULL ? 0 : 1;
+  int ka = ua->line != NULL ? ua->line->line : ua->point->line;
+  int kb = ub->line != NULL ? ub->line->line : ub->point->line;
+
+  if (la != lb)
+    return la - lb;
+  return (ka > kb) - (ka < kb);
 }
 
 static void
@@ -2569,12 +2754,42 @@ solve_floor (Solver         *sv,
         fs.Lo = MAX (fs.Lo, al->pressure);
     }
 
-  floor_plan_init (&fp[0], floor, fs.reduction, 0);
-  floor_plan_init (&fp[1], floor, fs.reduction, 1);
+  /* The live load that is never reduced travels apart from the rest; in a case slot of the
+   * same frame that no load of the floor uses, when there is one (a floor without roof live
+   * load or snow), else in a frame of its own: the frame's work is most of the floor's. */
+  fs.b_frame = -1;
+  fs.b_slot = TRB_CASE_L;
+  floor_plan_init (&fp[1], floor, fs.reduction, 2, TRB_CASE_L);
+  if (fp[1].n_loads > 0)
+    {
+      gboolean used[TRB_N_CASES] = { FALSE };
+
+      for (guint i = 0; i < floor->area_loads->len; i++)
+        used[((const TrbAreaLoad *) g_ptr_array_index (floor->area_loads, i))->lcase] = TRUE;
+      for (guint i = 0; i < floor->line_loads->len; i++)
+        used[((const TrbLineLoad *) g_ptr_array_index (floor->line_loads, i))->lcase] = TRUE;
+      for (guint i = 0; i < floor->point_loads->len; i++)
+        used[((const TrbPointLoad *) g_ptr_array_index (floor->point_loads, i))->lcase] = TRUE;
+      fs.b_frame = 1;
+      for (guint c = TRB_N_CASES; c-- > 0;)
+        if (c != TRB_CASE_D && c != TRB_CASE_L && !used[c])
+          {
+            fs.b_frame = 0;
+            fs.b_slot = c;
+          }
+    }
+  if (fs.b_frame == 0)
+    {
+      floor_plan_clear (&fp[1]);
+      floor_plan_init (&fp[0], floor, fs.reduction, 3, fs.b_slot);
+      memset (&fp[1], 0, sizeof fp[1]);
+    }
+  else
+    floor_plan_init (&fp[0], floor, fs.reduction, 1, TRB_CASE_L);
   fs.frame[0] = trb_frame_new (&fp[0].plan, &error);
-  if (fs.frame[0] != NULL && fp[1].n_loads > 0)
+  if (fs.frame[0] != NULL && fs.b_frame == 1)
     fs.frame[1] = trb_frame_new (&fp[1].plan, &error);
-  if (fs.frame[0] == NULL || (fp[1].n_loads > 0 && fs.frame[1] == NULL))
+  if (fs.frame[0] == NULL || (fs.b_frame == 1 && fs.frame[1] == NULL))
     {
       fr->error = g_strdup (error->message);
       for (guint i = 0; i < n; i++)
@@ -2620,6 +2835,7 @@ solve_floor (Solver         *sv,
 
           merge_supports (m, fm, supports, which);
           r->bearings = bearings_new (m, fm, supports, which);
+          r->plan_note = g_strdup (fm->note);
           g_hash_table_insert (results, (gpointer) m, r);
           floor_count_applied (&fs, fr, i);
           floor_strand (&fs, fr, i);
@@ -2642,6 +2858,7 @@ solve_floor (Solver         *sv,
 
           merge_supports (m, fm, supports, which);
           r->bearings = bearings_new (m, fm, supports, which);
+          r->plan_note = g_strdup (fm->note);
           g_hash_table_insert (results, (gpointer) m, r);
           floor_count_applied (&fs, fr, idx);
           floor_strand (&fs, fr, idx);
@@ -2654,6 +2871,8 @@ solve_floor (Solver         *sv,
   for (guint s = 0; s < 2; s++)
     if (fs.frame[s] != NULL)
       floor_unassigned (floor, fs.frame[s], &fp[s], fr->unassigned);
+  /* in plan order, whichever frame found them */
+  g_array_sort (fr->unassigned, compare_unassigned);
 
   for (guint i = 0; i < n; i++)
     g_free (fs.reason[i]);
@@ -2693,6 +2912,7 @@ solve_standalone_cached (Solver          *sv,
   for (guint c = 0; c < TRB_N_CASES; c++)
     loads[c] = g_array_new (FALSE, FALSE, sizeof (TrbLoad));
   standalone_input (member, &in, supports, loads);
+  in.memo = sv->memo;
   key = member_key (member, &in, sv->options->shortlist_max, NULL);
   entry = g_hash_table_lookup (sv->cache, key);
   if (entry == NULL)
@@ -2732,11 +2952,12 @@ solve_project (const TrbProject      *project,
 {
   TrbProjectResult *pr;
   g_autoptr(GHashTable) results = g_hash_table_new (NULL, NULL);
-  Solver sv = { project, options, NULL };
+  Solver sv = { project, options, NULL, NULL };
 
   if (options->cache)
     sv.cache = g_hash_table_new_full (g_bytes_hash, g_bytes_equal,
                                       (GDestroyNotify) g_bytes_unref, cache_entry_free);
+  sv.memo = memo_new ();
 
   pr = g_new0 (TrbProjectResult, 1);
   pr->project = project;
@@ -2771,6 +2992,7 @@ solve_project (const TrbProject      *project,
     }
 
   g_clear_pointer (&sv.cache, g_hash_table_unref);
+  memo_free (sv.memo);
   return pr;
 }
 
@@ -2852,6 +3074,11 @@ trb_solve_member_full (const TrbProject *project,
       g_return_val_if_fail (found != NULL, NULL);
       r = member_result_share ((TrbMemberResult *) found, member);
       r->bearings = found->bearings != NULL ? g_array_ref (found->bearings) : NULL;
+      r->plan_note = g_strdup (found->plan_note);
+      r->reduction = found->reduction;
+      r->status = found->status;
+      g_free (r->message);
+      r->message = g_strdup (found->message);
       return r;
     }
   return solve_standalone (project, member, shortlist_max, TRUE);

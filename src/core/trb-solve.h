@@ -160,6 +160,8 @@ typedef struct
   GArray           *bearings;    /* TrbMemberBearing, one per support, sorted by x; set even
                                   * when the member could not be analysed (forces then 0) */
   TrbReductionUse   reduction;
+  char             *plan_note;   /* what the frame remarks on its placing (a listed bearing
+                                  * point that rests on nothing); NULL */
 
   struct _TrbMemberKeep *keep;   /* private: owns beam and cases when they are shared */
 } TrbMemberResult;
