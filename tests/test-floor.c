@@ -11,6 +11,7 @@
 #include <math.h>
 #include <string.h>
 
+#include "bench/floor-gen.h"
 #include "trb-error.h"
 #include "trb-model.h"
 #include "trb-project-io.h"
@@ -1157,6 +1158,39 @@ test_member_alone (void)
   g_assert_cmpuint (r->bearings->len, ==, 2);
 }
 
+/* The generated floor of the benchmark, at about 1,000 members: every member analysed, the
+ * loads balance (statics), nothing is left on no member, and the solve is the same with and
+ * without its shortcuts. */
+static void
+test_generated (void)
+{
+  guint n = 0;
+  g_autofree char *xml = floor_gen_xml (1000, &n);
+  g_autoptr(GError) error = NULL;
+  g_autoptr(TrbProject) p = trb_project_load_data (xml, strlen (xml), "generated.trabeate",
+                                                   &error);
+  g_autoptr(TrbProjectResult) pr = NULL;
+  const TrbFloorResult *fr;
+
+  g_assert_no_error (error);
+  g_assert_cmpuint (p->members->len, ==, n);
+  g_assert_cmpuint (n, >=, 900);
+  g_assert_cmpuint (n, <=, 1100);
+  pr = trb_solve_project (p);
+  fr = g_ptr_array_index (pr->floors, 0);
+  for (guint i = 0; i < pr->members->len; i++)
+    {
+      const TrbMemberResult *r = g_ptr_array_index (pr->members, i);
+
+      if (!r->analysed)
+        g_test_message ("%s: %s", r->member->id, r->message);
+      g_assert_true (r->analysed);
+    }
+  g_assert_cmpuint (fr->unassigned->len, ==, 0);
+  assert_balance (fr, 1e-9);
+  assert_pure (p);
+}
+
 /* The example files load and solve the same every time, with and without the shortcuts. */
 static void
 test_examples (void)
@@ -1208,6 +1242,7 @@ main (int    argc,
   g_test_add_func ("/trb/floor/bounds", test_bounds);
   g_test_add_func ("/trb/floor/member-alone", test_member_alone);
   g_test_add_func ("/trb/floor/examples", test_examples);
+  g_test_add_func ("/trb/floor/generated", test_generated);
 
   return g_test_run ();
 }
