@@ -1498,12 +1498,12 @@ label_box (double         cx,
 }
 
 static void
-draw_member_labels (DrawContext  *dc,
-                    const guint8 *vis)
+draw_member_labels (DrawContext *dc)
 {
   cairo_t *cr = dc->cr;
   const TrbFloor *floor = dc->scene->floor;
   guint n = floor->members->len;
+  g_autofree guint8 *vis = g_new0 (guint8, MAX (n, 1));
   g_autofree guint8 *skip = g_new0 (guint8, MAX (n, 1));
   g_autoptr(GArray) labels = g_array_new (FALSE, TRUE, sizeof (Label));
   g_autoptr(GArray) placed = g_array_new (FALSE, FALSE, sizeof (TrbPlanBounds));
@@ -1513,7 +1513,10 @@ draw_member_labels (DrawContext  *dc,
   if (!(dc->options->layers & TRB_PLAN_LAYER_LABELS))
     return;
   for (guint i = 0; i < n; i++)
-    n_visible += vis[i];
+    {
+      vis[i] = member_visible (dc, g_ptr_array_index (floor->members, i));
+      n_visible += vis[i];
+    }
   /* beyond this many on the screen at once, labels are an unreadable grey: leave them out */
   if (!dc->style->print && n_visible > 3000)
     return;
@@ -1690,7 +1693,6 @@ draw_members (DrawContext *dc)
           }
       }
 
-  draw_member_labels (dc, vis);
 }
 
 static void
@@ -1983,10 +1985,8 @@ trb_plan_draw (cairo_t                  *cr,
     draw_grids (&dc);
   draw_walls (&dc);
   draw_members (&dc);
-  if (options->layers & TRB_PLAN_LAYER_LINE_LOADS)
-    draw_line_loads (&dc);
-  draw_columns (&dc);
 
+  /* the clouds under the labels, so that no scallop crosses out a mark */
   if (options->clouded != NULL)
     {
       GHashTableIter it;
@@ -2001,6 +2001,11 @@ trb_plan_draw (cairo_t                  *cr,
             draw_cloud (&dc, m);
         }
     }
+
+  draw_member_labels (&dc);
+  if (options->layers & TRB_PLAN_LAYER_LINE_LOADS)
+    draw_line_loads (&dc);
+  draw_columns (&dc);
 
   if (options->layers & TRB_PLAN_LAYER_SCALE_BAR)
     trb_plan_draw_scale_bar (cr, view, dc.style, scene->units, options->x + 2 * dc.fs,

@@ -377,7 +377,56 @@ build_summary (TrbReport *report,
         }
     }
 
-  trb_flow_table_begin (flow, 2, ix_titles, ix_widths, "lr", -1);
+  /* the takedown's books, floor by floor: what was applied reached the supports, or stayed
+   * on members that could not carry it */
+  for (guint f = 0; report->results->floors != NULL && f < report->results->floors->len; f++)
+    {
+      static const char *titles[] = { "Case", "Applied", "To columns, walls and supports",
+                                      "Not carried" };
+      static const double widths[] = { 0.16, 0.28, 0.28, 0.28 };
+      const TrbFloorResult *fr = g_ptr_array_index (report->results->floors, f);
+      g_autofree char *h = g_strdup_printf ("Floor %s: load takedown, unfactored",
+                                            fr->floor->name != NULL ? fr->floor->name : "");
+
+      trb_flow_heading (flow, h);
+      if (fr->error != NULL)
+        {
+          g_autofree char *t = g_strdup_printf ("The plan could not be framed: %s", fr->error);
+
+          trb_flow_paragraph (flow, t, 1);
+          continue;
+        }
+      trb_flow_table_begin (flow, 4, titles, widths, "lrrr", -1);
+      for (int c = 0; c < TRB_N_CASES; c++)
+        {
+          g_autofree char *a = trb_units_format (fr->applied[c], TRB_DIM_FORCE, s->units);
+          g_autofree char *r = trb_units_format (fr->reactions[c], TRB_DIM_FORCE, s->units);
+          g_autofree char *n = trb_units_format (fr->not_carried[c], TRB_DIM_FORCE, s->units);
+          const char *cells[] = { trb_load_case_name (c), a, r, n };
+
+          if (fr->applied[c] == 0 && fr->reactions[c] == 0)
+            continue;
+          trb_flow_table_row (flow, cells, TRB_FLOW_ROW_PLAIN, TRB_RENDER_STATUS_OK);
+        }
+      trb_flow_table_end (flow);
+      for (guint i = 0; fr->unassigned != NULL && i < fr->unassigned->len; i++)
+        {
+          const TrbUnassignedLoad *ul = &g_array_index (fr->unassigned, TrbUnassignedLoad, i);
+          g_autofree char *v = trb_units_format (ul->force, TRB_DIM_FORCE, s->units);
+          const char *label = ul->point != NULL ? ul->point->label
+                              : ul->line != NULL ? ul->line->label : NULL;
+          g_autofree char *t =
+            g_strdup_printf ("Not carried: a %s load%s%s%s of %s lies on no member.",
+                             ul->point != NULL ? "point" : "line",
+                             label != NULL ? " (" : "", label != NULL ? label : "",
+                             label != NULL ? ")" : "", v);
+
+          trb_flow_paragraph (flow, t, 1);
+        }
+    }
+
+  if (index->len > 0)
+    trb_flow_table_begin (flow, 2, ix_titles, ix_widths, "lr", -1);
   for (guint i = 0; i < index->len; i++)
     {
       const IndexEntry *e = &g_array_index (index, IndexEntry, i);
@@ -388,7 +437,8 @@ build_summary (TrbReport *report,
 
       summary_kv (flow, e->what, pages);
     }
-  trb_flow_table_end (flow);
+  if (index->len > 0)
+    trb_flow_table_end (flow);
 
   trb_flow_heading (flow, "Caution");
   trb_flow_paragraph (flow, TRB_CAUTION_LICENSED, 1.05);
