@@ -1069,6 +1069,7 @@ load_floor (Loader     *ld,
   g_autoptr(GHashTable) grids = g_hash_table_new_full (g_str_hash, g_str_equal, g_free, NULL);
   TrbFloor *floor;
   gpointer first;
+  guint outline_points = 0;   /* of the area loads and openings so far */
 
   G_STATIC_ASSERT (TRB_AREA_LOAD_ORDINARY == 0 && TRB_AREA_LOAD_PARTITION == 1);
 
@@ -1193,6 +1194,11 @@ load_floor (Loader     *ld,
           a->line = line;
           if (!load_points (ld, child, a->points, 3, "a polygon"))
             return FALSE;
+          outline_points += a->points->len;
+          if (outline_points > TRB_PROJECT_MAX_OUTLINE_POINTS)
+            return fail_at (ld, line, TRB_ERROR_INVALID,
+                            "the area loads and openings of floor \"%s\" have more than %d "
+                            "points together", name, TRB_PROJECT_MAX_OUTLINE_POINTS);
           g_ptr_array_add (floor->area_loads, g_steal_pointer (&a));
         }
       else if (is_element (child, "opening"))
@@ -1203,6 +1209,11 @@ load_floor (Loader     *ld,
           if (!check_attributes (ld, child, (const char * const[]) { NULL }) ||
               !load_points (ld, child, o->points, 3, "a polygon"))
             return FALSE;
+          outline_points += o->points->len;
+          if (outline_points > TRB_PROJECT_MAX_OUTLINE_POINTS)
+            return fail_at (ld, line, TRB_ERROR_INVALID,
+                            "the area loads and openings of floor \"%s\" have more than %d "
+                            "points together", name, TRB_PROJECT_MAX_OUTLINE_POINTS);
           g_ptr_array_add (floor->openings, g_steal_pointer (&o));
         }
       else if (is_element (child, "line-load"))

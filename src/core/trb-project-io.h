@@ -26,6 +26,12 @@ G_BEGIN_DECLS
 #define TRB_PROJECT_MAX_NODES      2000000
 #define TRB_PROJECT_MAX_MEMBERS    100000
 
+/* Points of the area loads and openings of one floor, together: the framing finds each
+ * strip's load by scanning every outline edge at every outline vertex, so its time grows with
+ * the members times the square of these points (20,000 points over 15 joists took 33 s).
+ * Real outlines have tens of points. */
+#define TRB_PROJECT_MAX_OUTLINE_POINTS 1000
+
 TrbProject *trb_project_load_file (const char  *filename,
                                    GError     **error);
 
