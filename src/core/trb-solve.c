@@ -2730,6 +2730,42 @@ floor_unassigned (const TrbFloor  *floor,
 
 /* The load takedown of one floor: frame, then every member from the top of the load path
  * down, then what reached the columns and walls. Results go into results (member -> result). */
+static gboolean
+floor_result_finite (const TrbFloorResult *fr)
+{
+  for (guint c = 0; c < TRB_N_CASES; c++)
+    if (!isfinite (fr->applied[c]) || !isfinite (fr->reactions[c]) ||
+        !isfinite (fr->supports[c]) || !isfinite (fr->not_carried[c]))
+      return FALSE;
+  for (guint i = 0; i < fr->columns->len; i++)
+    {
+      const TrbColumnResult *col = &g_array_index (fr->columns, TrbColumnResult, i);
+
+      if (!isfinite (col->live_reduced))
+        return FALSE;
+      for (guint c = 0; c < TRB_N_CASES; c++)
+        if (!isfinite (col->force[c]))
+          return FALSE;
+    }
+  for (guint i = 0; i < fr->walls->len; i++)
+    {
+      const TrbWallResult *w = &g_array_index (fr->walls, TrbWallResult, i);
+
+      for (guint c = 0; c < TRB_N_CASES; c++)
+        {
+          if (!isfinite (w->force[c]))
+            return FALSE;
+          for (guint k = 0; k < w->loads[c]->len; k++)
+            if (!isfinite (g_array_index (w->loads[c], TrbLoad, k).w1))
+              return FALSE;
+        }
+    }
+  for (guint i = 0; i < fr->unassigned->len; i++)
+    if (!isfinite (g_array_index (fr->unassigned, TrbUnassignedLoad, i).force))
+      return FALSE;
+  return TRUE;
+}
+
 static TrbFloorResult *
 solve_floor (Solver         *sv,
              const TrbFloor *floor,
@@ -2888,6 +2924,12 @@ solve_floor (Solver         *sv,
       g_clear_pointer (&fs.frame[s], trb_frame_free);
       floor_plan_clear (&fp[s]);
     }
+
+  /* Each coordinate and load may be finite and the floor's sums still overflow (1e300 psf
+   * over a plan 1e300 in across): the floor is then in error, never totals of inf or NaN. */
+  if (fr->error == NULL && !floor_result_finite (fr))
+    fr->error = g_strdup ("the floor's loads overflow: the plan or the loads are out of any "
+                          "real range");
   return fr;
 }
 
