@@ -164,6 +164,14 @@ check_member_result (const TrbMemberResult *r)
       check_combo_set (&r->strength, id);
       check_combo_set (&r->live, id);
       check_combo_set (&r->total, id);
+      for (guint i = 0; r->bearings != NULL && i < r->bearings->len; i++)
+        {
+          const TrbMemberBearing *b = &g_array_index (r->bearings, TrbMemberBearing, i);
+
+          check_finite (b->x, id, "bearing position");
+          for (guint c = 0; c < TRB_N_CASES; c++)
+            check_finite (b->force[c], id, "bearing force");
+        }
     }
 
   for (guint i = 0; i < r->checks->len; i++)
@@ -194,6 +202,58 @@ check_member_result (const TrbMemberResult *r)
     }
 }
 
+/* A floor's totals, column and wall loads and unassigned loads, unless it could not be framed
+ * (then its error says why). */
+static void
+check_floor_result (const TrbFloorResult *fr)
+{
+  const char *name = fr->floor->name != NULL ? fr->floor->name : "(floor)";
+
+  if (fr->error != NULL)
+    {
+      g_assert_true (g_utf8_validate (fr->error, -1, NULL));
+      return;
+    }
+  for (guint c = 0; c < TRB_N_CASES; c++)
+    {
+      check_finite (fr->applied[c], name, "applied");
+      check_finite (fr->reactions[c], name, "reactions");
+      check_finite (fr->supports[c], name, "supports");
+      check_finite (fr->not_carried[c], name, "not carried");
+    }
+  for (guint i = 0; i < fr->columns->len; i++)
+    {
+      const TrbColumnResult *col = &g_array_index (fr->columns, TrbColumnResult, i);
+
+      for (guint c = 0; c < TRB_N_CASES; c++)
+        check_finite (col->force[c], name, "column load");
+      check_finite (col->live_reduced, name, "column live load reduced");
+    }
+  for (guint i = 0; i < fr->walls->len; i++)
+    {
+      const TrbWallResult *w = &g_array_index (fr->walls, TrbWallResult, i);
+
+      for (guint c = 0; c < TRB_N_CASES; c++)
+        {
+          check_finite (w->force[c], name, "wall load");
+          for (guint k = 0; k < w->loads[c]->len; k++)
+            {
+              const TrbLoad *l = &g_array_index (w->loads[c], TrbLoad, k);
+
+              check_finite (l->a, name, "wall load position");
+              check_finite (l->w1, name, "wall load");
+            }
+        }
+    }
+  for (guint i = 0; i < fr->unassigned->len; i++)
+    {
+      const TrbUnassignedLoad *u = &g_array_index (fr->unassigned, TrbUnassignedLoad, i);
+
+      check_finite (u->length, name, "unassigned length");
+      check_finite (u->force, name, "unassigned load");
+    }
+}
+
 static void
 solve_and_check (const TrbProject *project)
 {
@@ -202,6 +262,9 @@ solve_and_check (const TrbProject *project)
   g_assert_cmpuint (pr->members->len, ==, project->members->len);
   for (guint i = 0; i < pr->members->len; i++)
     check_member_result (g_ptr_array_index (pr->members, i));
+  g_assert_cmpuint (pr->floors->len, ==, project->floors->len);
+  for (guint i = 0; i < pr->floors->len; i++)
+    check_floor_result (g_ptr_array_index (pr->floors, i));
 }
 
 /* ------------------------------------------------------------ loading with checks */
@@ -1422,6 +1485,189 @@ test_loads_at_supports (void)
   g_assert_cmpfloat_with_epsilon (sum, applied, 1e-9 * applied);
 }
 
+/* ------------------------------------------------------------ floors */
+
+static char *
+floor_text (const char *body)
+{
+  return g_strdup_printf ("<trabeate-project format=\"1\">\n<floor name=\"F\">\n%s"
+                          "</floor>\n</trabeate-project>\n", body);
+}
+
+/* Two columns, a girder between them, and a joist run resting on it and on a wall. */
+static void
+append_bay (GString    *s,
+            const char *scale)
+{
+  g_string_append_printf (s,
+    "<column id=\"C1\" x=\"0 %s\" y=\"0 %s\"/>\n"
+    "<column id=\"C2\" x=\"0 %s\" y=\"30 %s\"/>\n"
+    "<wall id=\"W1\"><point x=\"20 %s\" y=\"-1 %s\"/><point x=\"20 %s\" y=\"31 %s\"/></wall>\n"
+    "<member id=\"G1\" role=\"girder\" x1=\"0 %s\" y1=\"0 %s\" x2=\"0 %s\" y2=\"30 %s\" "
+    "material=\"custom\" section=\"custom\" E=\"29000 ksi\" I=\"500 in4\"/>\n",
+    scale, scale, scale, scale, scale, scale, scale, scale, scale, scale, scale, scale);
+  for (guint j = 1; j < 30; j += 2)
+    g_string_append_printf (s,
+      "<member id=\"J%u\" role=\"joist\" x1=\"0 %s\" y1=\"%u %s\" x2=\"20 %s\" y2=\"%u %s\" "
+      "material=\"custom\" section=\"custom\" E=\"1600 ksi\" I=\"178 in4\"/>\n",
+      j, scale, j, scale, scale, j, scale);
+}
+
+/* The same bay at every scale from a thousandth of an inch to 1e300 m, with its loads: the
+ * framing tolerances and the sums over the floor must hold or fail cleanly at any of them. */
+static void
+test_floor_scales (void)
+{
+  static const char * const scales[] = { "in", "ft", "mm", "m" };
+  static const char * const factors[] = { "1e-3", "1", "1e6", "1e100", "1e300" };
+  guint loaded = 0;
+
+  for (guint i = 0; i < G_N_ELEMENTS (scales); i++)
+    for (guint f = 0; f < G_N_ELEMENTS (factors); f++)
+      {
+        g_autofree char *unit = g_strdup_printf ("%s", scales[i]);
+        g_autoptr(GString) body = g_string_new (NULL);
+        g_autofree char *text = NULL;
+        g_autofree char *scaled = NULL;
+        g_autoptr(GError) error = NULL;
+        g_autoptr(TrbProject) p = NULL;
+
+        append_bay (body, unit);
+        g_string_append_printf (body,
+          "<area-load case=\"D\" pressure=\"%s psf\"><point x=\"0 %s\" y=\"0 %s\"/>"
+          "<point x=\"20 %s\" y=\"0 %s\"/><point x=\"20 %s\" y=\"30 %s\"/>"
+          "<point x=\"0 %s\" y=\"30 %s\"/></area-load>\n"
+          "<point-load case=\"L\" p=\"%s kip\" x=\"10 %s\" y=\"11 %s\"/>\n",
+          factors[f], unit, unit, unit, unit, unit, unit, unit, unit, factors[f], unit, unit);
+        /* the coordinates themselves scaled: "0 ft" stays, "20 ft" becomes "20e300 ft" */
+        scaled = g_strdup (body->str);
+        if (f > 0)
+          {
+            g_autofree char *from = g_strdup_printf (" %s\"", unit);
+            g_autofree char *to = g_strdup_printf ("%s %s\"", factors[f] + 1, unit);
+            g_auto(GStrv) parts = g_strsplit (scaled, from, -1);
+
+            g_free (scaled);
+            scaled = g_strjoinv (to, parts);
+          }
+        text = floor_text (scaled);
+        p = load_checked (text, strlen (text), &error);
+        if (p == NULL)
+          {
+            g_test_message ("%s %s: %s", factors[f], unit, error->message);
+            g_assert_true (error->code == TRB_ERROR_UNIT || error->code == TRB_ERROR_INVALID);
+          }
+        else
+          loaded++;
+      }
+  /* every coordinate here is a finite double (31e300 m at most): all load, and solve to
+   * finite numbers or to members and floors in error */
+  g_assert_cmpuint (loaded, ==, G_N_ELEMENTS (scales) * G_N_ELEMENTS (factors));
+}
+
+/* 500 girders drawn on top of one another, and 500 columns on one spot: whatever the framing
+ * makes of them, it ends, and its numbers are finite. */
+static void
+test_floor_stacked (void)
+{
+  g_autoptr(GString) body = g_string_new (NULL);
+  g_autofree char *text = NULL;
+  g_autoptr(GError) error = NULL;
+  g_autoptr(TrbProject) p = NULL;
+
+  for (guint i = 0; i < 500; i++)
+    g_string_append_printf (body, "<column id=\"C%u\" x=\"0 ft\" y=\"0 ft\"/>\n"
+                                  "<column id=\"D%u\" x=\"0 ft\" y=\"30 ft\"/>\n", i, i);
+  for (guint i = 0; i < 500; i++)
+    g_string_append_printf (body, "<member id=\"G%u\" role=\"girder\" x1=\"0 ft\" y1=\"0 ft\" "
+                                  "x2=\"0 ft\" y2=\"30 ft\" material=\"custom\" "
+                                  "section=\"custom\" E=\"29000 ksi\" I=\"500 in4\"/>\n", i);
+  g_string_append (body, "<member id=\"J1\" role=\"joist\" x1=\"0 ft\" y1=\"15 ft\" x2=\"20 ft\" "
+                         "y2=\"15 ft\" material=\"custom\" section=\"custom\" E=\"1600 ksi\" "
+                         "I=\"178 in4\"><support at=\"20 ft\" type=\"pin\"/>"
+                         "<load case=\"D\" type=\"uniform\" from=\"0 ft\" to=\"20 ft\" "
+                         "w=\"1 kip/ft\"/></member>\n");
+  text = floor_text (body->str);
+  p = load_checked (text, strlen (text), &error);
+  g_assert_no_error (error);
+}
+
+/* Members that bear on each other in a ring, and a member that lies along another: a cycle is
+ * an error on its members, never a hang. */
+static void
+test_floor_cycle (void)
+{
+  g_autofree char *text = floor_text (
+    "<member id=\"A\" role=\"beam\" x1=\"0 ft\" y1=\"0 ft\" x2=\"10 ft\" y2=\"0 ft\" "
+    "material=\"custom\" section=\"custom\" E=\"29000 ksi\" I=\"100 in4\"/>\n"
+    "<member id=\"B\" role=\"beam\" x1=\"10 ft\" y1=\"0 ft\" x2=\"10 ft\" y2=\"10 ft\" "
+    "material=\"custom\" section=\"custom\" E=\"29000 ksi\" I=\"100 in4\"/>\n"
+    "<member id=\"C\" role=\"beam\" x1=\"10 ft\" y1=\"10 ft\" x2=\"0 ft\" y2=\"10 ft\" "
+    "material=\"custom\" section=\"custom\" E=\"29000 ksi\" I=\"100 in4\"/>\n"
+    "<member id=\"D\" role=\"beam\" x1=\"0 ft\" y1=\"10 ft\" x2=\"0 ft\" y2=\"0 ft\" "
+    "material=\"custom\" section=\"custom\" E=\"29000 ksi\" I=\"100 in4\"/>\n"
+    "<member id=\"E\" role=\"beam\" x1=\"2 ft\" y1=\"0 ft\" x2=\"8 ft\" y2=\"0 ft\" "
+    "material=\"custom\" section=\"custom\" E=\"29000 ksi\" I=\"100 in4\"/>\n"
+    "<area-load case=\"L\" pressure=\"50 psf\"><point x=\"0 ft\" y=\"0 ft\"/>"
+    "<point x=\"10 ft\" y=\"0 ft\"/><point x=\"10 ft\" y=\"10 ft\"/></area-load>\n");
+  g_autoptr(GError) error = NULL;
+  g_autoptr(TrbProject) p = load_checked (text, strlen (text), &error);
+
+  g_assert_no_error (error);
+}
+
+/* Outlines of area loads and openings: the framing's time grows with the square of their
+ * points, so a floor's take at most TRB_PROJECT_MAX_OUTLINE_POINTS together. An area load of
+ * 20,000 points (a circle) is refused at its line; 600 points of load and 400 of opening
+ * load and solve. A line load of 5,000 points has no such cost and loads. */
+static void
+append_circle (GString    *s,
+               const char *element,
+               guint       n,
+               double      radius)
+{
+  g_string_append_printf (s, "%s\n", element);
+  for (guint i = 0; i < n; i++)
+    g_string_append_printf (s, "<point x=\"%.9f ft\" y=\"%.9f ft\"/>\n",
+                            10 + radius * cos (2 * G_PI * i / n),
+                            15 + radius * sin (2 * G_PI * i / n));
+}
+
+static void
+test_floor_long_outlines (void)
+{
+  g_autoptr(GString) body = g_string_new (NULL);
+  g_autofree char *text = NULL;
+  guint line;
+
+  append_bay (body, "ft");
+  line = 3 + count_lines (body->str, body->len) - 1;
+  append_circle (body, "<area-load case=\"L\" pressure=\"40 psf\">", 20000, 9);
+  g_string_append (body, "</area-load>\n");
+  text = floor_text (body->str);
+  assert_refused (text, strlen (text), TRB_ERROR_INVALID, line,
+                  "have more than 1000 points together");
+}
+
+static void
+test_floor_outlines_at_limit (void)
+{
+  g_autoptr(GString) body = g_string_new (NULL);
+  g_autofree char *text = NULL;
+
+  append_bay (body, "ft");
+  append_circle (body, "<area-load case=\"L\" pressure=\"40 psf\">", 600, 9);
+  g_string_append (body, "</area-load>\n");
+  append_circle (body, "<opening>", 400, 3);
+  g_string_append (body, "</opening>\n<line-load case=\"D\" w=\"0.1 kip/ft\">\n");
+  for (guint i = 0; i < 5000; i++)
+    g_string_append_printf (body, "<point x=\"%.6f ft\" y=\"%.6f ft\"/>\n",
+                            20.0 * i / 4999, 1 + 28.0 * ((i * 7919) % 5000) / 4999);
+  g_string_append (body, "</line-load>\n");
+  text = floor_text (body->str);
+  assert_loads (text);
+}
+
 int
 main (int   argc,
       char *argv[])
@@ -1473,6 +1719,11 @@ main (int   argc,
   g_test_add_func ("/trb/hostile/supports/many", test_many_supports);
   g_test_add_func ("/trb/hostile/supports/coincident", test_coincident_supports);
   g_test_add_func ("/trb/hostile/loads/at-supports", test_loads_at_supports);
+  g_test_add_func ("/trb/hostile/floors/scales", test_floor_scales);
+  g_test_add_func ("/trb/hostile/floors/stacked", test_floor_stacked);
+  g_test_add_func ("/trb/hostile/floors/cycle", test_floor_cycle);
+  g_test_add_func ("/trb/hostile/floors/long-outlines", test_floor_long_outlines);
+  g_test_add_func ("/trb/hostile/floors/outlines-at-limit", test_floor_outlines_at_limit);
 
   return g_test_run ();
 }
