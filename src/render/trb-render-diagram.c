@@ -762,7 +762,13 @@ extreme_label (Frame        *f,
   if (ax == 0.5 && px + tw / 2 > f->x0 + f->w + 0.5 * f->fs)
     ax = 1 - ((f->x0 + f->w + 0.5 * f->fs) - px) / tw;
   ax = CLAMP (ax, -1.0, 2.0);
-  ty = above ? MAX (py - 1.5, y_top + f->fs) : MIN (py + 1.5, y_bottom - f->fs);
+  /* beside the peak on the side away from the axis; where the diagram leaves no room there
+   * (the peak at the edge of its band), on the inner side, over the shading */
+  if (above && py - 1.5 - f->fs * 1.1 < y_top - 1.5 * f->fs)
+    above = FALSE;
+  else if (!above && py + 1.5 + f->fs * 1.1 > y_bottom + 1.9 * f->fs)
+    above = TRUE;
+  ty = above ? py - 1.5 : py + 1.5;
   trb_render_text (cr, f->style, t, f->fs * 0.85, TRUE, px, ty, ax, above ? 1.0 : 0.0, NULL);
 }
 
@@ -805,8 +811,9 @@ draw_curve (Frame                  *f,
       vmin = MIN (vmin, sign * p->lo);
     }
 
-  top = y + 1.6 * f->fs;
-  bottom = y + height - 1.3 * f->fs;
+  /* room above the highest peak and below the lowest for their labels, under the title */
+  top = y + 2.8 * f->fs;
+  bottom = y + height - 2.0 * f->fs;
   if (vmax - vmin < 1e-30)
     {
       vmax = 1;
