@@ -1485,6 +1485,13 @@ on_start_element (void           *ctx,
     }
 }
 
+static void
+silent_error (void       *ctx,
+              const char *msg,
+              ...)
+{
+}
+
 /* Skips from p to just past the first occurrence of the terminator (or to end), counting
  * newlines. */
 static const char *
@@ -1586,6 +1593,8 @@ parse_doc (Loader     *ld,
   g_autoptr(xmlParserCtxt) ctxt = NULL;
   g_autoptr(xmlDoc) doc = NULL;
   Guard guard = { FALSE, 0, NULL, 0, FALSE };
+  xmlGenericErrorFunc old_handler;
+  void *old_context;
   int crowded;
   int rc;
 
@@ -1625,7 +1634,14 @@ parse_doc (Loader     *ld,
   if (guard.start_element != NULL && ctxt->sax->initialized == XML_SAX2_MAGIC)
     ctxt->sax->startElementNs = on_start_element;
 
+  /* XML_PARSE_NOERROR silences the parser, but not the encoding converters, which print to
+   * stderr ("encoding error : input conversion failed"): their text is in the parser's own
+   * error anyway. The handler is per thread; the caller's comes back after the parse. */
+  old_handler = xmlGenericError;
+  old_context = xmlGenericErrorContext;
+  xmlSetGenericErrorFunc (NULL, silent_error);
   rc = xmlParseDocument (ctxt);
+  xmlSetGenericErrorFunc (old_context, old_handler);
   doc = g_steal_pointer (&ctxt->myDoc);
 
   if (guard.doctype)
