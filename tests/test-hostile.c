@@ -1121,6 +1121,29 @@ test_latin1_converted (void)
                    "\xc3\xa9t\xc3\xa9");
 }
 
+/* Bytes that a declared encoding cannot convert: an error at its line, and not a word on
+ * stderr (libxml2's converters print there unless told not to). */
+static void
+test_silent_child (void)
+{
+  static const char text[] = "<?xml version=\"1.0\" encoding=\"EUC-JP\"?>\n"
+                             "<trabeate-project format=\"1\">\n"
+                             "<beam id=\"\xe4\x30\x30 \"/>\n</trabeate-project>\n";
+  g_autoptr(GError) error = NULL;
+  g_autoptr(TrbProject) p = load_checked (text, sizeof text - 1, &error);
+
+  g_assert_null (p);
+  g_assert_error (error, TRB_ERROR, TRB_ERROR_PARSE);
+}
+
+static void
+test_silent (void)
+{
+  g_test_trap_subprocess ("/trb/hostile/bytes/silent/subprocess", 0, G_TEST_SUBPROCESS_DEFAULT);
+  g_test_trap_assert_passed ();
+  g_test_trap_assert_stderr ("");
+}
+
 /* ------------------------------------------------------------ truncation */
 
 /* Every prefix of every example at 200 cut points: an error with its line, or (a prefix that
@@ -1710,6 +1733,8 @@ main (int   argc,
       g_test_add_data_func (path, &bytes_cases[i], test_bytes);
     }
   g_test_add_func ("/trb/hostile/bytes/latin1-converted", test_latin1_converted);
+  g_test_add_func ("/trb/hostile/bytes/silent", test_silent);
+  g_test_add_func ("/trb/hostile/bytes/silent/subprocess", test_silent_child);
   g_test_add_func ("/trb/hostile/truncated", test_truncated);
   g_test_add_func ("/trb/hostile/quantities/extreme", test_extreme_quantities);
   g_test_add_func ("/trb/hostile/quantities/extreme-combinations", test_extreme_combinations);
