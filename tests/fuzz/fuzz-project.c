@@ -102,6 +102,10 @@ check_member (const TrbMemberResult *r)
       check_set (&r->strength);
       check_set (&r->live);
       check_set (&r->total);
+      for (guint i = 0; r->bearings != NULL && i < r->bearings->len; i++)
+        for (guint c = 0; c < TRB_N_CASES; c++)
+          require_finite (g_array_index (r->bearings, TrbMemberBearing, i).force[c],
+                          "bearing force");
     }
   for (guint i = 0; i < r->checks->len; i++)
     {
@@ -115,6 +119,38 @@ check_member (const TrbMemberResult *r)
       if (ck->capacity != 0)
         require_finite (ck->ratio, "check ratio");
     }
+}
+
+/* A floor's sums and the loads on its columns and walls, unless it is in error. */
+static void
+check_floor (const TrbFloorResult *fr)
+{
+  if (fr->error != NULL)
+    {
+      require (g_utf8_validate (fr->error, -1, NULL), "a floor error that is not UTF-8");
+      return;
+    }
+  for (guint c = 0; c < TRB_N_CASES; c++)
+    {
+      require_finite (fr->applied[c], "floor applied");
+      require_finite (fr->reactions[c], "floor reactions");
+      require_finite (fr->supports[c], "floor supports");
+      require_finite (fr->not_carried[c], "floor not carried");
+    }
+  for (guint i = 0; i < fr->columns->len; i++)
+    {
+      const TrbColumnResult *col = &g_array_index (fr->columns, TrbColumnResult, i);
+
+      require_finite (col->live_reduced, "column live load reduced");
+      for (guint c = 0; c < TRB_N_CASES; c++)
+        require_finite (col->force[c], "column load");
+    }
+  for (guint i = 0; i < fr->walls->len; i++)
+    for (guint c = 0; c < TRB_N_CASES; c++)
+      require_finite (g_array_index (fr->walls, TrbWallResult, i).force[c], "wall load");
+  for (guint i = 0; i < fr->unassigned->len; i++)
+    require_finite (g_array_index (fr->unassigned, TrbUnassignedLoad, i).force,
+                    "unassigned load");
 }
 
 int
@@ -139,5 +175,8 @@ LLVMFuzzerTestOneInput (const uint8_t *data,
   require (result->members->len == project->members->len, "a result per member");
   for (guint i = 0; i < result->members->len; i++)
     check_member (g_ptr_array_index (result->members, i));
+  require (result->floors->len == project->floors->len, "a result per floor");
+  for (guint i = 0; i < result->floors->len; i++)
+    check_floor (g_ptr_array_index (result->floors, i));
   return 0;
 }
