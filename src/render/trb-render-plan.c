@@ -1451,9 +1451,8 @@ run_labels (DrawContext *dc,
       for (guint k = 0; k < run->len; k++)
         {
           guint i = g_array_index (run, RunEntry, k).member;
-          const TrbMemberResult *r = trb_plan_scene_lookup_result (dc->scene,
-                                                                   g_ptr_array_index (floor->members,
-                                                                                      i));
+          const TrbMember *m = g_ptr_array_index (floor->members, i);
+          const TrbMemberResult *r = trb_plan_scene_lookup_result (dc->scene, m);
 
           skip[i] = 1;
           if (r != NULL && !isnan (r->ratio) && r->ratio > worst)
