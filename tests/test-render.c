@@ -301,6 +301,26 @@ test_draw_status (void)
   pixel (s, (int) x - 3, (int) y, &r, &g, &b);
   g_assert_cmpint (r, ==, 0xe0);
 
+  /* the girder selected: a band of Blue 2 #62a0ea at 45 % over the paper under it, 3 x 6.4 +
+   * 6 = 25.2 wide; 8 units off the girder's axis (outside its 6.4-wide line) the paper is
+   * tinted 0.45 x c + 0.55 x 255 (compositing "over", Porter and Duff 1984): r 184, g 212,
+   * b 246 */
+  options.selection = g_hash_table_new (g_direct_hash, g_direct_equal);
+  g_hash_table_add (options.selection, g_ptr_array_index (f->members, 0));
+  cairo_set_source_rgb (cr, 1, 1, 1);
+  cairo_paint (cr);
+  trb_plan_draw (cr, scene, &view, &options);
+  cairo_surface_flush (s);
+  trb_plan_view_to_device (&view, 3, 0, &x, &y);
+  pixel (s, (int) x, (int) y - 8, &r, &g, &b);
+  g_assert_cmpint (ABS (r - 184), <=, 1);
+  g_assert_cmpint (ABS (g - 212), <=, 1);
+  g_assert_cmpint (ABS (b - 246), <=, 1);
+  /* and nothing of it 20 units off */
+  pixel (s, (int) x, (int) y - 20, &r, &g, &b);
+  g_assert_cmpint (r, ==, 0xff);
+  g_hash_table_unref (options.selection);
+
   cairo_destroy (cr);
   cairo_surface_destroy (s);
   fake_results_free (pr);
