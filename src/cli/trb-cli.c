@@ -1267,7 +1267,8 @@ table_summary (GString         *out,
 {
   GPtrArray *results = sel->pr->members;
 
-  g_string_append (out, "\nSummary\n  mark       section          status         ratio  governing\n");
+  g_string_append (out, "\nSummary\n  mark       section          status         ratio  "
+                   "governing\n");
   for (guint i = 0; i < results->len; i++)
     {
       const TrbMemberResult *r = g_ptr_array_index (results, i);

@@ -6,16 +6,17 @@
  * the loader, the saver, the solve and the CLI all see the same thing. Included by the programs
  * that use it (static functions: a test helper, not a module).
  *
- * The floor is a made-up grid of bays, not a design: a masonry wall along x = 0; steel girders
- * along y on every other column line, one bay long, on steel columns; timber joists at 16 in
- * spanning x from the wall or a girder line to the next, the last bay's running 4 ft past the
- * last girder line (a balcony, resting on that girder at a listed bearing point). Bay widths
- * cycle 20, 22, 24 ft and bay depths 24, 28 ft; every 25th bay has an opening (a stair) the joists run
- * through; a partition stands on girder line 1. Loads: dead 15 psf, office live 50 psf with a
- * 15 psf partition allowance, light storage 125 psf over the first row of bays, balcony 75 psf,
- * the partition's 300 plf, and an equipment point load on one joist in each bay of the second
- * column. Everything that can be sized is "auto"; live load reduction is on. Coordinates are
- * whole inches, so that they are exact in SI. */
+ * The floor is a made-up grid of bays, not a design: a masonry wall along x = 0; steel
+ * girders along y on every column line but the wall's, one bay long, on steel columns; timber
+ * joists at 16 in spanning x from the wall or a girder line to the next, the last bay's running
+ * 4 ft past the last girder line (a balcony, resting on that girder at a listed bearing point).
+ * Bay widths cycle 20, 22, 24 ft and bay depths 24, 28 ft; every 25th bay has an opening (a
+ * stair) the joists run through; a partition stands on girder line 1. Loads: dead 15 psf,
+ * office live 50 psf with a 15 psf partition allowance, light storage 125 psf over the first
+ * row of bays, balcony 75 psf, the partition's 300 plf, and an equipment point load on one
+ * joist in each bay of the second column. Everything that can be sized is "auto"; live load
+ * reduction is on. Coordinates are whole inches, as a plan in US units is drawn (not exact in
+ * metres: see docs/performance.md on what that does to the cache). */
 
 #include <glib.h>
 
