@@ -57,6 +57,19 @@ wait_for_frames (GtkWidget *widget,
     }
 }
 
+/* The solve runs in a worker: wait for its results, as the engineer waits for the plan's
+ * colours to settle. */
+static void
+wait_solved (TrbDocument *document)
+{
+  gint64 until = g_get_monotonic_time () + 60 * G_USEC_PER_SEC;
+
+  while (trb_document_get_solving (document) && g_get_monotonic_time () < until)
+    g_main_context_iteration (NULL, TRUE);
+  g_assert_false (trb_document_get_solving (document));
+  g_assert_true (trb_document_get_results_current (document));
+}
+
 static void
 fixture_set_up (Fixture       *f,
                 gconstpointer  data)
@@ -71,6 +84,7 @@ fixture_set_up (Fixture       *f,
   g_assert_true (g_file_equal (trb_document_get_file (f->document), file));
   gtk_window_set_default_size (GTK_WINDOW (f->window), 1400, 900);
   gtk_window_present (GTK_WINDOW (f->window));
+  wait_solved (f->document);
   wait_for_frames (GTK_WIDGET (f->window), 3);
 }
 
@@ -209,6 +223,7 @@ test_shortlist_assign (Fixture       *f,
   before = g_strdup (member->section);
   g_assert_true (trb_document_push (f->document,
                                     trb_edit_assign_section (project, member, "W8X10", NULL)));
+  wait_solved (f->document);
   r = trb_document_lookup_result (f->document, member);
   g_assert_cmpint (r->status, ==, TRB_STATUS_FAIL);
   g_assert_nonnull (find_row (trb_member_list_get_model (list), member, &position));
@@ -226,6 +241,7 @@ test_shortlist_assign (Fixture       *f,
   chosen = g_strdup (trb_shortlist_panel_get_row_section (shortlist, 1));
   g_assert_true (trb_shortlist_panel_choose (shortlist, 1));
   g_assert_cmpstr (member->section, ==, chosen);
+  wait_solved (f->document);
   r = trb_document_lookup_result (f->document, member);
   g_assert_cmpint (r->status, ==, TRB_STATUS_PASS);
   g_assert_true (r->ratio <= 1.0);
@@ -242,6 +258,7 @@ test_shortlist_assign (Fixture       *f,
   /* Undo, through the window's action, gives back the failing section */
   g_assert_true (gtk_widget_activate_action (GTK_WIDGET (f->window), "win.undo", NULL));
   g_assert_cmpstr (member->section, ==, "W8X10");
+  wait_solved (f->document);
   r = trb_document_lookup_result (f->document, member);
   g_assert_cmpint (r->status, ==, TRB_STATUS_FAIL);
   g_assert_true (gtk_widget_activate_action (GTK_WIDGET (f->window), "win.undo", NULL));
@@ -276,6 +293,7 @@ test_draw_beam (Fixture       *f,
   g_assert_cmpint (added->role, ==, TRB_FRAME_ROLE_BEAM);
   g_assert_true (trb_plan_canvas_get_selected_member (canvas) == added);
   g_assert_cmpuint (g_list_model_get_n_items (trb_member_list_get_model (list)), ==, n + 1);
+  wait_solved (f->document);
   /* on nothing but the grid: unsupported, and the list says so */
   g_assert_cmpint (trb_document_lookup_result (f->document, added)->status, ==,
                    TRB_STATUS_UNSUPPORTED);
@@ -288,6 +306,45 @@ test_draw_beam (Fixture       *f,
   g_assert_cmpuint (project->members->len, ==, n);
   g_assert_cmpuint (g_list_model_get_n_items (trb_member_list_get_model (list)), ==, n);
   g_assert_null (trb_plan_canvas_get_selected_member (canvas));
+}
+
+/* Edits come faster than the solve: the plan and the list follow each at once, on the
+ * results that stand (some of whose members the edits have freed), and the last solve
+ * brings them up to date. */
+static void
+test_edits_while_solving (Fixture       *f,
+                          gconstpointer  data)
+{
+  TrbPlanCanvas *canvas = TRB_PLAN_CANVAS (trb_window_get_canvas (f->window));
+  TrbMemberList *list = TRB_MEMBER_LIST (trb_window_get_member_list (f->window));
+  TrbProject *project = trb_document_get_project (f->document);
+  guint n = project->members->len;
+
+  trb_plan_canvas_set_tool (canvas, TRB_TOOL_BEAM);
+  for (guint i = 0; i < 12; i++)
+    {
+      double y = -2.0 - 0.5 * i;
+
+      /* a beam drawn, undone, and another drawn: the undone one is freed by the history
+       * while the results may still name it */
+      trb_plan_canvas_click_plan (canvas, 1.0, y, 0);
+      trb_plan_canvas_click_plan (canvas, 5.0, y, 0);
+      g_assert_true (gtk_widget_activate_action (GTK_WIDGET (f->window), "win.undo", NULL));
+      trb_plan_canvas_click_plan (canvas, 2.0, y, 0);
+      trb_plan_canvas_click_plan (canvas, 6.0, y, 0);
+      wait_for_frames (GTK_WIDGET (f->window), 1);
+    }
+  g_assert_cmpuint (project->members->len, ==, n + 12);
+  g_assert_cmpuint (g_list_model_get_n_items (trb_member_list_get_model (list)), ==, n + 12);
+  wait_solved (f->document);
+  for (guint i = 0; i < project->members->len; i++)
+    {
+      TrbMember *m = g_ptr_array_index (project->members, i);
+      const TrbMemberResult *r = trb_document_lookup_result (f->document, m);
+
+      g_assert_nonnull (r);
+      g_assert_true (r->member == m);
+    }
 }
 
 static void
@@ -446,6 +503,8 @@ main (int   argc,
               test_shortlist_assign, fixture_tear_down);
   g_test_add ("/trb/app/draw-beam", Fixture, NULL, fixture_set_up, test_draw_beam,
               fixture_tear_down);
+  g_test_add ("/trb/app/edits-while-solving", Fixture, NULL, fixture_set_up,
+              test_edits_while_solving, fixture_tear_down);
   g_test_add ("/trb/app/save-round-trip", Fixture, NULL, fixture_set_up, test_save_round_trip,
               fixture_tear_down);
   g_test_add ("/trb/app/bad-file", Fixture, NULL, fixture_set_up, test_bad_file,

@@ -862,6 +862,71 @@ random_command (TrbProject *p,
   return c;
 }
 
+/* The copy a solve runs on is the project, bit for bit and in the same order, and owns
+ * everything but the catalog it borrows: editing the original leaves it alone. */
+static void
+test_project_copy (void)
+{
+  static const char * const files[][3] = {
+    { "tests", "data", "floor-mezzanine.trabeate" },
+    { "data", "examples", "demo-floor.trabeate" },
+    { "data", "examples", "demo-beams.trabeate" },
+  };
+
+  for (guint k = 0; k < G_N_ELEMENTS (files); k++)
+    {
+      g_autoptr(GError) error = NULL;
+      g_autofree char *path = g_test_build_filename (G_TEST_DIST, "..", files[k][0],
+                                                     files[k][1], files[k][2], NULL);
+      g_autoptr(TrbProject) p = trb_project_load_file (path, &error);
+      g_autoptr(TrbEditHistory) h = NULL;
+      g_autoptr(GRand) r = g_rand_new_with_seed (k);
+      g_autofree char *dump = NULL;
+      g_autofree char *bytes = NULL;
+      TrbProject *copy;
+      guint counter = 0;
+
+      g_assert_no_error (error);
+      copy = trb_edit_project_copy (p);
+      dump = dump_project (p);
+      bytes = save_bytes (p);
+      {
+        g_autofree char *copy_dump = dump_project (copy);
+        g_autofree char *copy_bytes = save_bytes (copy);
+
+        g_assert_cmpstr (copy_dump, ==, dump);
+        g_assert_cmpstr (copy_bytes, ==, bytes);
+      }
+      for (guint f = 0; f < copy->floors->len; f++)
+        for (guint i = 0; i < ((TrbFloor *) g_ptr_array_index (copy->floors, f))->members->len;
+             i++)
+          g_assert_true (((TrbMember *) g_ptr_array_index (((TrbFloor *)
+                                                            g_ptr_array_index (copy->floors,
+                                                                               f))->members,
+                                                           i))->floor
+                         == g_ptr_array_index (copy->floors, f));
+
+      /* edit the original: the copy stays as it was */
+      if (p->floors->len > 0)
+        {
+          h = trb_edit_history_new (p);
+          for (guint step = 0; step < 40; step++)
+            {
+              TrbEditCommand *c = random_command (p, r, &counter);
+
+              if (c != NULL)
+                trb_edit_history_push (h, c);
+            }
+          {
+            g_autofree char *copy_dump = dump_project (copy);
+
+            g_assert_cmpstr (copy_dump, ==, dump);
+          }
+        }
+      trb_edit_project_copy_free (copy);
+    }
+}
+
 static void
 test_random_sequences (void)
 {
@@ -957,6 +1022,7 @@ main (int   argc,
   g_test_add_func ("/trb/edit/group", test_group);
   g_test_add_func ("/trb/edit/modified", test_modified);
   g_test_add_func ("/trb/edit/snap", test_snap);
+  g_test_add_func ("/trb/edit/project-copy", test_project_copy);
   g_test_add_func ("/trb/edit/random-sequences", test_random_sequences);
 
   return g_test_run ();

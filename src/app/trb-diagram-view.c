@@ -210,13 +210,6 @@ on_source_selected (TrbDiagramView *self)
 }
 
 static void
-on_document_changed (TrbDiagramView *self)
-{
-  /* drawn from the results the solve replaces: nothing until the new ones */
-  gtk_stack_set_visible_child_name (self->stack, "empty");
-}
-
-static void
 on_document_solved (TrbDiagramView *self)
 {
   if (self->member != NULL
@@ -238,7 +231,7 @@ trb_diagram_view_set_document (TrbDiagramView *self,
   self->member = NULL;
   if (document != NULL)
     {
-      g_signal_connect_object (document, "changed", G_CALLBACK (on_document_changed), self,
+      g_signal_connect_object (document, "changed", G_CALLBACK (on_document_solved), self,
                                G_CONNECT_SWAPPED);
       g_signal_connect_object (document, "solved", G_CALLBACK (on_document_solved), self,
                                G_CONNECT_SWAPPED);

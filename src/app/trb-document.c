@@ -9,6 +9,15 @@
 #include "trb-error.h"
 #include "trb-project-io.h"
 
+/* Solving. The solve is pure, so it runs in a worker thread on a copy of the project
+ * (trb_edit_project_copy(), a few milliseconds for ten thousand members) while the editor
+ * goes on: a floor of ten thousand members takes some 300 ms to solve with its sections
+ * given, and longer to size, far more than a frame. The results point at the copy's members;
+ * once in, each is pointed at the project's member of the same mark (or left on the copy's,
+ * which lives as long as the results, when the project has none), so that the plan, the list
+ * and the panels look them up by the members they show. After every edit the pointers are
+ * set again, since an edit may free a member the results pointed at; the results stand until
+ * the next solve replaces them. */
 struct _TrbDocument
 {
   GObject           parent_instance;
@@ -16,12 +25,28 @@ struct _TrbDocument
   GFile            *file;
   TrbProject       *project;
   TrbEditHistory   *history;
-  TrbProjectResult *results;
-  GHashTable       *result_index;   /* const TrbMember * -> const TrbMemberResult * */
-  double            solve_time;     /* ms, of the last solve */
   gboolean          touched;        /* edited or saved since it was made */
   gboolean          in_group;       /* pushes apply now and re-solve at the group's end */
+
+  guint64           generation;     /* counts the changes to the project */
+  gboolean          solving;        /* a worker is solving */
+  gboolean          pending;        /* the project changed while it was */
+
+  TrbProjectResult *results;
+  TrbProject       *results_copy;   /* what results was solved on */
+  guint64           results_generation;
+  GPtrArray        *copy_members;   /* the copy's member of each result, by index */
+  GHashTable       *result_index;   /* const TrbMember * -> const TrbMemberResult * */
+  double            solve_time;     /* ms, of the last solve, in the worker */
 };
+
+typedef struct
+{
+  TrbProject       *copy;
+  TrbProjectResult *results;
+  guint64           generation;
+  double            ms;
+} SolveJob;
 
 G_DEFINE_FINAL_TYPE (TrbDocument, trb_document, G_TYPE_OBJECT)
 
@@ -32,6 +57,7 @@ enum {
   PROP_MODIFIED,
   PROP_CAN_UNDO,
   PROP_CAN_REDO,
+  PROP_SOLVING,
   N_PROPS
 };
 
@@ -45,12 +71,34 @@ static GParamSpec *properties[N_PROPS];
 static guint signals[N_SIGNALS];
 
 static void
+solve_job_free (gpointer data)
+{
+  SolveJob *job = data;
+
+  g_clear_pointer (&job->results, trb_project_result_free);
+  g_clear_pointer (&job->copy, trb_edit_project_copy_free);
+  g_free (job);
+}
+
+static void
+clear_results (TrbDocument *self)
+{
+  g_hash_table_remove_all (self->result_index);
+  g_ptr_array_set_size (self->copy_members, 0);
+  g_clear_pointer (&self->results, trb_project_result_free);
+  g_clear_pointer (&self->results_copy, trb_edit_project_copy_free);
+}
+
+static void
 trb_document_dispose (GObject *object)
 {
   TrbDocument *self = TRB_DOCUMENT (object);
 
+  /* no worker is running: each holds a reference until it is done */
+  if (self->result_index != NULL)
+    clear_results (self);
   g_clear_pointer (&self->result_index, g_hash_table_unref);
-  g_clear_pointer (&self->results, trb_project_result_free);
+  g_clear_pointer (&self->copy_members, g_ptr_array_unref);
   /* the history holds members taken out of the project: free it while the project lives */
   g_clear_pointer (&self->history, trb_edit_history_free);
   g_clear_pointer (&self->project, trb_project_free);
@@ -84,6 +132,9 @@ trb_document_get_property (GObject    *object,
     case PROP_CAN_REDO:
       g_value_set_boolean (value, trb_document_get_can_redo (self));
       break;
+    case PROP_SOLVING:
+      g_value_set_boolean (value, self->solving);
+      break;
     default:
       G_OBJECT_WARN_INVALID_PROPERTY_ID (object, prop_id, pspec);
     }
@@ -112,13 +163,16 @@ trb_document_class_init (TrbDocumentClass *klass)
   properties[PROP_CAN_REDO] =
     g_param_spec_boolean ("can-redo", NULL, NULL, FALSE,
                           G_PARAM_READABLE | G_PARAM_STATIC_STRINGS);
+  properties[PROP_SOLVING] =
+    g_param_spec_boolean ("solving", NULL, NULL, FALSE,
+                          G_PARAM_READABLE | G_PARAM_STATIC_STRINGS);
   g_object_class_install_properties (object_class, N_PROPS, properties);
 
   /**
    * TrbDocument::changed:
    *
-   * The model changed: an edit, an undo or a redo. The old results are gone; ::solved
-   * follows with the new ones.
+   * The model changed: an edit, an undo or a redo. The results stand, pointed at the members
+   * as they are now, until ::solved says new ones are in.
    */
   signals[CHANGED] =
     g_signal_new ("changed", G_TYPE_FROM_CLASS (klass), G_SIGNAL_RUN_LAST, 0, NULL, NULL,
@@ -137,24 +191,136 @@ static void
 trb_document_init (TrbDocument *self)
 {
   self->result_index = g_hash_table_new (NULL, NULL);
+  self->copy_members = g_ptr_array_new ();
+}
+
+/* Points every result at the project's member, floor, column and wall it is about, where the
+ * project has it, else at the copy's (see the comment on TrbDocument). */
+static void
+point_results (TrbDocument *self)
+{
+  TrbProjectResult *r = self->results;
+  TrbProject *copy = self->results_copy;
+
+  if (r == NULL)
+    return;
+  g_hash_table_remove_all (self->result_index);
+  r->project = self->project;
+  for (guint i = 0; i < r->members->len; i++)
+    {
+      TrbMemberResult *mr = g_ptr_array_index (r->members, i);
+      const TrbMember *original = g_ptr_array_index (self->copy_members, i);
+      TrbMember *live = trb_project_find_member (self->project, original->id);
+
+      mr->member = live != NULL ? live : original;
+      if (live != NULL)
+        g_hash_table_insert (self->result_index, live, mr);
+    }
+
+  for (guint f = 0; r->floors != NULL && f < r->floors->len && f < copy->floors->len; f++)
+    {
+      TrbFloorResult *fr = g_ptr_array_index (r->floors, f);
+      TrbFloor *was = g_ptr_array_index (copy->floors, f);
+      TrbFloor *now = f < self->project->floors->len ? g_ptr_array_index (self->project->floors,
+                                                                           f) : NULL;
+      gboolean same_columns = now != NULL && now->columns->len == was->columns->len;
+      gboolean same_walls = now != NULL && now->walls->len == was->walls->len;
+
+      fr->floor = now != NULL ? now : was;
+      for (guint i = 0; fr->columns != NULL && i < fr->columns->len; i++)
+        {
+          TrbColumnResult *cr = &g_array_index (fr->columns, TrbColumnResult, i);
+
+          cr->floor = same_columns ? now : was;
+          cr->column = g_ptr_array_index (same_columns ? now->columns : was->columns, i);
+        }
+      for (guint i = 0; fr->walls != NULL && i < fr->walls->len; i++)
+        {
+          TrbWallResult *wr = &g_array_index (fr->walls, TrbWallResult, i);
+
+          wr->floor = same_walls ? now : was;
+          wr->wall = g_ptr_array_index (same_walls ? now->walls : was->walls, i);
+        }
+    }
+}
+
+static void request_solve (TrbDocument *self);
+
+static void
+solve_thread (GTask        *task,
+              gpointer      source,
+              gpointer      task_data,
+              GCancellable *cancellable)
+{
+  SolveJob *job = task_data;
+  gint64 t0 = g_get_monotonic_time ();
+
+  job->results = trb_solve_project (job->copy);
+  job->ms = (g_get_monotonic_time () - t0) / 1000.0;
+  g_task_return_boolean (task, TRUE);
 }
 
 static void
-solve (TrbDocument *self)
+install (TrbDocument *self,
+         SolveJob    *job)
 {
-  gint64 t0 = g_get_monotonic_time ();
-
-  g_hash_table_remove_all (self->result_index);
-  g_clear_pointer (&self->results, trb_project_result_free);
-  self->results = trb_solve_project (self->project);
+  /* the old results go; everything that showed them hears ::solved at once */
+  clear_results (self);
+  self->results = g_steal_pointer (&job->results);
+  self->results_copy = g_steal_pointer (&job->copy);
+  self->results_generation = job->generation;
+  self->solve_time = job->ms;
   for (guint i = 0; i < self->results->members->len; i++)
-    {
-      const TrbMemberResult *r = g_ptr_array_index (self->results->members, i);
-
-      g_hash_table_insert (self->result_index, (gpointer) r->member, (gpointer) r);
-    }
-  self->solve_time = (g_get_monotonic_time () - t0) / 1000.0;
+    g_ptr_array_add (self->copy_members,
+                     (gpointer) ((TrbMemberResult *) g_ptr_array_index (self->results->members,
+                                                                        i))->member);
+  point_results (self);
   g_debug ("solved %u members in %.1f ms", self->project->members->len, self->solve_time);
+}
+
+static void
+solve_done (GObject      *source,
+            GAsyncResult *result,
+            gpointer      user_data)
+{
+  g_autoptr(TrbDocument) self = user_data;
+  SolveJob *job = g_task_get_task_data (G_TASK (result));
+
+  self->solving = FALSE;
+  /* results of a project that has changed since are not shown: the new one is solved */
+  if (job->generation == self->generation)
+    {
+      install (self, job);
+      g_signal_emit (self, signals[SOLVED], 0);
+    }
+  if (self->pending || job->generation != self->generation)
+    {
+      self->pending = FALSE;
+      request_solve (self);
+    }
+  if (!self->solving)
+    g_object_notify_by_pspec (G_OBJECT (self), properties[PROP_SOLVING]);
+}
+
+static void
+request_solve (TrbDocument *self)
+{
+  g_autoptr(GTask) task = NULL;
+  SolveJob *job;
+
+  if (self->solving)
+    {
+      self->pending = TRUE;
+      return;
+    }
+  job = g_new0 (SolveJob, 1);
+  job->copy = trb_edit_project_copy (self->project);
+  job->generation = self->generation;
+  task = g_task_new (NULL, NULL, solve_done, g_object_ref (self));
+  g_task_set_task_data (task, job, solve_job_free);
+  g_task_run_in_thread (task, solve_thread);
+  self->solving = TRUE;
+  g_object_notify_by_pspec (G_OBJECT (self), properties[PROP_SOLVING]);
 }
 
 static TrbDocument *
@@ -166,7 +332,7 @@ document_new_for_project (TrbProject *project,
   self->project = project;
   self->file = file != NULL ? g_object_ref (file) : NULL;
   self->history = trb_edit_history_new (project);
-  solve (self);
+  request_solve (self);
   return self;
 }
 
@@ -374,6 +540,32 @@ trb_document_get_floor_result (TrbDocument *self)
 }
 
 /**
+ * trb_document_get_solving:
+ * @self: a document
+ *
+ * Returns: %TRUE while the results are being brought up to date with the project.
+ */
+gboolean
+trb_document_get_solving (TrbDocument *self)
+{
+  g_return_val_if_fail (TRB_IS_DOCUMENT (self), FALSE);
+  return self->solving;
+}
+
+/**
+ * trb_document_get_results_current:
+ * @self: a document
+ *
+ * Returns: %TRUE when the results are those of the project as it is now.
+ */
+gboolean
+trb_document_get_results_current (TrbDocument *self)
+{
+  g_return_val_if_fail (TRB_IS_DOCUMENT (self), FALSE);
+  return self->results != NULL && self->results_generation == self->generation;
+}
+
+/**
  * trb_document_get_solve_time:
  * @self: a document
  *
@@ -390,9 +582,10 @@ static void
 changed (TrbDocument *self)
 {
   self->touched = TRUE;
+  self->generation++;
+  point_results (self);
   g_signal_emit (self, signals[CHANGED], 0);
-  solve (self);
-  g_signal_emit (self, signals[SOLVED], 0);
+  request_solve (self);
   g_object_notify_by_pspec (G_OBJECT (self), properties[PROP_MODIFIED]);
   g_object_notify_by_pspec (G_OBJECT (self), properties[PROP_CAN_UNDO]);
   g_object_notify_by_pspec (G_OBJECT (self), properties[PROP_CAN_REDO]);

@@ -37,6 +37,8 @@ const TrbMemberResult  *trb_document_lookup_result     (TrbDocument           *s
                                                         const TrbMember       *member);
 const TrbFloorResult   *trb_document_get_floor_result  (TrbDocument           *self);
 double                  trb_document_get_solve_time    (TrbDocument           *self);
+gboolean                trb_document_get_solving       (TrbDocument           *self);
+gboolean                trb_document_get_results_current (TrbDocument         *self);
 
 gboolean                trb_document_push              (TrbDocument           *self,
                                                         TrbEditCommand        *command);

@@ -229,8 +229,13 @@ trb_member_list_set_document (TrbMemberList *self,
   g_set_object (&self->document, document);
   self->member = NULL;
   if (document != NULL)
-    g_signal_connect_object (document, "solved", G_CALLBACK (on_document_solved), self,
-                             G_CONNECT_SWAPPED);
+    {
+      /* rows at once for what the edit added or took away, statuses again when solved */
+      g_signal_connect_object (document, "changed", G_CALLBACK (on_document_solved), self,
+                               G_CONNECT_SWAPPED);
+      g_signal_connect_object (document, "solved", G_CALLBACK (on_document_solved), self,
+                               G_CONNECT_SWAPPED);
+    }
   rebuild (self);
 }
 

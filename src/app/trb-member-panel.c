@@ -803,13 +803,6 @@ on_add_load (TrbMemberPanel *self)
 /* ---- public ---------------------------------------------------------------------------------- */
 
 static void
-on_document_changed (TrbMemberPanel *self)
-{
-  /* the old results are about to go: show nothing of them until the new ones are in */
-  clear_dynamic_rows (self);
-}
-
-static void
 on_document_solved (TrbMemberPanel *self)
 {
   TrbProject *p = project_of (self);
@@ -831,7 +824,8 @@ trb_member_panel_set_document (TrbMemberPanel *self,
   self->member = NULL;
   if (document != NULL)
     {
-      g_signal_connect_object (document, "changed", G_CALLBACK (on_document_changed), self,
+      /* the member's own rows follow an edit at once, its checks when solved */
+      g_signal_connect_object (document, "changed", G_CALLBACK (on_document_solved), self,
                                G_CONNECT_SWAPPED);
       g_signal_connect_object (document, "solved", G_CALLBACK (on_document_solved), self,
                                G_CONNECT_SWAPPED);

@@ -317,8 +317,8 @@ static void
 on_document_changed (TrbPlanCanvas *self,
                      TrbDocument   *document)
 {
-  /* the scene borrows the results the solve is about to replace */
-  g_clear_pointer (&self->scene, trb_plan_scene_free);
+  /* drawn at once as it is now, with the results that stand until the solve is done */
+  on_document_solved (self, document);
 }
 
 static void

@@ -167,15 +167,6 @@ on_row_activated (TrbShortlistPanel *self,
 }
 
 static void
-on_document_changed (TrbShortlistPanel *self)
-{
-  GtkWidget *child;
-
-  while ((child = gtk_widget_get_first_child (GTK_WIDGET (self->list))) != NULL)
-    gtk_list_box_remove (self->list, child);
-}
-
-static void
 on_document_solved (TrbShortlistPanel *self)
 {
   if (self->member != NULL
@@ -197,7 +188,7 @@ trb_shortlist_panel_set_document (TrbShortlistPanel *self,
   self->member = NULL;
   if (document != NULL)
     {
-      g_signal_connect_object (document, "changed", G_CALLBACK (on_document_changed), self,
+      g_signal_connect_object (document, "changed", G_CALLBACK (on_document_solved), self,
                                G_CONNECT_SWAPPED);
       g_signal_connect_object (document, "solved", G_CALLBACK (on_document_solved), self,
                                G_CONNECT_SWAPPED);

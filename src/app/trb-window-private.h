@@ -27,6 +27,7 @@ struct _TrbWindow
   AdwToastOverlay      *toast_overlay;
   AdwWindowTitle       *window_title;
   AdwSplitButton       *open_button;
+  GtkSpinner           *solving_spinner;
   GtkRevealer          *banner;
   GtkLabel             *banner_label;
   GtkPaned             *main_paned;

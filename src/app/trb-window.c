@@ -112,8 +112,12 @@ on_edit_refused (TrbWindow  *self,
 static void
 on_document_notify (TrbWindow *self)
 {
+  gboolean solving = trb_document_get_solving (self->document);
+
   update_title (self);
   trb_window_update_actions (self);
+  gtk_widget_set_visible (GTK_WIDGET (self->solving_spinner), solving);
+  gtk_spinner_set_spinning (self->solving_spinner, solving);
 }
 
 static void
@@ -188,8 +192,7 @@ trb_window_set_document (TrbWindow   *self,
                                                       0),
                                    FALSE);
 
-  update_title (self);
-  trb_window_update_actions (self);
+  on_document_notify (self);
   g_object_notify_by_pspec (G_OBJECT (self), properties[PROP_DOCUMENT]);
   g_object_notify_by_pspec (G_OBJECT (self), properties[PROP_UNITS]);
 }
@@ -678,6 +681,7 @@ trb_window_class_init (TrbWindowClass *klass)
   gtk_widget_class_bind_template_child (widget_class, TrbWindow, toast_overlay);
   gtk_widget_class_bind_template_child (widget_class, TrbWindow, window_title);
   gtk_widget_class_bind_template_child (widget_class, TrbWindow, open_button);
+  gtk_widget_class_bind_template_child (widget_class, TrbWindow, solving_spinner);
   gtk_widget_class_bind_template_child (widget_class, TrbWindow, banner);
   gtk_widget_class_bind_template_child (widget_class, TrbWindow, banner_label);
   gtk_widget_class_bind_template_child (widget_class, TrbWindow, main_paned);

@@ -169,6 +169,11 @@ void            trb_edit_floor_item_free       (TrbFloorItemKind      kind,
 GPtrArray      *trb_edit_floor_items           (TrbFloor             *floor,
                                                 TrbFloorItemKind      kind);
 
+/* ---- a copy to solve on ------------------------------------------------------------------ */
+
+TrbProject     *trb_edit_project_copy          (const TrbProject     *project);
+void            trb_edit_project_copy_free     (TrbProject           *copy);
+
 /* ---- snapping: where a point drawn on the plan lands ------------------------------------- */
 
 typedef enum
