@@ -106,8 +106,17 @@ update (TrbShortlistPanel *self)
       g_autofree char *subtitle = g_strdup_printf (_("%s · ratio %.2f · %s governs"), weight,
                                                    e->ratio, e->governing);
       gboolean current = g_ascii_strcasecmp (e->section, self->member->section) == 0;
+      /* a sized member: its row is the program's choice, which picking fixes for good */
+      gboolean chosen = trb_member_is_auto (self->member)
+                        && g_ascii_strcasecmp (e->section, r->section) == 0;
+      GtkWidget *row = make_row (e->section, subtitle, current || chosen);
 
-      gtk_list_box_append (self->list, make_row (e->section, subtitle, current));
+      if (chosen)
+        {
+          gtk_list_box_row_set_activatable (GTK_LIST_BOX_ROW (row), TRUE);
+          gtk_widget_set_tooltip_text (row, _("The program's choice; pick it to keep it"));
+        }
+      gtk_list_box_append (self->list, row);
       g_ptr_array_add (self->choices, g_strdup (e->section));
     }
   gtk_stack_set_visible_child_name (self->stack, "list");

@@ -197,6 +197,20 @@ trb_window_set_document (TrbWindow   *self,
   g_object_notify_by_pspec (G_OBJECT (self), properties[PROP_UNITS]);
 }
 
+/**
+ * trb_window_show_page:
+ * @self: a window
+ * @page: "member", "diagrams" or "sections": the side panel's page to show
+ */
+void
+trb_window_show_page (TrbWindow  *self,
+                      const char *page)
+{
+  g_return_if_fail (TRB_IS_WINDOW (self));
+
+  adw_view_stack_set_visible_child_name (self->side_stack, page);
+}
+
 /* ---- messages -------------------------------------------------------------------------------- */
 
 /**

@@ -19,6 +19,8 @@ void           trb_window_set_document      (TrbWindow       *self,
                                              TrbDocument     *document);
 void           trb_window_set_units         (TrbWindow       *self,
                                              TrbUnitSystem    units);
+void           trb_window_show_page         (TrbWindow       *self,
+                                             const char      *page);
 void           trb_window_show_error        (TrbWindow       *self,
                                              const char      *message);
 void           trb_window_show_toast        (TrbWindow       *self,
