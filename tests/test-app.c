@@ -311,6 +311,98 @@ test_draw_beam (Fixture       *f,
   g_assert_null (trb_plan_canvas_get_selected_member (canvas));
 }
 
+/* A bay drawn from nothing, as docs/user-guide.md tells it: four columns 20 ft by 16 ft apart,
+ * two girders on them, a run of joists between the girders, an office live load over the
+ * bay. 1 ft = 0.3048 m exactly (NIST SP 811, Appendix B). */
+static void
+test_draw_bay (void)
+{
+  const double W = 20 * 0.3048, D = 16 * 0.3048;
+  g_autoptr(TrbDocument) document = trb_document_new (NULL);
+  TrbWindow *window = trb_window_new (app);
+  TrbPlanCanvas *canvas = TRB_PLAN_CANVAS (trb_window_get_canvas (window));
+  TrbProject *project = trb_document_get_project (document);
+  TrbFloor *floor = trb_document_get_floor (document);
+  TrbMember *g1, *g2;
+  guint n_joists;
+
+  trb_window_set_document (window, document);
+  gtk_window_set_default_size (GTK_WINDOW (window), 1400, 900);
+  gtk_window_present (GTK_WINDOW (window));
+  wait_solved (document);
+  wait_for_frames (GTK_WIDGET (window), 2);
+  g_assert_true (trb_document_is_untouched (document));
+
+  /* columns at the corners */
+  trb_plan_canvas_set_tool (canvas, TRB_TOOL_COLUMN);
+  trb_plan_canvas_click_plan (canvas, 0, 0, 0);
+  trb_plan_canvas_click_plan (canvas, W, 0, 0);
+  trb_plan_canvas_click_plan (canvas, 0, D, 0);
+  trb_plan_canvas_click_plan (canvas, W, D, 0);
+  g_assert_cmpuint (floor->columns->len, ==, 4);
+  g_assert_nonnull (trb_project_find_column (project, "C4", NULL));
+
+  /* girders from column to column: clicks a little off the columns snap onto them */
+  trb_plan_canvas_set_tool (canvas, TRB_TOOL_GIRDER);
+  trb_plan_canvas_click_plan (canvas, 0.02, -0.03, 0);
+  trb_plan_canvas_click_plan (canvas, W - 0.02, 0.01, 0);
+  trb_plan_canvas_click_plan (canvas, 0, D, 0);
+  trb_plan_canvas_click_plan (canvas, W, D, 0);
+  g1 = trb_project_find_member (project, "G1");
+  g2 = trb_project_find_member (project, "G2");
+  g_assert_nonnull (g1);
+  g_assert_nonnull (g2);
+  g_assert_cmpfloat (g1->start.x, ==, 0);
+  g_assert_cmpfloat (g1->start.y, ==, 0);
+  g_assert_cmpfloat (g1->end.x, ==, W);
+  g_assert_cmpfloat_with_epsilon (g1->length, W, 1e-12);
+
+  /* a joist run between the girders, in one step */
+  trb_plan_canvas_set_tool (canvas, TRB_TOOL_JOIST_RUN);
+  trb_plan_canvas_click_plan (canvas, 0.5, 0, 0);
+  trb_plan_canvas_click_plan (canvas, W / 2, D, 0);
+  g_assert_cmpuint (project->members->len, ==, 2);
+  trb_plan_canvas_finish (canvas);
+  n_joists = project->members->len - 2;
+  g_assert_cmpuint (n_joists, >, 10);
+  g_assert_cmpint (((TrbMember *) g_ptr_array_index (project->members, 2))->role, ==,
+                   TRB_FRAME_ROLE_JOIST);
+  {
+    g_autofree char *label = g_strdup_printf ("Lay out joists J1 to J%u", n_joists);
+
+    g_assert_cmpstr (trb_document_get_undo_label (document), ==, label);
+  }
+
+  /* the office live load over the bay, 50 psf (ASCE 7-16 Table 4.3-1), the tool's default */
+  trb_plan_canvas_set_tool (canvas, TRB_TOOL_AREA_LOAD);
+  trb_plan_canvas_click_plan (canvas, 0, 0, 0);
+  trb_plan_canvas_click_plan (canvas, W, 0, 0);
+  trb_plan_canvas_click_plan (canvas, W, D, 0);
+  trb_plan_canvas_click_plan (canvas, 0, D, 0);
+  trb_plan_canvas_finish (canvas);
+  g_assert_cmpuint (floor->area_loads->len, ==, 1);
+  g_assert_cmpint (((TrbAreaLoad *) g_ptr_array_index (floor->area_loads, 0))->lcase, ==,
+                   TRB_CASE_L);
+  g_assert_cmpfloat_with_epsilon (((TrbAreaLoad *) g_ptr_array_index (floor->area_loads,
+                                                                       0))->pressure,
+                                  50 * 4.4482216152605 / (0.3048 * 0.3048), 1e-9);
+
+  /* every member rests on something, is sized, and passes */
+  wait_solved (document);
+  for (guint i = 0; i < project->members->len; i++)
+    {
+      TrbMember *m = g_ptr_array_index (project->members, i);
+      const TrbMemberResult *r = trb_document_lookup_result (document, m);
+
+      g_assert_nonnull (r);
+      g_assert_cmpint (r->status, ==, TRB_STATUS_PASS);
+    }
+  g_assert_true (trb_document_get_modified (document));
+  gtk_window_destroy (GTK_WINDOW (window));
+  while (g_main_context_iteration (NULL, FALSE))
+    ;
+}
+
 /* Edits come faster than the solve: the plan and the list follow each at once, on the
  * results that stand (some of whose members the edits have freed), and the last solve
  * brings them up to date. */
@@ -509,6 +601,7 @@ main (int   argc,
               test_shortlist_assign, fixture_tear_down);
   g_test_add ("/trb/app/draw-beam", Fixture, NULL, fixture_set_up, test_draw_beam,
               fixture_tear_down);
+  g_test_add_func ("/trb/app/draw-bay", test_draw_bay);
   g_test_add ("/trb/app/edits-while-solving", Fixture, NULL, fixture_set_up,
               test_edits_while_solving, fixture_tear_down);
   g_test_add ("/trb/app/save-round-trip", Fixture, NULL, fixture_set_up, test_save_round_trip,
