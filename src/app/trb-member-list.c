@@ -127,6 +127,18 @@ update_summary (TrbMemberList *self)
     g_string_append_printf (s, ngettext ("%u needs attention", "%u need attention", failing),
                             failing);
   g_string_append_printf (s, " · %s · %s", steel_text, timber_text);
+  {
+    /* line and point loads that lie on no member: nothing carries them */
+    const TrbFloorResult *fr = trb_document_get_floor_result (self->document);
+    guint lost = fr != NULL && fr->unassigned != NULL ? fr->unassigned->len : 0;
+
+    if (lost > 0)
+      {
+        g_string_append (s, " · ");
+        g_string_append_printf (s, ngettext ("%u load on no member", "%u loads on no member",
+                                             lost), lost);
+      }
+  }
   self->summary = g_string_free (s, FALSE);
   gtk_label_set_text (self->summary_label, self->summary);
 }

@@ -502,7 +502,7 @@ update (TrbMemberPanel *self)
   self->setting = FALSE;
 }
 
-/* ---- handlers --------------------------------------------------------------------------------- */
+/* ---- handlers ------------------------------------------------------------------------------- */
 
 static void
 on_mark_apply (TrbMemberPanel *self)
