@@ -5,6 +5,7 @@
 
 #include "trb-cli-report.h"
 
+#include <glib/gi18n.h>
 #include <stdio.h>
 #include <string.h>
 
@@ -16,41 +17,58 @@
 #define EXIT_WRITTEN 0
 #define EXIT_USAGE   2
 
-static const char report_usage[] =
-  "Usage:\n"
-  "  trabeate-cli report FILE -o OUT.pdf|OUT.svg|OUT.png [options]\n"
-  "\n"
-  "Writes the printed report: a summary, the framing plan of each floor, a sheet for each\n"
-  "member (loading, shear, moment and deflection diagrams, checks, reactions, shortlist),\n"
-  "the schedule of members and column loads, and the changes since a previous version.\n"
-  "PDF holds every page; SVG and PNG write one file a page (OUT.svg, OUT-2.svg, ...).\n"
-  "\n"
-  "Options:\n"
-  "  -o, --output OUT     the file to write (required)\n"
-  "  --paper NAME         Letter, Legal, Tabloid, A4 or A3 (default Letter, A4 for SI)\n"
-  "  --landscape          landscape pages\n"
-  "  --scale S            the plan's scale: 1:100, 1/8\"=1'-0\", ... (default: the largest\n"
-  "                       usual scale that fits)\n"
-  "  --sheets LIST        summary,plan,members,schedule,changes (default all)\n"
-  "  --member ID          a member sheet only for this member (repeat for more)\n"
-  "  --since OLD          compare with an earlier version of the project file: ring the\n"
-  "                       changed members with revision clouds and list them\n"
-  "  --title TEXT         the project's name in the title block (default the file's)\n"
-  "  --engineer TEXT      the engineer's name in the title block\n"
-  "  --revision TEXT      the revision in the title block\n"
-  "  --date TEXT          the date in the title block (default today)\n"
-  "  --dpi N              resolution of PNG pages (default 150)\n"
-  "\n"
-  "Exit status: 0 written; 2 bad input or usage, or the file could not be written.\n";
+static const char *const report_usage_msgid =
+  /* Translators: the help of the report command. Keep the command, the options, the
+   * paper names and the sheet names (summary, plan, ...) as they are; keep each line within
+   * 80 columns */
+  N_("Usage:\n"
+     "  trabeate-cli report FILE -o OUT.pdf|OUT.svg|OUT.png [options]\n"
+     "\n"
+     "Writes the printed report: a summary, the framing plan of each floor, a sheet for each\n"
+     "member (loading, shear, moment and deflection diagrams, checks, reactions, shortlist),\n"
+     "the schedule of members and column loads, and the changes since a previous version.\n"
+     "PDF holds every page; SVG and PNG write one file a page (OUT.svg, OUT-2.svg, ...).\n"
+     "\n"
+     "Options:\n"
+     "  -o, --output OUT     the file to write (required)\n"
+     "  --paper NAME         Letter, Legal, Tabloid, A4 or A3 (default Letter, A4 for SI)\n"
+     "  --landscape          landscape pages\n"
+     "  --scale S            the plan's scale: 1:100, 1/8\"=1'-0\", ... (default: the largest\n"
+     "                       usual scale that fits)\n"
+     "  --sheets LIST        summary,plan,members,schedule,changes (default all)\n"
+     "  --member ID          a member sheet only for this member (repeat for more)\n"
+     "  --since OLD          compare with an earlier version of the project file: ring the\n"
+     "                       changed members with revision clouds and list them\n"
+     "  --title TEXT         the project's name in the title block (default the file's)\n"
+     "  --engineer TEXT      the engineer's name in the title block\n"
+     "  --revision TEXT      the revision in the title block\n"
+     "  --date TEXT          the date in the title block (default today)\n"
+     "  --dpi N              resolution of PNG pages (default 150)\n"
+     "\n"
+     "Exit status: 0 written; 2 bad input or usage, or the file could not be written.\n");
 
-static const char plan_usage[] =
-  "Usage:\n"
-  "  trabeate-cli plan FILE -o OUT.svg|OUT.png|OUT.pdf [--width N --height N] [--floor NAME]\n"
-  "\n"
-  "Draws one floor's framing plan, as the editor shows it, fitted to the size (pixels for\n"
-  "PNG, points for SVG and PDF; default 1600 x 1000).\n"
-  "\n"
-  "Exit status: 0 written; 2 bad input or usage, or the file could not be written.\n";
+static const char *
+report_usage (void)
+{
+  return _(report_usage_msgid);
+}
+
+static const char *const plan_usage_msgid =
+  /* Translators: the help of the plan command. Keep the command and the options as they
+   * are; keep each line within 80 columns */
+  N_("Usage:\n"
+     "  trabeate-cli plan FILE -o OUT.svg|OUT.png|OUT.pdf [--width N --height N] [--floor NAME]\n"
+     "\n"
+     "Draws one floor's framing plan, as the editor shows it, fitted to the size (pixels for\n"
+     "PNG, points for SVG and PDF; default 1600 x 1000).\n"
+     "\n"
+     "Exit status: 0 written; 2 bad input or usage, or the file could not be written.\n");
+
+static const char *
+plan_usage (void)
+{
+  return _(plan_usage_msgid);
+}
 
 static int
 usage_error (const char *usage,
@@ -87,6 +105,7 @@ trb_cli_report (int    argc,
   gboolean landscape = FALSE;
   double dpi = 150;
   const GOptionEntry entries[] = {
+    /* The descriptions are never shown (the help is report_usage), so they are not marked. */
     { "output", 'o', 0, G_OPTION_ARG_FILENAME, &output, "The file to write", "OUT" },
     { "paper", 0, 0, G_OPTION_ARG_STRING, &paper, "Paper size", "NAME" },
     { "landscape", 0, 0, G_OPTION_ARG_NONE, &landscape, "Landscape pages", NULL },
@@ -112,21 +131,22 @@ trb_cli_report (int    argc,
 
   if (wants_help (argc, argv))
     {
-      fputs (report_usage, stdout);
+      fputs (report_usage (), stdout);
       return EXIT_WRITTEN;
     }
   g_option_context_set_help_enabled (context, FALSE);
   g_option_context_add_main_entries (context, entries, NULL);
   if (!g_option_context_parse (context, &argc, &argv, &error))
-    return usage_error (report_usage, error->message);
+    return usage_error (report_usage (), error->message);
   if (argc != 2)
-    return usage_error (report_usage, argc < 2 ? "report needs a FILE" : "report takes one FILE");
+    return usage_error (report_usage (), argc < 2 ? _("report needs a FILE")
+                                                  : _("report takes one FILE"));
   if (argv[1][0] == '-' && argv[1][1] != '\0')
-    return usage_error (report_usage, "unknown option");
+    return usage_error (report_usage (), _("unknown option"));
   if (output == NULL)
-    return usage_error (report_usage, "report needs -o OUT.pdf (or .svg, .png)");
+    return usage_error (report_usage (), _("report needs -o OUT.pdf (or .svg, .png)"));
   if (!(dpi >= 10 && dpi <= 1200))
-    return usage_error (report_usage, "--dpi must be 10 to 1200");
+    return usage_error (report_usage (), _("--dpi must be 10 to 1200"));
 
   project = trb_project_load_file (argv[1], &error);
   if (project == NULL)
@@ -136,16 +156,17 @@ trb_cli_report (int    argc,
     }
   trb_report_options_init (&options, project);
   if (paper != NULL && !trb_paper_from_name (paper, &options.paper))
-    return usage_error (report_usage, "--paper: choose Letter, Legal, Tabloid, A4 or A3");
+    /* Translators: keep the paper names */
+    return usage_error (report_usage (), _("--paper: choose Letter, Legal, Tabloid, A4 or A3"));
   options.landscape = landscape;
   if (scale != NULL && g_ascii_strcasecmp (scale, "fit") != 0)
     {
       if (!trb_drawing_scale_parse (scale, &options.scale, &error))
-        return usage_error (report_usage, error->message);
+        return usage_error (report_usage (), error->message);
       options.has_scale = TRUE;
     }
   if (sheets != NULL && !trb_report_sheets_parse (sheets, &options.sheets, &error))
-    return usage_error (report_usage, error->message);
+    return usage_error (report_usage (), error->message);
   options.members = (const char *const *) members;
   options.title = title;
   options.engineer = engineer;
@@ -173,14 +194,17 @@ trb_cli_report (int    argc,
       fprintf (stderr, "%s\n", error->message);
       return EXIT_USAGE;
     }
-  printf ("Wrote %s: %u page%s\n", output, trb_report_get_n_pages (report),
-          trb_report_get_n_pages (report) == 1 ? "" : "s");
+  printf (ngettext ("Wrote %s: %u page\n", "Wrote %s: %u pages\n",
+                    trb_report_get_n_pages (report)),
+          output, trb_report_get_n_pages (report));
   if (since != NULL)
     {
       const char *const *marks = trb_report_get_clouded (report);
       g_autofree char *list = g_strjoinv (" ", (char **) marks);
 
-      printf ("Clouded (changed since %s): %s\n", old->name, marks[0] != NULL ? list : "none");
+      /* Translators: the marks of the members ringed with revision clouds */
+      printf (_("Clouded (changed since %s): %s\n"), old->name,
+              marks[0] != NULL ? list : _("none"));
     }
   return fflush (stdout) == 0 ? EXIT_WRITTEN : EXIT_USAGE;
 }
@@ -193,6 +217,7 @@ trb_cli_plan (int    argc,
   g_autofree char *floor_name = NULL;
   int width = 1600, height = 1000;
   const GOptionEntry entries[] = {
+    /* The descriptions are never shown (the help is plan_usage), so they are not marked. */
     { "output", 'o', 0, G_OPTION_ARG_FILENAME, &output, "The file to write", "OUT" },
     { "width", 0, 0, G_OPTION_ARG_INT, &width, "Width", "N" },
     { "height", 0, 0, G_OPTION_ARG_INT, &height, "Height", "N" },
@@ -207,19 +232,20 @@ trb_cli_plan (int    argc,
 
   if (wants_help (argc, argv))
     {
-      fputs (plan_usage, stdout);
+      fputs (plan_usage (), stdout);
       return EXIT_WRITTEN;
     }
   g_option_context_set_help_enabled (context, FALSE);
   g_option_context_add_main_entries (context, entries, NULL);
   if (!g_option_context_parse (context, &argc, &argv, &error))
-    return usage_error (plan_usage, error->message);
+    return usage_error (plan_usage (), error->message);
   if (argc != 2)
-    return usage_error (plan_usage, argc < 2 ? "plan needs a FILE" : "plan takes one FILE");
+    return usage_error (plan_usage (), argc < 2 ? _("plan needs a FILE")
+                                                : _("plan takes one FILE"));
   if (argv[1][0] == '-' && argv[1][1] != '\0')
-    return usage_error (plan_usage, "unknown option");
+    return usage_error (plan_usage (), _("unknown option"));
   if (output == NULL)
-    return usage_error (plan_usage, "plan needs -o OUT.svg (or .png, .pdf)");
+    return usage_error (plan_usage (), _("plan needs -o OUT.svg (or .png, .pdf)"));
 
   project = trb_project_load_file (argv[1], &error);
   if (project == NULL)
@@ -229,7 +255,7 @@ trb_cli_plan (int    argc,
     }
   if (project->floors->len == 0)
     {
-      fprintf (stderr, "%s: the project has no floor, so no plan to draw\n", project->name);
+      fprintf (stderr, _("%s: the project has no floor, so no plan to draw\n"), project->name);
       return EXIT_USAGE;
     }
   if (floor_name != NULL)
@@ -237,7 +263,7 @@ trb_cli_plan (int    argc,
       floor = trb_project_find_floor (project, floor_name);
       if (floor == NULL)
         {
-          fprintf (stderr, "%s: no floor named \"%s\"\n", project->name, floor_name);
+          fprintf (stderr, _("%s: no floor named \"%s\"\n"), project->name, floor_name);
           return EXIT_USAGE;
         }
     }
@@ -250,6 +276,7 @@ trb_cli_plan (int    argc,
       fprintf (stderr, "%s\n", error->message);
       return EXIT_USAGE;
     }
-  printf ("Wrote %s: plan of %s, %d x %d\n", output, floor->name, width, height);
+  /* Translators: "Wrote plan.svg: plan of Mezzanine, 1600 x 1000" */
+  printf (_("Wrote %s: plan of %s, %d x %d\n"), output, floor->name, width, height);
   return fflush (stdout) == 0 ? EXIT_WRITTEN : EXIT_USAGE;
 }

@@ -4,6 +4,7 @@
 #include "config.h"
 
 #include <glib.h>
+#include <glib/gi18n.h>
 #include <locale.h>
 #include <math.h>
 #include <stdio.h>
@@ -33,26 +34,131 @@
                   "the upward forces left of x; M positive sagging; defl_down and defl_up are " \
                   "magnitudes of the largest downward and upward deflections"
 
-static const char usage_text[] =
-  "Usage:\n"
-  "  trabeate-cli check FILE [--json] [--member ID]\n"
-  "  trabeate-cli schedule FILE [--csv] [--member ID]\n"
-  "  trabeate-cli --help | --version\n"
-  "\n"
-  "Commands:\n"
-  "  check      analyse every member of a project file (floors through their load\n"
-  "             takedown) and print the results, column and wall loads and totals\n"
-  "  schedule   the member schedule and the column load table\n"
-  "\n"
-  "Options:\n"
-  "  --json         check: write the results as JSON (SI units) instead of a table\n"
-  "  --csv          schedule: write CSV (the project's units, named in the header)\n"
-  "  --member ID    only the member with this id and the members resting on it\n"
-  "  --no-shortcuts solve every member in full, without the cache of identical members\n"
-  "                 and the sizing bounds (for verification: the results are the same)\n"
-  "\n"
-  "Exit status: 0 every member passes; 1 some member fails, is unstable or unsupported,\n"
-  "or is not designed; 2 bad input or usage.\n";
+/* The cautions of trb-cautions.h are translated where they are printed, by their text.
+ * xgettext reads no macro, so that text is spelled out once more here for the template;
+ * tests/test-i18n.py checks that the two stay the same. */
+static const char *const caution_msgids[] G_GNUC_UNUSED = {
+  N_("Results are for design or review by a licensed engineer; local building codes govern."),
+  N_("Not checked: connections and hangers, web yielding and crippling, supporting members, "
+     "notches and holes, lateral loads and diaphragms, bracing design, ponding, vibration, "
+     "torsion, fire, durability, construction loads."),
+  N_("The inputs (spans, loads, grades, moisture, bracing) are the user's."),
+  N_("Columns and walls are shown with the loads they receive; they are not designed."),
+};
+
+/* The names the design checks give themselves in core (trb_check_set), translated where a
+ * table shows them; JSON and CSV keep them as they are. Listed here for the template, like
+ * the cautions; tests/test-i18n.py checks the list against core. */
+static const char *const check_msgids[] G_GNUC_UNUSED = {
+  N_("Bearing"),
+  N_("Flexure"),
+  N_("Live deflection"),
+  N_("Section modulus"),
+  N_("Shear"),
+  N_("Total deflection"),
+  N_("Web shear"),
+};
+
+/* The project file's words for roles, materials and supports (trb-model.c), which the table
+ * shows in the reader's language; listed here for the template. */
+static const char *const word_msgids[] G_GNUC_UNUSED = {
+  NC_("role", "girder"),
+  NC_("role", "beam"),
+  NC_("role", "joist"),
+  NC_("material", "steel"),
+  NC_("material", "wood"),
+  NC_("material", "custom"),
+  NC_("support", "pin"),
+  NC_("support", "roller"),
+  NC_("support", "fixed"),
+  NC_("status", "pass"),
+  NC_("status", "fail"),
+  NC_("status", "unstable"),
+  NC_("status", "unsupported"),
+  NC_("status", "not-designed"),
+  NC_("status", "error"),
+};
+
+/* A name from core in the reader's language, when the catalog has it. */
+static const char *
+core_text (const char *s)
+{
+  return s != NULL && s[0] != '\0' ? _(s) : s;
+}
+
+static const char *
+role_text (TrbFrameRole role)
+{
+  return g_dpgettext2 (GETTEXT_PACKAGE, "role", trb_role_name (role));
+}
+
+static const char *
+material_text (TrbMaterial material)
+{
+  return g_dpgettext2 (GETTEXT_PACKAGE, "material", trb_material_name (material));
+}
+
+static const char *
+support_text (TrbSupportType type)
+{
+  return g_dpgettext2 (GETTEXT_PACKAGE, "support", trb_support_type_name (type));
+}
+
+/* The schedule's short word for a status (the table's sentence-like one is status_text). */
+static const char *
+status_word (TrbStatus status)
+{
+  return g_dpgettext2 (GETTEXT_PACKAGE, "status", trb_status_name (status));
+}
+
+static const char *const usage_text_msgid =
+  /* Translators: the command's help. Keep the command names, the options (--json, --csv,
+   * --member, --no-shortcuts, --help, --version) and the exit codes as they are; keep each
+   * line within 80 columns. */
+  N_("Usage:\n"
+     "  trabeate-cli check FILE [--json] [--member ID]\n"
+     "  trabeate-cli schedule FILE [--csv] [--member ID]\n"
+     "  trabeate-cli --help | --version\n"
+     "\n"
+     "Commands:\n"
+     "  check      analyse every member of a project file (floors through their load\n"
+     "             takedown) and print the results, column and wall loads and totals\n"
+     "  schedule   the member schedule and the column load table\n"
+     "\n"
+     "Options:\n"
+     "  --json         check: write the results as JSON (SI units) instead of a table\n"
+     "  --csv          schedule: write CSV (the project's units, named in the header)\n"
+     "  --member ID    only the member with this id and the members resting on it\n"
+     "  --no-shortcuts solve every member in full, without the cache of identical members\n"
+     "                 and the sizing bounds (for verification: the results are the same)\n"
+     "\n"
+     "Exit status: 0 every member passes; 1 some member fails, is unstable or unsupported,\n"
+     "or is not designed; 2 bad input or usage.\n");
+
+static const char *
+usage_text (void)
+{
+  return _(usage_text_msgid);
+}
+
+/* printf pads by bytes; a field of translated text is padded by characters instead, so that
+ * "viga" and "sección" line up alike. The width to give printf for s to take width columns. */
+static int
+pad (const char *s,
+     int         width)
+{
+  return width + (int) strlen (s) - (int) g_utf8_strlen (s, -1);
+}
+
+/* The cautions at the head of a table (not the inputs) and at its end (all three). */
+static void
+append_cautions (GString  *out,
+                 gboolean  inputs)
+{
+  g_string_append_printf (out, "%s %s\n%s\n", _("CAUTION:"), _(CAUTION_1), _(CAUTION_2));
+  if (inputs)
+    g_string_append_printf (out, "%s\n", _(CAUTION_3));
+}
 
 /* Output goes to standard output as it is made, a piece at a time, so that a floor of ten
  * thousand members never sits in memory as text. */
@@ -927,18 +1033,19 @@ status_text (TrbStatus status)
 {
   switch (status)
     {
+    /* Translators: a member's status in the table; the capitals mark what needs attention. */
     case TRB_STATUS_PASS:
-      return "passes";
+      return _("passes");
     case TRB_STATUS_FAIL:
-      return "FAILS";
+      return _("FAILS");
     case TRB_STATUS_UNSTABLE:
-      return "UNSTABLE";
+      return _("UNSTABLE");
     case TRB_STATUS_UNSUPPORTED:
-      return "UNSUPPORTED";
+      return _("UNSUPPORTED");
     case TRB_STATUS_NOT_DESIGNED:
-      return "not designed";
+      return _("not designed");
     case TRB_STATUS_ERROR:
-      return "ERROR";
+      return _("ERROR");
     default:
       g_return_val_if_reached ("?");
     }
@@ -957,15 +1064,18 @@ table_reactions (GString               *out,
   for (guint i = 0; i < n; i++)
     fixed |= s[i].type == TRB_SUPPORT_FIXED;
 
-  g_string_append_printf (out, "  Reactions, up +%s\n",
-                          fixed ? " (M: moments, counter-clockwise +)" : "");
-  g_string_append (out, "    case ");
+  g_string_append_printf (out, "  %s\n",
+                          fixed ? _("Reactions, up + (M: moments, counter-clockwise +)")
+                                : _("Reactions, up +"));
+  /* Translators: the heading of the column of load cases (D, L, ...); at most 4 letters */
+  g_string_append_printf (out, "    %-*s ", pad (_("case"), 4), _("case"));
   for (guint i = 0; i < n; i++)
     {
       g_autofree char *x = fmt (s[i].x, TRB_DIM_LENGTH, u);
-      g_autofree char *head = g_strdup_printf ("at %s", x);
+      /* Translators: a column of reactions: the support at this distance from the left end */
+      g_autofree char *head = g_strdup_printf (_("at %s"), x);
 
-      g_string_append_printf (out, " %14s", head);
+      g_string_append_printf (out, " %*s", pad (head, 14), head);
     }
   g_string_append_c (out, '\n');
 
@@ -1010,7 +1120,9 @@ table_line (GString       *out,
 {
   g_autofree char *xs = fmt (x, TRB_DIM_LENGTH, u);
 
-  g_string_append_printf (out, "    %-16s %14s  at %-12s %s\n", label, value, xs, by);
+  /* Translators: "shear max   7.48 kip  at 0'-0"  ASD 2: D + L": where along the member */
+  g_string_append_printf (out, "    %-*s %14s  %s %-12s %s\n", pad (label, 16), label, value,
+                          C_("position", "at"), xs, by);
 }
 
 static void
@@ -1033,20 +1145,20 @@ table_envelope (GString                 *out,
       g_autofree char *mmax = fmt (e->M_max, TRB_DIM_MOMENT, u);
       g_autofree char *mmin = fmt (e->M_min, TRB_DIM_MOMENT, u);
 
-      table_line (out, "shear max", vmax, e->V_max_x, env->V_max_by, u);
-      table_line (out, "shear min", vmin, e->V_min_x, env->V_min_by, u);
-      table_line (out, "moment max (+)", mmax, e->M_max_x, env->M_max_by, u);
-      table_line (out, "moment min (-)", mmin, e->M_min_x, env->M_min_by, u);
+      table_line (out, _("shear max"), vmax, e->V_max_x, env->V_max_by, u);
+      table_line (out, _("shear min"), vmin, e->V_min_x, env->V_min_by, u);
+      table_line (out, _("moment max (+)"), mmax, e->M_max_x, env->M_max_by, u);
+      table_line (out, _("moment min (-)"), mmin, e->M_min_x, env->M_min_by, u);
     }
   {
     g_autofree char *dd = fmt_defl (e->defl_down, u);
     g_autofree char *du = fmt_defl (e->defl_up, u);
 
     /* below a nanometre is rounding, not a movement worth a line */
-    table_line (out, "deflection down", dd, e->defl_down_x,
+    table_line (out, _("deflection down"), dd, e->defl_down_x,
                 e->defl_down > 1e-9 ? env->defl_down_by : "", u);
     if (e->defl_up > 1e-9)
-      table_line (out, "deflection up", du, e->defl_up_x, env->defl_up_by, u);
+      table_line (out, _("deflection up"), du, e->defl_up_x, env->defl_up_by, u);
   }
 }
 
@@ -1068,22 +1180,26 @@ table_checks (GString               *out,
 {
   if (r->checks->len == 0)
     return;
-  g_string_append (out, "  Checks                 demand       capacity   ratio  governing\n");
+  g_string_append_printf (out, "  %-*s %*s %*s %*s  %s\n", pad (_("Checks"), 16), _("Checks"),
+                          pad (_("demand"), 12), _("demand"), pad (_("capacity"), 14),
+                          _("capacity"), pad (_("ratio"), 7), _("ratio"), _("governing"));
   for (guint i = 0; i < r->checks->len; i++)
     {
       const TrbCheck *ck = &g_array_index (r->checks, TrbCheck, i);
+      const char *name = core_text (ck->name);
 
       if (isnan (ck->ratio))
         {
-          g_string_append_printf (out, "    %-18s %s: %s\n", ck->name, ck->clause, ck->detail);
+          g_string_append_printf (out, "    %-*s %s: %s\n", pad (name, 18), name, ck->clause,
+                                  ck->detail);
           continue;
         }
       {
         g_autofree char *d = fmt_check_value (ck->demand, ck->dimension, r->units);
         g_autofree char *c = fmt_check_value (ck->capacity, ck->dimension, r->units);
 
-        g_string_append_printf (out, "    %-18s %11s %14s  %6.3f  %s\n", ck->name, d, c,
-                                ck->ratio, ck->combination);
+        g_string_append_printf (out, "    %-*s %11s %14s  %6.3f  %s\n", pad (name, 18), name, d,
+                                c, ck->ratio, ck->combination);
         g_string_append_printf (out, "    %-18s %s%s%s\n", "", ck->clause,
                                 ck->detail[0] != '\0' ? "; " : "", ck->detail);
       }
@@ -1096,14 +1212,14 @@ table_shortlist (GString               *out,
 {
   if (r->shortlist->len == 0)
     return;
-  g_string_append (out, "  Passing sections, lightest first\n");
+  g_string_append_printf (out, "  %s\n", _("Passing sections, lightest first"));
   for (guint i = 0; i < r->shortlist->len; i++)
     {
       const TrbShortlistEntry *e = &g_array_index (r->shortlist, TrbShortlistEntry, i);
       g_autofree char *w = fmt (e->weight, TRB_DIM_WEIGHT_PER_LENGTH, r->units);
 
-      g_string_append_printf (out, "    %-12s %12s  ratio %.3f  %s\n", e->section, w, e->ratio,
-                              e->governing);
+      g_string_append_printf (out, "    %-12s %12s  %s %.3f  %s\n", e->section, w, _("ratio"),
+                              e->ratio, core_text (e->governing));
     }
 }
 
@@ -1139,8 +1255,12 @@ reduction_text (const TrbReductionUse *use,
   g_autofree char *area = g_strdup_printf ("%.0f %s", area_display (use->area, u),
                                            area_unit (u));
 
-  return g_strdup_printf ("A_T %s, K_LL %.0f, %u floor%s: factor %.3f (%s)", area, use->k_ll,
-                          use->floors, use->floors == 1 ? "" : "s", use->factor,
+  /* Translators: live load reduction, ASCE 7-16 §4.7: the tributary area A_T, the element
+   * factor K_LL, the floors supported and the reduction factor; keep A_T and K_LL */
+  return g_strdup_printf (ngettext ("A_T %s, K_LL %.0f, %u floor: factor %.3f (%s)",
+                                    "A_T %s, K_LL %.0f, %u floors: factor %.3f (%s)",
+                                    use->floors),
+                          area, use->k_ll, use->floors, use->factor,
                           trb_live_rule_describe (use->rule));
 }
 
@@ -1155,11 +1275,13 @@ table_floor_member (GString               *out,
   g_autofree char *from = fmt_point (m->start.x, m->start.y, u);
   g_autofree char *to = fmt_point (m->end.x, m->end.y, u);
 
-  g_string_append_printf (out, "  Floor %s: %s from %s to %s\n", m->floor->name,
-                          trb_role_name (m->role), from, to);
-  g_string_append (out, "  Supports (reactions handed down, live load unreduced):\n");
+  /* Translators: "Floor Mezzanine: joist from (0'-0", 0'-0") to (0'-0", 16'-0")" */
+  g_string_append_printf (out, _("  Floor %s: %s from %s to %s\n"), m->floor->name,
+                          role_text (m->role), from, to);
+  g_string_append_printf (out, "  %s\n",
+                          _("Supports (reactions handed down, live load unreduced):"));
   if (r->bearings == NULL || r->bearings->len == 0)
-    g_string_append (out, "    none\n");
+    g_string_append_printf (out, "    %s\n", _("none"));
   for (guint i = 0; r->bearings != NULL && i < r->bearings->len; i++)
     {
       const TrbMemberBearing *b = &g_array_index (r->bearings, TrbMemberBearing, i);
@@ -1167,16 +1289,26 @@ table_floor_member (GString               *out,
       g_autofree char *on = NULL;
 
       if (b->own)
-        on = g_strdup ("its own support");
-      else if (b->kind == TRB_BEARING_MEMBER || b->kind == TRB_BEARING_WALL)
+        on = g_strdup (_("its own support"));
+      else if (b->kind == TRB_BEARING_MEMBER)
         {
           g_autofree char *pos = fmt (b->position, TRB_DIM_LENGTH, u);
 
-          on = g_strdup_printf ("%s %s at %s", bearing_on (b), b->id, pos);
+          /* Translators: "member G1 at 10'-0"": the member it rests on, and where along it */
+          on = g_strdup_printf (_("member %s at %s"), b->id, pos);
+        }
+      else if (b->kind == TRB_BEARING_WALL)
+        {
+          g_autofree char *pos = fmt (b->position, TRB_DIM_LENGTH, u);
+
+          /* Translators: "wall W1 at 10'-0"": the wall it rests on, and where along it */
+          on = g_strdup_printf (_("wall %s at %s"), b->id, pos);
         }
       else
-        on = g_strdup_printf ("column %s", b->id);
-      g_string_append_printf (out, "    at %-10s on %s", x, on);
+        on = g_strdup_printf (_("column %s"), b->id);
+      /* Translators: "at 16'-0"     on column A2": a support of the member, and what it
+       * rests on; the first %s is padded to 10 columns */
+      g_string_append_printf (out, _("    at %-10s on %s"), x, on);
       if (r->analysed)
         for (guint c = 0; c < TRB_N_CASES; c++)
           {
@@ -1193,10 +1325,10 @@ table_floor_member (GString               *out,
     {
       g_autofree char *text = reduction_text (&r->reduction, u);
 
-      g_string_append_printf (out, "  Live load reduction: %s\n", text);
+      g_string_append_printf (out, _("  Live load reduction: %s\n"), text);
     }
   if (r->plan_note != NULL)
-    g_string_append_printf (out, "  Note: %s\n", r->plan_note);
+    g_string_append_printf (out, _("  Note: %s\n"), r->plan_note);
 }
 
 static void
@@ -1212,50 +1344,61 @@ table_member (GString               *out,
 
   /* A sized member shows what was chosen; a checked one shows what the engineer named. */
   if (trb_member_is_auto (m) && r->section[0] != '\0' && g_strcmp0 (r->section, "auto") != 0)
-    section = g_strdup_printf ("%s (sized from \"auto\")", r->section);
+    /* Translators: keep "auto": it is what the project file says */
+    section = g_strdup_printf (_("%s (sized from \"auto\")"), r->section);
   else
     section = g_strdup (m->section);
-  g_string_append_printf (out, "\nMember %s (line %d): %s, section %s, length %s, method %s\n",
-                          m->id, m->line, trb_material_name (m->material), section, len,
+  /* Translators: "Member M1 (line 11): steel, section W12X26, length 22'-0", method asd";
+   * the line is the line of the project file; keep asd, lrfd and allowable */
+  g_string_append_printf (out, _("\nMember %s (line %d): %s, section %s, length %s, method %s\n"),
+                          m->id, m->line, material_text (m->material), section, len,
                           trb_method_name (r->method));
   if (m->floor != NULL)
     table_floor_member (out, r);
   else
     {
-      g_string_append (out, "  Supports:");
+      g_string_append_printf (out, "  %s", _("Supports:"));
       for (guint i = 0; i < m->supports->len; i++)
         {
           const TrbMemberSupport *s = &g_array_index (m->supports, TrbMemberSupport, i);
           g_autofree char *x = fmt (s->support.x, TRB_DIM_LENGTH, u);
 
-          g_string_append_printf (out, "%s %s at %s", i > 0 ? ";" : "",
-                                  trb_support_type_name (s->support.type), x);
+          /* Translators: "pin at 0'-0"": a support of a beam and where it is */
+          g_string_append_printf (out, "%s ", i > 0 ? ";" : "");
+          g_string_append_printf (out, _("%s at %s"), support_text (s->support.type), x);
         }
-      g_string_append (out, m->supports->len == 0 ? " none\n" : "\n");
+      if (m->supports->len == 0)
+        g_string_append_printf (out, " %s", _("none"));
+      g_string_append_c (out, '\n');
     }
-  g_string_append_printf (out, "  Status: %s%s%s\n", status_text (r->status),
+  g_string_append_printf (out, "  %s %s%s%s\n", _("Status:"), status_text (r->status),
                           r->message != NULL ? " - " : "", r->message != NULL ? r->message : "");
   if (r->analysed && r->self_weight > 0)
     {
       g_autofree char *sw = fmt (r->self_weight, TRB_DIM_WEIGHT_PER_LENGTH, u);
 
-      g_string_append_printf (out, "  Self-weight %s included in D\n", sw);
+      /* Translators: D is the dead load case; keep it */
+      g_string_append_printf (out, _("  Self-weight %s included in D\n"), sw);
     }
   for (guint i = 0; i < r->notes->len; i++)
-    g_string_append_printf (out, "  Note: %s\n", (const char *) g_ptr_array_index (r->notes, i));
+    g_string_append_printf (out, _("  Note: %s\n"),
+                            (const char *) g_ptr_array_index (r->notes, i));
 
   if (!r->analysed)
     return;
 
   table_reactions (out, r);
   {
+    /* Translators: "Envelope of the ASD combinations, ASCE 7-16 §2.4.1"; the name of the
+     * combinations is not translated */
     g_autofree char *title =
-      g_strdup_printf ("Envelope of the %s%s", trb_combo_set_title (r->strength.set),
-                       r->patterns->len > 0 ? ", with live-load patterns" : "");
+      g_strdup_printf (r->patterns->len > 0 ? _("Envelope of the %s, with live-load patterns")
+                                            : _("Envelope of the %s"),
+                       trb_combo_set_title (r->strength.set));
     table_envelope (out, &r->strength, TRUE, title, u);
   }
-  table_envelope (out, &r->live, FALSE, "Live-load deflection (service)", u);
-  table_envelope (out, &r->total, FALSE, "Total-load deflection (service)", u);
+  table_envelope (out, &r->live, FALSE, _("Live-load deflection (service)"), u);
+  table_envelope (out, &r->total, FALSE, _("Total-load deflection (service)"), u);
   table_checks (out, r);
   table_shortlist (out, r);
 }
@@ -1267,20 +1410,24 @@ table_summary (GString         *out,
 {
   GPtrArray *results = sel->pr->members;
 
-  g_string_append (out, "\nSummary\n  mark       section          status         ratio  "
-                   "governing\n");
+  g_string_append_printf (out, "\n%s\n  %-*s %-*s %-*s %*s  %s\n", _("Summary"),
+                          pad (_("mark"), 10), _("mark"), pad (_("section"), 16), _("section"),
+                          pad (_("status"), 13), _("status"), pad (_("ratio"), 6), _("ratio"),
+                          _("governing"));
   for (guint i = 0; i < results->len; i++)
     {
       const TrbMemberResult *r = g_ptr_array_index (results, i);
       g_autofree char *ratio = isnan (r->ratio) ? g_strdup ("-")
                                                 : g_strdup_printf ("%.3f", r->ratio);
 
+      const char *status = status_text (r->status);
+
       if (!sel->shown[i])
         continue;
-      g_string_append_printf (out, "  %-10s %-16s %-13s %6s  %s\n", r->member->id,
+      g_string_append_printf (out, "  %-10s %-16s %-*s %6s  %s\n", r->member->id,
                               r->section[0] != '\0' ? r->section : r->member->section,
-                              status_text (r->status), ratio,
-                              r->governing[0] != '\0' ? r->governing : "-");
+                              pad (status, 13), status, ratio,
+                              r->governing[0] != '\0' ? core_text (r->governing) : "-");
       maybe_flush (out);
     }
 }
@@ -1328,23 +1475,29 @@ table_floors (GString         *out,
       const char *name = fr->floor->name != NULL ? fr->floor->name : "";
 
       if (fr->error != NULL)
-        g_string_append_printf (out, "\nFloor %s could not be framed: %s\n", name, fr->error);
+        g_string_append_printf (out, _("\nFloor %s could not be framed: %s\n"), name,
+                                fr->error);
 
       if (fr->columns->len > 0)
         {
-          g_string_append_printf (out, "\nColumn loads, floor %s (down +; live load unreduced, "
-                                  "then reduced)\n  %-8s %-22s", name, "column", "at");
+          g_string_append_c (out, '\n');
+          g_string_append_printf (out, _("Column loads, floor %s (down +; live load unreduced, "
+                                         "then reduced)"), name);
+          g_string_append_printf (out, "\n  %-*s %-*s", pad (_("column"), 8), _("column"),
+                                  pad (C_("position", "at"), 22), C_("position", "at"));
           for (guint c = 0; c < TRB_N_CASES; c++)
             if (present[c])
               g_string_append_printf (out, " %12s", trb_load_case_name (c));
-          g_string_append_printf (out, " %12s  %s\n", "L reduced", "reduction");
+          /* Translators: the column's live load after the reduction; keep the L (live load) */
+          g_string_append_printf (out, " %*s  %s\n", pad (_("L reduced"), 12), _("L reduced"),
+                                  _("reduction"));
           for (guint i = 0; i < fr->columns->len; i++)
             {
               const TrbColumnResult *c = &g_array_index (fr->columns, TrbColumnResult, i);
               g_autofree char *at = fmt_point (c->column->at.x, c->column->at.y, u);
               g_autofree char *lr = fmt (c->live_reduced, TRB_DIM_FORCE, u);
               g_autofree char *red = c->reduction.applies
-                                     ? reduction_text (&c->reduction, u) : g_strdup ("none");
+                                     ? reduction_text (&c->reduction, u) : g_strdup (_("none"));
 
               if (!column_shown (sel, c->column))
                 continue;
@@ -1363,12 +1516,13 @@ table_floors (GString         *out,
 
       if (fr->walls->len > 0)
         {
-          g_string_append_printf (out, "\nWall loads, floor %s (totals, down +)\n  %-8s", name,
-                                  "wall");
+          g_string_append_c (out, '\n');
+          g_string_append_printf (out, _("Wall loads, floor %s (totals, down +)"), name);
+          g_string_append_printf (out, "\n  %-*s", pad (_("wall"), 8), _("wall"));
           for (guint c = 0; c < TRB_N_CASES; c++)
             if (present[c])
               g_string_append_printf (out, " %12s", trb_load_case_name (c));
-          g_string_append (out, "  loads\n");
+          g_string_append_printf (out, "  %s\n", _("loads"));
           for (guint i = 0; i < fr->walls->len; i++)
             {
               const TrbWallResult *w = &g_array_index (fr->walls, TrbWallResult, i);
@@ -1387,12 +1541,18 @@ table_floors (GString         *out,
                       g_string_append_printf (out, " %12s", v);
                     }
                 }
-              g_string_append_printf (out, "  %u point%s along it\n", n, n == 1 ? "" : "s");
+              g_string_append (out, "  ");
+              g_string_append_printf (out, ngettext ("%u point along it\n",
+                                                     "%u points along it\n", n), n);
             }
         }
 
-      g_string_append_printf (out, "\nTotals, floor %s (down +)\n  %-5s %14s %14s %14s\n", name,
-                              "case", "applied", "reactions", "not carried");
+      g_string_append_c (out, '\n');
+      g_string_append_printf (out, _("Totals, floor %s (down +)"), name);
+      g_string_append_printf (out, "\n  %-*s %*s %*s %*s\n", pad (_("case"), 5), _("case"),
+                              pad (_("applied"), 14), _("applied"),
+                              pad (_("reactions"), 14), _("reactions"),
+                              pad (_("not carried"), 14), _("not carried"));
       for (guint c = 0; c < TRB_N_CASES; c++)
         {
           g_autofree char *a = fmt (fr->applied[c], TRB_DIM_FORCE, u);
@@ -1413,8 +1573,10 @@ table_floors (GString         *out,
             {
               g_autofree char *at = fmt_point (ul->point->at.x, ul->point->at.y, u);
 
-              g_string_append_printf (out, "WARNING: point load (line %d, %s%s%s) of %s at %s "
-                                      "lies on no member: nothing carries it\n",
+              /* Translators: "point load (line 40, L, guard rail) of 1.00 kip at (x, y)": the
+               * line of the project file, the load case and the load's label */
+              g_string_append_printf (out, _("WARNING: point load (line %d, %s%s%s) of %s at %s "
+                                             "lies on no member: nothing carries it\n"),
                                       ul->point->line, trb_load_case_name (ul->point->lcase),
                                       ul->point->label != NULL ? ", " : "",
                                       ul->point->label != NULL ? ul->point->label : "",
@@ -1424,15 +1586,18 @@ table_floors (GString         *out,
             {
               g_autofree char *len = fmt (ul->length, TRB_DIM_LENGTH, u);
 
-              g_string_append_printf (out, "WARNING: %s of the line load (line %d, %s%s%s) lies "
-                                      "on no member: %s that nothing carries\n", len,
+              /* Translators: "3'-0" of the line load (line 41, D, wall) lies on no member:
+               * 1.20 kip that nothing carries" */
+              g_string_append_printf (out, _("WARNING: %s of the line load (line %d, %s%s%s) "
+                                             "lies on no member: %s that nothing carries\n"),
+                                      len,
                                       ul->line->line, trb_load_case_name (ul->line->lcase),
                                       ul->line->label != NULL ? ", " : "",
                                       ul->line->label != NULL ? ul->line->label : "", force);
             }
         }
     }
-  g_string_append (out, "\n" TRB_CAUTION_COLUMNS "\n");
+  g_string_append_printf (out, "\n%s\n", _(TRB_CAUTION_COLUMNS));
 }
 
 static void
@@ -1444,8 +1609,9 @@ write_table (GString         *out,
   guint counts[TRB_STATUS_ERROR + 1] = { 0 };
   guint shown = 0;
 
-  g_string_append_printf (out, "Trabeate %s: check of %s\n", PACKAGE_VERSION, project->name);
-  g_string_append (out, "CAUTION: " CAUTION_1 "\n" CAUTION_2 "\n");
+  /* Translators: "Trabeate 0.1.0: check of demo-floor.trabeate" */
+  g_string_append_printf (out, _("Trabeate %s: check of %s\n"), PACKAGE_VERSION, project->name);
+  append_cautions (out, FALSE);
   for (guint i = 0; i < pr->members->len; i++)
     {
       const TrbMemberResult *r = g_ptr_array_index (pr->members, i);
@@ -1457,15 +1623,18 @@ write_table (GString         *out,
       table_member (out, project, r);
       maybe_flush (out);
     }
-  g_string_append_printf (out, "\n%u member%s: %u pass, %u fail, %u unstable, %u unsupported, "
-                          "%u not designed, %u error\n",
-                          shown, shown == 1 ? "" : "s",
-                          counts[TRB_STATUS_PASS], counts[TRB_STATUS_FAIL],
+  g_string_append_c (out, '\n');
+  /* Translators: the count of members, then how many have each status */
+  g_string_append_printf (out, ngettext ("%u member: %u pass, %u fail, %u unstable, "
+                                         "%u unsupported, %u not designed, %u error\n",
+                                         "%u members: %u pass, %u fail, %u unstable, "
+                                         "%u unsupported, %u not designed, %u error\n", shown),
+                          shown, counts[TRB_STATUS_PASS], counts[TRB_STATUS_FAIL],
                           counts[TRB_STATUS_UNSTABLE], counts[TRB_STATUS_UNSUPPORTED],
                           counts[TRB_STATUS_NOT_DESIGNED], counts[TRB_STATUS_ERROR]);
   table_summary (out, sel);
   table_floors (out, sel, project->settings.units);
-  g_string_append (out, "CAUTION: " CAUTION_1 "\n" CAUTION_2 "\n" CAUTION_3 "\n");
+  append_cautions (out, TRUE);
 }
 
 /* ---- the schedule -------------------------------------------------------------------- */
@@ -1582,6 +1751,24 @@ row_new (void)
   return g_ptr_array_new_with_free_func (g_free);
 }
 
+/* A heading or a word of the schedule: as it is in CSV, which other programs read, and in the
+ * reader's language in the table. */
+static char *
+sched_text (gboolean    csv,
+            const char *msgid)
+{
+  return g_strdup (csv ? msgid : _(msgid));
+}
+
+/* A heading with the unit in it, "length (ft)". */
+static char *
+sched_head (gboolean    csv,
+            const char *msgid,
+            const char *unit)
+{
+  return g_strdup_printf (csv ? msgid : _(msgid), unit);
+}
+
 static void
 write_schedule (GString         *out,
                 const Selection *sel,
@@ -1601,30 +1788,35 @@ write_schedule (GString         *out,
 
   if (!csv)
     {
-      g_string_append_printf (out, "Trabeate %s: schedule of %s\n", PACKAGE_VERSION,
+      /* Translators: "Trabeate 0.1.0: schedule of demo-floor.trabeate" */
+      g_string_append_printf (out, _("Trabeate %s: schedule of %s\n"), PACKAGE_VERSION,
                               project->name);
-      g_string_append (out, "CAUTION: " CAUTION_1 "\n" CAUTION_2 "\n\nMember schedule "
-                       "(end reactions up +, as analysed: live load after the member's own "
-                       "reduction)\n");
+      append_cautions (out, FALSE);
+      g_string_append_printf (out, "\n%s\n", _("Member schedule (end reactions up +, as "
+                                                "analysed: live load after the member's own "
+                                                "reduction)"));
     }
 
   row = row_new ();
-  g_ptr_array_add (row, g_strdup ("mark"));
-  g_ptr_array_add (row, g_strdup ("floor"));
-  g_ptr_array_add (row, g_strdup ("role"));
-  g_ptr_array_add (row, g_strdup ("material"));
-  g_ptr_array_add (row, g_strdup ("section"));
-  g_ptr_array_add (row, g_strdup_printf ("length (%s)", lu));
-  g_ptr_array_add (row, g_strdup_printf ("span (%s)", lu));
-  g_ptr_array_add (row, g_strdup ("status"));
-  g_ptr_array_add (row, g_strdup ("ratio"));
-  g_ptr_array_add (row, g_strdup ("governing"));
+  g_ptr_array_add (row, sched_text (csv, N_("mark")));
+  g_ptr_array_add (row, sched_text (csv, N_("floor")));
+  g_ptr_array_add (row, sched_text (csv, N_("role")));
+  g_ptr_array_add (row, sched_text (csv, N_("material")));
+  g_ptr_array_add (row, sched_text (csv, N_("section")));
+  /* Translators: a heading of the schedule; %s is the unit, "ft" or "m" */
+  g_ptr_array_add (row, sched_head (csv, N_("length (%s)"), lu));
+  /* Translators: a heading of the schedule; %s is the unit, "ft" or "m" */
+  g_ptr_array_add (row, sched_head (csv, N_("span (%s)"), lu));
+  g_ptr_array_add (row, sched_text (csv, N_("status")));
+  g_ptr_array_add (row, sched_text (csv, N_("ratio")));
+  g_ptr_array_add (row, sched_text (csv, N_("governing")));
   for (guint end = 0; end < 2; end++)
     for (guint c = 0; c < TRB_N_CASES; c++)
       if (present[c])
         g_ptr_array_add (row, g_strdup_printf ("R%s %s (%s)", end == 0 ? "1" : "2",
                                                trb_load_case_name (c), fu));
-  g_ptr_array_add (row, g_strdup ("live factor"));
+  /* Translators: a heading of the schedule: the live load reduction factor */
+  g_ptr_array_add (row, sched_text (csv, N_("live factor")));
   g_ptr_array_add (rows, row);
 
   for (guint i = 0; i < pr->members->len; i++)
@@ -1638,15 +1830,21 @@ write_schedule (GString         *out,
       g_ptr_array_add (row, g_strdup (m->id));
       g_ptr_array_add (row, g_strdup (m->floor != NULL && m->floor->name != NULL
                                       ? m->floor->name : ""));
-      g_ptr_array_add (row, g_strdup (m->floor != NULL ? trb_role_name (m->role) : "beam"));
-      g_ptr_array_add (row, g_strdup (trb_material_name (m->material)));
+      if (csv)
+        g_ptr_array_add (row, g_strdup (m->floor != NULL ? trb_role_name (m->role) : "beam"));
+      else
+        g_ptr_array_add (row, g_strdup (m->floor != NULL ? role_text (m->role)
+                                                         : C_("role", "beam")));
+      g_ptr_array_add (row, g_strdup (csv ? trb_material_name (m->material)
+                                          : material_text (m->material)));
       g_ptr_array_add (row, g_strdup (r->section[0] != '\0' ? r->section : m->section));
       g_ptr_array_add (row, sched_value (m->length, TRB_DIM_LENGTH, u));
       g_ptr_array_add (row, sched_value (member_span (r), TRB_DIM_LENGTH, u));
-      g_ptr_array_add (row, g_strdup (trb_status_name (r->status)));
+      g_ptr_array_add (row, g_strdup (csv ? trb_status_name (r->status)
+                                          : status_word (r->status)));
       g_ptr_array_add (row, isnan (r->ratio) ? g_strdup ("") : g_strdup_printf ("%.3f",
                                                                                r->ratio));
-      g_ptr_array_add (row, g_strdup (r->governing));
+      g_ptr_array_add (row, g_strdup (csv ? r->governing : core_text (r->governing)));
       for (guint end = 0; end < 2; end++)
         for (guint c = 0; c < TRB_N_CASES; c++)
           {
@@ -1685,19 +1883,20 @@ write_schedule (GString         *out,
           if (!any_columns)
             {
               row = row_new ();
-              g_ptr_array_add (row, g_strdup ("column"));
-              g_ptr_array_add (row, g_strdup ("floor"));
+              g_ptr_array_add (row, sched_text (csv, N_("column")));
+              g_ptr_array_add (row, sched_text (csv, N_("floor")));
               g_ptr_array_add (row, g_strdup_printf ("x (%s)", lu));
               g_ptr_array_add (row, g_strdup_printf ("y (%s)", lu));
-              g_ptr_array_add (row, g_strdup ("section"));
+              g_ptr_array_add (row, sched_text (csv, N_("section")));
               for (guint k = 0; k < TRB_N_CASES; k++)
                 if (present[k])
                   g_ptr_array_add (row, g_strdup_printf ("%s (%s)", trb_load_case_name (k),
                                                          fu));
-              g_ptr_array_add (row, g_strdup_printf ("L reduced (%s)", fu));
+              /* Translators: the column's live load after the reduction; %s is the unit */
+              g_ptr_array_add (row, sched_head (csv, N_("L reduced (%s)"), fu));
               g_ptr_array_add (row, g_strdup_printf ("A_T (%s)", u == TRB_UNIT_SYSTEM_SI
                                                                   ? "m^2" : "ft^2"));
-              g_ptr_array_add (row, g_strdup ("live factor"));
+              g_ptr_array_add (row, sched_text (csv, N_("live factor")));
               g_ptr_array_add (rows, row);
               any_columns = TRUE;
             }
@@ -1722,13 +1921,18 @@ write_schedule (GString         *out,
     }
   if (any_columns)
     {
-      g_string_append (out, csv ? "\n" : "\nColumn loads (down +; live load unreduced, then "
-                                         "reduced)\n");
+      if (csv)
+        g_string_append_c (out, '\n');
+      else
+        g_string_append_printf (out, "\n%s\n", _("Column loads (down +; live load unreduced, "
+                                                  "then reduced)"));
       table_out (out, csv, rows);
     }
   if (!csv)
-    g_string_append (out, "\n" TRB_CAUTION_COLUMNS "\nCAUTION: " CAUTION_1 "\n" CAUTION_2
-                     "\n" CAUTION_3 "\n");
+    {
+      g_string_append_printf (out, "\n%s\n", _(TRB_CAUTION_COLUMNS));
+      append_cautions (out, TRUE);
+    }
 }
 
 /* ---- commands ------------------------------------------------------------------------ */
@@ -1736,7 +1940,7 @@ write_schedule (GString         *out,
 static int
 usage_error (const char *message)
 {
-  fprintf (stderr, "trabeate-cli: %s\n\n%s", message, usage_text);
+  fprintf (stderr, "trabeate-cli: %s\n\n%s", message, usage_text ());
   return EXIT_USAGE;
 }
 
@@ -1751,6 +1955,7 @@ cmd_run (int       argc,
   gboolean no_shortcuts = FALSE;
   g_autofree char *member_id = NULL;
   const GOptionEntry check_entries[] = {
+    /* The descriptions are never shown (the help is usage_text), so they are not marked. */
     { "json", 0, 0, G_OPTION_ARG_NONE, &json, "Write JSON (SI units)", NULL },
     { "member", 0, 0, G_OPTION_ARG_STRING, &member_id, "Only this member and what rests on it",
       "ID" },
@@ -1784,13 +1989,14 @@ cmd_run (int       argc,
   /* argv[0] is the command */
   if (argc != 2)
     {
-      g_autofree char *msg = g_strdup_printf (argc < 2 ? "%s needs a FILE"
-                                                       : "%s takes one FILE", command);
+      /* Translators: %s is the command, check or schedule; keep FILE as in the help */
+      g_autofree char *msg = g_strdup_printf (argc < 2 ? _("%s needs a FILE")
+                                                       : _("%s takes one FILE"), command);
 
       return usage_error (msg);
     }
   if (argv[1][0] == '-' && argv[1][1] != '\0')
-    return usage_error ("unknown option");
+    return usage_error (_("unknown option"));
 
   project = trb_project_load_file (argv[1], &error);
   if (project == NULL)
@@ -1800,7 +2006,7 @@ cmd_run (int       argc,
     }
   if (member_id != NULL && trb_project_find_member (project, member_id) == NULL)
     {
-      fprintf (stderr, "%s: no member with id \"%s\"\n", project->name, member_id);
+      fprintf (stderr, _("%s: no member with id \"%s\"\n"), project->name, member_id);
       return EXIT_USAGE;
     }
 
@@ -1828,18 +2034,35 @@ cmd_run (int       argc,
   return status;
 }
 
+/* Messages in the user's language, from the installed catalogs or from those of a build
+ * (TRABEATE_LOCALEDIR=<build>/po, as the tests do). Numbers keep the point as their decimal
+ * mark in every output, whatever the locale: JSON, CSV and the project file need it, and the
+ * tables and reports print what the editor's entries and the file accept back (docs/
+ * translating.md). */
+static void
+setup_locale (void)
+{
+  const char *dir = g_getenv ("TRABEATE_LOCALEDIR");
+
+  setlocale (LC_ALL, "");
+  setlocale (LC_NUMERIC, "C");
+  bindtextdomain (GETTEXT_PACKAGE, dir != NULL && dir[0] != '\0' ? dir : LOCALEDIR);
+  bind_textdomain_codeset (GETTEXT_PACKAGE, "UTF-8");
+  textdomain (GETTEXT_PACKAGE);
+}
+
 int
 main (int    argc,
       char **argv)
 {
-  setlocale (LC_ALL, "");
+  setup_locale ();
 
   if (argc < 2)
-    return usage_error ("no command given");
+    return usage_error (_("no command given"));
   if (strcmp (argv[1], "--help") == 0 || strcmp (argv[1], "-h") == 0 ||
       strcmp (argv[1], "help") == 0)
     {
-      fputs (usage_text, stdout);
+      fputs (usage_text (), stdout);
       return EXIT_PASS;
     }
   if (strcmp (argv[1], "--version") == 0)
@@ -1856,13 +2079,13 @@ main (int    argc,
       for (int i = 2; i < argc; i++)
         if (strcmp (argv[i], "--help") == 0 || strcmp (argv[i], "-h") == 0)
           {
-            fputs (usage_text, stdout);
+            fputs (usage_text (), stdout);
             return EXIT_PASS;
           }
       return cmd_run (argc - 1, argv + 1, strcmp (argv[1], "schedule") == 0);
     }
   {
-    g_autofree char *msg = g_strdup_printf ("unknown command \"%s\"", argv[1]);
+    g_autofree char *msg = g_strdup_printf (_("unknown command \"%s\""), argv[1]);
 
     return usage_error (msg);
   }
