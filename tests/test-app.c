@@ -501,6 +501,53 @@ test_bad_file (Fixture       *f,
   g_assert_nonnull (strstr (error, "unit"));
 }
 
+/* The shortcuts window, the preferences and the about window open from their actions, built
+ * from their templates without a warning (warnings are fatal here), and the about window
+ * carries the cautions. */
+static void
+test_dialogs (Fixture       *f,
+              gconstpointer  data)
+{
+  GListModel *toplevels = gtk_window_get_toplevels ();
+  g_autoptr(GPtrArray) shown = g_ptr_array_new_with_free_func (g_object_unref);
+  gboolean help = FALSE, prefs = FALSE, about = FALSE;
+
+  g_assert_true (gtk_widget_activate_action (GTK_WIDGET (f->window), "win.show-help-overlay",
+                                             NULL));
+  g_action_group_activate_action (G_ACTION_GROUP (app), "preferences", NULL);
+  g_action_group_activate_action (G_ACTION_GROUP (app), "about", NULL);
+  wait_for_frames (GTK_WIDGET (f->window), 3);
+
+  for (guint i = 0; i < g_list_model_get_n_items (toplevels); i++)
+    {
+      GtkWindow *w = g_list_model_get_item (toplevels, i);
+
+      if (!gtk_widget_get_visible (GTK_WIDGET (w)) || w == GTK_WINDOW (f->window))
+        {
+          g_object_unref (w);
+          continue;
+        }
+      help |= GTK_IS_SHORTCUTS_WINDOW (w);
+      prefs |= ADW_IS_PREFERENCES_WINDOW (w);
+      if (ADW_IS_ABOUT_WINDOW (w))
+        {
+          const char *comments = adw_about_window_get_comments (ADW_ABOUT_WINDOW (w));
+
+          /* the words of trb-cautions.h */
+          g_assert_nonnull (strstr (comments, "licensed engineer"));
+          g_assert_nonnull (strstr (comments, "local building codes govern"));
+          g_assert_nonnull (strstr (comments, "Not checked:"));
+          about = TRUE;
+        }
+      g_ptr_array_add (shown, w);
+    }
+  g_assert_true (help);
+  g_assert_true (prefs);
+  g_assert_true (about);
+  for (guint i = 0; i < shown->len; i++)
+    gtk_window_close (g_ptr_array_index (shown, i));
+}
+
 /* ---- the screenshot -------------------------------------------------------------------------- */
 
 static GdkTexture *
@@ -608,6 +655,8 @@ main (int   argc,
   g_test_add ("/trb/app/save-round-trip", Fixture, NULL, fixture_set_up, test_save_round_trip,
               fixture_tear_down);
   g_test_add ("/trb/app/bad-file", Fixture, NULL, fixture_set_up, test_bad_file,
+              fixture_tear_down);
+  g_test_add ("/trb/app/dialogs", Fixture, NULL, fixture_set_up, test_dialogs,
               fixture_tear_down);
   g_test_add ("/trb/app/screenshot", Fixture, NULL, fixture_set_up, test_screenshot,
               fixture_tear_down);
