@@ -1723,6 +1723,21 @@ trb_plan_canvas_snapshot (GtkWidget   *widget,
       draw_grid_dots (self, cr, &options.style, width, height);
       if (self->scene != NULL)
         trb_plan_draw (cr, self->scene, &self->view, &options);
+      else if (self->document != NULL)
+        {
+          TrbRgba ink;
+
+          /* a project of standalone beams: they are in the list, not on a plan */
+          trb_render_ink_color (&options.style, &ink);
+          trb_render_set_color (cr, &ink);
+          trb_render_text (cr, &options.style, _("This project has no floor plan"),
+                           options.style.font_size * 1.5, TRUE, width / 2.0, height / 2.0 - 4,
+                           0.5, 1.0, NULL);
+          trb_render_text (cr, &options.style,
+                           _("Its beams are in the list below; pick one to see and change it"),
+                           options.style.font_size, FALSE, width / 2.0, height / 2.0 + 4, 0.5,
+                           0.0, NULL);
+        }
       cairo_destroy (cr);
       self->plan_node = gtk_snapshot_free_to_node (plan);
       self->plan_node_view = self->view;
