@@ -5,6 +5,7 @@
 
 #include "trb-render-changes.h"
 
+#include <glib/gi18n-lib.h>
 #include <math.h>
 #include <string.h>
 
@@ -110,7 +111,7 @@ totals_text (const double   totals[TRB_N_CASES],
       g_string_append_printf (s, "%s%s %s", s->len > 0 ? ", " : "", trb_load_case_name (c), v);
     }
   if (s->len == 0)
-    g_string_append (s, "no load");
+    g_string_append (s, _("no load"));
   return g_string_free (s, FALSE);
 }
 
@@ -144,8 +145,11 @@ describe (TrbChange             *ch,
       g_autofree char *tb = totals_text (old_totals, u);
       g_autofree char *ta = totals_text (totals, u);
 
-      g_string_append_printf (before, "%scarries %s", before->len > 0 ? "; " : "", tb);
-      g_string_append_printf (after, "%scarries %s", after->len > 0 ? "; " : "", ta);
+      /* Translators: what a member carries, "carries D 1.20 kip, L 3.40 kip" */
+      g_string_append_printf (before, "%s", before->len > 0 ? "; " : "");
+      g_string_append_printf (before, _("carries %s"), tb);
+      g_string_append_printf (after, "%s", after->len > 0 ? "; " : "");
+      g_string_append_printf (after, _("carries %s"), ta);
     }
   ch->before = g_string_free (before, FALSE);
   ch->after = g_string_free (after, FALSE);
@@ -284,16 +288,17 @@ trb_change_describe (TrbChangeFlags flags)
 {
   GString *s = g_string_new (NULL);
 
+  /* Translators: what changed in a member since the previous version, "section, loads" */
   if (flags & TRB_CHANGE_ADDED)
-    g_string_append (s, "added");
+    g_string_append (s, C_("changed", "added"));
   if (flags & TRB_CHANGE_REMOVED)
-    g_string_append_printf (s, "%sremoved", s->len > 0 ? ", " : "");
+    g_string_append_printf (s, "%s%s", s->len > 0 ? ", " : "", C_("changed", "removed"));
   if (flags & TRB_CHANGE_SECTION)
-    g_string_append_printf (s, "%ssection", s->len > 0 ? ", " : "");
+    g_string_append_printf (s, "%s%s", s->len > 0 ? ", " : "", C_("changed", "section"));
   if (flags & TRB_CHANGE_STATUS)
-    g_string_append_printf (s, "%sstatus", s->len > 0 ? ", " : "");
+    g_string_append_printf (s, "%s%s", s->len > 0 ? ", " : "", C_("changed", "status"));
   if (flags & TRB_CHANGE_LOADS)
-    g_string_append_printf (s, "%sloads", s->len > 0 ? ", " : "");
+    g_string_append_printf (s, "%s%s", s->len > 0 ? ", " : "", C_("changed", "loads"));
   return g_string_free (s, FALSE);
 }
 
@@ -302,22 +307,24 @@ trb_changes_flow (TrbFlow    *flow,
                   GPtrArray  *changes,
                   const char *since)
 {
-  static const char *titles[] = { "Mark", "Floor", "What changed", "Before", "Now" };
+  const char *titles[] = { _("Mark"), _("Floor"), _("What changed"), _("Before"), _("Now") };
   static const double widths[] = { 0.08, 0.12, 0.14, 0.33, 0.33 };
   g_autofree char *heading = NULL;
 
   g_return_if_fail (flow != NULL && changes != NULL);
 
-  heading = g_strdup_printf ("Changes since %s", since != NULL ? since : "the previous version");
+  /* Translators: "Changes since demo-floor-rev1.trabeate" */
+  heading = g_strdup_printf (_("Changes since %s"),
+                             since != NULL ? since : _("the previous version"));
   trb_flow_heading (flow, heading);
   if (changes->len == 0)
     {
-      trb_flow_paragraph (flow, "No member's section, status or loads changed.", 1);
+      trb_flow_paragraph (flow, _("No member's section, status or loads changed."), 1);
       return;
     }
-  trb_flow_paragraph (flow, "Members whose section, status or loads changed, matched by mark; "
-                            "each one still in the project is ringed with a revision cloud on "
-                            "its framing plan.", 1);
+  trb_flow_paragraph (flow, _("Members whose section, status or loads changed, matched by "
+                              "mark; each one still in the project is ringed with a revision "
+                              "cloud on its framing plan."), 1);
   trb_flow_table_begin (flow, 5, titles, widths, "lllll", -1);
   for (guint i = 0; i < changes->len; i++)
     {

@@ -5,6 +5,7 @@
 
 #include "trb-render-diagram.h"
 
+#include <glib/gi18n-lib.h>
 #include <math.h>
 #include <string.h>
 
@@ -33,14 +34,17 @@ trb_diagram_source_describe (const TrbMemberResult  *result,
       if (result->analysed && source->index < result->strength.entries->len)
         return g_strdup (g_array_index (result->strength.entries, TrbComboResult,
                                         source->index).name);
-      return g_strdup ("No such combination");
+      return g_strdup (_("No such combination"));
     case TRB_DIAGRAM_SOURCE_CASE:
-      return g_strdup_printf ("Load case %s, unfactored",
+      /* Translators: "Load case L, unfactored"; keep the case's symbol */
+      return g_strdup_printf (_("Load case %s, unfactored"),
                               source->index < TRB_N_CASES ? trb_load_case_name (source->index)
                                                           : "?");
     case TRB_DIAGRAM_SOURCE_ENVELOPE:
     default:
-      return g_strdup_printf ("Envelope of the %s", trb_combo_set_title (result->strength.set));
+      /* Translators: "Envelope of the ASD combinations, ASCE 7-16 §2.4.1" */
+      return g_strdup_printf (_("Envelope of the %s"),
+                              trb_combo_set_title (result->strength.set));
     }
 }
 
@@ -507,7 +511,7 @@ draw_loading (Frame  *f,
       double ry = beam_y + 2.8 * fs;
 
       trb_render_set_color (cr, &f->ink);
-      trb_render_text (cr, f->style, "Reactions by case, up +", fs * 0.85, TRUE,
+      trb_render_text (cr, f->style, _("Reactions by case, up +"), fs * 0.85, TRUE,
                        dev_x (f, 0) - 0.5 * fs, ry, 0.0, 0.0, NULL);
       row = 0;
       for (int c = 0; c < TRB_N_CASES; c++)
@@ -626,8 +630,13 @@ draw_loading (Frame  *f,
           g_autofree char *a = trb_units_format (p_min, TRB_DIM_FORCE, u);
           g_autofree char *b = trb_units_format (p_max, TRB_DIM_FORCE, u);
           g_autofree char *t = g_strcmp0 (a, b) == 0
-                               ? g_strdup_printf ("%u point loads of %s", n_points, a)
-                               : g_strdup_printf ("%u point loads, %s to %s", n_points, a, b);
+                               ? g_strdup_printf (ngettext ("%u point load of %s",
+                                                            "%u point loads of %s", n_points),
+                                                  n_points, a)
+                               : g_strdup_printf (ngettext ("%u point load, %s to %s",
+                                                            "%u point loads, %s to %s",
+                                                            n_points),
+                                                  n_points, a, b);
 
           trb_render_set_color (cr, &col);
           trb_render_text (cr, f->style, t, fs * 0.85, TRUE, dev_x (f, f->L), b0, 1.0, 1.0,
@@ -674,9 +683,13 @@ draw_loading (Frame  *f,
                     arrow_down (cr, xa + (xb - xa) * t, base - h, base, MIN (0.45 * fs, h * 0.5));
                 }
               if (ld->kind == TRB_LOAD_LINEAR && fabs (w1 - w2) > 1e-9)
-                t = g_strdup_printf ("%s to %s", t1, t2);
+                /* Translators: a load varying along the member, "0.20 kip/ft to 0.60 kip/ft" */
+                t = g_strdup_printf (_("%s to %s"), t1, t2);
+              else if (is_sw)
+                /* Translators: the member's own weight, "26.0 lb/ft self-weight" */
+                t = g_strdup_printf (_("%s self-weight"), t1);
               else
-                t = g_strdup_printf ("%s%s", t1, is_sw ? " self-weight" : "");
+                t = g_strdup (t1);
               /* a piece too short for its label (a strip cut by an opening) goes without */
               if (trb_render_text_width (cr, f->style, t, fs * 0.85, FALSE) < xb - xa + 2 * fs)
                 trb_render_text (cr, f->style, t, fs * 0.85, FALSE, (xa + xb) / 2,
@@ -723,6 +736,8 @@ draw_loading (Frame  *f,
 
 /* ---- V, M and the deflection -------------------------------------------------------------- */
 
+/* way: 1 for a deflection down, -1 for one up (each its own sentence to translate), 0 for a
+ * shear or a moment. */
 static void
 extreme_label (Frame        *f,
                double        xm,
@@ -731,16 +746,18 @@ extreme_label (Frame        *f,
                double        y_top,
                double        y_bottom,
                TrbDimension  dim,
-               const char   *word,
+               int           way,
                gboolean      above)
 {
   cairo_t *cr = f->cr;
   TrbUnitSystem u = f->r->units;
-  g_autofree char *v = word != NULL ? trb_units_format_small_length (value, u)
-                                    : trb_units_format (value, dim, u);
+  g_autofree char *v = way != 0 ? trb_units_format_small_length (value, u)
+                                 : trb_units_format (value, dim, u);
   g_autofree char *xs = trb_units_format (xm, TRB_DIM_LENGTH, u);
-  g_autofree char *t = g_strdup_printf ("%s%s%s at %s", v, word != NULL ? " " : "",
-                                        word != NULL ? word : "", xs);
+  /* Translators: an extreme on a diagram and where it is: "32.27 kip*ft at 8'-7"", and for
+   * a deflection "0.31 in down at 8'-10"" */
+  g_autofree char *t = g_strdup_printf (way > 0 ? _("%s down at %s")
+                                        : way < 0 ? _("%s up at %s") : _("%s at %s"), v, xs);
   double px = dev_x (f, xm);
   double tw = trb_render_text_width (cr, f->style, t, f->fs * 0.85, TRUE);
   double ax = 0.5, ty;
@@ -795,7 +812,7 @@ draw_curve (Frame                  *f,
   if (results->len == 0)
     {
       trb_render_set_color (cr, &f->ink);
-      trb_render_text (cr, f->style, "No result for this choice", f->fs, FALSE,
+      trb_render_text (cr, f->style, _("No result for this choice"), f->fs, FALSE,
                        f->x0 + f->w / 2, y + height / 2, 0.5, 0.5, NULL);
       return;
     }
@@ -898,28 +915,28 @@ draw_curve (Frame                  *f,
     {
       if (ext.V_max > 1e-9)
         extreme_label (f, ext.V_max_x, ext.V_max, base - ext.V_max * k, top, bottom,
-                       TRB_DIM_FORCE, NULL, TRUE);
+                       TRB_DIM_FORCE, 0, TRUE);
       if (ext.V_min < -1e-9)
         extreme_label (f, ext.V_min_x, ext.V_min, base - ext.V_min * k, top, bottom,
-                       TRB_DIM_FORCE, NULL, FALSE);
+                       TRB_DIM_FORCE, 0, FALSE);
     }
   else if (kind == TRB_DIAGRAM_MOMENT)
     {
       if (ext.M_max > 1e-9)
         extreme_label (f, ext.M_max_x, ext.M_max, base - ext.M_max * k, top, bottom,
-                       TRB_DIM_MOMENT, NULL, TRUE);
+                       TRB_DIM_MOMENT, 0, TRUE);
       if (ext.M_min < -1e-9)
         extreme_label (f, ext.M_min_x, ext.M_min, base - ext.M_min * k, top, bottom,
-                       TRB_DIM_MOMENT, NULL, FALSE);
+                       TRB_DIM_MOMENT, 0, FALSE);
     }
   else
     {
       if (ext.defl_down > 1e-12)
         extreme_label (f, ext.defl_down_x, ext.defl_down, base + ext.defl_down * k, top,
-                       bottom, TRB_DIM_LENGTH, "down", FALSE);
+                       bottom, TRB_DIM_LENGTH, 1, FALSE);
       if (ext.defl_up > 1e-12)
         extreme_label (f, ext.defl_up_x, ext.defl_up, base - ext.defl_up * k, top, bottom,
-                       TRB_DIM_LENGTH, "up", TRUE);
+                       TRB_DIM_LENGTH, -1, TRUE);
     }
 }
 
@@ -928,15 +945,16 @@ kind_title (TrbDiagramKind kind)
 {
   switch (kind)
     {
+    /* Translators: the titles of the diagrams; keep the symbols V and M */
     case TRB_DIAGRAM_LOADING:
-      return "Loading";
+      return _("Loading");
     case TRB_DIAGRAM_SHEAR:
-      return "Shear V";
+      return _("Shear V");
     case TRB_DIAGRAM_MOMENT:
-      return "Moment M, sagging +";
+      return _("Moment M, sagging +");
     case TRB_DIAGRAM_DEFLECTION:
     default:
-      return "Deflection, down +";
+      return _("Deflection, down +");
     }
 }
 
@@ -961,10 +979,10 @@ trb_diagram_draw (cairo_t                *cr,
   cairo_save (cr);
 
   if (kind == TRB_DIAGRAM_LOADING)
-    title = g_strdup_printf ("Loading and supports of %s (unfactored, by case)",
+    title = g_strdup_printf (_("Loading and supports of %s (unfactored, by case)"),
                              result->member->id);
   else if (kind == TRB_DIAGRAM_DEFLECTION && source->kind == TRB_DIAGRAM_SOURCE_ENVELOPE)
-    title = g_strdup_printf ("%s: envelope of the total-load deflection (service)",
+    title = g_strdup_printf (_("%s: envelope of the total-load deflection (service)"),
                              kind_title (kind));
   else
     {
@@ -979,9 +997,10 @@ trb_diagram_draw (cairo_t                *cr,
     draw_loading (&f, y, height);
   else if (!result->analysed)
     {
-      g_autofree char *t = g_strdup_printf ("Not analysed%s%s",
-                                            result->message != NULL ? ": " : "",
-                                            result->message != NULL ? result->message : "");
+      g_autofree char *t = result->message != NULL
+                           /* Translators: why a member was not analysed, from the solver */
+                           ? g_strdup_printf (_("Not analysed: %s"), result->message)
+                           : g_strdup (_("Not analysed"));
 
       trb_render_text_wrapped (cr, style, t, f.fs, FALSE, f.x0, y + height / 2 - f.fs, f.w);
     }

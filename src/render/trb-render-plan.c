@@ -5,6 +5,7 @@
 
 #include "trb-render-plan.h"
 
+#include <glib/gi18n-lib.h>
 #include <math.h>
 #include <string.h>
 
@@ -926,10 +927,15 @@ draw_area_loads (DrawContext *dc)
         key = g_strdup_printf ("%.0f,%.0f", dx, dy);
         n = GPOINTER_TO_INT (g_hash_table_lookup (placed, key));
         g_hash_table_insert (placed, g_steal_pointer (&key), GINT_TO_POINTER (n + 1));
-        text = g_strdup_printf ("%s %s%s%s%s", trb_load_case_name (a->lcase), p,
+        /* Translators: said after an area load that is a partition allowance,
+         * "L 15 psf partitions" */
+        text = g_strdup_printf ("%s %s%s%s%s%s", trb_load_case_name (a->lcase), p,
                                 a->kind == TRB_AREA_LOAD_PARTITION &&
                                 (a->label == NULL || strstr (a->label, "partition") == NULL)
-                                ? " partitions" : "",
+                                ? " " : "",
+                                a->kind == TRB_AREA_LOAD_PARTITION &&
+                                (a->label == NULL || strstr (a->label, "partition") == NULL)
+                                ? _("partitions") : "",
                                 a->label != NULL ? " " : "", a->label != NULL ? a->label : "");
         dy += n * dc->fs * 1.3;
         label_clear_of_members (dc, a->points, text, dc->fs * 0.95, taken, &dx, &dy);
@@ -1269,22 +1275,22 @@ static const char *
 status_word (const TrbMemberResult *r)
 {
   if (r == NULL)
-    return "not solved";
+    return _("not solved");
   switch (r->status)
     {
     case TRB_STATUS_PASS:
-      return "passes";
+      return _("passes");
     case TRB_STATUS_FAIL:
-      return "FAILS";
+      return _("FAILS");
     case TRB_STATUS_UNSTABLE:
-      return "UNSTABLE";
+      return _("UNSTABLE");
     case TRB_STATUS_UNSUPPORTED:
-      return "UNSUPPORTED";
+      return _("UNSUPPORTED");
     case TRB_STATUS_NOT_DESIGNED:
-      return "not designed";
+      return _("not designed");
     case TRB_STATUS_ERROR:
     default:
-      return "ERROR";
+      return _("ERROR");
     }
 }
 
@@ -1466,10 +1472,13 @@ run_labels (DrawContext *dc,
                               g_array_index (run, RunEntry, run->len - 1).member);
       l.member = g_array_index (run, RunEntry, run->len / 2).member;
       mid = g_ptr_array_index (floor->members, l.member);
-      l.top = g_strdup_printf ("%s to %s (%u) %s", lo->id, hi->id, run->len,
+      /* Translators: a joist run's label on the plan: its first and last marks, how many
+       * and the section, "J1 to J42 (42) 2x12" */
+      l.top = g_strdup_printf (_("%s to %s (%u) %s"), lo->id, hi->id, run->len,
                                member_section (mid, trb_plan_scene_lookup_result (dc->scene,
                                                                                   mid)));
-      l.bottom = worst_r != NULL ? g_strdup_printf ("max %.3f", worst) : g_strdup ("");
+      /* Translators: the largest utilization ratio of a joist run, "max 0.986" */
+      l.bottom = worst_r != NULL ? g_strdup_printf (_("max %.3f"), worst) : g_strdup ("");
       l.status = trb_render_status_of (worst_r);
       l.priority = 1;
       g_array_append_val (labels, l);

@@ -7,6 +7,7 @@
 
 #include <cairo-pdf.h>
 #include <cairo-svg.h>
+#include <glib/gi18n-lib.h>
 #include <math.h>
 #include <string.h>
 
@@ -126,15 +127,16 @@ trb_report_sheets_parse (const char       *text,
         out |= TRB_REPORT_ALL;
       else
         {
+          /* Translators: keep the sheet names: they are what --sheets takes */
           g_set_error (error, TRB_ERROR, TRB_ERROR_INVALID,
-                       "unknown sheet \"%s\": choose from summary, plan, members, schedule, "
-                       "changes, all", p);
+                       _("unknown sheet \"%s\": choose from summary, plan, members, schedule, "
+                         "changes, all"), p);
           return FALSE;
         }
     }
   if (out == 0)
     {
-      g_set_error (error, TRB_ERROR, TRB_ERROR_INVALID, "no sheet named in \"%s\"", text);
+      g_set_error (error, TRB_ERROR, TRB_ERROR_INVALID, _("no sheet named in \"%s\""), text);
       return FALSE;
     }
   *sheets = out;
@@ -223,16 +225,18 @@ layout_floor (TrbReport  *report,
       if (bw * ppm <= aw && bh * ppm <= ah)
         return;
       trb_drawing_scale_fit (u, bw, bh, aw, ah, &fs->scale);
-      fs->note = g_strdup_printf ("The plan does not fit at %s on %s %s: drawn at %s.",
+      /* Translators: "The plan does not fit at 1:50 on Letter landscape: drawn at 1:100." */
+      fs->note = g_strdup_printf (report->options.landscape
+                                  ? _("The plan does not fit at %s on %s landscape: drawn at %s.")
+                                  : _("The plan does not fit at %s on %s portrait: drawn at %s."),
                                   report->options.scale.label,
                                   trb_paper_name (report->options.paper),
-                                  report->options.landscape ? "landscape" : "portrait",
                                   fs->scale.label);
       return;
     }
   if (!trb_drawing_scale_fit (u, bw, bh, aw, ah, &fs->scale))
-    fs->note = g_strdup_printf ("The plan is larger than the page at %s, the smallest usual "
-                                "scale: its edges are cut off.", fs->scale.label);
+    fs->note = g_strdup_printf (_("The plan is larger than the page at %s, the smallest usual "
+                                  "scale: its edges are cut off."), fs->scale.label);
 }
 
 static const char *
@@ -240,14 +244,17 @@ method_long (TrbMethod method)
 {
   switch (method)
     {
+    /* Translators: keep ASD, LRFD, the standards and their clauses */
     case TRB_METHOD_ASD:
-      return "ASD: AISC 360-16 and NDS 2018 allowable strength, ASCE 7-16 §2.4.1 combinations";
+      return _("ASD: AISC 360-16 and NDS 2018 allowable strength, ASCE 7-16 §2.4.1 "
+               "combinations");
     case TRB_METHOD_LRFD:
-      return "LRFD: AISC 360-16 load and resistance factor design, ASCE 7-16 §2.3.1 "
-             "combinations";
+      return _("LRFD: AISC 360-16 load and resistance factor design, ASCE 7-16 §2.3.1 "
+               "combinations");
     case TRB_METHOD_ALLOWABLE:
     default:
-      return "Allowable stress: fb = M/S against Fb, service loads";
+      /* Translators: keep the formula fb = M/S and Fb */
+      return _("Allowable stress: fb = M/S against Fb, service loads");
     }
 }
 
@@ -264,7 +271,7 @@ summary_kv (TrbFlow    *flow,
 static char *
 limit (double n)
 {
-  return n > 0 ? g_strdup_printf ("L/%.0f", n) : g_strdup ("none");
+  return n > 0 ? g_strdup_printf ("L/%.0f", n) : g_strdup (_("none"));
 }
 
 /* The summary's index: a line per kind of sheet, with its pages. */
@@ -281,9 +288,9 @@ build_summary (TrbReport *report,
                GArray    *index,
                guint      offset)
 {
-  static const char *kv_titles[] = { "Design basis", "" };
+  const char *kv_titles[] = { _("Design basis"), "" };
   static const double kv_widths[] = { 0.25, 0.75 };
-  static const char *ix_titles[] = { "Sheets", "Pages" };
+  const char *ix_titles[] = { _("Sheets"), _("Pages") };
   static const double ix_widths[] = { 0.75, 0.25 };
   const TrbProject *p = report->project;
   const TrbSettings *s = &p->settings;
@@ -291,14 +298,17 @@ build_summary (TrbReport *report,
   guint counts[TRB_STATUS_ERROR + 1] = { 0 };
   guint listed = 0, not_passing = 0;
 
-  trb_flow_heading (flow, "Calculation summary");
+  trb_flow_heading (flow, _("Calculation summary"));
   {
-    g_autofree char *t = g_strdup_printf ("Project %s: %u floor%s, %u member%s. Every value "
-                                          "in this report is formatted as trabeate-cli check "
-                                          "prints it.",
-                                          report->title, p->floors->len,
-                                          p->floors->len == 1 ? "" : "s", p->members->len,
-                                          p->members->len == 1 ? "" : "s");
+    /* Translators: "2 floors" and "48 members" of "Project %s: %s, %s. ..." */
+    g_autofree char *floors = g_strdup_printf (ngettext ("%u floor", "%u floors",
+                                                         p->floors->len), p->floors->len);
+    g_autofree char *members = g_strdup_printf (ngettext ("%u member", "%u members",
+                                                          p->members->len), p->members->len);
+    /* Translators: "Project demo-floor.trabeate: 1 floor, 48 members. ..." */
+    g_autofree char *t = g_strdup_printf (_("Project %s: %s, %s. Every value in this report is "
+                                            "formatted as trabeate-cli check prints it."),
+                                          report->title, floors, members);
 
     trb_flow_paragraph (flow, t, 1);
   }
@@ -309,16 +319,18 @@ build_summary (TrbReport *report,
     g_autofree char *ll = limit (s->deflection_live);
     g_autofree char *tl = limit (s->deflection_total);
 
-    defl = g_strdup_printf ("live %s, total %s (IBC 2021 Table 1604.3), unless a member "
-                            "sets its own", ll, tl);
-    summary_kv (flow, "Method", method_long (s->method));
-    summary_kv (flow, "Deflection limits", defl);
-    summary_kv (flow, "Self-weight", s->self_weight ? "included in D" : "not included");
-    summary_kv (flow, "Live-load patterns", s->live_patterns ? "on" : "off");
-    summary_kv (flow, "Live load reduction",
-                s->live_load_reduction ? "on (ASCE 7-16 §4.7)" : "off");
-    summary_kv (flow, "Steel grade", s->steel_grade != NULL ? s->steel_grade : "-");
-    summary_kv (flow, "Units", s->units == TRB_UNIT_SYSTEM_US ? "US customary" : "SI");
+    /* Translators: "live L/360, total L/240 (IBC 2021 Table 1604.3), ..." */
+    defl = g_strdup_printf (_("live %s, total %s (IBC 2021 Table 1604.3), unless a member "
+                              "sets its own"), ll, tl);
+    summary_kv (flow, _("Method"), method_long (s->method));
+    summary_kv (flow, _("Deflection limits"), defl);
+    /* Translators: D is the dead load case; keep it */
+    summary_kv (flow, _("Self-weight"), s->self_weight ? _("included in D") : _("not included"));
+    summary_kv (flow, _("Live-load patterns"), s->live_patterns ? _("on") : _("off"));
+    summary_kv (flow, _("Live load reduction"),
+                s->live_load_reduction ? _("on (ASCE 7-16 §4.7)") : _("off"));
+    summary_kv (flow, _("Steel grade"), s->steel_grade != NULL ? s->steel_grade : "-");
+    summary_kv (flow, _("Units"), s->units == TRB_UNIT_SYSTEM_US ? _("US customary") : "SI");
   }
   trb_flow_table_end (flow);
 
@@ -329,12 +341,15 @@ build_summary (TrbReport *report,
       counts[r->status]++;
       not_passing += r->status != TRB_STATUS_PASS;
     }
-  trb_flow_heading (flow, "Results");
+  trb_flow_heading (flow, _("Results"));
   {
+    /* Translators: the count of members, then how many have each status */
     g_autofree char *t =
-      g_strdup_printf ("%u member%s: %u pass, %u fail, %u unstable, %u unsupported, "
-                       "%u not designed, %u error",
-                       results->len, results->len == 1 ? "" : "s", counts[TRB_STATUS_PASS],
+      g_strdup_printf (ngettext ("%u member: %u pass, %u fail, %u unstable, %u unsupported, "
+                                 "%u not designed, %u error",
+                                 "%u members: %u pass, %u fail, %u unstable, %u unsupported, "
+                                 "%u not designed, %u error", results->len),
+                       results->len, counts[TRB_STATUS_PASS],
                        counts[TRB_STATUS_FAIL], counts[TRB_STATUS_UNSTABLE],
                        counts[TRB_STATUS_UNSUPPORTED], counts[TRB_STATUS_NOT_DESIGNED],
                        counts[TRB_STATUS_ERROR]);
@@ -343,10 +358,11 @@ build_summary (TrbReport *report,
   }
   if (not_passing > 0)
     {
-      static const char *titles[] = { "Mark", "Section", "Status", "Ratio", "Governing" };
+      const char *titles[] = { _("Mark"), _("Section"), _("Status"), _("Ratio"),
+                               _("Governing") };
       static const double widths[] = { 0.12, 0.2, 0.16, 0.1, 0.42 };
 
-      trb_flow_paragraph (flow, "Members that do not pass:", 1);
+      trb_flow_paragraph (flow, _("Members that do not pass:"), 1);
       trb_flow_table_begin (flow, 5, titles, widths, "lllrl", 2);
       for (guint i = 0; i < results->len && listed < SUMMARY_MAX_LISTED; i++)
         {
@@ -370,7 +386,7 @@ build_summary (TrbReport *report,
       trb_flow_table_end (flow);
       if (not_passing > listed)
         {
-          g_autofree char *t = g_strdup_printf ("and %u more: see the schedule.",
+          g_autofree char *t = g_strdup_printf (_("and %u more: see the schedule."),
                                                 not_passing - listed);
 
           trb_flow_paragraph (flow, t, 1);
@@ -381,17 +397,18 @@ build_summary (TrbReport *report,
    * on members that could not carry it */
   for (guint f = 0; report->results->floors != NULL && f < report->results->floors->len; f++)
     {
-      static const char *titles[] = { "Case", "Applied", "To columns, walls and supports",
-                                      "Not carried" };
+      const char *titles[] = { _("Case"), _("Applied"), _("To columns, walls and supports"),
+                               _("Not carried") };
       static const double widths[] = { 0.16, 0.28, 0.28, 0.28 };
       const TrbFloorResult *fr = g_ptr_array_index (report->results->floors, f);
-      g_autofree char *h = g_strdup_printf ("Floor %s: load takedown, unfactored",
+      g_autofree char *h = g_strdup_printf (_("Floor %s: load takedown, unfactored"),
                                             fr->floor->name != NULL ? fr->floor->name : "");
 
       trb_flow_heading (flow, h);
       if (fr->error != NULL)
         {
-          g_autofree char *t = g_strdup_printf ("The plan could not be framed: %s", fr->error);
+          g_autofree char *t = g_strdup_printf (_("The plan could not be framed: %s"),
+                                                fr->error);
 
           trb_flow_paragraph (flow, t, 1);
           continue;
@@ -415,9 +432,12 @@ build_summary (TrbReport *report,
           g_autofree char *v = trb_units_format (ul->force, TRB_DIM_FORCE, s->units);
           const char *label = ul->point != NULL ? ul->point->label
                               : ul->line != NULL ? ul->line->label : NULL;
+          /* Translators: "Not carried: a point load (guard rail) of 1.00 kip lies on no
+           * member."; the part in brackets is the load's label, or nothing */
           g_autofree char *t =
-            g_strdup_printf ("Not carried: a %s load%s%s%s of %s lies on no member.",
-                             ul->point != NULL ? "point" : "line",
+            g_strdup_printf (ul->point != NULL
+                             ? _("Not carried: a point load%s%s%s of %s lies on no member.")
+                             : _("Not carried: a line load%s%s%s of %s lies on no member."),
                              label != NULL ? " (" : "", label != NULL ? label : "",
                              label != NULL ? ")" : "", v);
 
@@ -432,7 +452,8 @@ build_summary (TrbReport *report,
       const IndexEntry *e = &g_array_index (index, IndexEntry, i);
       g_autofree char *pages = e->first == e->last
                                ? g_strdup_printf ("%u", e->first + offset)
-                               : g_strdup_printf ("%u to %u", e->first + offset,
+                               /* Translators: pages "3 to 7" */
+                               : g_strdup_printf (_("%u to %u"), e->first + offset,
                                                   e->last + offset);
 
       summary_kv (flow, e->what, pages);
@@ -440,11 +461,12 @@ build_summary (TrbReport *report,
   if (index->len > 0)
     trb_flow_table_end (flow);
 
-  trb_flow_heading (flow, "Caution");
-  trb_flow_paragraph (flow, TRB_CAUTION_LICENSED, 1.05);
-  trb_flow_paragraph (flow, TRB_CAUTION_NOT_CHECKED, 1.05);
-  trb_flow_paragraph (flow, TRB_CAUTION_COLUMNS, 1.05);
-  trb_flow_paragraph (flow, TRB_CAUTION_INPUTS, 1.05);
+  /* the cautions translated by their text: the template has it from trb-cli.c */
+  trb_flow_heading (flow, _("Caution"));
+  trb_flow_paragraph (flow, _(TRB_CAUTION_LICENSED), 1.05);
+  trb_flow_paragraph (flow, _(TRB_CAUTION_NOT_CHECKED), 1.05);
+  trb_flow_paragraph (flow, _(TRB_CAUTION_COLUMNS), 1.05);
+  trb_flow_paragraph (flow, _(TRB_CAUTION_INPUTS), 1.05);
 }
 
 static void
@@ -497,14 +519,14 @@ trb_report_new (const TrbProject       *project,
     report->title = g_strdup (options->title);
   else
     report->title = project->name != NULL ? g_path_get_basename (project->name)
-                                          : g_strdup ("Untitled");
+                                          : g_strdup (_("Untitled"));
   report->date = options->date != NULL ? g_strdup (options->date) : today ();
   if (options->previous_name != NULL)
     report->previous_name = g_path_get_basename (options->previous_name);
   else if (options->previous != NULL && options->previous->name != NULL)
     report->previous_name = g_path_get_basename (options->previous->name);
   else
-    report->previous_name = g_strdup ("the previous version");
+    report->previous_name = g_strdup (_("the previous version"));
   /* the borrowed strings the layout keeps reading */
   report->options.members = NULL;
   report->options.title = report->title;
@@ -537,8 +559,8 @@ trb_report_new (const TrbProject       *project,
           if (r == NULL)
             {
               g_set_error (error, TRB_ERROR, TRB_ERROR_NOT_FOUND,
-                           "%s: no member with id \"%s\"",
-                           project->name != NULL ? project->name : "project",
+                           _("%s: no member with id \"%s\""),
+                           project->name != NULL ? project->name : _("project"),
                            options->members[i]);
               return NULL;
             }
@@ -579,7 +601,7 @@ trb_report_new (const TrbProject       *project,
         {
           FloorSheet fs = { NULL, { 0 }, NULL };
           const TrbFloor *floor = g_ptr_array_index (project->floors, f);
-          g_autofree char *t = g_strdup_printf ("Framing plan: %s",
+          g_autofree char *t = g_strdup_printf (_("Framing plan: %s"),
                                                 floor->name != NULL ? floor->name : "");
 
           layout_floor (report, f, &fs);
@@ -587,8 +609,9 @@ trb_report_new (const TrbProject       *project,
           add_page (report, PAGE_PLAN, NULL, 0, f, t, floor->name);
         }
       if (project->floors->len == 0)
-        add_page (report, PAGE_NO_FLOOR, NULL, 0, 0, "Framing plan", NULL);
-      index_add (index, project->floors->len > 0 ? "Framing plans" : "Framing plan (no floor)",
+        add_page (report, PAGE_NO_FLOOR, NULL, 0, 0, _("Framing plan"), NULL);
+      index_add (index, project->floors->len > 0 ? _("Framing plans")
+                                                 : _("Framing plan (no floor)"),
                  first, report->pages->len);
     }
   if ((options->sheets & TRB_REPORT_CHANGES) && report->changes != NULL)
@@ -597,8 +620,8 @@ trb_report_new (const TrbProject       *project,
       TrbFlow *flow = new_flow (report);
 
       trb_changes_flow (flow, report->changes, report->previous_name);
-      add_flow_pages (report, flow, measure, "Changes", NULL);
-      index_add (index, "Changes since the previous version", first, report->pages->len);
+      add_flow_pages (report, flow, measure, _("Changes"), NULL);
+      index_add (index, _("Changes since the previous version"), first, report->pages->len);
     }
   if (options->sheets & TRB_REPORT_MEMBERS)
     {
@@ -608,13 +631,13 @@ trb_report_new (const TrbProject       *project,
         {
           const TrbMemberResult *r = g_ptr_array_index (chosen, i);
           TrbFlow *flow = new_flow (report);
-          g_autofree char *t = g_strdup_printf ("Member %s", r->member->id);
+          g_autofree char *t = g_strdup_printf (_("Member %s"), r->member->id);
 
           trb_sheet_member_flow (flow, project, r);
           add_flow_pages (report, flow, measure, t,
                           r->member->floor != NULL ? r->member->floor->name : NULL);
         }
-      index_add (index, "Member sheets: loading, diagrams, checks, reactions, shortlist",
+      index_add (index, _("Member sheets: loading, diagrams, checks, reactions, shortlist"),
                  first, report->pages->len);
     }
   if (options->sheets & TRB_REPORT_SCHEDULE)
@@ -624,8 +647,8 @@ trb_report_new (const TrbProject       *project,
 
       trb_schedule_members_flow (flow, project, results->members);
       trb_schedule_columns_flow (flow, project, results);
-      add_flow_pages (report, flow, measure, "Schedule", NULL);
-      index_add (index, "Member schedule and column loads", first, report->pages->len);
+      add_flow_pages (report, flow, measure, _("Schedule"), NULL);
+      index_add (index, _("Member schedule and column loads"), first, report->pages->len);
     }
 
   /* the summary before everything: its length shifts every page number in its index, so lay
@@ -649,7 +672,7 @@ trb_report_new (const TrbProject       *project,
             {
               g_ptr_array_add (report->flows, summary);
               for (guint i = 0; i < n; i++)
-                add_page (report, PAGE_FLOW, summary, i, 0, "Summary", NULL);
+                add_page (report, PAGE_FLOW, summary, i, 0, _("Summary"), NULL);
               break;
             }
           trb_flow_free (summary);
@@ -769,10 +792,10 @@ trb_report_draw_page (TrbReport *report,
       break;
     case PAGE_NO_FLOOR:
     default:
-      trb_sheet_draw_message (cr, &report->style, "Framing plan",
-                              "This project has no floor: there is no framing plan to draw. "
-                              "Its members are standalone beams; each has its member sheet, "
-                              "and the schedule lists them all.",
+      trb_sheet_draw_message (cr, &report->style, _("Framing plan"),
+                              _("This project has no floor: there is no framing plan to draw. "
+                                "Its members are standalone beams; each has its member sheet, "
+                                "and the schedule lists them all."),
                               cx, cy, cw, ch);
       break;
     }
@@ -790,7 +813,7 @@ check_surface (cairo_surface_t  *surface,
 
   if (st != CAIRO_STATUS_SUCCESS)
     {
-      g_set_error (error, TRB_ERROR, TRB_ERROR_IO, "%s: cannot write: %s", filename,
+      g_set_error (error, TRB_ERROR, TRB_ERROR_IO, _("%s: cannot write: %s"), filename,
                    cairo_status_to_string (st));
       return FALSE;
     }
@@ -875,7 +898,8 @@ trb_report_write (TrbReport   *report,
           cairo_destroy (cr);
           if (!svg && cairo_surface_write_to_png (surface, name) != CAIRO_STATUS_SUCCESS)
             {
-              g_set_error (error, TRB_ERROR, TRB_ERROR_IO, "%s: cannot write the PNG", name);
+              g_set_error (error, TRB_ERROR, TRB_ERROR_IO, _("%s: cannot write the PNG"),
+                           name);
               cairo_surface_destroy (surface);
               return FALSE;
             }
@@ -888,7 +912,7 @@ trb_report_write (TrbReport   *report,
       return TRUE;
     }
   g_set_error (error, TRB_ERROR, TRB_ERROR_INVALID,
-               "%s: write a name ending in .pdf, .svg or .png", filename);
+               _("%s: write a name ending in .pdf, .svg or .png"), filename);
   return FALSE;
 }
 
@@ -921,13 +945,13 @@ trb_render_plan_file (const TrbProject       *project,
   else
     {
       g_set_error (error, TRB_ERROR, TRB_ERROR_INVALID,
-                   "%s: write a name ending in .png, .svg or .pdf", filename);
+                   _("%s: write a name ending in .png, .svg or .pdf"), filename);
       return FALSE;
     }
   if (!(width >= 16 && height >= 16 && width <= 32768 && height <= 32768))
     {
       g_set_error (error, TRB_ERROR, TRB_ERROR_INVALID,
-                   "the plan's size must be 16 to 32768 on each side, not %g x %g",
+                   _("the plan's size must be 16 to 32768 on each side, not %g x %g"),
                    width, height);
       return FALSE;
     }
@@ -952,7 +976,7 @@ trb_render_plan_file (const TrbProject       *project,
   cairo_destroy (cr);
   if (kind == 0 && cairo_surface_write_to_png (surface, filename) != CAIRO_STATUS_SUCCESS)
     {
-      g_set_error (error, TRB_ERROR, TRB_ERROR_IO, "%s: cannot write the PNG", filename);
+      g_set_error (error, TRB_ERROR, TRB_ERROR_IO, _("%s: cannot write the PNG"), filename);
       cairo_surface_destroy (surface);
       return FALSE;
     }

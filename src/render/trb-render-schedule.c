@@ -5,6 +5,7 @@
 
 #include "trb-render-schedule.h"
 
+#include <glib/gi18n-lib.h>
 #include <math.h>
 #include <string.h>
 
@@ -17,22 +18,24 @@ trb_schedule_members_flow (TrbFlow          *flow,
                            const TrbProject *project,
                            GPtrArray        *results)
 {
-  static const char *titles[] = { "Mark", "Floor", "Material", "Section", "Length", "Status",
-                                  "Ratio", "Governing check" };
+  const char *titles[] = { _("Mark"), _("Floor"), _("Material"), _("Section"), _("Length"),
+                           _("Status"), _("Ratio"), _("Governing check") };
   static const double widths[] = { 0.08, 0.13, 0.08, 0.15, 0.11, 0.13, 0.08, 0.24 };
   guint counts[TRB_STATUS_ERROR + 1] = { 0 };
 
   g_return_if_fail (flow != NULL && project != NULL && results != NULL);
 
-  trb_flow_heading (flow, "Member schedule");
+  trb_flow_heading (flow, _("Member schedule"));
   for (guint i = 0; i < results->len; i++)
     counts[((TrbMemberResult *) g_ptr_array_index (results, i))->status]++;
   {
     /* the count line of the CLI's table */
     g_autofree char *t =
-      g_strdup_printf ("%u member%s: %u pass, %u fail, %u unstable, %u unsupported, "
-                       "%u not designed, %u error",
-                       results->len, results->len == 1 ? "" : "s", counts[TRB_STATUS_PASS],
+      g_strdup_printf (ngettext ("%u member: %u pass, %u fail, %u unstable, %u unsupported, "
+                                 "%u not designed, %u error",
+                                 "%u members: %u pass, %u fail, %u unstable, %u unsupported, "
+                                 "%u not designed, %u error", results->len),
+                       results->len, counts[TRB_STATUS_PASS],
                        counts[TRB_STATUS_FAIL], counts[TRB_STATUS_UNSTABLE],
                        counts[TRB_STATUS_UNSUPPORTED], counts[TRB_STATUS_NOT_DESIGNED],
                        counts[TRB_STATUS_ERROR]);
@@ -49,13 +52,15 @@ trb_schedule_members_flow (TrbFlow          *flow,
       const char *cells[] = {
         m->id,
         m->floor != NULL && m->floor->name != NULL ? m->floor->name : "-",
-        trb_material_name (m->material),
+        /* the file's word, translated by the catalog (the template has it from trb-cli.c) */
+        g_dpgettext2 (GETTEXT_PACKAGE, "material", trb_material_name (m->material)),
         /* as the CLI's summary: what was checked, else what the file names */
         r->section[0] != '\0' ? r->section : m->section,
         len,
         trb_sheet_status_text (r->status),
         ratio,
-        r->governing[0] != '\0' ? r->governing : "-",
+        /* a check's name from core, translated likewise */
+        r->governing[0] != '\0' ? _(r->governing) : "-",
       };
 
       trb_flow_table_row (flow, cells, TRB_FLOW_ROW_PLAIN, trb_render_status_of (r));
@@ -97,11 +102,12 @@ trb_schedule_columns_flow (TrbFlow                *flow,
                            const TrbProject       *project,
                            const TrbProjectResult *results)
 {
-  static const char *titles[] = { "Column", "Floor", "Section", "D", "L", "Lr", "S",
-                                  "Sum of cases", "L reduced" };
+  /* Translators: D, L, Lr and S are the load cases; keep them */
+  const char *titles[] = { _("Column"), _("Floor"), _("Section"), "D", "L", "Lr", "S",
+                           _("Sum of cases"), _("L reduced") };
   static const double widths[] = { 0.09, 0.13, 0.15, 0.1, 0.1, 0.1, 0.1, 0.12, 0.11 };
-  static const char *wall_titles[] = { "Wall", "Floor", "Material", "D", "L", "Lr", "S",
-                                       "Sum of cases" };
+  const char *wall_titles[] = { _("Wall"), _("Floor"), _("Material"), "D", "L", "Lr", "S",
+                                _("Sum of cases") };
   static const double wall_widths[] = { 0.09, 0.13, 0.15, 0.11, 0.11, 0.11, 0.11, 0.19 };
   TrbUnitSystem u;
   guint n_columns = 0, n_walls = 0;
@@ -123,14 +129,15 @@ trb_schedule_columns_flow (TrbFlow                *flow,
   reduce = project->settings.live_load_reduction;
   if (n_columns > 0)
     {
-      g_autofree char *t =
-        g_strdup_printf ("Loads delivered to each column by the members resting on it, per "
-                         "load case, unfactored, live load unreduced%s. The columns themselves "
-                         "are not designed.",
-                         reduce ? "; then the live load as reduced for the column "
-                                  "(ASCE 7-16 §4.7)" : "");
+      const char *t =
+        reduce ? _("Loads delivered to each column by the members resting on it, per load "
+                   "case, unfactored, live load unreduced; then the live load as reduced for "
+                   "the column (ASCE 7-16 §4.7). The columns themselves are not designed.")
+               : _("Loads delivered to each column by the members resting on it, per load "
+                   "case, unfactored, live load unreduced. The columns themselves are not "
+                   "designed.");
 
-      trb_flow_heading (flow, "Column loads");
+      trb_flow_heading (flow, _("Column loads"));
       trb_flow_paragraph (flow, t, 1);
       trb_flow_table_begin (flow, reduce ? 9 : 8, titles, widths,
                             reduce ? "lllrrrrrr" : "lllrrrrr", -1);
@@ -180,9 +187,10 @@ trb_schedule_columns_flow (TrbFlow                *flow,
 
   if (n_walls > 0)
     {
-      trb_flow_heading (flow, "Wall loads");
-      trb_flow_paragraph (flow, "The total each bearing wall receives from the members resting "
-                                "on it, per load case, unfactored. The walls are not designed.",
+      trb_flow_heading (flow, _("Wall loads"));
+      trb_flow_paragraph (flow, _("The total each bearing wall receives from the members "
+                                  "resting on it, per load case, unfactored. The walls are not "
+                                  "designed."),
                           1);
       trb_flow_table_begin (flow, 8, wall_titles, wall_widths, "lllrrrrr", -1);
       for (guint f = 0; f < project->floors->len; f++)

@@ -5,6 +5,7 @@
 
 #include "trb-render-sheet.h"
 
+#include <glib/gi18n-lib.h>
 #include <math.h>
 #include <string.h>
 
@@ -182,8 +183,10 @@ trb_drawing_scale_parse (const char       *text,
         }
     }
 
+  /* Translators: keep the two examples of a scale as they are */
   g_set_error (error, TRB_ERROR, TRB_ERROR_INVALID,
-               "\"%s\" is not a drawing scale: write it \"1:100\" or \"1/8\\\"=1'-0\\\"\"", text);
+               _("\"%s\" is not a drawing scale: write it \"1:100\" or \"1/8\\\"=1'-0\\\"\""),
+               text);
   return FALSE;
 }
 
@@ -321,23 +324,29 @@ trb_sheet_draw_frame (cairo_t              *cr,
 
   /* the caution, on every sheet */
   cairo_set_source_rgb (cr, 0, 0, 0);
-  trb_render_text (cr, style, "CAUTION", 6.0, TRUE, x0 + 4, ty + 3, 0, 0, NULL);
-  trb_render_text_wrapped (cr, style,
-                           TRB_CAUTION_LICENSED " " TRB_CAUTION_NOT_CHECKED " "
-                           TRB_CAUTION_COLUMNS " " TRB_CAUTION_INPUTS,
-                           4.9, FALSE, x0 + 4, ty + 10.5, c1 - x0 - 8);
+  /* Translators: the labels of the title block are capitals, as drawings write them */
+  trb_render_text (cr, style, _("CAUTION"), 6.0, TRUE, x0 + 4, ty + 3, 0, 0, NULL);
+  {
+    /* each caution translated by its text (the template has them from trb-cli.c) */
+    g_autofree char *cautions = g_strjoin (" ", _(TRB_CAUTION_LICENSED),
+                                           _(TRB_CAUTION_NOT_CHECKED), _(TRB_CAUTION_COLUMNS),
+                                           _(TRB_CAUTION_INPUTS), NULL);
 
-  label_value (cr, style, "PROJECT", block->project, c1 + 4, ty + 3, 8.5, TRUE);
-  label_value (cr, style, "FLOOR", block->floor != NULL ? block->floor : "-", c1 + 4, ty + 22,
-               7, FALSE);
-  label_value (cr, style, "SHEET", block->title, c1 + 4, ty + 41, 8.5, TRUE);
+    trb_render_text_wrapped (cr, style, cautions, 4.9, FALSE, x0 + 4, ty + 10.5, c1 - x0 - 8);
+  }
 
-  label_value (cr, style, "ENGINEER", block->engineer, c2 + 4, ty + 3, 7, FALSE);
-  label_value (cr, style, "DATE", block->date, c3 + 4, ty + 3, 7, FALSE);
-  label_value (cr, style, "REVISION", block->revision != NULL ? block->revision : "-", c2 + 4,
-               ty + TITLE_HEIGHT / 2 + 3, 7, FALSE);
-  page = g_strdup_printf ("%u of %u", block->page, block->n_pages);
-  label_value (cr, style, "PAGE", page, c3 + 4, ty + TITLE_HEIGHT / 2 + 3, 8.5, TRUE);
+  label_value (cr, style, _("PROJECT"), block->project, c1 + 4, ty + 3, 8.5, TRUE);
+  label_value (cr, style, _("FLOOR"), block->floor != NULL ? block->floor : "-", c1 + 4,
+               ty + 22, 7, FALSE);
+  label_value (cr, style, _("SHEET"), block->title, c1 + 4, ty + 41, 8.5, TRUE);
+
+  label_value (cr, style, _("ENGINEER"), block->engineer, c2 + 4, ty + 3, 7, FALSE);
+  label_value (cr, style, _("DATE"), block->date, c3 + 4, ty + 3, 7, FALSE);
+  label_value (cr, style, _("REVISION"), block->revision != NULL ? block->revision : "-",
+               c2 + 4, ty + TITLE_HEIGHT / 2 + 3, 7, FALSE);
+  /* Translators: page "3 of 12" */
+  page = g_strdup_printf (_("%u of %u"), block->page, block->n_pages);
+  label_value (cr, style, _("PAGE"), page, c3 + 4, ty + TITLE_HEIGHT / 2 + 3, 8.5, TRUE);
   cairo_set_source_rgb (cr, 0.35, 0.35, 0.35);
   trb_render_text (cr, style, "Trabeate " PACKAGE_VERSION, 4.8, FALSE, x0 + w - 3,
                    y0 + h - 2, 1, 1, NULL);
@@ -475,10 +484,11 @@ trb_sheet_draw_plan (cairo_t               *cr,
   cairo_line_to (cr, x + width, ly);
   cairo_stroke (cr);
 
-  heading = g_strdup_printf ("FRAMING PLAN: %s", floor->name != NULL ? floor->name : "");
+  heading = g_strdup_printf (_("FRAMING PLAN: %s"), floor->name != NULL ? floor->name : "");
   trb_render_text (cr, style, heading, 9.5, TRUE, x, ly + 4, 0, 0, NULL);
   {
-    g_autofree char *s = g_strdup_printf ("Scale %s", scale->label);
+    /* Translators: "Scale 1/8" = 1'-0"" */
+    g_autofree char *s = g_strdup_printf (_("Scale %s"), scale->label);
     double sw = trb_render_text (cr, style, s, 7, FALSE, x, ly + 17, 0, 0, NULL);
 
     trb_plan_draw_scale_bar (cr, &view, style, trb_plan_scene_get_units (scene), x + sw + 14,
@@ -493,14 +503,15 @@ trb_sheet_draw_plan (cairo_t               *cr,
 
   lx = x + width * 0.42;
   trb_render_status_color (style, TRB_RENDER_STATUS_OK, &c);
-  lx = legend_entry (cr, style, &c, 0, "ratio below 0.90", lx, ly + 7);
+  /* Translators: the plan's legend: what the colour of a member means (utilization ratio) */
+  lx = legend_entry (cr, style, &c, 0, _("ratio below 0.90"), lx, ly + 7);
   trb_render_status_color (style, TRB_RENDER_STATUS_NEAR, &c);
-  lx = legend_entry (cr, style, &c, 0, "0.90 to 1.00", lx, ly + 7);
+  lx = legend_entry (cr, style, &c, 0, _("0.90 to 1.00"), lx, ly + 7);
   trb_render_status_color (style, TRB_RENDER_STATUS_FAIL, &c);
-  lx = legend_entry (cr, style, &c, 1, "above 1.00: FAILS (double line, flag)", lx, ly + 7);
+  lx = legend_entry (cr, style, &c, 1, _("above 1.00: FAILS (double line, flag)"), lx, ly + 7);
   lx = x + width * 0.42;
   trb_render_status_color (style, TRB_RENDER_STATUS_NONE, &c);
-  lx = legend_entry (cr, style, &c, 2, "unsupported, unstable or not designed", lx, ly + 17);
+  lx = legend_entry (cr, style, &c, 2, _("unsupported, unstable or not designed"), lx, ly + 17);
   for (int k = 0; k < TRB_N_CASES; k++)
     {
       trb_render_case_color (style, k, &c);
@@ -508,8 +519,8 @@ trb_sheet_draw_plan (cairo_t               *cr,
     }
   cairo_set_source_rgb (cr, 0, 0, 0);
   trb_render_text_wrapped (cr, style,
-                           "Mark and section above each member, utilization ratio below; "
-                           "column loads per case, unfactored.",
+                           _("Mark and section above each member, utilization ratio below; "
+                             "column loads per case, unfactored."),
                            6.2, FALSE, x + width * 0.42, ly + 22.5, width * 0.58);
 
   /* what the clouds ring, by mark */
@@ -525,13 +536,13 @@ trb_sheet_draw_plan (cairo_t               *cr,
         if (((const TrbMember *) key)->floor == floor)
           g_ptr_array_add (marks, key);
       g_ptr_array_sort (marks, cmp_marks);
-      g_string_append_printf (s, "Revision clouds, changed since %s:",
-                              clouds_since != NULL ? clouds_since : "the previous version");
+      g_string_append_printf (s, _("Revision clouds, changed since %s:"),
+                              clouds_since != NULL ? clouds_since : _("the previous version"));
       for (guint i = 0; i < marks->len; i++)
         g_string_append_printf (s, "%s %s", i > 0 ? "," : "",
                                 ((const TrbMember *) g_ptr_array_index (marks, i))->id);
       if (marks->len == 0)
-        g_string_append (s, " none on this floor");
+        g_string_append_printf (s, " %s", _("none on this floor"));
       trb_render_text_wrapped (cr, style, s->str, 6.2, TRUE, x, ly + 37, width);
     }
   cairo_restore (cr);
@@ -563,22 +574,22 @@ trb_sheet_draw_message (cairo_t              *cr,
 const char *
 trb_sheet_status_text (TrbStatus status)
 {
-  /* the words of the CLI's table */
+  /* the words of the CLI's table, and the same translations */
   switch (status)
     {
     case TRB_STATUS_PASS:
-      return "passes";
+      return _("passes");
     case TRB_STATUS_FAIL:
-      return "FAILS";
+      return _("FAILS");
     case TRB_STATUS_UNSTABLE:
-      return "UNSTABLE";
+      return _("UNSTABLE");
     case TRB_STATUS_UNSUPPORTED:
-      return "UNSUPPORTED";
+      return _("UNSUPPORTED");
     case TRB_STATUS_NOT_DESIGNED:
-      return "not designed";
+      return _("not designed");
     case TRB_STATUS_ERROR:
     default:
-      return "ERROR";
+      return _("ERROR");
     }
 }
 
@@ -632,8 +643,24 @@ method_text (TrbMethod method)
       return "LRFD";
     case TRB_METHOD_ALLOWABLE:
     default:
-      return "allowable stress";
+      return _("allowable stress");
     }
+}
+
+/* A name from core (a check's), in the reader's language when the catalog has it; the template
+ * has the names from trb-cli.c. Never "", whose translation is the catalog's header. */
+static const char *
+core_text (const char *s)
+{
+  return s != NULL && s[0] != '\0' ? _(s) : s;
+}
+
+/* The file's word for a support (pin, roller, fixed), translated by the catalog; the template
+ * has them from trb-cli.c. */
+static const char *
+support_text (TrbSupportType type)
+{
+  return g_dpgettext2 (GETTEXT_PACKAGE, "support", trb_support_type_name (type));
 }
 
 static const TrbSupport *
@@ -660,8 +687,9 @@ supports_text (const TrbMemberResult *r)
       {
         g_autofree char *x = fmt (sup[i].x, TRB_DIM_LENGTH, r->units);
 
-        g_string_append_printf (s, "%s%s at %s", i > 0 ? "; " : "",
-                                trb_support_type_name (sup[i].type), x);
+        g_string_append (s, i > 0 ? "; " : "");
+        /* Translators: "pin at 0'-0"": a support and where it is */
+        g_string_append_printf (s, _("%s at %s"), support_text (sup[i].type), x);
       }
   else
     for (guint i = 0; m->supports != NULL && i < m->supports->len; i++)
@@ -669,11 +697,11 @@ supports_text (const TrbMemberResult *r)
         const TrbMemberSupport *ms = &g_array_index (m->supports, TrbMemberSupport, i);
         g_autofree char *x = fmt (ms->support.x, TRB_DIM_LENGTH, r->units);
 
-        g_string_append_printf (s, "%s%s at %s", i > 0 ? "; " : "",
-                                trb_support_type_name (ms->support.type), x);
+        g_string_append (s, i > 0 ? "; " : "");
+        g_string_append_printf (s, _("%s at %s"), support_text (ms->support.type), x);
       }
   if (s->len == 0)
-    g_string_append (s, "none");
+    g_string_append (s, _("none"));
   return g_string_free (s, FALSE);
 }
 
@@ -688,11 +716,12 @@ bearings_text (const TrbMemberResult *r)
       const TrbMemberBearing *b = &g_array_index (r->bearings, TrbMemberBearing, i);
       g_autofree char *x = fmt (b->x, TRB_DIM_LENGTH, r->units);
 
-      g_string_append_printf (s, "%s%s at %s", i > 0 ? "; " : "",
-                              b->own ? "own support" : b->id != NULL ? b->id : "?", x);
+      g_string_append (s, i > 0 ? "; " : "");
+      g_string_append_printf (s, _("%s at %s"),
+                              b->own ? _("own support") : b->id != NULL ? b->id : "?", x);
     }
   if (s->len == 0)
-    g_string_append (s, "nothing");
+    g_string_append (s, _("nothing"));
   return g_string_free (s, FALSE);
 }
 
@@ -700,28 +729,31 @@ static char *
 bracing_text (const TrbMemberResult *r)
 {
   const TrbMember *m = r->member;
-  GString *s;
+  g_autoptr(GString) at = g_string_new (NULL);
 
   if (m->bracing == TRB_BRACING_CONTINUOUS && (m->braces == NULL || m->braces->len == 0))
-    return g_strdup ("continuous (deck or sheathing)");
-  s = g_string_new (m->bracing == TRB_BRACING_CONTINUOUS ? "continuous; also at "
-                                                          : "at the supports");
+    return g_strdup (_("continuous (deck or sheathing)"));
   for (guint i = 0; m->braces != NULL && i < m->braces->len; i++)
     {
       g_autofree char *x = fmt (g_array_index (m->braces, TrbMemberBrace, i).x, TRB_DIM_LENGTH,
                                 r->units);
 
-      g_string_append_printf (s, "%s%s", i == 0 && m->bracing != TRB_BRACING_CONTINUOUS
-                                           ? " and " : (i == 0 ? "" : ", "), x);
+      g_string_append_printf (at, "%s%s", i == 0 ? "" : ", ", x);
     }
-  return g_string_free (s, FALSE);
+  /* Translators: where a member is braced against lateral-torsional buckling; %s is a list
+   * of places along it */
+  if (m->bracing == TRB_BRACING_CONTINUOUS)
+    return g_strdup_printf (_("continuous; also at %s"), at->str);
+  if (at->len > 0)
+    return g_strdup_printf (_("at the supports and %s"), at->str);
+  return g_strdup (_("at the supports"));
 }
 
 static char *
 limit_text (double n)
 {
   if (isnan (n) || n <= 0)
-    return g_strdup ("none");
+    return g_strdup (_("none"));
   return g_strdup_printf ("L/%.0f", n);
 }
 
@@ -795,12 +827,13 @@ static void
 member_extremes (TrbFlow               *flow,
                  const TrbMemberResult *r)
 {
-  static const char *titles[] = { "Quantity", "Value", "At", "Governing combination" };
+  const char *titles[] = { _("Quantity"), _("Value"), C_("position", "At"),
+                           _("Governing combination") };
   static const double widths[] = { 0.22, 0.16, 0.14, 0.48 };
   TrbUnitSystem u = r->units;
   const TrbEnvelope *env = &r->strength.envelope;
 
-  trb_flow_heading (flow, "Extremes");
+  trb_flow_heading (flow, _("Extremes"));
   trb_flow_table_begin (flow, 4, titles, widths, "lrrl", -1);
   if (!env->empty)
     {
@@ -809,10 +842,10 @@ member_extremes (TrbFlow               *flow,
       g_autofree char *mmax = fmt (env->ext.M_max, TRB_DIM_MOMENT, u);
       g_autofree char *mmin = fmt (env->ext.M_min, TRB_DIM_MOMENT, u);
 
-      extreme_row (flow, "Shear max", vmax, env->ext.V_max_x, env->V_max_by, u);
-      extreme_row (flow, "Shear min", vmin, env->ext.V_min_x, env->V_min_by, u);
-      extreme_row (flow, "Moment max (+)", mmax, env->ext.M_max_x, env->M_max_by, u);
-      extreme_row (flow, "Moment min (-)", mmin, env->ext.M_min_x, env->M_min_by, u);
+      extreme_row (flow, _("Shear max"), vmax, env->ext.V_max_x, env->V_max_by, u);
+      extreme_row (flow, _("Shear min"), vmin, env->ext.V_min_x, env->V_min_by, u);
+      extreme_row (flow, _("Moment max (+)"), mmax, env->ext.M_max_x, env->M_max_by, u);
+      extreme_row (flow, _("Moment min (-)"), mmin, env->ext.M_min_x, env->M_min_by, u);
     }
   for (int k = 0; k < 2; k++)
     {
@@ -823,13 +856,13 @@ member_extremes (TrbFlow               *flow,
       if (d->empty)
         continue;
       dd = fmt_small (d->ext.defl_down, u);
-      extreme_row (flow, k == 0 ? "Live deflection down" : "Total deflection down", dd,
+      extreme_row (flow, k == 0 ? _("Live deflection down") : _("Total deflection down"), dd,
                    d->ext.defl_down_x, d->ext.defl_down > 1e-9 ? d->defl_down_by : "", u);
       /* below a nanometre is rounding, not a movement worth a line (as the CLI) */
       if (d->ext.defl_up > 1e-9)
         {
           du = fmt_small (d->ext.defl_up, u);
-          extreme_row (flow, k == 0 ? "Live deflection up" : "Total deflection up", du,
+          extreme_row (flow, k == 0 ? _("Live deflection up") : _("Total deflection up"), du,
                        d->ext.defl_up_x, d->defl_up_by, u);
         }
     }
@@ -840,15 +873,15 @@ static void
 member_checks (TrbFlow               *flow,
                const TrbMemberResult *r)
 {
-  static const char *titles[] = { "Check", "Clause", "Demand", "Capacity", "Ratio", "At",
-                                  "Governing combination" };
+  const char *titles[] = { _("Check"), _("Clause"), _("Demand"), _("Capacity"), _("Ratio"),
+                           C_("position", "At"), _("Governing combination") };
   static const double widths[] = { 0.14, 0.23, 0.11, 0.12, 0.07, 0.08, 0.25 };
   TrbUnitSystem u = r->units;
 
-  trb_flow_heading (flow, "Checks");
+  trb_flow_heading (flow, _("Checks"));
   if (r->checks->len == 0)
     {
-      trb_flow_paragraph (flow, "No check was made: the member was not designed.", 1);
+      trb_flow_paragraph (flow, _("No check was made: the member was not designed."), 1);
       return;
     }
   trb_flow_table_begin (flow, 7, titles, widths, "llrrrrl", 4);
@@ -858,7 +891,9 @@ member_checks (TrbFlow               *flow,
 
       if (isnan (ck->ratio))
         {
-          const char *cells[] = { ck->name, ck->clause, "-", "-", "-", "-", "not checked" };
+          /* a check's name from core, translated by the catalog (trb-cli.c lists them) */
+          const char *cells[] = { core_text (ck->name), ck->clause, "-", "-", "-", "-",
+                                  _("not checked") };
 
           trb_flow_table_row (flow, cells, TRB_FLOW_ROW_PLAIN, TRB_RENDER_STATUS_NONE);
         }
@@ -868,7 +903,8 @@ member_checks (TrbFlow               *flow,
           g_autofree char *c = fmt_check (ck->capacity, ck->dimension, u);
           g_autofree char *ratio = trb_sheet_format_ratio (ck->ratio);
           g_autofree char *x = fmt (ck->x, TRB_DIM_LENGTH, u);
-          const char *cells[] = { ck->name, ck->clause, d, c, ratio, x, ck->combination };
+          const char *cells[] = { core_text (ck->name), ck->clause, d, c, ratio, x,
+                                  ck->combination };
 
           trb_flow_table_row (flow, cells, TRB_FLOW_ROW_PLAIN,
                               trb_render_status_from (ck->ratio > 1 ? TRB_STATUS_FAIL
@@ -899,9 +935,9 @@ member_reactions (TrbFlow               *flow,
   for (guint i = 0; i < n; i++)
     fixed |= sup[i].type == TRB_SUPPORT_FIXED;
 
-  trb_flow_heading (flow, fixed ? "Reactions, up + (moments counter-clockwise +)"
-                                : "Reactions, up +");
-  g_ptr_array_add (titles, g_strdup ("Case"));
+  trb_flow_heading (flow, fixed ? _("Reactions, up + (moments counter-clockwise +)")
+                                : _("Reactions, up +"));
+  g_ptr_array_add (titles, g_strdup (_("Case")));
   widths = g_new0 (double, n + 1);
   align = g_strnfill (n + 1, 'r');
   align[0] = 'l';
@@ -910,8 +946,7 @@ member_reactions (TrbFlow               *flow,
     {
       g_autofree char *x = fmt (sup[i].x, TRB_DIM_LENGTH, u);
 
-      g_ptr_array_add (titles, g_strdup_printf ("%s at %s", trb_support_type_name (sup[i].type),
-                                                x));
+      g_ptr_array_add (titles, g_strdup_printf (_("%s at %s"), support_text (sup[i].type), x));
       widths[i + 1] = 0.78 / MAX (n, 3);
     }
   /* with few supports the columns stay narrow; the last takes the rest */
@@ -930,7 +965,8 @@ member_reactions (TrbFlow               *flow,
       if (r->cases[c] == NULL)
         continue;
       re = trb_beam_result_get_reactions (r->cases[c], &nr);
-      g_ptr_array_add (cells, g_strdup_printf ("%s (unfactored)", trb_load_case_name (c)));
+      /* Translators: "D (unfactored)": a load case; keep its symbol */
+      g_ptr_array_add (cells, g_strdup_printf (_("%s (unfactored)"), trb_load_case_name (c)));
       g_ptr_array_add (moments, g_strdup ("  M"));
       for (guint i = 0; i < n; i++)
         {
@@ -954,7 +990,9 @@ member_reactions (TrbFlow               *flow,
         g_autoptr(GPtrArray) cells = g_ptr_array_new_with_free_func (g_free);
         const GArray *rr = r->strength.envelope.reactions;
 
-        g_ptr_array_add (cells, g_strdup_printf ("%s, %s", k == 0 ? "max" : "min",
+        /* Translators: the largest and smallest reaction over the strength combinations,
+         * "max, ASD" */
+        g_ptr_array_add (cells, g_strdup_printf (k == 0 ? _("max, %s") : _("min, %s"),
                                                  method_text (r->method)));
         for (guint i = 0; i < n; i++)
           {
@@ -1002,15 +1040,15 @@ member_section_properties (TrbFlow               *flow,
                            const TrbProject      *project,
                            const TrbMemberResult *r)
 {
-  static const char *titles[] = { "Property", "Value", "Property", "Value", "Property", "Value",
-                                  "Property", "Value" };
+  const char *titles[] = { _("Property"), _("Value"), _("Property"), _("Value"), _("Property"),
+                           _("Value"), _("Property"), _("Value") };
   static const double widths[] = { 0.12, 0.13, 0.12, 0.13, 0.12, 0.13, 0.12, 0.13 };
   const TrbMember *m = r->member;
   TrbUnitSystem u = r->units;
   const char *designation = r->section[0] != '\0' ? r->section : m->section;
   const TrbSection *s = trb_member_is_custom (m) ? NULL : lookup_section (project, designation);
   g_autoptr(GPtrArray) pending = g_ptr_array_new_with_free_func (g_free);
-  g_autofree char *heading = g_strdup_printf ("Section properties: %s", designation);
+  g_autofree char *heading = g_strdup_printf (_("Section properties: %s"), designation);
 
   trb_flow_heading (flow, heading);
   trb_flow_table_begin (flow, 8, titles, widths, "lrlrlrlr", -1);
@@ -1022,7 +1060,7 @@ member_section_properties (TrbFlow               *flow,
       if (rect)
         {
           add_prop (pending, "b", fmt_small (s->b, u));
-          add_prop (pending, "plies", g_strdup_printf ("%d", MAX (s->plies, 1)));
+          add_prop (pending, _("plies"), g_strdup_printf ("%d", MAX (s->plies, 1)));
         }
       else
         {
@@ -1040,7 +1078,7 @@ member_section_properties (TrbFlow               *flow,
           add_prop (pending, "ry", fmt_small (s->ry, u));
           add_prop (pending, "J", fmt (s->J, TRB_DIM_INERTIA, u));
         }
-      add_prop (pending, "weight", fmt (s->weight, TRB_DIM_WEIGHT_PER_LENGTH, u));
+      add_prop (pending, _("weight"), fmt (s->weight, TRB_DIM_WEIGHT_PER_LENGTH, u));
     }
   else
     {
@@ -1049,12 +1087,13 @@ member_section_properties (TrbFlow               *flow,
       add_prop (pending, "A", fmt (m->A, TRB_DIM_AREA, u));
       add_prop (pending, "I", fmt (m->I, TRB_DIM_INERTIA, u));
       add_prop (pending, "S", fmt (m->S, TRB_DIM_SECTION_MODULUS, u));
-      add_prop (pending, "weight", fmt (m->weight, TRB_DIM_WEIGHT_PER_LENGTH, u));
+      add_prop (pending, _("weight"), fmt (m->weight, TRB_DIM_WEIGHT_PER_LENGTH, u));
     }
   if (r->analysed)
     {
-      add_prop (pending, "E used", fmt (r->E, TRB_DIM_STRESS, u));
-      add_prop (pending, "I used", fmt (r->I, TRB_DIM_INERTIA, u));
+      /* Translators: the modulus of elasticity E and moment of inertia I the analysis used */
+      add_prop (pending, _("E used"), fmt (r->E, TRB_DIM_STRESS, u));
+      add_prop (pending, _("I used"), fmt (r->I, TRB_DIM_INERTIA, u));
     }
   prop_row (flow, pending);
   trb_flow_table_end (flow);
@@ -1064,19 +1103,19 @@ static void
 member_shortlist (TrbFlow               *flow,
                   const TrbMemberResult *r)
 {
-  static const char *titles[] = { "Section", "Weight", "Ratio", "Governing check" };
+  const char *titles[] = { _("Section"), _("Weight"), _("Ratio"), _("Governing check") };
   static const double widths[] = { 0.25, 0.2, 0.15, 0.4 };
 
   if (r->shortlist == NULL || r->shortlist->len == 0)
     return;
-  trb_flow_heading (flow, "Passing sections, lightest first");
+  trb_flow_heading (flow, _("Passing sections, lightest first"));
   trb_flow_table_begin (flow, 4, titles, widths, "lrrl", 2);
   for (guint i = 0; i < r->shortlist->len; i++)
     {
       const TrbShortlistEntry *e = &g_array_index (r->shortlist, TrbShortlistEntry, i);
       g_autofree char *w = fmt (e->weight, TRB_DIM_WEIGHT_PER_LENGTH, r->units);
       g_autofree char *ratio = trb_sheet_format_ratio (e->ratio);
-      const char *cells[] = { e->section, w, ratio, e->governing };
+      const char *cells[] = { e->section, w, ratio, core_text (e->governing) };
 
       trb_flow_table_row (flow, cells,
                           g_strcmp0 (e->section, r->section) == 0 ? TRB_FLOW_ROW_BOLD
@@ -1111,63 +1150,78 @@ trb_sheet_member_flow (TrbFlow               *flow,
   m = r->member;
   u = r->units;
 
-  heading = g_strdup_printf ("Member %s", m->id);
+  heading = g_strdup_printf (_("Member %s"), m->id);
   trb_flow_heading (flow, heading);
 
   if (trb_member_is_auto (m) && r->section[0] != '\0')
-    section = g_strdup_printf ("%s (sized from \"auto\")", r->section);
+    section = g_strdup_printf (_("%s (sized from \"auto\")"), r->section);
   else
     section = g_strdup (m->section != NULL ? m->section : "-");
   length = fmt (m->length, TRB_DIM_LENGTH, u);
   supports = supports_text (r);
   bracing = bracing_text (r);
   if (m->material == TRB_MATERIAL_WOOD && m->species != NULL)
-    material = g_strdup_printf ("wood, %s %s%s%s", m->species, m->grade != NULL ? m->grade : "",
-                                m->wet_service ? ", wet service" : "",
-                                m->repetitive ? ", repetitive" : "");
+    {
+      GString *s = g_string_new (NULL);
+
+      /* Translators: "wood, SPF No. 2": the species and grade stay as the file names them */
+      g_string_append_printf (s, _("wood, %s %s"), m->species,
+                              m->grade != NULL ? m->grade : "");
+      /* Translators: the wood is used where it gets wet (NDS 2018 wet service factor C_M) */
+      if (m->wet_service)
+        g_string_append_printf (s, ", %s", _("wet service"));
+      /* Translators: a repetitive member (NDS 2018 4.3.9, factor C_r) */
+      if (m->repetitive)
+        g_string_append_printf (s, ", %s", _("repetitive"));
+      material = g_string_free (s, FALSE);
+    }
   else
-    material = g_strdup (trb_material_name (m->material));
+    material = g_strdup (g_dpgettext2 (GETTEXT_PACKAGE, "material",
+                                       trb_material_name (m->material)));
   ratio = trb_sheet_format_ratio (r->ratio);
   {
     g_autofree char *ll = limit_text (trb_member_get_deflection_live (m, &project->settings));
     g_autofree char *tl = limit_text (trb_member_get_deflection_total (m, &project->settings));
 
-    limits = g_strdup_printf ("live %s, total %s", ll, tl);
+    /* Translators: deflection limits, "live L/360, total L/240" */
+    limits = g_strdup_printf (_("live %s, total %s"), ll, tl);
   }
   if (r->analysed && r->self_weight > 0)
     {
       /* trb_units_format() gives a new string */
       g_autofree char *w = trb_units_format (r->self_weight, TRB_DIM_WEIGHT_PER_LENGTH, u);
 
-      sw = g_strdup_printf ("%s, in case D", w);
+      /* Translators: the self-weight is in the dead load case D; keep D */
+      sw = g_strdup_printf (_("%s, in case D"), w);
     }
   else
-    sw = g_strdup ("not included");
+    sw = g_strdup (_("not included"));
   method = g_strdup_printf ("%s: %s", method_text (r->method),
                             trb_combo_set_title (r->strength.set));
 
   trb_flow_table_begin (flow, 4, kv_titles, kv_widths, "llll", -1);
-  kv_row (flow, "Material", material, "Section", section);
-  kv_row (flow, "Length", length, "Supports", supports);
-  kv_row (flow, "Method", method, "Bracing", bracing);
-  kv_row (flow, "Deflection limits", limits, "Self-weight", sw);
+  kv_row (flow, _("Material"), material, _("Section"), section);
+  kv_row (flow, _("Length"), length, _("Supports"), supports);
+  kv_row (flow, _("Method"), method, _("Bracing"), bracing);
+  kv_row (flow, _("Deflection limits"), limits, _("Self-weight"), sw);
   if (m->floor != NULL)
     {
       g_autofree char *where = g_strdup_printf ("%s, %s", m->floor->name != NULL
                                                            ? m->floor->name : "-",
-                                                trb_role_name (m->role));
+                                                g_dpgettext2 (GETTEXT_PACKAGE, "role",
+                                                              trb_role_name (m->role)));
 
       g_autofree char *rests = bearings_text (r);
 
-      kv_row (flow, "Floor", where, "Rests on", rests);
+      kv_row (flow, _("Floor"), where, _("Rests on"), rests);
     }
   {
     g_autofree char *st = g_strdup_printf ("%s%s%s", trb_sheet_status_text (r->status),
                                            r->message != NULL ? ": " : "",
                                            r->message != NULL ? r->message : "");
     g_autofree char *gov = g_strdup_printf ("%s%s%s", ratio, r->governing[0] != '\0' ? ", " : "",
-                                            r->governing);
-    const char *cells[] = { "Status", st, "Ratio", gov };
+                                            r->governing[0] != '\0' ? _(r->governing) : "");
+    const char *cells[] = { _("Status"), st, _("Ratio"), gov };
 
     trb_flow_table_row (flow, cells, TRB_FLOW_ROW_BOLD, trb_render_status_of (r));
   }
@@ -1179,9 +1233,10 @@ trb_sheet_member_flow (TrbFlow               *flow,
                               ? g_strdup_printf ("%.0f ft^2", r->reduction.area /
                                                               (TRB_FT * TRB_FT))
                               : g_strdup_printf ("%.1f m^2", r->reduction.area);
+      /* Translators: keep A_T, K_LL and L/Lo, the symbols of ASCE 7-16 §4.7 */
       g_autofree char *t =
-        g_strdup_printf ("Live load reduction (ASCE 7-16 §4.7): A_T = %s, K_LL = %g, "
-                         "L/Lo = %.3f on the reducible live load (%s).", area,
+        g_strdup_printf (_("Live load reduction (ASCE 7-16 §4.7): A_T = %s, K_LL = %g, "
+                           "L/Lo = %.3f on the reducible live load (%s)."), area,
                          r->reduction.k_ll, r->reduction.factor,
                          trb_live_rule_describe (r->reduction.rule));
 
@@ -1189,8 +1244,8 @@ trb_sheet_member_flow (TrbFlow               *flow,
     }
   for (guint i = 0; r->notes != NULL && i < r->notes->len; i++)
     {
-      g_autofree char *t = g_strdup_printf ("Note: %s", (const char *) g_ptr_array_index (r->notes,
-                                                                                          i));
+      g_autofree char *t = g_strdup_printf (_("Note: %s"),
+                                            (const char *) g_ptr_array_index (r->notes, i));
 
       trb_flow_paragraph (flow, t, 0.95);
     }
@@ -1209,8 +1264,8 @@ trb_sheet_member_flow (TrbFlow               *flow,
   /* the second: the numbers */
   trb_flow_page_break (flow);
   {
-    g_autofree char *h2 = g_strdup_printf ("Member %s, continued: checks, extremes, reactions",
-                                           m->id);
+    g_autofree char *h2 = g_strdup_printf (_("Member %s, continued: checks, extremes, "
+                                             "reactions"), m->id);
 
     trb_flow_heading (flow, h2);
   }
