@@ -19,8 +19,8 @@
 
 static const char *const report_usage_msgid =
   /* Translators: the help of the report command. Keep the command, the options, the
-   * paper names and the sheet names (summary, plan, ...) as they are; keep each line within
-   * 80 columns */
+   * paper names and the sheet names (summary, plan, ...) as they are; lines of 80 columns
+   * or fewer fit every terminal */
   N_("Usage:\n"
      "  trabeate-cli report FILE -o OUT.pdf|OUT.svg|OUT.png [options]\n"
      "\n"
@@ -55,7 +55,7 @@ report_usage (void)
 
 static const char *const plan_usage_msgid =
   /* Translators: the help of the plan command. Keep the command and the options as they
-   * are; keep each line within 80 columns */
+   * are; lines of 80 columns or fewer fit every terminal */
   N_("Usage:\n"
      "  trabeate-cli plan FILE -o OUT.svg|OUT.png|OUT.pdf [--width N --height N] [--floor NAME]\n"
      "\n"

@@ -59,6 +59,15 @@ static const char *const check_msgids[] G_GNUC_UNUSED = {
   N_("Web shear"),
 };
 
+/* The titles of the sets of combinations (trb_combo_set_title), likewise. */
+static const char *const combo_set_msgids[] G_GNUC_UNUSED = {
+  N_("LRFD combinations, ASCE 7-16 §2.3.1"),
+  N_("ASD combinations, ASCE 7-16 §2.4.1"),
+  N_("Service loads for allowable stress (unfactored)"),
+  N_("Live-load deflection, IBC 2021 Table 1604.3"),
+  N_("Total-load deflection, IBC 2021 Table 1604.3"),
+};
+
 /* The project file's words for roles, materials and supports (trb-model.c), which the table
  * shows in the reader's language; listed here for the template. */
 static const char *const word_msgids[] G_GNUC_UNUSED = {
@@ -113,8 +122,8 @@ status_word (TrbStatus status)
 
 static const char *const usage_text_msgid =
   /* Translators: the command's help. Keep the command names, the options (--json, --csv,
-   * --member, --no-shortcuts, --help, --version) and the exit codes as they are; keep each
-   * line within 80 columns. */
+   * --member, --no-shortcuts, --help, --version) and the exit codes as they are; lines of 80
+   * columns or fewer fit every terminal. */
   N_("Usage:\n"
      "  trabeate-cli check FILE [--json] [--member ID]\n"
      "  trabeate-cli schedule FILE [--csv] [--member ID]\n"
@@ -1389,12 +1398,12 @@ table_member (GString               *out,
 
   table_reactions (out, r);
   {
-    /* Translators: "Envelope of the ASD combinations, ASCE 7-16 §2.4.1"; the name of the
-     * combinations is not translated */
+    /* Translators: "Envelope of the ASD combinations, ASCE 7-16 §2.4.1"; %s is the title
+     * of the set of combinations, translated on its own */
     g_autofree char *title =
       g_strdup_printf (r->patterns->len > 0 ? _("Envelope of the %s, with live-load patterns")
                                             : _("Envelope of the %s"),
-                       trb_combo_set_title (r->strength.set));
+                       core_text (trb_combo_set_title (r->strength.set)));
     table_envelope (out, &r->strength, TRUE, title, u);
   }
   table_envelope (out, &r->live, FALSE, _("Live-load deflection (service)"), u);

@@ -43,8 +43,9 @@ trb_diagram_source_describe (const TrbMemberResult  *result,
     case TRB_DIAGRAM_SOURCE_ENVELOPE:
     default:
       /* Translators: "Envelope of the ASD combinations, ASCE 7-16 §2.4.1" */
+      /* the set's title from core, translated by the catalog (trb-cli.c lists them) */
       return g_strdup_printf (_("Envelope of the %s"),
-                              trb_combo_set_title (result->strength.set));
+                              _(trb_combo_set_title (result->strength.set)));
     }
 }
 

@@ -647,7 +647,7 @@ method_text (TrbMethod method)
     }
 }
 
-/* A name from core (a check's), in the reader's language when the catalog has it; the template
+/* A name from core (a check's, a set of combinations'), in the reader's language when the catalog has it; the template
  * has the names from trb-cli.c. Never "", whose translation is the catalog's header. */
 static const char *
 core_text (const char *s)
@@ -1197,7 +1197,7 @@ trb_sheet_member_flow (TrbFlow               *flow,
   else
     sw = g_strdup (_("not included"));
   method = g_strdup_printf ("%s: %s", method_text (r->method),
-                            trb_combo_set_title (r->strength.set));
+                            core_text (trb_combo_set_title (r->strength.set)));
 
   trb_flow_table_begin (flow, 4, kv_titles, kv_widths, "llll", -1);
   kv_row (flow, _("Material"), material, _("Section"), section);
