@@ -701,6 +701,7 @@ typedef struct
   const TrbPlanDrawOptions *options;
   const TrbRenderStyle     *style;
   TrbPlanBounds             visible;   /* plan metres, padded for labels */
+  TrbPlanBounds             device;    /* the drawing rectangle, device units */
   TrbRgba                   ink;
   TrbRgba                   paper;
   double                    fs;        /* font size */
@@ -1052,6 +1053,42 @@ draw_grids (DrawContext *dc)
     }
 }
 
+/* Where the line x + y = c (device units) crosses the convex quadrilateral quad: the range
+ * [lo, hi] of x. FALSE when it misses. */
+static gboolean
+diagonal_in_quad (const double  quad[4][2],
+                  double        c,
+                  double       *lo,
+                  double       *hi)
+{
+  double area = 0;
+
+  *lo = -INFINITY;
+  *hi = INFINITY;
+  for (int k = 0; k < 4; k++)
+    area += quad[k][0] * quad[(k + 1) % 4][1] - quad[(k + 1) % 4][0] * quad[k][1];
+  for (int k = 0; k < 4; k++)
+    {
+      const double *p = quad[k], *r = quad[(k + 1) % 4];
+      double ex = r[0] - p[0], ey = r[1] - p[1];
+      /* the cross product of the edge with (x, c - x) - p, on the inside's side: A + B x */
+      double sign = area >= 0 ? 1 : -1;
+      double A = sign * (ex * (c - p[1]) + ey * p[0]);
+      double B = -sign * (ex + ey);
+
+      if (B == 0)
+        {
+          if (A < 0)
+            return FALSE;
+        }
+      else if (B > 0)
+        *lo = MAX (*lo, -A / B);
+      else
+        *hi = MIN (*hi, -A / B);
+    }
+  return *lo <= *hi;
+}
+
 static void
 draw_walls (DrawContext *dc)
 {
@@ -1107,17 +1144,38 @@ draw_walls (DrawContext *dc)
           cairo_set_line_width (cr, 0.6 * dc->lw);
           cairo_stroke (cr);
 
+          /* The hatch lines are x + y = c for c from the band's box corner (x0 + y0) in
+           * steps; each is drawn only where it crosses the band and the drawing rectangle, a
+           * little past them for the clip to cut: drawn across the whole box, a long wall's
+           * hatch was hundreds of lines a thousand pixels long, most of the plan's redraw. */
           x0 = MIN (ax, bx) - h;
           x1 = MAX (ax, bx) + h;
           y0 = MIN (ay, by) - h;
           y1 = MAX (ay, by) + h;
           step = MAX (h * 0.9, 2.0);
-          for (double t = x0 - (y1 - y0); t < x1; t += step)
-            {
-              cairo_move_to (cr, t, y1);
-              cairo_line_to (cr, t + (y1 - y0), y0);
-            }
-          cairo_set_line_width (cr, 0.3 * dc->lw);
+          {
+            double quad[4][2] = { { ax + nx, ay + ny }, { bx + nx, by + ny },
+                                  { bx - nx, by - ny }, { ax - nx, ay - ny } };
+            double hw = 0.15 * dc->lw, ext = 2 * hw + 1;
+            double c_lo = MAX (x0 + y0, dc->device.min_x + dc->device.min_y - ext);
+            double c_hi = MIN (x1 + y1, dc->device.max_x + dc->device.max_y + ext);
+            double k0 = MAX (0, ceil ((c_lo - (x0 + y0)) / step));
+
+            for (double k = k0; x0 + y0 + k * step < c_hi; k++)
+              {
+                double c = x0 + y0 + k * step, lo, hi;
+
+                if (!diagonal_in_quad (quad, c, &lo, &hi))
+                  continue;
+                lo = MAX (lo, MAX (dc->device.min_x, c - dc->device.max_y) - ext) - ext;
+                hi = MIN (hi, MIN (dc->device.max_x, c - dc->device.min_y) + ext) + ext;
+                if (lo >= hi)
+                  continue;
+                cairo_move_to (cr, lo, c - lo);
+                cairo_line_to (cr, hi, c - hi);
+              }
+            cairo_set_line_width (cr, hw * 2);
+          }
           cairo_stroke (cr);
           cairo_restore (cr);
         }
@@ -1975,6 +2033,8 @@ trb_plan_draw (cairo_t                  *cr,
   /* what is drawn reaches a label's length beyond the rectangle */
   trb_plan_view_visible (view, options->x, options->y, options->width, options->height,
                          &dc.visible);
+  dc.device = (TrbPlanBounds) { options->x, options->y, options->x + options->width,
+                                options->y + options->height };
   pad = 6 * dc.fs / view->scale;
   dc.visible.min_x -= pad;
   dc.visible.min_y -= pad;
