@@ -209,6 +209,20 @@ on_source_selected (TrbDiagramView *self)
   gtk_widget_queue_draw (GTK_WIDGET (self->area));
 }
 
+/* An edit: the results stand until the solve (this panel holds none of them between
+ * updates); only a member the edit took out of the project is let go at once. */
+static void
+on_document_changed (TrbDiagramView *self)
+{
+  if (self->member != NULL
+      && !g_ptr_array_find (trb_document_get_project (self->document)->members, self->member,
+                            NULL))
+    {
+      self->member = NULL;
+      update (self);
+    }
+}
+
 static void
 on_document_solved (TrbDiagramView *self)
 {
@@ -231,7 +245,7 @@ trb_diagram_view_set_document (TrbDiagramView *self,
   self->member = NULL;
   if (document != NULL)
     {
-      g_signal_connect_object (document, "changed", G_CALLBACK (on_document_solved), self,
+      g_signal_connect_object (document, "changed", G_CALLBACK (on_document_changed), self,
                                G_CONNECT_SWAPPED);
       g_signal_connect_object (document, "solved", G_CALLBACK (on_document_solved), self,
                                G_CONNECT_SWAPPED);

@@ -14,7 +14,16 @@ struct _TrbMemberItem
   GObject     parent_instance;
 
   TrbMember  *member;       /* not owned: the project outlives the list's rows */
-  char       *section;
+  char       *mark;
+  const char *role;
+  /* the member's own strings as they were at the last update: an edit replaces them
+   * (trb-edit swaps in new ones), so a changed pointer says the row needs updating */
+  const char *member_id;
+  const char *member_section;
+  TrbFrameRole member_role;
+  char       *section;      /* as shown: "W12X26", "W12X26 (auto)" */
+  char       *designation;  /* the section it names */
+  gboolean    sized;        /* chosen by the program */
   TrbStatus   status;
   gboolean    has_result;
   double      ratio;        /* NAN when nothing was checked */
@@ -36,6 +45,13 @@ enum {
 };
 
 static GParamSpec *properties[N_PROPS];
+
+enum {
+  CHANGED,
+  N_SIGNALS
+};
+
+static guint signals[N_SIGNALS];
 
 const char *
 trb_role_label (TrbFrameRole role)
@@ -73,13 +89,107 @@ trb_status_label (TrbStatus status)
     }
 }
 
+static const char *
+status_class_of (const TrbMemberResult *result)
+{
+  switch (trb_render_status_of (result))
+    {
+    case TRB_RENDER_STATUS_OK:
+      return "ok";
+    case TRB_RENDER_STATUS_NEAR:
+      return "near";
+    case TRB_RENDER_STATUS_FAIL:
+      return "fail";
+    case TRB_RENDER_STATUS_NONE:
+    default:
+      return "none";
+    }
+}
+
+/**
+ * trb_member_item_update:
+ * @self: a row
+ * @result: (nullable): its member's result, or %NULL before the first solve
+ *
+ * Takes in the member as it is now and its result (the row copies what it shows, so that it
+ * stays valid after the results are replaced), and emits ::changed if anything it shows has.
+ *
+ * Returns: whether anything changed.
+ */
+gboolean
+trb_member_item_update (TrbMemberItem         *self,
+                        const TrbMemberResult *result)
+{
+  TrbMember *m;
+  const char *designation;
+  const char *role;
+  gboolean sized;
+  gboolean changed;
+
+  g_return_val_if_fail (TRB_IS_MEMBER_ITEM (self), FALSE);
+
+  /* compared before anything is made: this runs for every row after every edit */
+  m = self->member;
+  role = m->floor != NULL ? trb_role_label (m->role) : _("Beam");
+  sized = result != NULL && result->section[0] != '\0' && trb_member_is_auto (m);
+  designation = result != NULL && result->section[0] != '\0' ? result->section : m->section;
+
+  changed = g_strcmp0 (self->mark, m->id) != 0
+            || self->role != role
+            || g_strcmp0 (self->designation, designation) != 0
+            || self->sized != sized
+            || self->has_result != (result != NULL);
+  if (result != NULL && !changed)
+    changed = self->status != result->status
+              || !(self->ratio == result->ratio || (isnan (self->ratio) && isnan (result->ratio)))
+              || g_strcmp0 (self->governing, result->governing) != 0
+              || self->status_class != status_class_of (result);
+  self->member_id = m->id;
+  self->member_section = m->section;
+  self->member_role = m->role;
+  if (!changed)
+    return FALSE;
+
+  g_free (self->mark);
+  self->mark = g_strdup (m->id);
+  self->role = role;
+  g_free (self->designation);
+  self->designation = g_strdup (designation);
+  self->sized = sized;
+  g_free (self->section);
+  self->section = sized ? g_strdup_printf ("%s (auto)", designation) : g_strdup (designation);
+  g_clear_pointer (&self->governing, g_free);
+  self->has_result = result != NULL;
+  self->status = result != NULL ? result->status : TRB_STATUS_NOT_DESIGNED;
+  self->ratio = result != NULL ? result->ratio : NAN;
+  self->governing = result != NULL ? g_strdup (result->governing) : NULL;
+  self->status_class = result != NULL ? status_class_of (result) : "none";
+  g_signal_emit (self, signals[CHANGED], 0);
+  return TRUE;
+}
+
+/**
+ * trb_member_item_is_stale:
+ * @self: a row
+ *
+ * Returns: whether an edit may have changed its member's mark, section or role since the
+ *   last update; a pointer comparison, for the thousands of rows an edit leaves alone.
+ */
+gboolean
+trb_member_item_is_stale (TrbMemberItem *self)
+{
+  g_return_val_if_fail (TRB_IS_MEMBER_ITEM (self), TRUE);
+
+  return self->member_id != self->member->id || self->member_section != self->member->section
+         || self->member_role != self->member->role;
+}
+
 /**
  * trb_member_item_new:
  * @member: a member
  * @result: (nullable): its result, or %NULL before the first solve
  *
- * Returns: (transfer full): a row that copies what it shows, so that it stays valid after the
- *   results are replaced.
+ * Returns: (transfer full): the member's row.
  */
 TrbMemberItem *
 trb_member_item_new (TrbMember             *member,
@@ -89,37 +199,8 @@ trb_member_item_new (TrbMember             *member,
 
   self->member = member;
   self->ratio = NAN;
-  self->status = TRB_STATUS_NOT_DESIGNED;
   self->status_class = "none";
-  if (result != NULL)
-    {
-      self->has_result = TRUE;
-      self->status = result->status;
-      self->ratio = result->ratio;
-      self->governing = g_strdup (result->governing);
-      if (result->section[0] != '\0')
-        self->section = trb_member_is_auto (member)
-                        ? g_strdup_printf ("%s (auto)", result->section)
-                        : g_strdup (result->section);
-      switch (trb_render_status_of (result))
-        {
-        case TRB_RENDER_STATUS_OK:
-          self->status_class = "ok";
-          break;
-        case TRB_RENDER_STATUS_NEAR:
-          self->status_class = "near";
-          break;
-        case TRB_RENDER_STATUS_FAIL:
-          self->status_class = "fail";
-          break;
-        case TRB_RENDER_STATUS_NONE:
-        default:
-          self->status_class = "none";
-          break;
-        }
-    }
-  if (self->section == NULL)
-    self->section = g_strdup (member->section);
+  trb_member_item_update (self, result);
   return self;
 }
 
@@ -134,14 +215,14 @@ const char *
 trb_member_item_get_mark (TrbMemberItem *self)
 {
   g_return_val_if_fail (TRB_IS_MEMBER_ITEM (self), NULL);
-  return self->member->id;
+  return self->mark;
 }
 
 const char *
 trb_member_item_get_role (TrbMemberItem *self)
 {
   g_return_val_if_fail (TRB_IS_MEMBER_ITEM (self), NULL);
-  return self->member->floor != NULL ? trb_role_label (self->member->role) : _("Beam");
+  return self->role;
 }
 
 const char *
@@ -204,7 +285,9 @@ trb_member_item_finalize (GObject *object)
 {
   TrbMemberItem *self = TRB_MEMBER_ITEM (object);
 
+  g_free (self->mark);
   g_free (self->section);
+  g_free (self->designation);
   g_free (self->governing);
 
   G_OBJECT_CLASS (trb_member_item_parent_class)->finalize (object);
@@ -269,6 +352,15 @@ trb_member_item_class_init (TrbMemberItemClass *klass)
     g_param_spec_string ("governing", NULL, NULL, NULL,
                          G_PARAM_READABLE | G_PARAM_STATIC_STRINGS);
   g_object_class_install_properties (object_class, N_PROPS, properties);
+
+  /**
+   * TrbMemberItem::changed:
+   *
+   * Something the row shows has changed (trb_member_item_update()).
+   */
+  signals[CHANGED] =
+    g_signal_new ("changed", G_TYPE_FROM_CLASS (klass), G_SIGNAL_RUN_LAST, 0, NULL, NULL, NULL,
+                  G_TYPE_NONE, 0);
 }
 
 static void

@@ -13,10 +13,16 @@ G_BEGIN_DECLS
 
 G_DECLARE_FINAL_TYPE (TrbMemberItem, trb_member_item, TRB, MEMBER_ITEM, GObject)
 
-/* One row of the members list: what a member is and how its check came out, as text. */
+/* One row of the members list: what a member is and how its check came out, as text. A row
+ * is kept for as long as its member is in the project and brought up to date in place
+ * (::changed), so that an edit to a floor of ten thousand members touches the rows on the
+ * screen, not ten thousand. */
 
 TrbMemberItem *trb_member_item_new            (TrbMember             *member,
                                                const TrbMemberResult *result);
+gboolean       trb_member_item_update         (TrbMemberItem         *self,
+                                               const TrbMemberResult *result);
+gboolean       trb_member_item_is_stale       (TrbMemberItem         *self);
 TrbMember     *trb_member_item_get_member     (TrbMemberItem         *self);
 const char    *trb_member_item_get_mark       (TrbMemberItem         *self);
 const char    *trb_member_item_get_role       (TrbMemberItem         *self);

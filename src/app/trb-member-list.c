@@ -18,6 +18,7 @@ struct _TrbMemberList
 
   TrbDocument        *document;
   GListStore         *store;
+  GPtrArray          *rows;         /* the store's items, in its order, for quick scans */
   GtkFilterListModel *filtered;
   GtkSortListModel   *sorted;
   GtkSingleSelection *selection;
@@ -75,6 +76,7 @@ static void
 update_summary (TrbMemberList *self)
 {
   TrbProject *project;
+  g_autoptr(GHashTable) sections = g_hash_table_new (g_str_hash, g_str_equal);
   guint n = 0, failing = 0;
   double steel = 0, timber = 0;   /* N and m^3 */
   g_autofree char *steel_text = NULL;
@@ -99,7 +101,12 @@ update_summary (TrbMemberList *self)
         continue;
       if (r->status != TRB_STATUS_PASS)
         failing++;
-      section = lookup_section (project, r->section);
+      /* a few sections for thousands of members: look each up once */
+      if (!g_hash_table_lookup_extended (sections, r->section, NULL, (gpointer *) &section))
+        {
+          section = lookup_section (project, r->section);
+          g_hash_table_insert (sections, (gpointer) r->section, (gpointer) section);
+        }
       if (m->material == TRB_MATERIAL_STEEL && section != NULL)
         steel += section->weight * m->length;
       else if (m->material == TRB_MATERIAL_WOOD && section != NULL)
@@ -194,30 +201,94 @@ select_member (TrbMemberList *self,
     scroll_to (self, position);
 }
 
-static void
-rebuild (TrbMemberList *self)
+static TrbMember *
+store_member (TrbMemberList *self,
+              guint          position)
 {
-  g_autoptr(GPtrArray) items = g_ptr_array_new_with_free_func (g_object_unref);
+  return trb_member_item_get_member (g_ptr_array_index (self->rows, position));
+}
+
+/* Brings the rows up to date with the project (and, when solved, with new results). Rows of
+ * members still there are kept and updated in place; only the stretch where the members
+ * differ (an edit adds or removes a few, or a run of joists) is spliced: replacing ten
+ * thousand rows took a third of a second. After an edit the results are those of before,
+ * so only rows whose member the edit changed are updated. */
+static void
+rebuild (TrbMemberList *self,
+         gboolean       solved)
+{
+  g_autoptr(GPtrArray) added = g_ptr_array_new_with_free_func (g_object_unref);
+  GPtrArray *members = NULL;
+  guint n_old = self->rows->len, n_new = 0, head = 0, tail = 0;
+  gboolean changed = FALSE;
 
   if (self->document != NULL)
     {
-      TrbProject *project = trb_document_get_project (self->document);
-
-      for (guint i = 0; i < project->members->len; i++)
-        {
-          TrbMember *m = g_ptr_array_index (project->members, i);
-
-          g_ptr_array_add (items,
-                           trb_member_item_new (m, trb_document_lookup_result (self->document,
-                                                                               m)));
-        }
+      members = trb_document_get_project (self->document)->members;
+      n_new = members->len;
     }
-  self->updating = TRUE;
-  g_list_store_splice (self->store, 0, g_list_model_get_n_items (G_LIST_MODEL (self->store)),
-                       items->pdata, items->len);
-  self->updating = FALSE;
+  while (head < n_old && head < n_new
+         && store_member (self, head) == g_ptr_array_index (members, head))
+    head++;
+  while (tail < n_old - head && tail < n_new - head
+         && store_member (self, n_old - 1 - tail) == g_ptr_array_index (members,
+                                                                         n_new - 1 - tail))
+    tail++;
+
+  for (guint i = head; i < n_new - tail; i++)
+    {
+      TrbMember *m = g_ptr_array_index (members, i);
+
+      g_ptr_array_add (added, trb_member_item_new (m, trb_document_lookup_result (self->document,
+                                                                                  m)));
+    }
+  if (n_old - head - tail > 0 || added->len > 0)
+    {
+      self->updating = TRUE;
+      g_list_store_splice (self->store, head, n_old - head - tail, added->pdata, added->len);
+      self->updating = FALSE;
+      g_ptr_array_remove_range (self->rows, head, n_old - head - tail);
+      for (guint i = 0; i < added->len; i++)
+        g_ptr_array_insert (self->rows, head + i, g_object_ref (g_ptr_array_index (added, i)));
+      changed = TRUE;
+    }
+
+  /* the kept rows: what the edit and the solve changed in them */
+  for (guint i = 0; i < head + tail && self->document != NULL; i++)
+    {
+      guint at = i < head ? i : n_new - (head + tail) + i;
+      TrbMemberItem *item = g_ptr_array_index (self->rows, at);
+
+      if (!solved && !trb_member_item_is_stale (item))
+        continue;
+      changed |= trb_member_item_update (item,
+                                         trb_document_lookup_result (self->document,
+                                                                     trb_member_item_get_member (
+                                                                       item)));
+    }
+
+  /* a status or ratio that changed may move a row in or out of the filter, or in the sort */
+  if (changed)
+    {
+      self->updating = TRUE;
+      if (self->show_failing)
+        gtk_filter_changed (GTK_FILTER (self->failing_filter), GTK_FILTER_CHANGE_DIFFERENT);
+      gtk_sorter_changed (gtk_column_view_get_sorter (self->view), GTK_SORTER_CHANGE_DIFFERENT);
+      self->updating = FALSE;
+    }
   select_member (self, self->member, FALSE);
-  update_summary (self);
+  if (solved || n_old != n_new)
+    update_summary (self);
+}
+
+static void
+on_document_changed (TrbMemberList *self)
+{
+  TrbProject *project = trb_document_get_project (self->document);
+
+  if (self->member != NULL && !g_ptr_array_find (project->members, self->member, NULL))
+    self->member = NULL;
+  rebuild (self, FALSE);
 }
 
 static void
@@ -227,7 +298,7 @@ on_document_solved (TrbMemberList *self)
 
   if (self->member != NULL && !g_ptr_array_find (project->members, self->member, NULL))
     self->member = NULL;
-  rebuild (self);
+  rebuild (self, TRUE);
 }
 
 void
@@ -243,12 +314,12 @@ trb_member_list_set_document (TrbMemberList *self,
   if (document != NULL)
     {
       /* rows at once for what the edit added or took away, statuses again when solved */
-      g_signal_connect_object (document, "changed", G_CALLBACK (on_document_solved), self,
+      g_signal_connect_object (document, "changed", G_CALLBACK (on_document_changed), self,
                                G_CONNECT_SWAPPED);
       g_signal_connect_object (document, "solved", G_CALLBACK (on_document_solved), self,
                                G_CONNECT_SWAPPED);
     }
-  rebuild (self);
+  rebuild (self, TRUE);
 }
 
 /**
@@ -355,11 +426,9 @@ setup_label (GtkSignalListItemFactory *factory,
 }
 
 static void
-bind_label (GtkSignalListItemFactory *factory,
-            GtkListItem              *list_item,
-            gpointer                  user_data)
+show_cell (GtkListItem *list_item)
 {
-  Column column = GPOINTER_TO_INT (user_data);
+  Column column = GPOINTER_TO_INT (g_object_get_data (G_OBJECT (list_item), "trb-column"));
   TrbMemberItem *item = gtk_list_item_get_item (list_item);
   GtkWidget *child = gtk_list_item_get_child (list_item);
   GtkWidget *label = column == COLUMN_STATUS ? gtk_widget_get_last_child (child) : child;
@@ -403,6 +472,27 @@ bind_label (GtkSignalListItemFactory *factory,
   gtk_label_set_text (GTK_LABEL (label), text);
 }
 
+/* A cell shows its row and follows it while it is on the screen. */
+static void
+bind_label (GtkSignalListItemFactory *factory,
+            GtkListItem              *list_item,
+            gpointer                  user_data)
+{
+  g_object_set_data (G_OBJECT (list_item), "trb-column", user_data);
+  show_cell (list_item);
+  g_signal_connect_swapped (gtk_list_item_get_item (list_item), "changed",
+                            G_CALLBACK (show_cell), list_item);
+}
+
+static void
+unbind_label (GtkSignalListItemFactory *factory,
+              GtkListItem              *list_item,
+              gpointer                  user_data)
+{
+  g_signal_handlers_disconnect_by_func (gtk_list_item_get_item (list_item), show_cell,
+                                        list_item);
+}
+
 /* Marks sort as people read them: B2 before B10. */
 static int
 compare_marks (gconstpointer a,
@@ -430,6 +520,7 @@ add_column (TrbMemberList *self,
 
   g_signal_connect (factory, "setup", G_CALLBACK (setup_label), GINT_TO_POINTER (column));
   g_signal_connect (factory, "bind", G_CALLBACK (bind_label), GINT_TO_POINTER (column));
+  g_signal_connect (factory, "unbind", G_CALLBACK (unbind_label), GINT_TO_POINTER (column));
   col = gtk_column_view_column_new (title, factory);
   gtk_column_view_column_set_sorter (col, sorter);
   gtk_column_view_column_set_expand (col, expand);
@@ -469,6 +560,7 @@ trb_member_list_dispose (GObject *object)
   gtk_widget_dispose_template (GTK_WIDGET (self), TRB_TYPE_MEMBER_LIST);
   g_clear_object (&self->document);
   g_clear_object (&self->selection);
+  g_clear_pointer (&self->rows, g_ptr_array_unref);
 
   G_OBJECT_CLASS (trb_member_list_parent_class)->dispose (object);
 }
@@ -568,6 +660,7 @@ trb_member_list_init (TrbMemberList *self)
   gtk_widget_init_template (GTK_WIDGET (self));
 
   self->store = g_list_store_new (TRB_TYPE_MEMBER_ITEM);
+  self->rows = g_ptr_array_new_with_free_func (g_object_unref);
   self->failing_filter = gtk_custom_filter_new (failing_filter, self, NULL);
   self->filtered = gtk_filter_list_model_new (G_LIST_MODEL (self->store),
                                               GTK_FILTER (self->failing_filter));

@@ -175,6 +175,20 @@ on_row_activated (TrbShortlistPanel *self,
   trb_shortlist_panel_choose (self, gtk_list_box_row_get_index (row));
 }
 
+/* An edit: the results stand until the solve (this panel holds none of them between
+ * updates); only a member the edit took out of the project is let go at once. */
+static void
+on_document_changed (TrbShortlistPanel *self)
+{
+  if (self->member != NULL
+      && !g_ptr_array_find (trb_document_get_project (self->document)->members, self->member,
+                            NULL))
+    {
+      self->member = NULL;
+      update (self);
+    }
+}
+
 static void
 on_document_solved (TrbShortlistPanel *self)
 {
@@ -197,7 +211,7 @@ trb_shortlist_panel_set_document (TrbShortlistPanel *self,
   self->member = NULL;
   if (document != NULL)
     {
-      g_signal_connect_object (document, "changed", G_CALLBACK (on_document_solved), self,
+      g_signal_connect_object (document, "changed", G_CALLBACK (on_document_changed), self,
                                G_CONNECT_SWAPPED);
       g_signal_connect_object (document, "solved", G_CALLBACK (on_document_solved), self,
                                G_CONNECT_SWAPPED);
