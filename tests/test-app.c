@@ -237,6 +237,29 @@ test_shortlist_assign (Fixture       *f,
     g_assert_cmpstr (trb_member_item_get_status (row), ==, "Fails");
   }
 
+  /* "Failing Only" keeps the rows that need the engineer, the girder among them */
+  g_assert_true (gtk_widget_activate_action (GTK_WIDGET (f->window), "win.show-failing", NULL));
+  {
+    GListModel *rows = trb_member_list_get_model (list);
+    guint n_failing = 0;
+
+    for (guint i = 0; i < project->members->len; i++)
+      n_failing += trb_document_lookup_result (f->document,
+                                               g_ptr_array_index (project->members, i))->status
+                   != TRB_STATUS_PASS;
+    g_assert_cmpuint (g_list_model_get_n_items (rows), ==, n_failing);
+    g_assert_nonnull (find_row (rows, member, NULL));
+    for (guint i = 0; i < g_list_model_get_n_items (rows); i++)
+      {
+        g_autoptr(TrbMemberItem) row = g_list_model_get_item (rows, i);
+
+        g_assert_true (trb_member_item_get_failing (row));
+      }
+  }
+  g_assert_true (gtk_widget_activate_action (GTK_WIDGET (f->window), "win.show-failing", NULL));
+  g_assert_cmpuint (g_list_model_get_n_items (trb_member_list_get_model (list)), ==,
+                    project->members->len);
+
   /* the shortlist offers sizing first (the member has a section of its own), then the
    * passing sections lightest first; choosing the lightest assigns it and the member passes */
   g_assert_cmpstr (trb_shortlist_panel_get_row_section (shortlist, 0), ==, "auto");
