@@ -53,6 +53,7 @@ static const char *const check_msgids[] G_GNUC_UNUSED = {
   N_("Bearing"),
   N_("Flexure"),
   N_("Live deflection"),
+  N_("Not checked"),
   N_("Section modulus"),
   N_("Shear"),
   N_("Total deflection"),
