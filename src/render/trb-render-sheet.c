@@ -647,8 +647,9 @@ method_text (TrbMethod method)
     }
 }
 
-/* A name from core (a check's, a set of combinations'), in the reader's language when the catalog has it; the template
- * has the names from trb-cli.c. Never "", whose translation is the catalog's header. */
+/* A name from core (a check's, a set of combinations'), in the reader's language when the
+ * catalog has it; the template has the names from trb-cli.c. Never "", whose translation is
+ * the catalog's header. */
 static const char *
 core_text (const char *s)
 {
