@@ -21,7 +21,8 @@ cp "$top/data/examples/demo-floor.trabeate" "$home/Projects/"
 
 shot() {
   local name=$1 page=$2 dark=$3
-  env HOME="$home" TRB_SCREENSHOT_FILE="$home/Projects/demo-floor.trabeate" \
+  env HOME="$home" XDG_DATA_HOME="$home/.local/share" XDG_CACHE_HOME="$home/.cache" \
+      XDG_CONFIG_HOME="$home/.config" TRB_SCREENSHOT_FILE="$home/Projects/demo-floor.trabeate" \
       G_TEST_SRCDIR="$top/tests" G_TEST_BUILDDIR="$builddir/tests" \
       GSETTINGS_BACKEND=memory GSETTINGS_SCHEMA_DIR="$builddir/data" GSK_RENDERER=cairo \
       GTK_A11Y=none NO_AT_BRIDGE=1 LC_ALL=C.UTF-8 \
