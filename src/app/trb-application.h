@@ -12,15 +12,15 @@ G_BEGIN_DECLS
 
 G_DECLARE_FINAL_TYPE (TrbApplication, trb_application, TRB, APPLICATION, AdwApplication)
 
-TrbApplication *trb_application_new               (const char      *application_id,
-                                                   GApplicationFlags flags);
-GSettings      *trb_application_get_settings      (TrbApplication  *self);
-void            trb_application_new_settings      (TrbApplication  *self,
-                                                   TrbSettings     *settings);
-void            trb_application_open_file         (TrbApplication  *self,
-                                                   GFile           *file,
-                                                   GtkWindow       *from);
-void            trb_application_show_about        (TrbApplication  *self);
-void            trb_application_show_preferences  (TrbApplication  *self);
+TrbApplication *trb_application_new               (const char        *application_id,
+                                                   GApplicationFlags  flags);
+GSettings      *trb_application_get_settings      (TrbApplication    *self);
+void            trb_application_new_settings      (TrbApplication    *self,
+                                                   TrbSettings       *settings);
+void            trb_application_open_file         (TrbApplication    *self,
+                                                   GFile             *file,
+                                                   GtkWindow         *from);
+void            trb_application_show_about        (TrbApplication    *self);
+void            trb_application_show_preferences  (TrbApplication    *self);
 
 G_END_DECLS

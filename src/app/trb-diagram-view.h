@@ -12,12 +12,14 @@ G_BEGIN_DECLS
 
 G_DECLARE_FINAL_TYPE (TrbDiagramView, trb_diagram_view, TRB, DIAGRAM_VIEW, AdwBin)
 
-GtkWidget   *trb_diagram_view_new          (void);
-void         trb_diagram_view_set_document (TrbDiagramView *self,
-                                   TrbDocument *document);
-void         trb_diagram_view_set_member   (TrbDiagramView *self,
-                                   TrbMember   *member);
+/* The selected member's loading, shear, moment and deflection, drawn by the render layer
+ * (trb_diagram_draw_stack) for the envelope, a combination or a load case. */
 
+GtkWidget   *trb_diagram_view_new           (void);
+void         trb_diagram_view_set_document  (TrbDiagramView *self,
+                                             TrbDocument    *document);
+void         trb_diagram_view_set_member    (TrbDiagramView *self,
+                                             TrbMember      *member);
 guint        trb_diagram_view_get_n_sources (TrbDiagramView *self);
 
 G_END_DECLS

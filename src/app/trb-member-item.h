@@ -18,22 +18,22 @@ G_DECLARE_FINAL_TYPE (TrbMemberItem, trb_member_item, TRB, MEMBER_ITEM, GObject)
  * (::changed), so that an edit to a floor of ten thousand members touches the rows on the
  * screen, not ten thousand. */
 
-TrbMemberItem *trb_member_item_new            (TrbMember             *member,
-                                               const TrbMemberResult *result);
-gboolean       trb_member_item_update         (TrbMemberItem         *self,
-                                               const TrbMemberResult *result);
-gboolean       trb_member_item_is_stale       (TrbMemberItem         *self);
-TrbMember     *trb_member_item_get_member     (TrbMemberItem         *self);
-const char    *trb_member_item_get_mark       (TrbMemberItem         *self);
-const char    *trb_member_item_get_role       (TrbMemberItem         *self);
-const char    *trb_member_item_get_section    (TrbMemberItem         *self);
-const char    *trb_member_item_get_status     (TrbMemberItem         *self);
-const char    *trb_member_item_get_status_class (TrbMemberItem       *self);
-double         trb_member_item_get_ratio      (TrbMemberItem         *self);
-const char    *trb_member_item_get_governing  (TrbMemberItem         *self);
-gboolean       trb_member_item_get_failing    (TrbMemberItem         *self);
+TrbMemberItem *trb_member_item_new              (TrbMember             *member,
+                                                 const TrbMemberResult *result);
+gboolean       trb_member_item_update           (TrbMemberItem         *self,
+                                                 const TrbMemberResult *result);
+gboolean       trb_member_item_is_stale         (TrbMemberItem         *self);
+TrbMember     *trb_member_item_get_member       (TrbMemberItem         *self);
+const char    *trb_member_item_get_mark         (TrbMemberItem         *self);
+const char    *trb_member_item_get_role         (TrbMemberItem         *self);
+const char    *trb_member_item_get_section      (TrbMemberItem         *self);
+const char    *trb_member_item_get_status       (TrbMemberItem         *self);
+const char    *trb_member_item_get_status_class (TrbMemberItem         *self);
+double         trb_member_item_get_ratio        (TrbMemberItem         *self);
+const char    *trb_member_item_get_governing    (TrbMemberItem         *self);
+gboolean       trb_member_item_get_failing      (TrbMemberItem         *self);
 
-const char    *trb_role_label                 (TrbFrameRole           role);
-const char    *trb_status_label               (TrbStatus              status);
+const char    *trb_role_label                   (TrbFrameRole           role);
+const char    *trb_status_label                 (TrbStatus              status);
 
 G_END_DECLS

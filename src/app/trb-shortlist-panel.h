@@ -12,16 +12,17 @@ G_BEGIN_DECLS
 
 G_DECLARE_FINAL_TYPE (TrbShortlistPanel, trb_shortlist_panel, TRB, SHORTLIST_PANEL, AdwBin)
 
-GtkWidget   *trb_shortlist_panel_new          (void);
-void         trb_shortlist_panel_set_document (TrbShortlistPanel *self,
-                                   TrbDocument *document);
-void         trb_shortlist_panel_set_member   (TrbShortlistPanel *self,
-                                   TrbMember   *member);
+/* The sections that pass for the selected member, lightest first; picking one assigns it. */
 
+GtkWidget   *trb_shortlist_panel_new             (void);
+void         trb_shortlist_panel_set_document    (TrbShortlistPanel *self,
+                                                  TrbDocument       *document);
+void         trb_shortlist_panel_set_member      (TrbShortlistPanel *self,
+                                                  TrbMember         *member);
 gboolean     trb_shortlist_panel_choose          (TrbShortlistPanel *self,
-                                                 guint              index);
+                                                  guint              index);
 guint        trb_shortlist_panel_get_n_rows      (TrbShortlistPanel *self);
 const char  *trb_shortlist_panel_get_row_section (TrbShortlistPanel *self,
-                                                 guint              index);
+                                                  guint              index);
 
 G_END_DECLS

@@ -4,6 +4,7 @@
 #include "config.h"
 
 #include <glib/gi18n.h>
+#include <string.h>
 
 #include "trb-app-enums.h"
 #include "trb-units.h"
