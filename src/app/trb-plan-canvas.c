@@ -536,26 +536,34 @@ joist_template (TrbPlanCanvas *self)
   return NULL;
 }
 
+/* The run as the tool has it: its spacing, and starting from the end of the first support
+ * nearer where that support was picked. */
+static void
+joist_spec (TrbPlanCanvas   *self,
+            TrbJoistRunSpec *spec)
+{
+  const TrbMember *a = self->support_a;
+  double len2 = a->length * a->length;
+  double t = 0;
+
+  trb_joist_run_spec_init (spec, self->joist_spacing);
+  if (len2 > 0)
+    t = ((self->support_a_pick.x - a->start.x) * (a->end.x - a->start.x)
+         + (self->support_a_pick.y - a->start.y) * (a->end.y - a->start.y)) / len2;
+  spec->start = t <= 0.5 ? TRB_LAYOUT_FROM_START : TRB_LAYOUT_FROM_END;
+}
+
 static void
 update_joist_preview (TrbPlanCanvas *self)
 {
   g_autoptr(GError) error = NULL;
   TrbJoistRunSpec spec;
-  double a_len, t;
 
   g_clear_pointer (&self->preview, g_array_unref);
   if (self->support_a == NULL || self->support_b == NULL)
     return;
 
-  trb_joist_run_spec_init (&spec, self->joist_spacing);
-  /* start from the end of support A nearer where it was picked */
-  a_len = self->support_a->length;
-  t = a_len > 0 ? ((self->support_a_pick.x - self->support_a->start.x)
-                   * (self->support_a->end.x - self->support_a->start.x)
-                   + (self->support_a_pick.y - self->support_a->start.y)
-                   * (self->support_a->end.y - self->support_a->start.y)) / (a_len * a_len)
-                : 0;
-  spec.start = t <= 0.5 ? TRB_LAYOUT_FROM_START : TRB_LAYOUT_FROM_END;
+  joist_spec (self, &spec);
   self->preview = trb_layout_preview (self->support_a, self->support_b, &spec, &error);
   if (self->preview == NULL)
     {
@@ -572,17 +580,8 @@ lay_out_joists (TrbPlanCanvas *self)
   TrbProject *project = current_project (self);
   TrbJoistRunSpec spec;
   TrbMember *template;
-  double a_len, t;
 
-  trb_joist_run_spec_init (&spec, self->joist_spacing);
-  a_len = self->support_a->length;
-  t = a_len > 0 ? ((self->support_a_pick.x - self->support_a->start.x)
-                   * (self->support_a->end.x - self->support_a->start.x)
-                   + (self->support_a_pick.y - self->support_a->start.y)
-                   * (self->support_a->end.y - self->support_a->start.y)) / (a_len * a_len)
-                : 0;
-  spec.start = t <= 0.5 ? TRB_LAYOUT_FROM_START : TRB_LAYOUT_FROM_END;
-
+  joist_spec (self, &spec);
   template = joist_template (self);
   if (template == NULL)
     {
@@ -1317,9 +1316,9 @@ on_scroll (TrbPlanCanvas            *self,
 }
 
 static void
-on_zoom_begin (TrbPlanCanvas *self,
+on_zoom_begin (TrbPlanCanvas    *self,
                GdkEventSequence *sequence,
-               GtkGesture    *gesture)
+               GtkGesture       *gesture)
 {
   self->zoom_last = 1.0;
 }
