@@ -340,9 +340,9 @@ place_of (const Call *c,
 
 /* A call whose failure means the new bytes may not all be in the file, or not in its place:
  * the temporary file's creation, writes, flush and close, and the rename (or the same on the
- * target, which the checks of the old bytes then catch). fallocate() only
- * reserves room (a hint whose failure the writes that follow would show), and the folder is
- * flushed after the rename (see docs/reliability.md on what its failure means). */
+ * target, which the checks of the old bytes then catch). fallocate() only reserves room (a
+ * hint whose failure the writes that follow would show), and the folder is flushed after the
+ * rename (see docs/reliability.md on what its failure means). */
 static gboolean
 is_critical (const Call *c,
              Place       place)
