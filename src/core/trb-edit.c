@@ -131,6 +131,13 @@ trb_edit_command_get_label (const TrbEditCommand *command)
   return command->label;
 }
 
+/**
+ * trb_edit_command_free:
+ * @command: (nullable): a command that is not in a history
+ *
+ * Frees the command and whatever it holds out of the project (a removed member, a replaced
+ * column).
+ */
 void
 trb_edit_command_free (TrbEditCommand *command)
 {
@@ -1196,6 +1203,11 @@ trb_edit_floor_item_copy (TrbFloorItemKind kind,
     }
 }
 
+/**
+ * trb_edit_floor_item_free:
+ * @kind: what @item is
+ * @item: (nullable): a grid line, column, wall, area load, opening, line or point load
+ */
 void
 trb_edit_floor_item_free (TrbFloorItemKind kind,
                           gpointer         item)
@@ -2132,6 +2144,13 @@ commands_free (GPtrArray *commands,
   g_ptr_array_set_size (commands, 0);
 }
 
+/**
+ * trb_edit_history_free:
+ * @history: (nullable): a history
+ *
+ * Frees the history and its commands, newest first. The project stays as it is; free the
+ * history before the project, since its commands may hold members taken out of it.
+ */
 void
 trb_edit_history_free (TrbEditHistory *history)
 {
@@ -2145,6 +2164,12 @@ trb_edit_history_free (TrbEditHistory *history)
   g_free (history);
 }
 
+/**
+ * trb_edit_history_get_project:
+ * @history: a history
+ *
+ * Returns: (transfer none): the project its commands change.
+ */
 TrbProject *
 trb_edit_history_get_project (TrbEditHistory *history)
 {
@@ -2216,6 +2241,13 @@ trb_edit_history_begin_group (TrbEditHistory *history,
   history->group->applied = TRUE;
 }
 
+/**
+ * trb_edit_history_end_group:
+ * @history: a history with an open group
+ *
+ * Records the group as one step (nothing, when it is empty); what could be redone is
+ * forgotten.
+ */
 void
 trb_edit_history_end_group (TrbEditHistory *history)
 {
@@ -2255,6 +2287,12 @@ trb_edit_history_cancel_group (TrbEditHistory *history)
   trb_edit_command_free (group);
 }
 
+/**
+ * trb_edit_history_can_undo:
+ * @history: a history
+ *
+ * Returns: whether there is a step to undo (never while a group is open).
+ */
 gboolean
 trb_edit_history_can_undo (TrbEditHistory *history)
 {
@@ -2262,6 +2300,12 @@ trb_edit_history_can_undo (TrbEditHistory *history)
   return history->group == NULL && history->undo->len > 0;
 }
 
+/**
+ * trb_edit_history_can_redo:
+ * @history: a history
+ *
+ * Returns: whether there is an undone step to redo (never while a group is open).
+ */
 gboolean
 trb_edit_history_can_redo (TrbEditHistory *history)
 {
@@ -2269,6 +2313,12 @@ trb_edit_history_can_redo (TrbEditHistory *history)
   return history->group == NULL && history->redo->len > 0;
 }
 
+/**
+ * trb_edit_history_get_undo_label:
+ * @history: a history
+ *
+ * Returns: (nullable): what undo would take back ("Move B3"), or %NULL.
+ */
 const char *
 trb_edit_history_get_undo_label (TrbEditHistory *history)
 {
@@ -2278,6 +2328,12 @@ trb_edit_history_get_undo_label (TrbEditHistory *history)
   return trb_edit_command_get_label (g_ptr_array_index (history->undo, history->undo->len - 1));
 }
 
+/**
+ * trb_edit_history_get_redo_label:
+ * @history: a history
+ *
+ * Returns: (nullable): what redo would do again, or %NULL.
+ */
 const char *
 trb_edit_history_get_redo_label (TrbEditHistory *history)
 {
@@ -2287,6 +2343,12 @@ trb_edit_history_get_redo_label (TrbEditHistory *history)
   return trb_edit_command_get_label (g_ptr_array_index (history->redo, history->redo->len - 1));
 }
 
+/**
+ * trb_edit_history_get_n_undo:
+ * @history: a history
+ *
+ * Returns: how many steps can be undone.
+ */
 guint
 trb_edit_history_get_n_undo (TrbEditHistory *history)
 {
@@ -2294,6 +2356,12 @@ trb_edit_history_get_n_undo (TrbEditHistory *history)
   return history->undo->len;
 }
 
+/**
+ * trb_edit_history_get_n_redo:
+ * @history: a history
+ *
+ * Returns: how many undone steps can be redone.
+ */
 guint
 trb_edit_history_get_n_redo (TrbEditHistory *history)
 {
@@ -2322,6 +2390,12 @@ trb_edit_history_undo (TrbEditHistory *history)
   return TRUE;
 }
 
+/**
+ * trb_edit_history_redo:
+ * @history: a history
+ *
+ * Returns: %TRUE if a step was redone; %FALSE when there is none (or a group is open).
+ */
 gboolean
 trb_edit_history_redo (TrbEditHistory *history)
 {
@@ -2351,6 +2425,13 @@ trb_edit_history_mark_saved (TrbEditHistory *history)
   history->saved = top_serial (history);
 }
 
+/**
+ * trb_edit_history_is_modified:
+ * @history: a history
+ *
+ * Returns: whether the project differs from what was last saved (or, never saved, from what
+ *   the history started with).
+ */
 gboolean
 trb_edit_history_is_modified (TrbEditHistory *history)
 {
