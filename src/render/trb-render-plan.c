@@ -181,6 +181,9 @@ struct _TrbPlanScene
   TrbPlanBounds           bounds;
   double                 *column_loads;     /* n_columns * TRB_N_CASES, N; NULL when none */
   TrbUnitSystem           units;
+  /* Text laid out by earlier draws: a draw changes nothing else of the scene, and the canvas
+   * and the printed page each draw their own scene from one thread. */
+  TrbRenderTextCache     *texts;
 };
 
 static void
@@ -220,6 +223,7 @@ trb_plan_scene_new (const TrbProject       *project,
   scene->results = results;
   scene->units = project->settings.units;
   scene->member_results = g_hash_table_new (g_direct_hash, g_direct_equal);
+  scene->texts = trb_render_text_cache_new ();
   if (results != NULL)
     for (guint i = 0; i < results->members->len; i++)
       {
@@ -289,6 +293,7 @@ trb_plan_scene_free (TrbPlanScene *scene)
     return;
   g_clear_pointer (&scene->member_results, g_hash_table_unref);
   g_free (scene->column_loads);
+  trb_render_text_cache_free (scene->texts);
   g_free (scene);
 }
 
@@ -700,6 +705,7 @@ typedef struct
   const TrbPlanView        *view;
   const TrbPlanDrawOptions *options;
   const TrbRenderStyle     *style;
+  TrbRenderTextCache       *texts;     /* the scene's */
   TrbPlanBounds             visible;   /* plan metres, padded for labels */
   TrbPlanBounds             device;    /* the drawing rectangle, device units */
   TrbRgba                   ink;
@@ -826,7 +832,7 @@ label_clear_of_members (DrawContext  *dc,
                         double       *x,
                         double       *y)
 {
-  double w = trb_render_text_width (dc->cr, dc->style, text, size, FALSE);
+  double w = trb_render_text_width_cached (dc->texts, dc->cr, dc->style, text, size, FALSE);
   double h = size * 1.3;
   double band = 1.6 * dc->fs;
   TrbPlanBounds mine = { *x - w / 2, *y - h / 2, *x + w / 2, *y + h / 2 };
@@ -947,7 +953,7 @@ draw_area_loads (DrawContext *dc)
         c.b *= 0.6;
         {
           /* a paper-coloured ground, so that the label reads over the lines under it */
-          double tw = trb_render_text_width (dc->cr, dc->style, text, dc->fs * 0.95, FALSE);
+          double tw = trb_render_text_width_cached (dc->texts, dc->cr, dc->style, text, dc->fs * 0.95, FALSE);
           TrbRgba ground = dc->paper;
 
           ground.a = 0.85;
@@ -956,7 +962,7 @@ draw_area_loads (DrawContext *dc)
           cairo_fill (dc->cr);
         }
         trb_render_set_color (dc->cr, &c);
-        trb_render_text (dc->cr, dc->style, text, dc->fs * 0.95, FALSE, dx, dy, 0.5, 0.5, NULL);
+        trb_render_text_cached (dc->texts, dc->cr, dc->style, text, dc->fs * 0.95, FALSE, dx, dy, 0.5, 0.5, NULL);
       }
   }
 }
@@ -1048,7 +1054,7 @@ draw_grids (DrawContext *dc)
           trb_render_set_color (cr, &dc->ink);
           cairo_set_line_width (cr, 0.5 * dc->lw);
           cairo_stroke (cr);
-          trb_render_text (cr, dc->style, g->name, dc->fs * 1.05, TRUE, cx, cy, 0.5, 0.5, NULL);
+          trb_render_text_cached (dc->texts, cr, dc->style, g->name, dc->fs * 1.05, TRUE, cx, cy, 0.5, 0.5, NULL);
         }
     }
 }
@@ -1201,7 +1207,7 @@ draw_walls (DrawContext *dc)
                                                   w->material != NULL ? " " : "",
                                                   w->material != NULL ? w->material : "");
 
-            trb_render_text (cr, dc->style, t, dc->fs * 0.9, FALSE, 0, h + 1.5 * dc->lw,
+            trb_render_text_cached (dc->texts, cr, dc->style, t, dc->fs * 0.9, FALSE, 0, h + 1.5 * dc->lw,
                              0.5, 0, NULL);
           }
           cairo_restore (cr);
@@ -1374,7 +1380,7 @@ draw_flag (DrawContext *dc,
   cairo_set_source_rgb (cr, 0, 0, 0);
   if (dc->style->dark && !dc->style->print)
     trb_render_set_color (cr, &dc->ink);
-  trb_render_text (cr, dc->style, "!", s * 1.1, TRUE, x, y + s * 0.05, 0.5, 0.5, NULL);
+  trb_render_text_cached (dc->texts, cr, dc->style, "!", s * 1.1, TRUE, x, y + s * 0.05, 0.5, 0.5, NULL);
 }
 
 /* One label: a member's, or a joist run's. */
@@ -1624,7 +1630,7 @@ draw_member_labels (DrawContext *dc)
       /* a label needs a few characters' room at least */
       if (len < 4 * fs)
         continue;
-      tw = trb_render_text_width (cr, dc->style, l->top, fs, TRUE);
+      tw = trb_render_text_width_cached (dc->texts, cr, dc->style, l->top, fs, TRUE);
       if (tw > len * 0.95)
         {
           /* a smaller size still fits on a short member; below that, leave it out */
@@ -1633,7 +1639,7 @@ draw_member_labels (DrawContext *dc)
             continue;
           tw = len * 0.95;
         }
-      bw = trb_render_text_width (cr, dc->style, l->bottom, fs, TRUE) +
+      bw = trb_render_text_width_cached (dc->texts, cr, dc->style, l->bottom, fs, TRUE) +
            (l->status == TRB_RENDER_STATUS_FAIL ? 2.5 * fs : 0);
 
       ang = atan2 (by - ay, bx - ax);
@@ -1655,14 +1661,14 @@ draw_member_labels (DrawContext *dc)
       cairo_translate (cr, (ax + bx) / 2, (ay + by) / 2);
       cairo_rotate (cr, ang);
       trb_render_set_color (cr, &dc->ink);
-      trb_render_text (cr, dc->style, l->top, fs, TRUE, 0, -off, 0.5, 1.0, NULL);
+      trb_render_text_cached (dc->texts, cr, dc->style, l->top, fs, TRUE, 0, -off, 0.5, 1.0, NULL);
       trb_render_status_color (dc->style, l->status, &c);
       /* amber text on white is faint: print the ratio in ink, the line carries colour */
       if (dc->style->print && l->status == TRB_RENDER_STATUS_NEAR)
         c = dc->ink;
       trb_render_set_color (cr, &c);
       {
-        double w = trb_render_text (cr, dc->style, l->bottom, fs,
+        double w = trb_render_text_cached (dc->texts, cr, dc->style, l->bottom, fs,
                                     l->status == TRB_RENDER_STATUS_FAIL, 0, off, 0.5, 0.0,
                                     NULL);
 
@@ -1792,7 +1798,7 @@ draw_columns (DrawContext *dc)
       cairo_fill (cr);
 
       if (dc->options->layers & TRB_PLAN_LAYER_LABELS)
-        trb_render_text (cr, dc->style, c->id, dc->fs * 0.95, TRUE, x - h - 1.5, y - h - 1.0,
+        trb_render_text_cached (dc->texts, cr, dc->style, c->id, dc->fs * 0.95, TRUE, x - h - 1.5, y - h - 1.0,
                          1.0, 1.0, NULL);
 
       if (loads && trb_plan_scene_get_column_load (dc->scene, i, load))
@@ -1809,7 +1815,7 @@ draw_columns (DrawContext *dc)
                 continue;
               v = trb_units_format (load[k], TRB_DIM_FORCE, dc->scene->units);
               t = g_strdup_printf ("%s %s", trb_load_case_name (k), v);
-              trb_render_text (cr, dc->style, t, dc->fs * 0.85, FALSE, x + h + 1.5, ty, 0.0,
+              trb_render_text_cached (dc->texts, cr, dc->style, t, dc->fs * 0.85, FALSE, x + h + 1.5, ty, 0.0,
                                0.0, &th);
               ty += th;
             }
@@ -1909,7 +1915,7 @@ draw_line_loads (DrawContext *dc)
           cairo_translate (cr, lx, ly);
           cairo_rotate (cr, flip ? lang + G_PI : lang);
           /* on the far side of the load line from the member */
-          trb_render_text (cr, dc->style, t, dc->fs * 0.9, FALSE, 0, flip ? 1.0 : -1.0, 0.5,
+          trb_render_text_cached (dc->texts, cr, dc->style, t, dc->fs * 0.9, FALSE, 0, flip ? 1.0 : -1.0, 0.5,
                            flip ? 0.0 : 1.0, NULL);
           cairo_restore (cr);
         }
@@ -1943,7 +1949,7 @@ draw_line_loads (DrawContext *dc)
       v = trb_units_format (p->P, TRB_DIM_FORCE, dc->scene->units);
       t = g_strdup_printf ("%s %s%s%s", trb_load_case_name (p->lcase), v,
                            p->label != NULL ? " " : "", p->label != NULL ? p->label : "");
-      trb_render_text (cr, dc->style, t, dc->fs * 0.9, FALSE, x - 2.4 * alen * u,
+      trb_render_text_cached (dc->texts, cr, dc->style, t, dc->fs * 0.9, FALSE, x - 2.4 * alen * u,
                        y - 2.4 * alen * u - 1, 0.5, 1.0, NULL);
     }
 }
@@ -2025,6 +2031,7 @@ trb_plan_draw (cairo_t                  *cr,
   dc.view = view;
   dc.options = options;
   dc.style = &options->style;
+  dc.texts = scene->texts;
   dc.fs = options->style.font_size;
   dc.lw = options->style.line_width;
   trb_render_ink_color (dc.style, &dc.ink);

@@ -335,3 +335,198 @@ trb_render_text_wrapped (cairo_t              *cr,
   cairo_new_path (cr);
   return (double) logical.height / PANGO_SCALE;
 }
+
+/* ---- text laid out once ------------------------------------------------------------------- */
+
+/* Past this many strings the cache starts again: a label each of a few thousand members and
+ * their widths, a few megabytes. */
+#define TEXT_CACHE_MAX 16384
+
+typedef struct
+{
+  PangoLayout *layout;
+  double       width;    /* the logical box, device units */
+  double       height;
+  double       x;        /* its offset from the layout's origin */
+  double       y;
+} CachedText;
+
+struct _TrbRenderTextCache
+{
+  GHashTable          *texts;       /* key (family, size, weight, text) -> CachedText */
+  PangoContext        *context;     /* NULL until the first use */
+  cairo_surface_type_t surface_type;
+  double               scale_x;     /* the font scale factors of the transformation */
+  double               scale_y;
+  GString             *key;         /* reused for lookups */
+};
+
+static void
+cached_text_free (CachedText *t)
+{
+  g_clear_object (&t->layout);
+  g_free (t);
+}
+
+/**
+ * trb_render_text_cache_new:
+ *
+ * Returns: (transfer full): an empty cache of laid-out text
+ */
+TrbRenderTextCache *
+trb_render_text_cache_new (void)
+{
+  TrbRenderTextCache *cache = g_new0 (TrbRenderTextCache, 1);
+
+  cache->texts = g_hash_table_new_full (g_str_hash, g_str_equal, g_free,
+                                        (GDestroyNotify) cached_text_free);
+  cache->key = g_string_new (NULL);
+  return cache;
+}
+
+void
+trb_render_text_cache_free (TrbRenderTextCache *cache)
+{
+  if (cache == NULL)
+    return;
+  g_clear_pointer (&cache->texts, g_hash_table_unref);
+  g_clear_object (&cache->context);
+  g_string_free (cache->key, TRUE);
+  g_free (cache);
+}
+
+guint
+trb_render_text_cache_size (const TrbRenderTextCache *cache)
+{
+  g_return_val_if_fail (cache != NULL, 0);
+
+  return g_hash_table_size (cache->texts);
+}
+
+/* The context the cache's layouts share: made as trb_render_layout_new() makes one for a
+ * layout of its own, from cr (its surface's font options, the scale of its transformation),
+ * emptying the cache when either has changed since. Only the scale counts of the
+ * transformation: with hinting off, a layout's advances do not depend on rotation, and
+ * translation never reaches Pango. */
+static void
+text_cache_prepare (TrbRenderTextCache *cache,
+                    cairo_t            *cr)
+{
+  cairo_surface_type_t type = cairo_surface_get_type (cairo_get_target (cr));
+  cairo_matrix_t m;
+  PangoMatrix pm = PANGO_MATRIX_INIT;
+  double sx, sy;
+  cairo_font_options_t *options;
+
+  cairo_get_matrix (cr, &m);
+  pm.xx = m.xx;
+  pm.yx = m.yx;
+  pm.xy = m.xy;
+  pm.yy = m.yy;
+  pango_matrix_get_font_scale_factors (&pm, &sx, &sy);
+  if (cache->context != NULL && cache->surface_type == type && cache->scale_x == sx &&
+      cache->scale_y == sy)
+    return;
+
+  g_hash_table_remove_all (cache->texts);
+  g_clear_object (&cache->context);
+  cache->surface_type = type;
+  cache->scale_x = sx;
+  cache->scale_y = sy;
+  cache->context = pango_cairo_create_context (cr);
+  /* the scale alone, so that the first text's rotation is not every text's */
+  pm = (PangoMatrix) PANGO_MATRIX_INIT;
+  pango_matrix_scale (&pm, sx, sy);
+  pango_context_set_matrix (cache->context, &pm);
+  options = cairo_font_options_create ();
+  cairo_font_options_set_hint_metrics (options, CAIRO_HINT_METRICS_OFF);
+  cairo_font_options_set_hint_style (options, CAIRO_HINT_STYLE_NONE);
+  pango_cairo_context_set_font_options (cache->context, options);
+  cairo_font_options_destroy (options);
+}
+
+static const CachedText *
+text_cache_lookup (TrbRenderTextCache   *cache,
+                   cairo_t              *cr,
+                   const TrbRenderStyle *style,
+                   const char           *text,
+                   double                size,
+                   gboolean              bold)
+{
+  const char *family = style->font_family != NULL ? style->font_family : "Sans";
+  CachedText *t;
+  PangoFontDescription *desc;
+  PangoRectangle logical;
+
+  text_cache_prepare (cache, cr);
+  g_string_printf (cache->key, "%s\n%a\n%d\n%s", family, size, bold ? 1 : 0, text);
+  t = g_hash_table_lookup (cache->texts, cache->key->str);
+  if (t != NULL)
+    return t;
+
+  if (g_hash_table_size (cache->texts) >= TEXT_CACHE_MAX)
+    g_hash_table_remove_all (cache->texts);
+  t = g_new0 (CachedText, 1);
+  t->layout = pango_layout_new (cache->context);
+  desc = pango_font_description_new ();
+  pango_font_description_set_family (desc, family);
+  pango_font_description_set_absolute_size (desc, size * PANGO_SCALE);
+  pango_font_description_set_weight (desc, bold ? PANGO_WEIGHT_BOLD : PANGO_WEIGHT_NORMAL);
+  pango_layout_set_font_description (t->layout, desc);
+  pango_font_description_free (desc);
+  pango_layout_set_text (t->layout, text, -1);
+  pango_layout_get_extents (t->layout, NULL, &logical);
+  t->width = (double) logical.width / PANGO_SCALE;
+  t->height = (double) logical.height / PANGO_SCALE;
+  t->x = (double) logical.x / PANGO_SCALE;
+  t->y = (double) logical.y / PANGO_SCALE;
+  g_hash_table_insert (cache->texts, g_strdup (cache->key->str), t);
+  return t;
+}
+
+double
+trb_render_text_cached (TrbRenderTextCache   *cache,
+                        cairo_t              *cr,
+                        const TrbRenderStyle *style,
+                        const char           *text,
+                        double                size,
+                        gboolean              bold,
+                        double                x,
+                        double                y,
+                        double                ax,
+                        double                ay,
+                        double               *height)
+{
+  const CachedText *t;
+
+  g_return_val_if_fail (cache != NULL && cr != NULL && style != NULL, 0);
+
+  if (text == NULL || text[0] == '\0')
+    {
+      if (height != NULL)
+        *height = 0;
+      return 0;
+    }
+  t = text_cache_lookup (cache, cr, style, text, size, bold);
+  cairo_move_to (cr, x - ax * t->width - t->x, y - ay * t->height - t->y);
+  pango_cairo_show_layout (cr, t->layout);
+  cairo_new_path (cr);
+  if (height != NULL)
+    *height = t->height;
+  return t->width;
+}
+
+double
+trb_render_text_width_cached (TrbRenderTextCache   *cache,
+                              cairo_t              *cr,
+                              const TrbRenderStyle *style,
+                              const char           *text,
+                              double                size,
+                              gboolean              bold)
+{
+  g_return_val_if_fail (cache != NULL && cr != NULL && style != NULL, 0);
+
+  if (text == NULL || text[0] == '\0')
+    return 0;
+  return text_cache_lookup (cache, cr, style, text, size, bold)->width;
+}

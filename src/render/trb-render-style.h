@@ -98,4 +98,37 @@ double          trb_render_text_wrapped        (cairo_t                 *cr,
                                                 double                   y,
                                                 double                   width);
 
+/* Laid-out text kept from one draw to the next: a plan redrawn at every step of a pan or zoom
+ * shows the same few hundred strings each time, and laying each out anew (a Pango context,
+ * the fonts, itemizing and shaping) was most of the cost of its labels. Entries are keyed by
+ * family, size, weight and text; the cache empties itself when the surface type or the
+ * scale of the transformation it is drawn under changes (what the layout depends on), and
+ * when it grows past a few thousand strings. Not shared between threads. */
+typedef struct _TrbRenderTextCache TrbRenderTextCache;
+
+TrbRenderTextCache *trb_render_text_cache_new     (void);
+void                trb_render_text_cache_free    (TrbRenderTextCache      *cache);
+guint               trb_render_text_cache_size    (const TrbRenderTextCache *cache);
+
+/* trb_render_text() and trb_render_text_width() through a cache; the same pixels. */
+double          trb_render_text_cached         (TrbRenderTextCache      *cache,
+                                                cairo_t                 *cr,
+                                                const TrbRenderStyle    *style,
+                                                const char              *text,
+                                                double                   size,
+                                                gboolean                 bold,
+                                                double                   x,
+                                                double                   y,
+                                                double                   ax,
+                                                double                   ay,
+                                                double                  *height);
+double          trb_render_text_width_cached   (TrbRenderTextCache      *cache,
+                                                cairo_t                 *cr,
+                                                const TrbRenderStyle    *style,
+                                                const char              *text,
+                                                double                   size,
+                                                gboolean                 bold);
+
+G_DEFINE_AUTOPTR_CLEANUP_FUNC (TrbRenderTextCache, trb_render_text_cache_free)
+
 G_END_DECLS
