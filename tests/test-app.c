@@ -334,6 +334,55 @@ test_draw_beam (Fixture       *f,
   g_assert_null (trb_plan_canvas_get_selected_member (canvas));
 }
 
+/* Dragging on the plan: a member's end by its handle, onto the drawing grid; a box around the
+ * whole floor, then Delete, then Undo. The demo's plan (data/examples/demo-floor.trabeate),
+ * 1 ft = 0.3048 m exactly (NIST SP 811, Appendix B): G1 runs from (0, 16 ft) to (20 ft, 16 ft);
+ * nothing lies within 3 ft of (23 ft, 19 ft), a point of the 1 ft grid. */
+static void
+test_drag (Fixture       *f,
+           gconstpointer  data)
+{
+  TrbPlanCanvas *canvas = TRB_PLAN_CANVAS (trb_window_get_canvas (f->window));
+  TrbProject *project = trb_document_get_project (f->document);
+  TrbFloor *floor = trb_document_get_floor (f->document);
+  TrbMember *g1 = trb_project_find_member (project, "G1");
+  guint n_members = project->members->len;
+  guint n_columns = floor->columns->len;
+
+  g_assert_nonnull (g1);
+  g_assert_cmpfloat_with_epsilon (g1->end.x, 20 * 0.3048, 1e-12);
+
+  /* the end handle of the selected girder, dragged to about (23 ft, 19 ft) */
+  trb_plan_canvas_select_member (canvas, g1, FALSE);
+  trb_plan_canvas_drag_plan (canvas, g1->end.x, g1->end.y, 23 * 0.3048 + 0.05,
+                             19 * 0.3048 - 0.04, 0);
+  g_assert_cmpfloat_with_epsilon (g1->end.x, 23 * 0.3048, 1e-9);
+  g_assert_cmpfloat_with_epsilon (g1->end.y, 19 * 0.3048, 1e-9);
+  g_assert_cmpfloat (g1->start.x, ==, 0);
+  g_assert_cmpstr (trb_document_get_undo_label (f->document), ==, "Move G1");
+  g_assert_true (gtk_widget_activate_action (GTK_WIDGET (f->window), "win.undo", NULL));
+  g_assert_cmpfloat_with_epsilon (g1->end.x, 20 * 0.3048, 1e-12);
+  g_assert_cmpfloat_with_epsilon (g1->end.y, 16 * 0.3048, 1e-12);
+
+  /* a box from below the wall's left end to beyond the balcony, dragged left to right:
+   * everything it encloses, every member, column and wall */
+  trb_plan_canvas_select_member (canvas, NULL, FALSE);
+  trb_plan_canvas_drag_plan (canvas, -3.0, -3.0, 20.0, 8.0, 0);
+  g_assert_cmpuint (trb_plan_canvas_get_n_selected (canvas), ==,
+                    floor->members->len + floor->columns->len + floor->walls->len);
+
+  /* Delete takes them all as one step; Undo puts them all back */
+  trb_plan_canvas_delete_selection (canvas);
+  g_assert_cmpuint (project->members->len, ==, 0);
+  g_assert_cmpuint (floor->columns->len, ==, 0);
+  g_assert_cmpuint (trb_plan_canvas_get_n_selected (canvas), ==, 0);
+  g_assert_true (gtk_widget_activate_action (GTK_WIDGET (f->window), "win.undo", NULL));
+  g_assert_cmpuint (project->members->len, ==, n_members);
+  g_assert_cmpuint (floor->columns->len, ==, n_columns);
+  g_assert_false (trb_document_get_modified (f->document));
+  wait_solved (f->document);
+}
+
 /* A bay drawn from nothing, as docs/user-guide.md tells it: four columns 20 ft by 16 ft apart,
  * two girders on them, a run of joists between the girders, an office live load over the
  * bay. 1 ft = 0.3048 m exactly (NIST SP 811, Appendix B). */
@@ -673,6 +722,7 @@ main (int   argc,
   g_test_add ("/trb/app/draw-beam", Fixture, NULL, fixture_set_up, test_draw_beam,
               fixture_tear_down);
   g_test_add_func ("/trb/app/draw-bay", test_draw_bay);
+  g_test_add ("/trb/app/drag", Fixture, NULL, fixture_set_up, test_drag, fixture_tear_down);
   g_test_add ("/trb/app/edits-while-solving", Fixture, NULL, fixture_set_up,
               test_edits_while_solving, fixture_tear_down);
   g_test_add ("/trb/app/save-round-trip", Fixture, NULL, fixture_set_up, test_save_round_trip,

@@ -1062,20 +1062,21 @@ pick_handle (TrbPlanCanvas  *self,
   return FALSE;
 }
 
+/* A press, a drag and a release, from the pointer's gesture or from
+ * trb_plan_canvas_drag_plan(); device coordinates. */
 static void
-on_drag_begin (TrbPlanCanvas  *self,
-               double          x,
-               double          y,
-               GtkGestureDrag *gesture)
+drag_press (TrbPlanCanvas   *self,
+            double           x,
+            double           y,
+            guint            button,
+            GdkModifierType  state)
 {
-  guint button = gtk_gesture_single_get_current_button (GTK_GESTURE_SINGLE (gesture));
   TrbPlanHit hit;
 
   gtk_widget_grab_focus (GTK_WIDGET (self));
   self->press_x = self->drag_x = x;
   self->press_y = self->drag_y = y;
-  self->press_state = gtk_event_controller_get_current_event_state (
-    GTK_EVENT_CONTROLLER (gesture));
+  self->press_state = state;
   self->dragging = FALSE;
   self->drag = DRAG_NONE;
 
@@ -1155,14 +1156,11 @@ drag_target (TrbPlanCanvas *self,
 }
 
 static void
-on_drag_update (TrbPlanCanvas  *self,
-                double          dx,
-                double          dy,
-                GtkGestureDrag *gesture)
+drag_motion (TrbPlanCanvas *self,
+             double         x,
+             double         y)
 {
-  double x = self->press_x + dx, y = self->press_y + dy;
-
-  if (!self->dragging && hypot (dx, dy) < DRAG_THRESHOLD)
+  if (!self->dragging && hypot (x - self->press_x, y - self->press_y) < DRAG_THRESHOLD)
     return;
   self->dragging = TRUE;
 
@@ -1245,13 +1243,9 @@ finish_drag (TrbPlanCanvas *self)
 }
 
 static void
-on_drag_end (TrbPlanCanvas  *self,
-             double          dx,
-             double          dy,
-             GtkGestureDrag *gesture)
+drag_release (TrbPlanCanvas *self,
+              guint          button)
 {
-  guint button = gtk_gesture_single_get_current_button (GTK_GESTURE_SINGLE (gesture));
-
   if (self->dragging)
     finish_drag (self);
   else if (self->swallow_release)
@@ -1263,6 +1257,66 @@ on_drag_end (TrbPlanCanvas  *self,
   self->drag_member = NULL;
   self->drag_column = NULL;
   gtk_widget_queue_draw (GTK_WIDGET (self));
+}
+
+static void
+on_drag_begin (TrbPlanCanvas  *self,
+               double          x,
+               double          y,
+               GtkGestureDrag *gesture)
+{
+  drag_press (self, x, y, gtk_gesture_single_get_current_button (GTK_GESTURE_SINGLE (gesture)),
+              gtk_event_controller_get_current_event_state (GTK_EVENT_CONTROLLER (gesture)));
+}
+
+static void
+on_drag_update (TrbPlanCanvas  *self,
+                double          dx,
+                double          dy,
+                GtkGestureDrag *gesture)
+{
+  drag_motion (self, self->press_x + dx, self->press_y + dy);
+}
+
+static void
+on_drag_end (TrbPlanCanvas  *self,
+             double          dx,
+             double          dy,
+             GtkGestureDrag *gesture)
+{
+  drag_release (self, gtk_gesture_single_get_current_button (GTK_GESTURE_SINGLE (gesture)));
+}
+
+/**
+ * trb_plan_canvas_drag_plan:
+ * @self: a canvas
+ * @x0: where the primary button goes down, plan m
+ * @y0: where the primary button goes down, plan m
+ * @x1: where it comes up
+ * @y1: where it comes up
+ * @state: the modifiers held (Shift adds to the selection)
+ *
+ * A drag with the primary button, as the pointer would make it, in ten steps: a rubber
+ * band, a member's end or the member moved, a column moved; for tests.
+ */
+void
+trb_plan_canvas_drag_plan (TrbPlanCanvas   *self,
+                           double           x0,
+                           double           y0,
+                           double           x1,
+                           double           y1,
+                           GdkModifierType  state)
+{
+  double a, b, c, d;
+
+  g_return_if_fail (TRB_IS_PLAN_CANVAS (self));
+
+  trb_plan_view_to_device (&self->view, x0, y0, &a, &b);
+  trb_plan_view_to_device (&self->view, x1, y1, &c, &d);
+  drag_press (self, a, b, GDK_BUTTON_PRIMARY, state);
+  for (int i = 1; i <= 10; i++)
+    drag_motion (self, a + (c - a) * i / 10.0, b + (d - b) * i / 10.0);
+  drag_release (self, GDK_BUTTON_PRIMARY);
 }
 
 static void

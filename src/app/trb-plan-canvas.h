@@ -53,11 +53,17 @@ void             trb_plan_canvas_zoom                (TrbPlanCanvas   *self,
 void             trb_plan_canvas_zoom_to_fit         (TrbPlanCanvas   *self);
 double           trb_plan_canvas_get_scale           (TrbPlanCanvas   *self);
 
-/* What a click of the current tool at a plan point (m) does, as the pointer would do it:
- * for tests and for the keyboard. */
+/* What a click or a drag of the current tool at plan points (m) does, as the pointer would do
+ * it: for tests and for the keyboard. */
 void             trb_plan_canvas_click_plan          (TrbPlanCanvas   *self,
                                                       double           x,
                                                       double           y,
+                                                      GdkModifierType  state);
+void             trb_plan_canvas_drag_plan           (TrbPlanCanvas   *self,
+                                                      double           x0,
+                                                      double           y0,
+                                                      double           x1,
+                                                      double           y1,
                                                       GdkModifierType  state);
 void             trb_plan_canvas_finish              (TrbPlanCanvas   *self);
 void             trb_plan_canvas_cancel              (TrbPlanCanvas   *self);
