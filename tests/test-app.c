@@ -17,6 +17,7 @@
 #include "trb-member-panel.h"
 #include "trb-plan-canvas.h"
 #include "trb-project-io.h"
+#include "trb-quantity-row.h"
 #include "trb-shortlist-panel.h"
 #include "trb-window.h"
 
@@ -332,6 +333,72 @@ test_draw_beam (Fixture       *f,
   g_assert_cmpuint (project->members->len, ==, n);
   g_assert_cmpuint (g_list_model_get_n_items (trb_member_list_get_model (list)), ==, n);
   g_assert_null (trb_plan_canvas_get_selected_member (canvas));
+}
+
+static GtkWidget *
+panel_row (Fixture    *f,
+           const char *name)
+{
+  GtkWidget *panel = trb_window_get_member_panel (f->window);
+
+  return GTK_WIDGET (gtk_widget_get_template_child (panel, G_OBJECT_TYPE (panel), name));
+}
+
+/* The member panel's entries: bad text is shown wrong in place and never reaches the model;
+ * good text in any unit does, as one undoable step. */
+static void
+test_member_panel (Fixture       *f,
+                   gconstpointer  data)
+{
+  TrbProject *project = trb_document_get_project (f->document);
+  TrbMember *g1 = trb_project_find_member (project, "G1");
+  TrbQuantityRow *live = TRB_QUANTITY_ROW (panel_row (f, "live_row"));
+  TrbQuantityRow *depth = TRB_QUANTITY_ROW (panel_row (f, "max_depth_row"));
+  GtkWidget *mark = panel_row (f, "mark_row");
+  double depth_before;
+
+  trb_plan_canvas_select_member (TRB_PLAN_CANVAS (trb_window_get_canvas (f->window)), g1,
+                                 FALSE);
+  g_assert_true (isnan (g1->deflection_live));
+  depth_before = g1->max_depth;
+
+  /* text that is no limit: an error in place, the model untouched, nothing to undo */
+  gtk_editable_set_text (GTK_EDITABLE (live), "L/abc");
+  g_assert_nonnull (trb_quantity_row_get_error (live));
+  g_assert_true (gtk_widget_has_css_class (GTK_WIDGET (live), "error"));
+  g_signal_emit_by_name (live, "apply");
+  g_assert_true (isnan (g1->deflection_live));
+  g_assert_false (trb_document_get_can_undo (f->document));
+
+  /* L/480 applies */
+  gtk_editable_set_text (GTK_EDITABLE (live), "L/480");
+  g_assert_null (trb_quantity_row_get_error (live));
+  g_signal_emit_by_name (live, "apply");
+  g_assert_cmpfloat (g1->deflection_live, ==, 480);
+
+  /* a depth in millimetres for a member drawn in feet: 406.4 mm is 16 in exactly (NIST SP
+   * 811, Appendix B: 1 in = 25.4 mm); a force where a length belongs is refused */
+  gtk_editable_set_text (GTK_EDITABLE (depth), "5 kip");
+  g_assert_nonnull (trb_quantity_row_get_error (depth));
+  g_signal_emit_by_name (depth, "apply");
+  g_assert_cmpfloat (g1->max_depth, ==, depth_before);
+  gtk_editable_set_text (GTK_EDITABLE (depth), "406.4 mm");
+  g_signal_emit_by_name (depth, "apply");
+  g_assert_cmpfloat_with_epsilon (g1->max_depth, 0.4064, 1e-12);
+
+  /* a mark another member has is refused, in place */
+  gtk_editable_set_text (GTK_EDITABLE (mark), "G2");
+  g_signal_emit_by_name (mark, "apply");
+  g_assert_cmpstr (g1->id, ==, "G1");
+  g_assert_true (gtk_widget_has_css_class (mark, "error"));
+
+  /* two steps, two undos */
+  g_assert_true (gtk_widget_activate_action (GTK_WIDGET (f->window), "win.undo", NULL));
+  g_assert_cmpfloat (g1->max_depth, ==, depth_before);
+  g_assert_true (gtk_widget_activate_action (GTK_WIDGET (f->window), "win.undo", NULL));
+  g_assert_true (isnan (g1->deflection_live));
+  g_assert_false (trb_document_get_can_undo (f->document));
+  wait_solved (f->document);
 }
 
 /* Dragging on the plan: a member's end by its handle, onto the drawing grid; a box around the
@@ -723,6 +790,8 @@ main (int   argc,
               fixture_tear_down);
   g_test_add_func ("/trb/app/draw-bay", test_draw_bay);
   g_test_add ("/trb/app/drag", Fixture, NULL, fixture_set_up, test_drag, fixture_tear_down);
+  g_test_add ("/trb/app/member-panel", Fixture, NULL, fixture_set_up, test_member_panel,
+              fixture_tear_down);
   g_test_add ("/trb/app/edits-while-solving", Fixture, NULL, fixture_set_up,
               test_edits_while_solving, fixture_tear_down);
   g_test_add ("/trb/app/save-round-trip", Fixture, NULL, fixture_set_up, test_save_round_trip,
