@@ -6,6 +6,7 @@
 #include <glib/gi18n.h>
 
 #include "trb-application.h"
+#include "trb-autosave.h"
 #include "trb-cautions.h"
 #include "trb-preferences-window.h"
 #include "trb-window.h"
@@ -15,6 +16,7 @@ struct _TrbApplication
   AdwApplication  parent_instance;
 
   GSettings      *settings;
+  gboolean        recovery_offered;
 };
 
 G_DEFINE_FINAL_TYPE (TrbApplication, trb_application, ADW_TYPE_APPLICATION)
@@ -317,6 +319,18 @@ trb_application_startup (GApplication *app)
                                            accels[i].accels);
 }
 
+/* Once, at the start: copies made later belong to this process's own windows. */
+static void
+offer_recovery (TrbApplication *self)
+{
+  GtkWindow *window = gtk_application_get_active_window (GTK_APPLICATION (self));
+
+  if (self->recovery_offered || window == NULL)
+    return;
+  self->recovery_offered = TRUE;
+  trb_autosave_offer (self, window);
+}
+
 static void
 trb_application_activate (GApplication *app)
 {
@@ -325,6 +339,7 @@ trb_application_activate (GApplication *app)
   if (window == NULL)
     window = GTK_WINDOW (new_window (TRB_APPLICATION (app)));
   gtk_window_present (window);
+  offer_recovery (TRB_APPLICATION (app));
 }
 
 static void
@@ -336,6 +351,7 @@ trb_application_open (GApplication  *app,
   for (int i = 0; i < n_files; i++)
     trb_application_open_file (TRB_APPLICATION (app), files[i],
                                gtk_application_get_active_window (GTK_APPLICATION (app)));
+  offer_recovery (TRB_APPLICATION (app));
 }
 
 static void

@@ -29,6 +29,7 @@ struct _TrbDocument
   TrbEditHistory   *history;
   gboolean          touched;        /* edited or saved since it was made */
   gboolean          in_group;       /* pushes apply now and re-solve at the group's end */
+  gboolean          recovered;      /* from a recovery copy: differs from its file until saved */
 
   guint64           generation;     /* counts the changes to the project */
   gboolean          solving;        /* a worker is solving, or is about to start */
@@ -408,6 +409,39 @@ trb_document_new_for_file (GFile   *file,
 }
 
 /**
+ * trb_document_new_for_recovery:
+ * @recovery: a recovery copy written by the autosave (trb-autosave.c)
+ * @original: (nullable): the project file the copy was made for, or %NULL for a project never
+ *   saved
+ * @error: return location for a #GError
+ *
+ * Returns: (transfer full) (nullable): the project of @recovery, which takes @original as its
+ *   file and counts as modified until it is saved; %NULL with the loader's error.
+ */
+TrbDocument *
+trb_document_new_for_recovery (GFile   *recovery,
+                               GFile   *original,
+                               GError **error)
+{
+  g_autofree char *path = NULL;
+  TrbDocument *self;
+  TrbProject *project;
+
+  g_return_val_if_fail (G_IS_FILE (recovery), NULL);
+  g_return_val_if_fail (original == NULL || G_IS_FILE (original), NULL);
+
+  path = g_file_get_path (recovery);
+  g_return_val_if_fail (path != NULL, NULL);
+  project = trb_project_load_file (path, error);
+  if (project == NULL)
+    return NULL;
+  self = document_new_for_project (project, original);
+  self->recovered = TRUE;
+  self->touched = TRUE;
+  return self;
+}
+
+/**
  * trb_document_save:
  * @self: a document
  * @file: (nullable): where to save; %NULL for the document's own file
@@ -445,6 +479,7 @@ trb_document_save (TrbDocument  *self,
       g_object_notify_by_pspec (G_OBJECT (self), properties[PROP_FILE]);
     }
   trb_edit_history_mark_saved (self->history);
+  self->recovered = FALSE;
   self->touched = TRUE;
   g_object_notify_by_pspec (G_OBJECT (self), properties[PROP_TITLE]);
   g_object_notify_by_pspec (G_OBJECT (self), properties[PROP_MODIFIED]);
@@ -478,7 +513,7 @@ gboolean
 trb_document_get_modified (TrbDocument *self)
 {
   g_return_val_if_fail (TRB_IS_DOCUMENT (self), FALSE);
-  return trb_edit_history_is_modified (self->history);
+  return self->recovered || trb_edit_history_is_modified (self->history);
 }
 
 /**

@@ -21,6 +21,9 @@ G_DECLARE_FINAL_TYPE (TrbDocument, trb_document, TRB, DOCUMENT, GObject)
 TrbDocument            *trb_document_new                 (const TrbSettings     *defaults);
 TrbDocument            *trb_document_new_for_file        (GFile                 *file,
                                                           GError               **error);
+TrbDocument            *trb_document_new_for_recovery    (GFile                 *recovery,
+                                                          GFile                 *original,
+                                                          GError               **error);
 gboolean                trb_document_save                (TrbDocument           *self,
                                                           GFile                 *file,
                                                           GError               **error);

@@ -7,6 +7,7 @@
 #include <string.h>
 
 #include "trb-app-enums.h"
+#include "trb-autosave.h"
 #include "trb-units.h"
 #include "trb-window-private.h"
 
@@ -554,6 +555,7 @@ trb_window_constructed (GObject *object)
       g_settings_bind (self->settings, "snap-to-members", self->canvas, "snap-to-members",
                        G_SETTINGS_BIND_GET);
     }
+  trb_autosave_attach (self);
   update_recent (self);
 }
 
