@@ -8,6 +8,7 @@
 #include "trb-application.h"
 #include "trb-autosave.h"
 #include "trb-cautions.h"
+#include "trb-help.h"
 #include "trb-preferences-window.h"
 #include "trb-window.h"
 
@@ -241,6 +242,19 @@ about_action (GSimpleAction *action,
 }
 
 static void
+help_action (GSimpleAction *action,
+             GVariant      *param,
+             gpointer       user_data)
+{
+  TrbApplication *self = user_data;
+  GtkWindow *parent = gtk_application_get_active_window (GTK_APPLICATION (self));
+  g_autoptr(GError) error = NULL;
+
+  if (!trb_help_show (parent, &error) && TRB_IS_WINDOW (parent))
+    trb_window_show_error (TRB_WINDOW (parent), error->message);
+}
+
+static void
 quit_action (GSimpleAction *action,
              GVariant      *param,
              gpointer       user_data)
@@ -258,6 +272,7 @@ static const GActionEntry app_actions[] = {
   { "open-recent", open_recent_action, "s" },
   { "preferences", preferences_action },
   { "about", about_action },
+  { "help", help_action },
   { "quit", quit_action },
 };
 
@@ -291,6 +306,7 @@ trb_application_startup (GApplication *app)
     { "app.new-window", { "<Control>n", NULL } },
     { "app.preferences", { "<Control>comma", NULL } },
     { "app.quit", { "<Control>q", NULL } },
+    { "app.help", { "F1", NULL } },
     { "win.open", { "<Control>o", NULL } },
     { "win.save", { "<Control>s", NULL } },
     { "win.save-as", { "<Control><Shift>s", NULL } },
