@@ -14,7 +14,7 @@ project_filter (void)
 
   gtk_file_filter_set_name (filter, _("Trabeate projects"));
   gtk_file_filter_add_pattern (filter, "*.trabeate");
-  gtk_file_filter_add_mime_type (filter, "application/x-trabeate");
+  gtk_file_filter_add_mime_type (filter, "application/x-trabeate-project");
   return filter;
 }
 
