@@ -4,7 +4,7 @@
 #include "config.h"
 
 #include <glib/gi18n.h>
-#include <gtk/gtk.h>
+#include <adwaita.h>
 #include <locale.h>
 #include <string.h>
 
@@ -158,13 +158,76 @@ test_help_missing (void)
     g_unsetenv ("TRABEATE_DOCDIR");
 }
 
+/* ---- language -------------------------------------------------------------------------------- */
+
+static gboolean
+find_label (GtkWidget  *widget,
+            const char *text)
+{
+  if (GTK_IS_LABEL (widget) && g_strcmp0 (gtk_label_get_label (GTK_LABEL (widget)), text) == 0)
+    return TRUE;
+  if (GTK_IS_BUTTON (widget) && g_strcmp0 (gtk_button_get_label (GTK_BUTTON (widget)), text) == 0)
+    return TRUE;
+  if (ADW_IS_SPLIT_BUTTON (widget)
+      && g_strcmp0 (adw_split_button_get_label (ADW_SPLIT_BUTTON (widget)), text) == 0)
+    return TRUE;
+  for (GtkWidget *child = gtk_widget_get_first_child (widget); child != NULL;
+       child = gtk_widget_get_next_sibling (child))
+    if (find_label (child, text))
+      return TRUE;
+  return FALSE;
+}
+
+/* English by default: the words the Spanish case looks for are the catalog's, not the
+ * source's. */
+static void
+test_english (void)
+{
+  TrbWindow *window = open_demo ();
+
+  g_assert_true (find_label (GTK_WIDGET (window), "Members"));      /* ui/trb-member-list.ui */
+  g_assert_true (find_label (GTK_WIDGET (window), "_Open"));        /* ui/trb-window.ui */
+  g_assert_false (find_label (GTK_WIDGET (window), "Elementos"));
+  close_window (window);
+}
+
+/* Under LANGUAGE=es with the build's catalogs, as tests/test-i18n.py runs the command. */
+static void
+test_spanish (void)
+{
+  TrbWindow *window = open_demo ();
+
+  /* po/es.po: msgid "Members" -> msgstr "Elementos", "_Open" -> "_Abrir" */
+  g_assert_true (find_label (GTK_WIDGET (window), "Elementos"));
+  g_assert_true (find_label (GTK_WIDGET (window), "_Abrir"));
+  g_assert_false (find_label (GTK_WIDGET (window), "Members"));
+  close_window (window);
+}
+
 int
 main (int   argc,
       char *argv[])
 {
   g_autoptr(GError) error = NULL;
-  const char *localedir = g_getenv ("TRABEATE_LOCALEDIR");
+  const char *localedir;
+  gboolean spanish = FALSE;
   int status;
+
+  /* --spanish: the window in Spanish, with the catalogs compiled in the build */
+  for (int i = 1; i < argc; i++)
+    if (g_str_equal (argv[i], "--spanish"))
+      {
+        spanish = TRUE;
+        memmove (&argv[i], &argv[i + 1], (argc - i) * sizeof (char *));
+        argc--;
+        break;
+      }
+  if (spanish)
+    {
+      g_setenv ("LANGUAGE", "es", TRUE);
+      g_setenv ("TRABEATE_LOCALEDIR", TRB_BUILD_LOCALEDIR, TRUE);
+    }
+  localedir = g_getenv ("TRABEATE_LOCALEDIR");
 
   /* as main.c does, with the build's catalogs when the test names them */
   setlocale (LC_ALL, "");
@@ -180,6 +243,10 @@ main (int   argc,
 
   g_test_add_func ("/trb/desktop/help", test_help);
   g_test_add_func ("/trb/desktop/help-missing", test_help_missing);
+  if (spanish)
+    g_test_add_func ("/trb/desktop/spanish", test_spanish);
+  else
+    g_test_add_func ("/trb/desktop/english", test_english);
   status = g_test_run ();
   g_object_unref (app);
   return status;
