@@ -10,6 +10,9 @@
 
 #include "trb-application.h"
 #include "trb-help.h"
+#include "trb-member-item.h"
+#include "trb-plan-a11y.h"
+#include "trb-plan-canvas.h"
 #include "trb-window.h"
 
 /* The editor among the desktop's habits: help on F1, and (under LANGUAGE=es, the test
@@ -158,6 +161,64 @@ test_help_missing (void)
     g_unsetenv ("TRABEATE_DOCDIR");
 }
 
+/* ---- accessibility --------------------------------------------------------------------------- */
+
+/* The plan says in words what its colours show: the floor, how many members, how many fail, and
+ * the selection with its status. */
+static void
+test_plan_description (void)
+{
+  TrbWindow *window = open_demo ();
+  TrbDocument *document = trb_window_get_document (window);
+  TrbProject *project = trb_document_get_project (document);
+  GtkWidget *canvas = trb_window_get_canvas (window);
+  TrbFloor *floor = trb_document_get_floor (document);
+  g_autofree char *label = NULL;
+  g_autofree char *expected = NULL;
+  g_autofree char *selected = NULL;
+  g_autofree char *mismatch = NULL;
+  g_autofree char *start = NULL;
+  TrbMember *member;
+  guint failing = 0;
+
+  g_assert_nonnull (floor);
+  for (guint i = 0; i < project->members->len; i++)
+    {
+      const TrbMemberResult *r =
+        trb_document_lookup_result (document, g_ptr_array_index (project->members, i));
+
+      g_assert_nonnull (r);
+      failing += r->status != TRB_STATUS_PASS;
+    }
+  /* counted here from the results, the way the members list's Failing Only counts them */
+  expected = g_strdup_printf ("Plan of %s: %u members, %u failing", floor->name,
+                              project->members->len, failing);
+  label = g_strdup_printf ("Plan of %s", floor->name);
+  mismatch = gtk_test_accessible_check_property (GTK_ACCESSIBLE (canvas),
+                                                 GTK_ACCESSIBLE_PROPERTY_LABEL, label);
+  g_assert_null (mismatch);
+  mismatch = gtk_test_accessible_check_property (GTK_ACCESSIBLE (canvas),
+                                                 GTK_ACCESSIBLE_PROPERTY_DESCRIPTION,
+                                                 expected);
+  g_assert_null (mismatch);
+
+  member = g_ptr_array_index (project->members, 0);
+  trb_plan_canvas_select_member (TRB_PLAN_CANVAS (canvas), member, FALSE);
+  selected = g_strdup_printf ("%s, selected %s, %s", expected, member->id,
+                              trb_status_label (trb_document_lookup_result (document,
+                                                                            member)->status));
+  mismatch = gtk_test_accessible_check_property (GTK_ACCESSIBLE (canvas),
+                                                 GTK_ACCESSIBLE_PROPERTY_DESCRIPTION,
+                                                 selected);
+  g_assert_null (mismatch);
+  start = trb_plan_a11y_describe (document, member);
+  g_assert_cmpstr (start, ==, selected);
+
+  /* the canvas takes the keyboard focus, and the tool buttons say their keys */
+  g_assert_true (gtk_widget_get_focusable (canvas));
+  close_window (window);
+}
+
 /* ---- language -------------------------------------------------------------------------------- */
 
 static gboolean
@@ -236,6 +297,9 @@ main (int   argc,
   bind_textdomain_codeset (GETTEXT_PACKAGE, "UTF-8");
   textdomain (GETTEXT_PACKAGE);
 
+  /* GTK's test backend for accessibility: the properties are kept and can be read back, with
+   * no screen reader on the bus */
+  g_setenv ("GTK_A11Y", "test", TRUE);
   gtk_test_init (&argc, &argv, NULL);
   app = trb_application_new ("org.trabeate.Trabeate.Test", G_APPLICATION_NON_UNIQUE);
   g_application_register (G_APPLICATION (app), NULL, &error);
@@ -243,6 +307,7 @@ main (int   argc,
 
   g_test_add_func ("/trb/desktop/help", test_help);
   g_test_add_func ("/trb/desktop/help-missing", test_help_missing);
+  g_test_add_func ("/trb/desktop/plan-description", test_plan_description);
   if (spanish)
     g_test_add_func ("/trb/desktop/spanish", test_spanish);
   else

@@ -8,6 +8,7 @@
 
 #include "trb-app-enums.h"
 #include "trb-autosave.h"
+#include "trb-plan-a11y.h"
 #include "trb-units.h"
 #include "trb-window-private.h"
 
@@ -556,6 +557,7 @@ trb_window_constructed (GObject *object)
                        G_SETTINGS_BIND_GET);
     }
   trb_autosave_attach (self);
+  trb_plan_a11y_attach (self);
   update_recent (self);
 }
 
