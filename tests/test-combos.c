@@ -473,12 +473,252 @@ test_overhang_patterns (void)
   g_assert_cmpstr (r->live.envelope.defl_up_by, ==, "Live: L (L on span 1)");
 }
 
+/* ---- the engine's helpers for many combinations (trb_beam_combiner_*, intervals) ----------
+ *
+ * Each must give bit for bit what the plain calls of trb-beam.h give, which are the check
+ * values here: the same numbers computed the plain way (their own sources are the beam tests
+ * and the reference checks). Beams and loads are drawn at random from a fixed seed, with
+ * overhangs, fixed ends and every kind of load, so that breaks fall everywhere. */
+
+/* every double the same bits: NaN or -0 would not compare equal with == */
+static void
+assert_same_doubles (const double *a,
+                     const double *b,
+                     guint         n)
+{
+  g_assert_cmpmem (a, n * sizeof (double), b, n * sizeof (double));
+}
+
+static void
+assert_same_results (const TrbBeamResult *a,
+                     const TrbBeamResult *b)
+{
+  const double *ba, *bb;
+  const TrbReaction *ra, *rb;
+  guint na, nb;
+
+  ba = trb_beam_result_get_breaks (a, &na);
+  bb = trb_beam_result_get_breaks (b, &nb);
+  g_assert_cmpuint (na, ==, nb);
+  assert_same_doubles (ba, bb, na);
+  ra = trb_beam_result_get_reactions (a, &na);
+  rb = trb_beam_result_get_reactions (b, &nb);
+  g_assert_cmpuint (na, ==, nb);
+  g_assert_cmpmem (ra, na * sizeof *ra, rb, nb * sizeof *rb);
+  ba = trb_beam_result_get_breaks (a, &na);
+  for (guint i = 0; i < na; i++)
+    for (int side = TRB_SIDE_LEFT; side <= TRB_SIDE_RIGHT; side++)
+      {
+        TrbBeamValues va, vb;
+        double x = i + 1 < na ? ba[i] + (ba[i + 1] - ba[i]) / 3 : ba[i];
+
+        trb_beam_result_eval (a, ba[i], side, &va);
+        trb_beam_result_eval (b, ba[i], side, &vb);
+        g_assert_cmpmem (&va, sizeof va, &vb, sizeof vb);
+        trb_beam_result_eval (a, x, side, &va);
+        trb_beam_result_eval (b, x, side, &vb);
+        g_assert_cmpmem (&va, sizeof va, &vb, sizeof vb);
+      }
+}
+
+static TrbBeam *
+random_beam (GRand  *rand,
+             double *length)
+{
+  TrbSupport sup[6];
+  guint n = g_rand_int_range (rand, 2, 6);
+  double left = g_rand_boolean (rand) ? g_rand_double_range (rand, 0.5, 2) : 0;
+  double x = left;
+
+  for (guint i = 0; i < n; i++)
+    {
+      sup[i].x = x;
+      sup[i].type = g_rand_int_range (rand, 0, 8) == 0 ? TRB_SUPPORT_FIXED : TRB_SUPPORT_PIN;
+      x += g_rand_double_range (rand, 2, 9);
+    }
+  *length = sup[n - 1].x + (g_rand_boolean (rand) ? g_rand_double_range (rand, 0.5, 2) : 0);
+  return trb_beam_new (*length, 200e9, g_rand_double_range (rand, 1e-5, 1e-3), sup, n, NULL);
+}
+
+static TrbBeamResult *
+random_result (GRand   *rand,
+               TrbBeam *beam,
+               double   length)
+{
+  TrbLoad loads[6];
+  guint n = g_rand_int_range (rand, 0, 6);
+
+  for (guint i = 0; i < n; i++)
+    {
+      double a = g_rand_double_range (rand, 0, length);
+      double b = g_rand_double_range (rand, a, length);
+
+      loads[i].kind = g_rand_int_range (rand, 0, 4);
+      loads[i].a = a;
+      loads[i].b = b;
+      loads[i].w1 = g_rand_double_range (rand, -5e3, 2e4);
+      loads[i].w2 = g_rand_double_range (rand, -5e3, 2e4);
+    }
+  return trb_beam_solve (beam, loads, n, NULL);
+}
+
+static void
+test_combiner (void)
+{
+  g_autoptr(GRand) rand = g_rand_new_with_seed (20261202);
+
+  for (guint trial = 0; trial < 200; trial++)
+    {
+      double length;
+      g_autoptr(TrbBeam) beam = random_beam (rand, &length);
+      TrbBeamResult *parts[8];
+      guint n_parts = g_rand_int_range (rand, 1, 9);
+      g_autoptr(TrbBeamCombiner) combiner = NULL;
+
+      g_assert_nonnull (beam);
+      for (guint i = 0; i < n_parts; i++)
+        parts[i] = random_result (rand, beam, length);
+      combiner = trb_beam_combiner_new (parts, n_parts);
+      for (guint k = 0; k < 10; k++)
+        {
+          guint index[6];
+          TrbBeamResult *chosen[6];
+          double factors[6];
+          guint n = g_rand_int_range (rand, 1, 7);
+          g_autoptr(TrbBeamResult) plain = NULL;
+          g_autoptr(TrbBeamResult) fast = NULL;
+
+          for (guint i = 0; i < n; i++)
+            {
+              index[i] = g_rand_int_range (rand, 0, n_parts);
+              chosen[i] = parts[index[i]];
+              /* zero factors too: they add nothing, not even breaks */
+              factors[i] = g_rand_int_range (rand, 0, 4) == 0 ? 0
+                                                              : g_rand_double_range (rand, -2, 2);
+            }
+          plain = trb_beam_result_combine (chosen, factors, n);
+          fast = trb_beam_combiner_combine (combiner, index, factors, n);
+          assert_same_results (fast, plain);
+        }
+      for (guint i = 0; i < n_parts; i++)
+        trb_beam_result_free (parts[i]);
+    }
+}
+
+static void
+test_extremes_intervals (void)
+{
+  g_autoptr(GRand) rand = g_rand_new_with_seed (20261203);
+
+  for (guint trial = 0; trial < 300; trial++)
+    {
+      double length;
+      g_autoptr(TrbBeam) beam = random_beam (rand, &length);
+      g_autoptr(TrbBeamResult) r = NULL;
+      const double *breaks;
+      double cuts[12], ab[12];
+      TrbBeamExtremes whole, plain, per[6];
+      guint n_breaks, n_cuts = 0, n_iv = 0;
+      gboolean finite;
+
+      g_assert_nonnull (beam);
+      r = random_result (rand, beam, length);
+      breaks = trb_beam_result_get_breaks (r, &n_breaks);
+      /* cuts at breaks (the spans of the deflection checks) and between them (braces) */
+      for (guint i = 0; i < 10; i++)
+        cuts[n_cuts++] = g_rand_boolean (rand) ? breaks[g_rand_int_range (rand, 0, n_breaks)]
+                                               : g_rand_double_range (rand, 0, length);
+      for (guint i = 1; i < n_cuts; i++)
+        for (guint j = i; j > 0 && cuts[j - 1] > cuts[j]; j--)
+          {
+            double t = cuts[j];
+
+            cuts[j] = cuts[j - 1];
+            cuts[j - 1] = t;
+          }
+      /* intervals between some consecutive cuts, leaving gaps now and then */
+      for (guint i = 0; i + 1 < n_cuts && n_iv < G_N_ELEMENTS (per); i++)
+        if (cuts[i] < cuts[i + 1] && g_rand_int_range (rand, 0, 4) != 0)
+          {
+            ab[2 * n_iv] = cuts[i];
+            ab[2 * n_iv + 1] = cuts[i + 1];
+            n_iv++;
+          }
+
+      trb_beam_result_extremes_intervals (r, ab, n_iv, &whole, per, &finite);
+      trb_beam_result_extremes (r, 0, length, &plain);
+      g_assert_cmpmem (&whole, sizeof whole, &plain, sizeof plain);
+      for (guint i = 0; i < n_iv; i++)
+        {
+          trb_beam_result_extremes (r, ab[2 * i], ab[2 * i + 1], &plain);
+          g_assert_cmpmem (&per[i], sizeof per[i], &plain, sizeof plain);
+        }
+      g_assert_true (finite);
+    }
+}
+
+/* trb_beam_result_extremes_intervals() says a result is finite exactly when its reactions
+ * and the values on both sides of each break are: loads near the largest double overflow
+ * some of them (the shear, or only the deflection through a small E I). */
+static void
+test_finite (void)
+{
+  static const double scales[] = { 1, 1e290, 1e300, 1e305, 1e307, 1e308 };
+  g_autoptr(GRand) rand = g_rand_new_with_seed (20261204);
+  guint n_finite = 0, n_not = 0;
+
+  for (guint trial = 0; trial < 120; trial++)
+    {
+      TrbSupport sup[2] = { { 1, TRB_SUPPORT_PIN }, { 7, TRB_SUPPORT_ROLLER } };
+      double EI_scale = g_rand_boolean (rand) ? 1 : 1e-200;
+      g_autoptr(TrbBeam) beam = trb_beam_new (9, 200e9, 1e-4 * EI_scale, sup, 2, NULL);
+      double scale = scales[trial % G_N_ELEMENTS (scales)];
+      TrbLoad loads[2] = {
+        { TRB_LOAD_UNIFORM, 0, g_rand_double_range (rand, 2, 9), scale, scale },
+        { TRB_LOAD_POINT, g_rand_double_range (rand, 0, 9), 0, scale, 0 },
+      };
+      g_autoptr(TrbBeamResult) r = trb_beam_solve (beam, loads, 2, NULL);
+      const TrbReaction *re;
+      const double *breaks;
+      gboolean expected = TRUE, finite;
+      guint n;
+
+      g_assert_nonnull (r);
+      re = trb_beam_result_get_reactions (r, &n);
+      for (guint i = 0; i < n; i++)
+        if (!isfinite (re[i].force) || !isfinite (re[i].moment))
+          expected = FALSE;
+      breaks = trb_beam_result_get_breaks (r, &n);
+      for (guint i = 0; i < n; i++)
+        for (int side = TRB_SIDE_LEFT; side <= TRB_SIDE_RIGHT; side++)
+          {
+            TrbBeamValues v;
+
+            trb_beam_result_eval (r, breaks[i], side, &v);
+            if (!isfinite (v.V) || !isfinite (v.M) || !isfinite (v.theta) || !isfinite (v.defl))
+              expected = FALSE;
+          }
+      trb_beam_result_extremes_intervals (r, NULL, 0, NULL, NULL, &finite);
+      g_assert_cmpint (finite, ==, expected);
+      if (expected)
+        n_finite++;
+      else
+        n_not++;
+    }
+  /* both answers were asked for */
+  g_assert_cmpuint (n_finite, >, 0);
+  g_assert_cmpuint (n_not, >, 0);
+}
+
 int
 main (int    argc,
       char **argv)
 {
   g_test_init (&argc, &argv, NULL);
 
+  g_test_add_func ("/trb/combos/engine/combiner", test_combiner);
+  g_test_add_func ("/trb/combos/engine/intervals", test_extremes_intervals);
+  g_test_add_func ("/trb/combos/engine/finite", test_finite);
   g_test_add_func ("/trb/combos/case-names", test_case_names);
   g_test_add_func ("/trb/combos/lrfd/all-cases", test_lrfd_all_cases);
   g_test_add_func ("/trb/combos/lrfd/dead-live", test_lrfd_dead_live);

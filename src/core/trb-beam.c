@@ -4,6 +4,7 @@
 #include "config.h"
 
 #include "trb-beam.h"
+#include "trb-combos.h"
 #include "trb-error.h"
 
 #include <float.h>
@@ -1023,6 +1024,249 @@ trb_beam_result_combine (TrbBeamResult **results,
   return res;
 }
 
+/* ---- many combinations of the same results ---- */
+
+/* The state of one part at one break of the union: what trb_beam_result_combine() takes
+ * from it there, before the factor. */
+typedef struct
+{
+  double w;      /* ss->w + ss->dw t */
+  double dw;
+  double V, M, theta, v;
+} PartState;
+
+struct _TrbBeamCombiner
+{
+  guint                 n_parts;
+  TrbBeamResult       **parts;    /* not owned */
+  guint                 n_u;      /* the union of every part's breaks, sorted */
+  double               *u;
+  guint                 words;    /* of each part's bit set over the union */
+  guint64              *mask;     /* n_parts * words: which breaks of the union are its own */
+  PartState            *state;    /* n_parts * n_u */
+};
+
+/**
+ * trb_beam_combiner_new:
+ * @parts: (array length=n_parts): results of one beam, not copied: they must outlive the
+ *   combiner
+ * @n_parts: their number, at least one
+ *
+ * Prepares many combinations of the same results: every part's state at every break of any
+ * part is found once, where trb_beam_result_combine() would find it again for each
+ * combination.
+ *
+ * Returns: (transfer full): the combiner; free with trb_beam_combiner_free()
+ */
+TrbBeamCombiner *
+trb_beam_combiner_new (TrbBeamResult **parts,
+                       guint           n_parts)
+{
+  TrbBeamCombiner *c;
+  guint total = 0, n = 0;
+
+  g_return_val_if_fail (parts != NULL && n_parts > 0, NULL);
+
+  c = g_new0 (TrbBeamCombiner, 1);
+  c->n_parts = n_parts;
+  c->parts = g_memdup2 (parts, n_parts * sizeof *parts);
+  for (guint r = 0; r < n_parts; r++)
+    total += parts[r]->n_breaks;
+  c->u = g_new (double, total);
+  {
+    g_autofree double *tmp = g_new (double, total);
+
+    /* the union of sorted lists, merged one into the next without repeats */
+    for (guint r = 0; r < n_parts; r++)
+      {
+        const double *b = parts[r]->breaks;
+        guint nb = parts[r]->n_breaks, i = 0, j = 0, m = 0;
+
+        while (i < n || j < nb)
+          {
+            double x;
+
+            if (j == nb || (i < n && c->u[i] < b[j]))
+              x = c->u[i++];
+            else if (i == n || b[j] < c->u[i])
+              x = b[j++];
+            else
+              {
+                x = b[j++];
+                i++;
+              }
+            tmp[m++] = x;
+          }
+        memcpy (c->u, tmp, m * sizeof (double));
+        n = m;
+      }
+  }
+  c->n_u = n;
+  c->words = (n + 63) / 64;
+  c->mask = g_new0 (guint64, (gsize) n_parts * c->words);
+  c->state = g_new (PartState, (gsize) n_parts * n);
+
+  for (guint r = 0; r < n_parts; r++)
+    {
+      const TrbBeamResult *src = parts[r];
+      guint64 *mask = c->mask + (gsize) r * c->words;
+      PartState *st = c->state + (gsize) r * n;
+      guint cur = 0, own = 0;
+
+      for (guint j = 0; j < n; j++)
+        {
+          double x = c->u[j];
+          const TrbSegment *ss;
+          double t;
+
+          if (own < src->n_breaks && src->breaks[own] == x)
+            {
+              mask[j / 64] |= G_GUINT64_CONSTANT (1) << (j % 64);
+              own++;
+            }
+          /* as trb_beam_result_combine() moves its cursor */
+          while (cur + 2 < src->n_breaks && src->breaks[cur + 1] <= x)
+            cur++;
+          ss = &src->segments[cur];
+          t = x - src->breaks[cur];
+          if (t == 0)
+            {
+              st[j].V = ss->V;
+              st[j].M = ss->M;
+              st[j].theta = ss->theta;
+              st[j].v = ss->v;
+            }
+          else
+            segment_advance (ss, t, src->inv_EI, &st[j].V, &st[j].M, &st[j].theta, &st[j].v);
+          st[j].w = ss->w + ss->dw * t;
+          st[j].dw = ss->dw;
+        }
+    }
+  return c;
+}
+
+void
+trb_beam_combiner_free (TrbBeamCombiner *combiner)
+{
+  if (combiner == NULL)
+    return;
+  g_free (combiner->parts);
+  g_free (combiner->u);
+  g_free (combiner->mask);
+  g_free (combiner->state);
+  g_free (combiner);
+}
+
+/**
+ * trb_beam_combiner_combine:
+ * @combiner: a combiner
+ * @index: (array length=n): which of its parts
+ * @factors: (array length=n): their factors
+ * @n: their number, at least one
+ *
+ * Bit for bit trb_beam_result_combine() of the parts named by @index with @factors.
+ *
+ * Returns: (transfer full): the combined result
+ */
+TrbBeamResult *
+trb_beam_combiner_combine (const TrbBeamCombiner *combiner,
+                           const guint           *index,
+                           const double          *factors,
+                           guint                  n)
+{
+  guint64 set_stack[8];
+  g_autofree guint64 *set_heap = NULL;
+  guint64 *set;
+  guint sel_stack[1024];
+  g_autofree guint *sel_heap = NULL;
+  guint *sel;
+  const TrbBeamResult *first;
+  TrbBeamResult *res;
+  guint nb = 0, words;
+
+  g_return_val_if_fail (combiner != NULL && index != NULL && factors != NULL && n > 0, NULL);
+
+  words = combiner->words;
+  set = words <= G_N_ELEMENTS (set_stack) ? set_stack : (set_heap = g_new (guint64, words));
+  sel = combiner->n_u <= G_N_ELEMENTS (sel_stack) ? sel_stack
+                                                  : (sel_heap = g_new (guint, combiner->n_u));
+  memset (set, 0, words * sizeof (guint64));
+  first = combiner->parts[index[0]];
+  for (guint r = 0; r < n; r++)
+    {
+      const guint64 *mask = combiner->mask + (gsize) index[r] * words;
+
+      g_return_val_if_fail (index[r] < combiner->n_parts, NULL);
+      if (factors[r] == 0)
+        continue;
+      for (guint w = 0; w < words; w++)
+        set[w] |= mask[w];
+    }
+  for (guint w = 0; w < words; w++)
+    for (guint64 bits = set[w]; bits != 0; bits &= bits - 1)
+      sel[nb++] = w * 64 + (guint) __builtin_ctzll (bits);
+
+  if (nb < 2)
+    {
+      /* every factor is zero: a zero result on the breaks of the first */
+      res = result_alloc (first->length, first->EI, first->n_breaks, first->n_reactions);
+      memcpy (res->breaks, first->breaks, first->n_breaks * sizeof (double));
+      for (guint k = 0; k + 1 < first->n_breaks; k++)
+        {
+          memset (&res->segments[k], 0, sizeof (TrbSegment));
+          res->segments[k].x = first->breaks[k];
+        }
+    }
+  else
+    {
+      res = result_alloc (first->length, first->EI, nb, first->n_reactions);
+      for (guint k = 0; k < nb; k++)
+        res->breaks[k] = combiner->u[sel[k]];
+      for (guint k = 0; k + 1 < nb; k++)
+        {
+          TrbSegment *s = &res->segments[k];
+          guint j = sel[k];
+
+          memset (s, 0, sizeof *s);
+          s->x = res->breaks[k];
+          for (guint r = 0; r < n; r++)
+            {
+              const PartState *st;
+              double f = factors[r];
+
+              if (f == 0)
+                continue;
+              st = &combiner->state[(gsize) index[r] * combiner->n_u + j];
+              s->w += f * st->w;
+              s->dw += f * st->dw;
+              s->V += f * st->V;
+              s->M += f * st->M;
+              s->theta += f * st->theta;
+              s->v += f * st->v;
+            }
+        }
+    }
+
+  for (guint i = 0; i < first->n_reactions; i++)
+    {
+      TrbReaction *rr = &res->reactions[i];
+
+      rr->x = first->reactions[i].x;
+      rr->force = 0;
+      rr->moment = 0;
+      for (guint r = 0; r < n; r++)
+        {
+          const TrbBeamResult *src = combiner->parts[index[r]];
+
+          if (factors[r] == 0)
+            continue;
+          rr->force += factors[r] * src->reactions[i].force;
+          rr->moment += factors[r] * src->reactions[i].moment;
+        }
+    }
+  return res;
+}
+
 TrbBeamResult *
 trb_beam_result_copy (const TrbBeamResult *result)
 {
@@ -1403,22 +1647,100 @@ bracketed_root (SegFunc          f,
   return t;
 }
 
+/* The values of one piece [xs, xe] of segment k, as the extremes read them: at its start the
+ * stored state (or the polynomials where the piece starts inside the segment), at its end V
+ * and M from the polynomials and theta and the deflection from the next segment's stored
+ * state (they are continuous; v is exactly 0 at a support), or the polynomials where the
+ * piece ends inside the segment or at the member's end. */
+typedef struct
+{
+  double xs, xe, t0, t1;
+  double V0, M0, th0, d0;
+  double V1, M1, th1, d1;
+} Piece;
+
+/* The piece of segment k inside [a, b]; FALSE when it has no length. */
+static inline gboolean
+piece_values (const TrbBeamResult *result,
+              guint                k,
+              double               a,
+              double               b,
+              Piece               *p)
+{
+  const TrbSegment *s = &result->segments[k];
+  guint last = result->n_breaks - 2;
+  double x0 = result->breaks[k], x1 = result->breaks[k + 1];
+
+  p->xs = MAX (a, x0);
+  p->xe = MIN (b, x1);
+  p->t0 = p->xs - x0;
+  p->t1 = p->xe - x0;
+  if (!(p->t1 > p->t0))
+    return FALSE;
+
+  if (p->t0 == 0)
+    {
+      p->V0 = s->V;
+      p->M0 = s->M;
+      p->th0 = s->theta;
+      p->d0 = -s->v;
+    }
+  else
+    {
+      SegCoeffs c;
+
+      segment_coeffs (s, result->inv_EI, &c);
+      p->V0 = coeffs_V (&c, p->t0);
+      p->M0 = coeffs_M (&c, p->t0);
+      p->th0 = coeffs_theta (&c, p->t0);
+      p->d0 = coeffs_defl (&c, p->t0);
+    }
+  p->V1 = s->V - p->t1 * (s->w + p->t1 * s->dw * C2);
+  p->M1 = s->M + p->t1 * (s->V - p->t1 * (s->w * C2 + p->t1 * s->dw * C6));
+  if (p->xe == x1 && k < last)
+    {
+      p->th1 = s[1].theta;
+      p->d1 = -s[1].v;
+    }
+  else
+    {
+      SegCoeffs c;
+
+      segment_coeffs (s, result->inv_EI, &c);
+      p->th1 = coeffs_theta (&c, p->t1);
+      p->d1 = coeffs_defl (&c, p->t1);
+    }
+  return TRUE;
+}
+
+/* The values at a piece's ends, in the order the extremes have always taken them (ties keep
+ * the first). */
+static inline void
+piece_feed (ExtremeAcc  *acc,
+            const Piece *p)
+{
+  acc_V (acc, p->V0, p->xs);
+  acc_M (acc, p->M0, p->xs);
+  acc_defl (acc, p->d0, p->xs);
+  acc_V (acc, p->V1, p->xe);
+  acc_M (acc, p->M1, p->xe);
+  acc_defl (acc, p->d1, p->xe);
+}
+
 /* One piece [t0, t1] of a segment, t0 < t1, whose end values the caller has counted (V0, M0,
- * th0 at t0; V1, M1, th1 at t1). Looks for the extremes inside it. */
+ * th0 at t0; V1, M1, th1 at t1). Looks for the extremes inside it. What it finds depends on
+ * the piece alone, so it goes to acc and, when acc2 is not NULL, to acc2 as well (a piece
+ * that two intervals share). */
 static void
 piece_extremes (const TrbSegment *s,
                 double            x0,
-                double            t0,
-                double            t1,
-                double            V0,
-                double            V1,
-                double            M0,
-                double            M1,
-                double            th0,
-                double            th1,
+                const Piece      *p,
                 double            inv_EI,
-                ExtremeAcc       *acc)
+                ExtremeAcc       *acc,
+                ExtremeAcc       *acc2)
 {
+  double t0 = p->t0, t1 = p->t1;
+  double V0 = p->V0, V1 = p->V1, M0 = p->M0, M1 = p->M1, th0 = p->th0, th1 = p->th1;
   double vroots[2], cuts[4], mcut[4], mroots[3], mcuts[5];
   double scale = fabs (x0) + t1;
   double max_M = 0;
@@ -1432,7 +1754,13 @@ piece_extremes (const TrbSegment *s,
       double t = -s->w / s->dw;
 
       if (t > t0 && t < t1)
-        acc_V (acc, s->V - t * (s->w + t * s->dw * C2), x0 + t);
+        {
+          double V = s->V - t * (s->w + t * s->dw * C2);
+
+          acc_V (acc, V, x0 + t);
+          if (acc2 != NULL)
+            acc_V (acc2, V, x0 + t);
+        }
     }
 
   /* M: extremes at the roots of V, in closed form; with no slope of the load V is linear
@@ -1462,6 +1790,8 @@ piece_extremes (const TrbSegment *s,
       cuts[nc] = t;
       mcut[nc] = s->M + t * (s->V - t * (s->w * C2 + t * s->dw * C6));
       acc_M (acc, mcut[nc], x0 + t);
+      if (acc2 != NULL)
+        acc_M (acc2, mcut[nc], x0 + t);
       nc++;
     }
   cuts[nc] = t1;
@@ -1509,9 +1839,60 @@ piece_extremes (const TrbSegment *s,
       if ((fa < 0 && fb > 0) || (fa > 0 && fb < 0))
         {
           double t = bracketed_root (coeffs_theta, coeffs_M_over_EI, &c, ta, tb, fa, fb, scale);
+          double d = coeffs_defl (&c, t);
 
-          acc_defl (acc, coeffs_defl (&c, t), x0 + t);
+          acc_defl (acc, d, x0 + t);
+          if (acc2 != NULL)
+            acc_defl (acc2, d, x0 + t);
         }
+    }
+}
+
+/* Starts the search over [a, b] with the value just inside a. */
+static void
+acc_seed (const TrbBeamResult *result,
+          double               a,
+          ExtremeAcc          *acc)
+{
+  TrbBeamValues val;
+  double L = result->length;
+
+  trb_beam_result_eval (result, a, a < L ? TRB_SIDE_RIGHT : TRB_SIDE_LEFT, &val);
+  acc->e.V_max = acc->e.V_min = val.V;
+  acc->e.V_max_x = acc->e.V_min_x = a;
+  acc->e.M_max = acc->e.M_min = val.M;
+  acc->e.M_max_x = acc->e.M_min_x = a;
+  acc->down = val.defl;
+  acc->up = -val.defl;
+  acc->down_x = acc->up_x = a;
+}
+
+/* Deflection extremes are magnitudes; none is 0 at the start of the interval. */
+static void
+acc_finish (const ExtremeAcc *acc,
+            double            a,
+            TrbBeamExtremes  *out)
+{
+  *out = acc->e;
+  if (acc->down > 0)
+    {
+      out->defl_down = acc->down;
+      out->defl_down_x = acc->down_x;
+    }
+  else
+    {
+      out->defl_down = 0;
+      out->defl_down_x = a;
+    }
+  if (acc->up > 0)
+    {
+      out->defl_up = acc->up;
+      out->defl_up_x = acc->up_x;
+    }
+  else
+    {
+      out->defl_up = 0;
+      out->defl_up_x = a;
     }
 }
 
@@ -1536,14 +1917,7 @@ trb_beam_result_extremes (const TrbBeamResult *result,
     b = a;
 
   /* seed with the value just inside a */
-  trb_beam_result_eval (result, a, a < L ? TRB_SIDE_RIGHT : TRB_SIDE_LEFT, &val);
-  acc.e.V_max = acc.e.V_min = val.V;
-  acc.e.V_max_x = acc.e.V_min_x = a;
-  acc.e.M_max = acc.e.M_min = val.M;
-  acc.e.M_max_x = acc.e.M_min_x = a;
-  acc.down = val.defl;
-  acc.up = -val.defl;
-  acc.down_x = acc.up_x = a;
+  acc_seed (result, a, &acc);
 
   if (a == b)
     {
@@ -1560,80 +1934,225 @@ trb_beam_result_extremes (const TrbBeamResult *result,
 
       for (k = find_segment (result, a, TRB_SIDE_RIGHT); k <= last && result->breaks[k] < b; k++)
         {
-          const TrbSegment *s = &result->segments[k];
-          double x0 = result->breaks[k], x1 = result->breaks[k + 1];
-          double xs = MAX (a, x0), xe = MIN (b, x1);
-          double t0 = xs - x0, t1 = xe - x0;
-          double V0, M0, th0, d0, V1, M1, th1, d1;
+          Piece p;
 
-          if (!(t1 > t0))
+          if (!piece_values (result, k, a, b, &p))
             continue;
-
-          /* the stored state at a segment's start; theta and the deflection are continuous,
-           * so at its end they are the next segment's stored state (v exactly 0 at a
-           * support); only a piece cut short by a or b is evaluated */
-          if (t0 == 0)
-            {
-              V0 = s->V;
-              M0 = s->M;
-              th0 = s->theta;
-              d0 = -s->v;
-            }
-          else
-            {
-              SegCoeffs c;
-
-              segment_coeffs (s, result->inv_EI, &c);
-              V0 = coeffs_V (&c, t0);
-              M0 = coeffs_M (&c, t0);
-              th0 = coeffs_theta (&c, t0);
-              d0 = coeffs_defl (&c, t0);
-            }
-          V1 = s->V - t1 * (s->w + t1 * s->dw * C2);
-          M1 = s->M + t1 * (s->V - t1 * (s->w * C2 + t1 * s->dw * C6));
-          if (xe == x1 && k < last)
-            {
-              th1 = s[1].theta;
-              d1 = -s[1].v;
-            }
-          else
-            {
-              SegCoeffs c;
-
-              segment_coeffs (s, result->inv_EI, &c);
-              th1 = coeffs_theta (&c, t1);
-              d1 = coeffs_defl (&c, t1);
-            }
-
-          acc_V (&acc, V0, xs);
-          acc_M (&acc, M0, xs);
-          acc_defl (&acc, d0, xs);
-          acc_V (&acc, V1, xe);
-          acc_M (&acc, M1, xe);
-          acc_defl (&acc, d1, xe);
-          piece_extremes (s, x0, t0, t1, V0, V1, M0, M1, th0, th1, result->inv_EI, &acc);
+          piece_feed (&acc, &p);
+          piece_extremes (&result->segments[k], result->breaks[k], &p, result->inv_EI, &acc,
+                          NULL);
         }
     }
 
-  *out = acc.e;
-  if (acc.down > 0)
+  acc_finish (&acc, a, out);
+}
+
+/* V, M, theta and the deflection at t, all finite */
+static inline gboolean
+segment_finite_at (const SegCoeffs *c,
+                   double           t)
+{
+  return isfinite (coeffs_V (c, t)) && isfinite (coeffs_M (c, t)) &&
+         isfinite (coeffs_theta (c, t)) && isfinite (coeffs_defl (c, t));
+}
+
+/* The same at t = 0, where each polynomial is finite exactly when all its coefficients are
+ * (0 times inf or NaN is NaN, and NaN stays): x * 0 is 0 for a finite x, NaN for any other. */
+static inline gboolean
+segment_finite_at_start (const SegCoeffs *c)
+{
+  double z = 0;
+
+  for (guint i = 0; i < 3; i++)
+    z += c->V[i] * 0.0;
+  for (guint i = 0; i < 4; i++)
+    z += c->M[i] * 0.0;
+  for (guint i = 0; i < 5; i++)
+    z += c->theta[i] * 0.0;
+  for (guint i = 0; i < 6; i++)
+    z += c->defl[i] * 0.0;
+  return z == 0;
+}
+
+/* acc_seed() at a, in segment k (the one trb_beam_result_eval() finds for a, a < L), from
+ * its coefficients */
+static inline void
+acc_seed_in (const TrbBeamResult *result,
+             const SegCoeffs     *c,
+             guint                k,
+             double               a,
+             ExtremeAcc          *acc)
+{
+  TrbBeamValues val;
+
+  coeffs_eval (c, a - result->breaks[k], &val);
+  acc->e.V_max = acc->e.V_min = val.V;
+  acc->e.V_max_x = acc->e.V_min_x = a;
+  acc->e.M_max = acc->e.M_min = val.M;
+  acc->e.M_max_x = acc->e.M_min_x = a;
+  acc->down = val.defl;
+  acc->up = -val.defl;
+  acc->down_x = acc->up_x = a;
+}
+
+/**
+ * trb_beam_result_extremes_intervals:
+ * @result: a result
+ * @ab: (array length=n_intervals): pairs a, b of intervals with 0 <= a < b <= L, sorted and
+ *   not overlapping (they may leave gaps)
+ * @n_intervals: their number
+ * @whole: (out) (optional): the extremes over the whole member
+ * @per: (out) (array length=n_intervals) (optional): the extremes over each interval
+ * @finite: (out) (optional): whether the reactions and the values on both sides of every
+ *   break are finite (each value trb_beam_result_eval() gives at a break)
+ *
+ * Bit for bit what trb_beam_result_extremes() gives over [0, L] and over each interval, and
+ * what evaluating every break on both sides would say of finiteness, in one sweep over the
+ * segments: a segment an interval takes whole is searched once for both.
+ */
+void
+trb_beam_result_extremes_intervals (const TrbBeamResult *result,
+                                    const double        *ab,
+                                    guint                n_intervals,
+                                    TrbBeamExtremes     *whole,
+                                    TrbBeamExtremes     *per,
+                                    gboolean            *finite)
+{
+  ExtremeAcc acc_stack[16];
+  gboolean seeded_stack[16];
+  g_autofree ExtremeAcc *acc_heap = NULL;
+  g_autofree gboolean *seeded_heap = NULL;
+  ExtremeAcc *acc_iv;
+  gboolean *seeded;
+  ExtremeAcc acc;
+  guint last, first_iv = 0;
+  gboolean ok = TRUE;
+
+  g_return_if_fail (result != NULL);
+  g_return_if_fail (ab != NULL || n_intervals == 0);
+
+  if (per == NULL)
+    n_intervals = 0;
+  last = result->n_breaks - 2;
+  if (n_intervals <= G_N_ELEMENTS (acc_stack))
     {
-      out->defl_down = acc.down;
-      out->defl_down_x = acc.down_x;
+      acc_iv = acc_stack;
+      seeded = seeded_stack;
     }
   else
     {
-      out->defl_down = 0;
-      out->defl_down_x = a;
+      acc_iv = acc_heap = g_new (ExtremeAcc, n_intervals);
+      seeded = seeded_heap = g_new (gboolean, n_intervals);
     }
-  if (acc.up > 0)
+  for (guint i = 0; i < n_intervals; i++)
     {
-      out->defl_up = acc.up;
-      out->defl_up_x = acc.up_x;
+      g_return_if_fail (ab[2 * i] < ab[2 * i + 1] && ab[2 * i] >= 0 &&
+                        ab[2 * i + 1] <= result->length &&
+                        (i == 0 || ab[2 * i] >= ab[2 * i - 1]));
+      seeded[i] = FALSE;
     }
-  else
+
+  if (finite != NULL)
+    for (guint i = 0; i < result->n_reactions; i++)
+      if (!isfinite (result->reactions[i].force) || !isfinite (result->reactions[i].moment))
+        ok = FALSE;
+
+  for (guint k = 0; k <= last; k++)
     {
-      out->defl_up = 0;
-      out->defl_up_x = a;
+      const TrbSegment *s = &result->segments[k];
+      double x0 = result->breaks[k], x1 = result->breaks[k + 1];
+      ExtremeAcc *shared = NULL;
+      gboolean need_full = whole != NULL;
+      SegCoeffs c;
+      Piece full;
+
+      segment_coeffs (s, result->inv_EI, &c);
+      if (finite != NULL && ok)
+        ok = segment_finite_at_start (&c) && segment_finite_at (&c, x1 - x0);
+      if (k == 0 && whole != NULL)
+        acc_seed_in (result, &c, 0, 0, &acc);
+
+      /* the intervals that reach into this segment, as trb_beam_result_extremes() walks
+       * each: from the segment that holds a, while the segment starts before b */
+      while (first_iv < n_intervals && ab[2 * first_iv + 1] <= x0)
+        first_iv++;
+      for (guint i = first_iv; i < n_intervals; i++)
+        {
+          double a = ab[2 * i], b = ab[2 * i + 1];
+
+          if (a >= x1 && k != last)
+            break;
+          if (!(x0 < b))
+            continue;
+          if (!seeded[i])
+            {
+              acc_seed_in (result, &c, k, a, &acc_iv[i]);
+              seeded[i] = TRUE;
+            }
+          if (a <= x0 && b >= x1)
+            need_full = TRUE;
+        }
+
+      if (need_full)
+        {
+          /* piece_values (result, k, 0, L): the segment whole */
+          full.xs = x0;
+          full.xe = x1;
+          full.t0 = 0;
+          full.t1 = x1 - x0;
+          full.V0 = s->V;
+          full.M0 = s->M;
+          full.th0 = s->theta;
+          full.d0 = -s->v;
+          full.V1 = s->V - full.t1 * (s->w + full.t1 * s->dw * C2);
+          full.M1 = s->M + full.t1 * (s->V - full.t1 * (s->w * C2 + full.t1 * s->dw * C6));
+          if (k < last)
+            {
+              full.th1 = s[1].theta;
+              full.d1 = -s[1].v;
+            }
+          else
+            {
+              full.th1 = coeffs_theta (&c, full.t1);
+              full.d1 = coeffs_defl (&c, full.t1);
+            }
+        }
+
+      for (guint i = first_iv; i < n_intervals; i++)
+        {
+          double a = ab[2 * i], b = ab[2 * i + 1];
+          Piece p;
+
+          if (a >= x1 && k != last)
+            break;
+          if (!(x0 < b))
+            continue;
+          if (a <= x0 && b >= x1)
+            {
+              /* the whole segment: the same piece as the member's, searched once below */
+              shared = &acc_iv[i];
+              piece_feed (shared, &full);
+              continue;
+            }
+          if (!piece_values (result, k, a, b, &p))
+            continue;
+          piece_feed (&acc_iv[i], &p);
+          piece_extremes (s, x0, &p, result->inv_EI, &acc_iv[i], NULL);
+        }
+
+      if (whole != NULL)
+        {
+          piece_feed (&acc, &full);
+          piece_extremes (s, x0, &full, result->inv_EI, &acc, shared);
+        }
+      else if (shared != NULL)
+        piece_extremes (s, x0, &full, result->inv_EI, shared, NULL);
     }
+
+  if (whole != NULL)
+    acc_finish (&acc, 0, whole);
+  for (guint i = 0; i < n_intervals; i++)
+    acc_finish (&acc_iv[i], ab[2 * i], &per[i]);
+  if (finite != NULL)
+    *finite = ok;
 }

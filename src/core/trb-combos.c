@@ -512,6 +512,119 @@ trb_loads_split_free (GArray **per_region,
   g_free (per_region);
 }
 
+/* A string being built in a buffer that is always big enough (see describe_into()). */
+typedef struct
+{
+  char  *p;
+  gsize  len;
+} Text;
+
+static void
+text_add (Text       *t,
+          const char *s)
+{
+  gsize n = strlen (s);
+
+  memcpy (t->p + t->len, s, n + 1);
+  t->len += n;
+}
+
+/* as "%d" writes it */
+static void
+text_add_int (Text *t,
+              int   value)
+{
+  char digits[16];
+  guint n = 0;
+  guint v = value < 0 ? 0u - (guint) value : (guint) value;
+
+  do
+    digits[n++] = '0' + v % 10;
+  while ((v /= 10) > 0);
+  if (value < 0)
+    t->p[t->len++] = '-';
+  while (n > 0)
+    t->p[t->len++] = digits[--n];
+  t->p[t->len] = '\0';
+}
+
+/* The name trb_pattern_describe() gives, into buf: strlen (label) + 16 bytes a region and 64
+ * more are always enough (a span number takes at most 11 bytes with its "+"). */
+static void
+describe_into (char            *buf,
+               const TrbRegion *regions,
+               guint            n_regions,
+               guint64          mask,
+               const char      *label)
+{
+  Text s = { buf, 0 };
+  gboolean left = FALSE, right = FALSE, has_overhang = FALSE;
+  guint n_spans = 0, n_loaded_spans = 0;
+  guint64 all;
+
+  buf[0] = '\0';
+  text_add (&s, label);
+  all = n_regions == 64 ? G_MAXUINT64 : ((G_GUINT64_CONSTANT (1) << n_regions) - 1);
+  for (guint r = 0; r < n_regions; r++)
+    {
+      gboolean on = (mask >> r) & 1;
+
+      if (regions[r].kind == TRB_REGION_SPAN)
+        {
+          n_spans++;
+          if (on)
+            n_loaded_spans++;
+        }
+      else
+        {
+          has_overhang = TRUE;
+          if (on && regions[r].kind == TRB_REGION_LEFT_OVERHANG)
+            left = TRUE;
+          if (on && regions[r].kind == TRB_REGION_RIGHT_OVERHANG)
+            right = TRUE;
+        }
+    }
+
+  if ((mask & all) == all)
+    {
+      if (n_spans == 0)
+        text_add (&s, " on the whole member");
+      else
+        text_add (&s, has_overhang ? " on all spans and overhangs" : " on all spans");
+      return;
+    }
+
+  text_add (&s, " on ");
+  if (left)
+    text_add (&s, "left overhang");
+  if (n_loaded_spans > 0)
+    {
+      guint k = 0;
+
+      text_add (&s, left ? " + " : "");
+      text_add (&s, n_loaded_spans > 1 ? "spans " : "span ");
+      for (guint r = 0; r < n_regions; r++)
+        if (regions[r].kind == TRB_REGION_SPAN && ((mask >> r) & 1))
+          {
+            if (k++ > 0)
+              text_add (&s, "+");
+            text_add_int (&s, regions[r].span);
+          }
+    }
+  if (right)
+    {
+      text_add (&s, left || n_loaded_spans > 0 ? " + " : "");
+      text_add (&s, "right overhang");
+    }
+}
+
+static gsize
+describe_size (guint       n_regions,
+               const char *label)
+{
+  return strlen (label) + 16 * (gsize) n_regions + 64;
+}
+
 /**
  * trb_pattern_describe:
  * @regions: (array length=n_regions): the member's regions
@@ -528,57 +641,13 @@ trb_pattern_describe (const TrbRegion *regions,
                       guint64          mask,
                       const char      *label)
 {
-  g_autoptr(GString) s = g_string_new (label);
-  g_autoptr(GString) spans = g_string_new (NULL);
-  gboolean left = FALSE, right = FALSE, has_overhang = FALSE;
-  guint n_spans = 0, n_loaded_spans = 0;
-  guint64 all;
+  char *buf;
 
   g_return_val_if_fail (n_regions <= TRB_PATTERN_MAX_REGIONS, NULL);
 
-  all = n_regions == 64 ? G_MAXUINT64 : ((G_GUINT64_CONSTANT (1) << n_regions) - 1);
-  for (guint r = 0; r < n_regions; r++)
-    {
-      gboolean on = (mask >> r) & 1;
-
-      if (regions[r].kind == TRB_REGION_SPAN)
-        {
-          n_spans++;
-          if (on)
-            {
-              g_string_append_printf (spans, "%s%d", n_loaded_spans > 0 ? "+" : "",
-                                      regions[r].span);
-              n_loaded_spans++;
-            }
-        }
-      else
-        {
-          has_overhang = TRUE;
-          if (on && regions[r].kind == TRB_REGION_LEFT_OVERHANG)
-            left = TRUE;
-          if (on && regions[r].kind == TRB_REGION_RIGHT_OVERHANG)
-            right = TRUE;
-        }
-    }
-
-  if ((mask & all) == all)
-    {
-      if (n_spans == 0)
-        g_string_append (s, " on the whole member");
-      else
-        g_string_append (s, has_overhang ? " on all spans and overhangs" : " on all spans");
-      return g_string_free (g_steal_pointer (&s), FALSE);
-    }
-
-  g_string_append (s, " on ");
-  if (left)
-    g_string_append (s, "left overhang");
-  if (n_loaded_spans > 0)
-    g_string_append_printf (s, "%s%s %s", left ? " + " : "",
-                            n_loaded_spans > 1 ? "spans" : "span", spans->str);
-  if (right)
-    g_string_append_printf (s, "%sright overhang", left || n_loaded_spans > 0 ? " + " : "");
-  return g_string_free (g_steal_pointer (&s), FALSE);
+  buf = g_malloc (describe_size (n_regions, label));
+  describe_into (buf, regions, n_regions, mask, label);
+  return buf;
 }
 
 static void
@@ -589,14 +658,17 @@ add_pattern (GArray          *patterns,
              const char      *label)
 {
   TrbPattern p = { { 0 } };
-  g_autofree char *name = NULL;
+  char stack[512];
+  g_autofree char *heap = NULL;
+  gsize size = describe_size (n_regions, label);
+  char *name = size <= sizeof stack ? stack : (heap = g_malloc (size));
 
   if (mask == 0)
     return;
   for (guint i = 0; i < patterns->len; i++)
     if (g_array_index (patterns, TrbPattern, i).mask == mask)
       return;
-  name = trb_pattern_describe (regions, n_regions, mask, label);
+  describe_into (name, regions, n_regions, mask, label);
   g_strlcpy (p.name, name, sizeof p.name);
   p.mask = mask;
   g_array_append_val (patterns, p);

@@ -105,4 +105,26 @@ void        trb_extremes_init       (TrbBeamExtremes     *env);
 guint       trb_extremes_merge      (TrbBeamExtremes     *env,
                                      const TrbBeamExtremes *e);
 
+/* What the combinations and their checks ask of the beam engine many times over, done once
+ * (defined in trb-beam.c, beside the results' insides). Each gives, bit for bit, what the
+ * plain calls of trb-beam.h give: only faster. */
+typedef struct _TrbBeamCombiner TrbBeamCombiner;
+
+TrbBeamCombiner *trb_beam_combiner_new      (TrbBeamResult        **parts,
+                                             guint                  n_parts);
+TrbBeamResult   *trb_beam_combiner_combine  (const TrbBeamCombiner *combiner,
+                                             const guint           *index,
+                                             const double          *factors,
+                                             guint                  n);
+void             trb_beam_combiner_free     (TrbBeamCombiner       *combiner);
+
+void             trb_beam_result_extremes_intervals (const TrbBeamResult *result,
+                                                     const double        *ab,
+                                                     guint                n_intervals,
+                                                     TrbBeamExtremes     *whole,
+                                                     TrbBeamExtremes     *per,
+                                                     gboolean            *finite);
+
+G_DEFINE_AUTOPTR_CLEANUP_FUNC (TrbBeamCombiner, trb_beam_combiner_free)
+
 G_END_DECLS

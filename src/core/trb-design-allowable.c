@@ -183,7 +183,10 @@ find_peaks (const TrbDesignInput *input,
 
       if (combo->result == NULL)
         continue;
-      trb_beam_result_extremes (combo->result, 0, input->length, &ext);
+      if (combo->ext != NULL)
+        ext = *combo->ext;
+      else
+        trb_beam_result_extremes (combo->result, 0, input->length, &ext);
 
       m = fabs (ext.M_max) >= fabs (ext.M_min) ? fabs (ext.M_max) : fabs (ext.M_min);
       mx = fabs (ext.M_max) >= fabs (ext.M_min) ? ext.M_max_x : ext.M_min_x;

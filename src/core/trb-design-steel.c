@@ -714,7 +714,10 @@ check_shear (const TrbDesignInput *input,
 
       if (combo->result == NULL)
         continue;
-      trb_beam_result_extremes (combo->result, 0, input->length, &ext);
+      if (combo->ext != NULL)
+        ext = *combo->ext;
+      else
+        trb_beam_result_extremes (combo->result, 0, input->length, &ext);
       if (fabs (ext.V_max) >= fabs (ext.V_min))
         {
           v = fabs (ext.V_max);

@@ -8,6 +8,23 @@
 #include <math.h>
 #include <string.h>
 
+/**
+ * trb_check_ratio:
+ * @demand: a check's demand
+ * @capacity: its capacity
+ *
+ * Returns: the ratio trb_check_set() gives: |demand| / capacity; a zero capacity with a
+ *   demand is a failure (inf), not a division by zero
+ */
+double
+trb_check_ratio (double demand,
+                 double capacity)
+{
+  if (capacity > 0)
+    return fabs (demand) / capacity;
+  return demand == 0 ? 0 : INFINITY;
+}
+
 void
 trb_check_set (TrbCheck     *check,
                const char   *name,
@@ -26,11 +43,7 @@ trb_check_set (TrbCheck     *check,
   check->dimension = dimension;
   check->demand = demand;
   check->capacity = capacity;
-  /* A zero capacity with a demand is a failure, not a division by zero. */
-  if (capacity > 0)
-    check->ratio = fabs (demand) / capacity;
-  else
-    check->ratio = demand == 0 ? 0 : INFINITY;
+  check->ratio = trb_check_ratio (demand, capacity);
   g_strlcpy (check->combination, combination != NULL ? combination : "", sizeof check->combination);
   check->x = x;
 }
@@ -139,19 +152,22 @@ trb_design_format (char       *buf,
   return buf;
 }
 
-/* One span or overhang as the deflection limits see it. */
-typedef struct
-{
-  double a, b;        /* its extent on the member */
-  double judged;      /* the length the limit applies to: the span, or twice an overhang */
-  gboolean overhang;
-  char label[32];
-} DeflectionSpan;
-
-static guint
-collect_spans (const TrbDesignInput *input,
-               DeflectionSpan       *spans,
-               guint                 max_spans)
+/**
+ * trb_design_deflection_spans:
+ * @input: the member (its length and supports)
+ * @spans: (out caller-allocates) (array length=max_spans): where the spans go
+ * @max_spans: their room; n_supports + 1 is always enough
+ *
+ * The spans and overhangs the deflection limits judge, left to right: a left overhang (a
+ * "cantilever" on a single support), each span between supports more than a billionth of
+ * the length apart, a right overhang.
+ *
+ * Returns: how many
+ */
+guint
+trb_design_deflection_spans (const TrbDesignInput *input,
+                             TrbDeflectionSpan    *spans,
+                             guint                 max_spans)
 {
   const double tol = 1e-9 * MAX (input->length, 1.0);
   guint n = 0;
@@ -162,7 +178,7 @@ collect_spans (const TrbDesignInput *input,
 
   if (input->supports[0].x > tol && n < max_spans)
     {
-      DeflectionSpan *s = &spans[n++];
+      TrbDeflectionSpan *s = &spans[n++];
 
       s->a = 0;
       s->b = input->supports[0].x;
@@ -173,7 +189,7 @@ collect_spans (const TrbDesignInput *input,
 
   for (guint i = 0; i + 1 < n_sup && n < max_spans; i++)
     {
-      DeflectionSpan *s;
+      TrbDeflectionSpan *s;
 
       if (input->supports[i + 1].x - input->supports[i].x <= tol)
         continue;
@@ -187,7 +203,7 @@ collect_spans (const TrbDesignInput *input,
 
   if (input->length - input->supports[n_sup - 1].x > tol && n < max_spans)
     {
-      DeflectionSpan *s = &spans[n++];
+      TrbDeflectionSpan *s = &spans[n++];
 
       s->a = input->supports[n_sup - 1].x;
       s->b = input->length;
@@ -199,58 +215,108 @@ collect_spans (const TrbDesignInput *input,
   return n;
 }
 
+/**
+ * trb_design_deflection_demand:
+ * @ext: the extremes of a result over a span
+ * @x: (out): where the demand is
+ *
+ * Supports do not move, so within a span the deflection is measured from the chord; over
+ * an overhang it is the absolute movement, largest at the tip in practice (the whole
+ * overhang is searched so an upward-and-back shape is not missed).
+ *
+ * Returns: the larger of the downward and upward deflection, the downward one on a tie
+ */
+double
+trb_design_deflection_demand (const TrbBeamExtremes *ext,
+                              double                *x)
+{
+  if (ext->defl_down >= ext->defl_up)
+    {
+      *x = ext->defl_down_x;
+      return ext->defl_down;
+    }
+  *x = ext->defl_up_x;
+  return ext->defl_up;
+}
+
+/**
+ * trb_design_deflection_check:
+ * @input: the member (for the unit system of the text)
+ * @span: the span judged
+ * @limit: the limit as a span ratio denominator (360 for L/360), above 0
+ * @live: the live-load limit ("Live deflection") or the total-load one
+ * @defl: the deflection demand over the span (trb_design_deflection_demand())
+ * @x: where
+ * @combination: the combination named in the check
+ * @check: (out): the check, with its detail text
+ *
+ * The check trb_design_check_deflection() makes on one span.
+ */
+void
+trb_design_deflection_check (const TrbDesignInput    *input,
+                             const TrbDeflectionSpan *span,
+                             double                   limit,
+                             gboolean                 live,
+                             double                   defl,
+                             double                   x,
+                             const char              *combination,
+                             TrbCheck                *check)
+{
+  const char *span_unit = input->units == TRB_UNIT_SYSTEM_SI ? "m" : "ft";
+  char len_text[32];
+  char actual[32];
+
+  trb_check_set (check, live ? "Live deflection" : "Total deflection",
+                 span->overhang ? "IBC 2021 Table 1604.3, note i" : "IBC 2021 Table 1604.3",
+                 TRB_DIM_LENGTH, defl, span->judged / limit, combination, x);
+  if (check->demand > 0)
+    g_snprintf (actual, sizeof actual, "L/%.0f", floor (span->judged / check->demand));
+  else
+    g_strlcpy (actual, "no deflection", sizeof actual);
+  trb_design_format (len_text, sizeof len_text, span->b - span->a, span_unit);
+  if (span->overhang)
+    g_snprintf (check->detail, sizeof check->detail, "%s, limit L/%.0f; %s, L = 2 × %s",
+                actual, limit, span->label, len_text);
+  else
+    g_snprintf (check->detail, sizeof check->detail, "%s, limit L/%.0f; %s, L = %s",
+                actual, limit, span->label, len_text);
+}
+
 static void
 check_deflection_one (const TrbDesignInput *input,
                       const TrbBeamResult  *result,
                       double                limit,
-                      const char           *name,
-                      const char           *combination,
+                      gboolean              live,
                       GArray               *checks)
 {
-  g_autofree DeflectionSpan *sp = NULL;
+  g_autofree TrbDeflectionSpan *sp = NULL;
   guint n;
   gboolean have = FALSE;
-  TrbCheck best;
-  const DeflectionSpan *best_span = NULL;
-  const char *span_unit = input->units == TRB_UNIT_SYSTEM_SI ? "m" : "ft";
-  char len_text[32];
-  char actual[32];
+  double best_ratio = 0, best_defl = 0, best_x = 0;
+  const TrbDeflectionSpan *best_span = NULL;
+  TrbCheck check;
 
   /* No result, or limit 0 (none): nothing is checked and nothing is claimed. */
   if (result == NULL || !(limit > 0))
     return;
 
-  sp = g_new0 (DeflectionSpan, input->n_supports + 1);
-  n = collect_spans (input, sp, input->n_supports + 1);
+  sp = g_new0 (TrbDeflectionSpan, input->n_supports + 1);
+  n = trb_design_deflection_spans (input, sp, input->n_supports + 1);
 
   for (guint i = 0; i < n; i++)
     {
-      const DeflectionSpan *s = &sp[i];
+      const TrbDeflectionSpan *s = &sp[i];
       TrbBeamExtremes ext;
-      double defl, x;
-      TrbCheck check;
+      double defl, x, ratio;
 
       trb_beam_result_extremes (result, s->a, s->b, &ext);
-      /* Supports do not move, so within a span the deflection is measured from the chord;
-       * over an overhang it is the absolute movement, largest at the tip in practice (the
-       * whole overhang is searched so an upward-and-back shape is not missed). */
-      if (ext.defl_down >= ext.defl_up)
+      defl = trb_design_deflection_demand (&ext, &x);
+      ratio = trb_check_ratio (defl, s->judged / limit);
+      if (!have || ratio > best_ratio)
         {
-          defl = ext.defl_down;
-          x = ext.defl_down_x;
-        }
-      else
-        {
-          defl = ext.defl_up;
-          x = ext.defl_up_x;
-        }
-
-      trb_check_set (&check, name,
-                     s->overhang ? "IBC 2021 Table 1604.3, note i" : "IBC 2021 Table 1604.3",
-                     TRB_DIM_LENGTH, defl, s->judged / limit, combination, x);
-      if (!have || check.ratio > best.ratio)
-        {
-          best = check;
+          best_ratio = ratio;
+          best_defl = defl;
+          best_x = x;
           best_span = s;
           have = TRUE;
         }
@@ -258,20 +324,9 @@ check_deflection_one (const TrbDesignInput *input,
 
   if (!have)
     return;
-
-  if (best.demand > 0)
-    g_snprintf (actual, sizeof actual, "L/%.0f", floor (best_span->judged / best.demand));
-  else
-    g_strlcpy (actual, "no deflection", sizeof actual);
-  trb_design_format (len_text, sizeof len_text, best_span->b - best_span->a, span_unit);
-  if (best_span->overhang)
-    g_snprintf (best.detail, sizeof best.detail, "%s, limit L/%.0f; %s, L = 2 × %s",
-                actual, limit, best_span->label, len_text);
-  else
-    g_snprintf (best.detail, sizeof best.detail, "%s, limit L/%.0f; %s, L = %s",
-                actual, limit, best_span->label, len_text);
-
-  g_array_append_val (checks, best);
+  trb_design_deflection_check (input, best_span, limit, live, best_defl, best_x,
+                               live ? "Live" : "Total", &check);
+  g_array_append_val (checks, check);
 }
 
 void
@@ -282,8 +337,6 @@ trb_design_check_deflection (const TrbDesignInput *input,
   g_return_if_fail (checks != NULL);
   g_return_if_fail (input->n_supports == 0 || input->supports != NULL);
 
-  check_deflection_one (input, input->live, input->live_limit, "Live deflection", "Live",
-                        checks);
-  check_deflection_one (input, input->total, input->total_limit, "Total deflection", "Total",
-                        checks);
+  check_deflection_one (input, input->live, input->live_limit, TRUE, checks);
+  check_deflection_one (input, input->total, input->total_limit, FALSE, checks);
 }

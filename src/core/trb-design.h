@@ -33,6 +33,9 @@ typedef struct
   char           name[64];               /* "ASD 2: D + L", "LRFD 2: 1.2D + 1.6L (L on span 1)" */
   double         factors[TRB_N_CASES];   /* the case factors it applies */
   TrbBeamResult *result;                 /* not owned */
+  const TrbBeamExtremes *ext;            /* its extremes over the whole member when known
+                                          * (trb_beam_result_extremes() from 0 to the
+                                          * length), not owned; NULL: the checks find them */
 } TrbDemandCombo;
 
 /* The two ways a method may set capacities against loads: allowable strength (ASD, service
@@ -82,6 +85,33 @@ typedef struct
  * footnote i). Appends to checks (GArray of TrbCheck). */
 void        trb_design_check_deflection (const TrbDesignInput *input,
                                          GArray               *checks);
+
+/* The pieces of trb_design_check_deflection(), for a caller that has the extremes over each
+ * span already (of many results) and writes the text of the governing one only. */
+typedef struct
+{
+  double   a, b;        /* its extent on the member */
+  double   judged;      /* the length the limit applies to: the span, or twice an overhang */
+  gboolean overhang;
+  char     label[32];   /* "span 2", "left overhang", "cantilever" */
+} TrbDeflectionSpan;
+
+guint       trb_design_deflection_spans  (const TrbDesignInput    *input,
+                                          TrbDeflectionSpan       *spans,
+                                          guint                    max_spans);
+double      trb_design_deflection_demand (const TrbBeamExtremes   *ext,
+                                          double                  *x);
+void        trb_design_deflection_check  (const TrbDesignInput    *input,
+                                          const TrbDeflectionSpan *span,
+                                          double                   limit,
+                                          gboolean                 live,
+                                          double                   defl,
+                                          double                   x,
+                                          const char              *combination,
+                                          TrbCheck                *check);
+
+double      trb_check_ratio             (double                demand,
+                                         double                capacity);
 
 void        trb_check_set               (TrbCheck             *check,
                                          const char           *name,

@@ -206,35 +206,25 @@ extremes_finite (const TrbBeamExtremes *e)
 static gboolean
 beam_result_finite (const TrbBeamResult *res)
 {
-  const TrbReaction *reactions;
-  const double *breaks;
-  guint n;
+  gboolean finite;
 
-  reactions = trb_beam_result_get_reactions (res, &n);
-  for (guint i = 0; i < n; i++)
-    if (!isfinite (reactions[i].force) || !isfinite (reactions[i].moment))
-      return FALSE;
-  breaks = trb_beam_result_get_breaks (res, &n);
-  for (guint i = 0; i < n; i++)
-    for (int side = TRB_SIDE_LEFT; side <= TRB_SIDE_RIGHT; side++)
-      {
-        TrbBeamValues v;
-
-        trb_beam_result_eval (res, breaks[i], side, &v);
-        if (!isfinite (v.V) || !isfinite (v.M) || !isfinite (v.theta) || !isfinite (v.defl))
-          return FALSE;
-      }
-  return TRUE;
+  trb_beam_result_extremes_intervals (res, NULL, 0, NULL, NULL, &finite);
+  return finite;
 }
 
+/* entries_finite: the entries' results, judged as beam_result_finite() does while their
+ * extremes were found (evaluate_set()) */
 static gboolean
-combo_set_finite (const TrbComboSetResult *set)
+combo_set_finite (const TrbComboSetResult *set,
+                  gboolean                 entries_finite)
 {
+  if (!entries_finite)
+    return FALSE;
   for (guint i = 0; i < set->entries->len; i++)
     {
       const TrbComboResult *c = &g_array_index (set->entries, TrbComboResult, i);
 
-      if (!extremes_finite (&c->ext) || !beam_result_finite (c->result))
+      if (!extremes_finite (&c->ext))
         return FALSE;
     }
   for (guint i = 0; i < set->envelope.reactions->len; i++)
@@ -249,15 +239,18 @@ combo_set_finite (const TrbComboSetResult *set)
   return set->envelope.empty || extremes_finite (&set->envelope.ext);
 }
 
+/* sets_finite: the entries of strength, live and total, as combo_set_finite() takes them */
 static gboolean
-analysis_finite (const TrbMemberResult *r)
+analysis_finite (const TrbMemberResult *r,
+                 const gboolean        *sets_finite)
 {
   for (guint c = 0; c < TRB_N_CASES; c++)
     if (r->cases[c] != NULL &&
         (!beam_result_finite (r->cases[c]) || !extremes_finite (&r->case_ext[c])))
       return FALSE;
-  return combo_set_finite (&r->strength) && combo_set_finite (&r->live) &&
-         combo_set_finite (&r->total);
+  return combo_set_finite (&r->strength, sets_finite[0]) &&
+         combo_set_finite (&r->live, sets_finite[1]) &&
+         combo_set_finite (&r->total, sets_finite[2]);
 }
 
 static void G_GNUC_PRINTF (3, 4)
@@ -340,6 +333,13 @@ typedef struct
 {
   TrbBeamResult **by_region[TRB_N_CASES];
   TrbBeamResult  *zero;  /* a member without any load: the result of no load */
+
+  /* every result above and the case results, prepared to be combined many times, and the
+   * index of each among them */
+  TrbBeamCombiner *combiner;
+  guint            case_part[TRB_N_CASES];
+  guint           *region_part[TRB_N_CASES];
+  guint            zero_part;
 } RegionResults;
 
 static void
@@ -348,13 +348,44 @@ region_results_clear (RegionResults *rr,
 {
   for (guint c = 0; c < TRB_N_CASES; c++)
     {
+      g_clear_pointer (&rr->region_part[c], g_free);
       if (rr->by_region[c] == NULL)
         continue;
       for (guint i = 0; i < n_regions; i++)
         g_clear_pointer (&rr->by_region[c][i], trb_beam_result_free);
       g_clear_pointer (&rr->by_region[c], g_free);
     }
+  g_clear_pointer (&rr->combiner, trb_beam_combiner_free);
   g_clear_pointer (&rr->zero, trb_beam_result_free);
+}
+
+/* The parts every entry of the sets is made of: the case results, the per-region results
+ * and the result of no load, in one combiner. */
+static void
+region_results_prepare (RegionResults         *rr,
+                        const TrbMemberResult *r)
+{
+  g_autoptr(GPtrArray) parts = g_ptr_array_new ();
+
+  for (guint c = 0; c < TRB_N_CASES; c++)
+    if (r->cases[c] != NULL)
+      {
+        rr->case_part[c] = parts->len;
+        g_ptr_array_add (parts, r->cases[c]);
+      }
+  for (guint c = 0; c < TRB_N_CASES; c++)
+    if (rr->by_region[c] != NULL)
+      {
+        rr->region_part[c] = g_new (guint, r->regions->len);
+        for (guint reg = 0; reg < r->regions->len; reg++)
+          {
+            rr->region_part[c][reg] = parts->len;
+            g_ptr_array_add (parts, rr->by_region[c][reg]);
+          }
+      }
+  rr->zero_part = parts->len;
+  g_ptr_array_add (parts, rr->zero);
+  rr->combiner = trb_beam_combiner_new ((TrbBeamResult **) parts->pdata, parts->len);
 }
 
 static gboolean
@@ -363,14 +394,11 @@ is_patterned_case (TrbLoadCase c)
   return c == TRB_CASE_L || c == TRB_CASE_LR;
 }
 
-/* What a solve looks up again and again and that depends on nothing but its key: the
- * combinations of a set for the cases present, and the wood design values of a species and
- * grade in each size. Lookups only: a memo never changes a result. */
-#define COMBO_SETS 5
-
+/* What a solve looks up again and again and that depends on nothing but its key: the wood
+ * design values of a species and grade in each size. Lookups only: a memo never changes a
+ * result. */
 typedef struct
 {
-  GArray     *combos[COMBO_SETS][1 << TRB_N_CASES];   /* TrbCombo */
   GHashTable *grades;   /* "species\x1fgrade" -> GHashTable (section -> grade, or GRADE_NONE) */
 } Memo;
 
@@ -393,42 +421,93 @@ memo_free (Memo *memo)
 {
   if (memo == NULL)
     return;
-  for (guint s = 0; s < COMBO_SETS; s++)
-    for (guint k = 0; k < (1 << TRB_N_CASES); k++)
-      g_clear_pointer (&memo->combos[s][k], g_array_unref);
   g_hash_table_unref (memo->grades);
   g_free (memo);
 }
 
 G_DEFINE_AUTOPTR_CLEANUP_FUNC (Memo, memo_free)
 
-static GArray *
-combos_for (Memo           *memo,
-            TrbComboSet     set,
+/* The combinations of a set for the cases present depend on nothing else: built once for the
+ * process, for every thread, and never changed. */
+#define COMBO_SETS 5
+
+static GArray *combo_cache[COMBO_SETS][1 << TRB_N_CASES];
+
+static const GArray *
+combos_for (TrbComboSet     set,
             const gboolean *has_case)
 {
   guint key = 0;
+  GArray *a;
 
-  if (memo == NULL || (guint) set >= COMBO_SETS)
-    return trb_combos_build (set, has_case);
+  g_assert ((guint) set < COMBO_SETS);
   for (guint c = 0; c < TRB_N_CASES; c++)
     key |= has_case[c] ? 1u << c : 0;
-  if (memo->combos[set][key] == NULL)
-    memo->combos[set][key] = trb_combos_build (set, has_case);
-  return g_array_ref (memo->combos[set][key]);
+  a = g_atomic_pointer_get (&combo_cache[set][key]);
+  if (a == NULL)
+    {
+      GArray *built = trb_combos_build (set, has_case);
+
+      if (g_atomic_pointer_compare_and_exchange (&combo_cache[set][key], NULL, built))
+        a = built;
+      else
+        {
+          g_array_unref (built);
+          a = g_atomic_pointer_get (&combo_cache[set][key]);
+        }
+    }
+  return a;
+}
+
+/* g_snprintf (dst, size, "%s (%s)", a, b), without the formatting machinery */
+static void
+name_with_pattern (char       *dst,
+                   gsize       size,
+                   const char *a,
+                   const char *b)
+{
+  const char *pieces[] = { a, " (", b, ")" };
+  gsize n = 0;
+
+  for (guint i = 0; i < G_N_ELEMENTS (pieces); i++)
+    for (const char *p = pieces[i]; *p != '\0' && n + 1 < size; p++)
+      dst[n++] = *p;
+  dst[n] = '\0';
 }
 
 /* Evaluates every combination of set, under every pattern where it carries a patterned case,
- * and takes the envelope. */
-static void
+ * and takes the envelope. With ab (n_ab intervals: the spans of the deflection checks), the
+ * extremes over each interval go to span_ext, n_ab for each entry. Returns whether every
+ * entry's result is finite, as beam_result_finite() says. */
+static gboolean
 evaluate_set (TrbMemberResult     *r,
               const RegionResults *rr,
-              Memo                *memo,
-              TrbComboSetResult   *out)
+              TrbComboSetResult   *out,
+              const double        *ab,
+              guint                n_ab,
+              GArray              *span_ext)
 {
-  g_autoptr(GArray) combos = combos_for (memo, out->set, r->has_case);
+  const GArray *combos = combos_for (out->set, r->has_case);
   gboolean patterns_on = r->patterns->len > 0;
-  double length = trb_beam_get_length (r->beam);
+  gboolean finite = TRUE;
+  guint index[TRB_N_CASES * TRB_PATTERN_MAX_REGIONS + 1];
+  double factors[TRB_N_CASES * TRB_PATTERN_MAX_REGIONS + 1];
+  guint n_entries = 0, first = out->entries->len, e = first;
+
+  /* every entry in place at once: the arrays grow once */
+  for (guint i = 0; i < combos->len; i++)
+    {
+      const TrbCombo *combo = &g_array_index (combos, TrbCombo, i);
+      gboolean patterned = FALSE;
+
+      for (guint c = 0; c < TRB_N_CASES; c++)
+        if (combo->factors[c] != 0 && is_patterned_case (c) && rr->by_region[c] != NULL)
+          patterned = patterns_on;
+      n_entries += patterned ? r->patterns->len : 1;
+    }
+  g_array_set_size (out->entries, e + n_entries);
+  if (span_ext != NULL)
+    g_array_set_size (span_ext, n_entries * n_ab);
 
   for (guint i = 0; i < combos->len; i++)
     {
@@ -441,12 +520,12 @@ evaluate_set (TrbMemberResult     *r,
           patterned = patterns_on;
 
       n_patterns = patterned ? r->patterns->len : 1;
-      for (guint p = 0; p < n_patterns; p++)
+      for (guint p = 0; p < n_patterns; p++, e++)
         {
-          g_autoptr(GPtrArray) parts = g_ptr_array_new ();
-          g_autoptr(GArray) factors = g_array_new (FALSE, FALSE, sizeof (double));
-          TrbComboResult cr = { { { 0 } } };
           const TrbPattern *pat = patterned ? &g_array_index (r->patterns, TrbPattern, p) : NULL;
+          TrbComboResult *cr = &g_array_index (out->entries, TrbComboResult, e);
+          guint n = 0;
+          gboolean ok;
 
           for (guint c = 0; c < TRB_N_CASES; c++)
             {
@@ -460,45 +539,49 @@ evaluate_set (TrbMemberResult     *r,
                     {
                       if (!((pat->mask >> reg) & 1))
                         continue;
-                      g_ptr_array_add (parts, rr->by_region[c][reg]);
-                      g_array_append_val (factors, f);
+                      index[n] = rr->region_part[c][reg];
+                      factors[n++] = f;
                     }
                 }
               else
                 {
-                  g_ptr_array_add (parts, r->cases[c]);
-                  g_array_append_val (factors, f);
+                  index[n] = rr->case_part[c];
+                  factors[n++] = f;
                 }
             }
 
-          cr.combo = *combo;
+          cr->combo = *combo;
           if (pat != NULL)
             {
-              g_strlcpy (cr.pattern, pat->name, sizeof cr.pattern);
-              g_snprintf (cr.name, sizeof cr.name, "%s (%s)", combo->name, pat->name);
+              g_strlcpy (cr->pattern, pat->name, sizeof cr->pattern);
+              name_with_pattern (cr->name, sizeof cr->name, combo->name, pat->name);
             }
           else
-            g_strlcpy (cr.name, combo->name, sizeof cr.name);
+            g_strlcpy (cr->name, combo->name, sizeof cr->name);
 
-          if (parts->len == 0)
+          if (n == 0)
             {
               /* A combination of absent cases (1.4D on a member without dead load) still
                * reads as a combination, with zero effects. */
-              double zero = 0;
-
-              g_ptr_array_add (parts, rr->zero);
-              g_array_append_val (factors, zero);
+              index[n] = rr->zero_part;
+              factors[n++] = 0;
             }
-          cr.result = trb_beam_result_combine ((TrbBeamResult **) parts->pdata,
-                                               (const double *) factors->data, parts->len);
-          trb_beam_result_extremes (cr.result, 0, length, &cr.ext);
-          g_array_append_val (out->entries, cr);
+          cr->result = trb_beam_combiner_combine (rr->combiner, index, factors, n);
+          if (span_ext != NULL)
+            trb_beam_result_extremes_intervals (cr->result, ab, n_ab, &cr->ext,
+                                                &g_array_index (span_ext, TrbBeamExtremes,
+                                                                (e - first) * n_ab),
+                                                &ok);
+          else
+            trb_beam_result_extremes_intervals (cr->result, NULL, 0, &cr->ext, NULL, &ok);
+          finite = finite && ok;
         }
     }
 
   /* once every entry is in place, since the envelope points at their names */
   for (guint i = 0; i < out->entries->len; i++)
     envelope_add (&out->envelope, &g_array_index (out->entries, TrbComboResult, i));
+  return finite;
 }
 
 static double
@@ -542,17 +625,37 @@ typedef struct
   Memo             *memo;                /* lookups to reuse; may be NULL */
 } MemberInput;
 
+/* The extremes of the deflection sets' entries over each span the deflection checks judge,
+ * found with the entries' own extremes (evaluate_set()), for design_checks(). */
+typedef struct
+{
+  TrbDeflectionSpan *spans;
+  guint              n_spans;
+  GArray            *live;    /* TrbBeamExtremes: n_spans for each entry of r->live */
+  GArray            *total;   /* the same for r->total */
+} SpanExtremes;
+
+static void
+span_extremes_clear (SpanExtremes *sx)
+{
+  g_clear_pointer (&sx->spans, g_free);
+  g_clear_pointer (&sx->live, g_array_unref);
+  g_clear_pointer (&sx->total, g_array_unref);
+}
+
 /* The analysis with a given stiffness and self-weight (N/m, added to D); with E or I NAN only
  * the stability is checked. Returns FALSE, with the status set when something is wrong, when
  * there is nothing more to do. The design step runs this for each section it tries, with that
- * section's E, I and weight, on a fresh result. Reads only its arguments. */
+ * section's E, I and weight, on a fresh result. Reads only its arguments; sx (may be NULL)
+ * gets the deflection sets' extremes over the spans. */
 static gboolean
 analyse (const TrbProject  *project,
          const MemberInput *in,
          double             E,
          double             I,
          double             self_weight,
-         TrbMemberResult   *r)
+         TrbMemberResult   *r,
+         SpanExtremes      *sx)
 {
   g_autoptr(GError) error = NULL;
   const TrbSupport *beam_supports;
@@ -560,6 +663,7 @@ analyse (const TrbProject  *project,
   RegionResults rr = { { NULL } };
   gboolean use_patterns;
   gboolean known = !isnan (E) && !isnan (I);
+  gboolean sets_finite[3];
 
   if (in->n_supports == 0)
     {
@@ -672,14 +776,39 @@ analyse (const TrbProject  *project,
         }
     }
 
-  evaluate_set (r, &rr, in->memo, &r->strength);
-  evaluate_set (r, &rr, in->memo, &r->live);
-  evaluate_set (r, &rr, in->memo, &r->total);
+  region_results_prepare (&rr, r);
+  if (sx != NULL)
+    {
+      TrbDesignInput di = { 0 };
+      g_autofree double *ab = NULL;
+
+      di.length = in->length;
+      di.supports = trb_beam_get_supports (r->beam, &di.n_supports);
+      sx->spans = g_new0 (TrbDeflectionSpan, di.n_supports + 1);
+      sx->n_spans = trb_design_deflection_spans (&di, sx->spans, di.n_supports + 1);
+      ab = g_new (double, 2 * sx->n_spans + 1);
+      for (guint i = 0; i < sx->n_spans; i++)
+        {
+          ab[2 * i] = sx->spans[i].a;
+          ab[2 * i + 1] = sx->spans[i].b;
+        }
+      sx->live = g_array_new (FALSE, FALSE, sizeof (TrbBeamExtremes));
+      sx->total = g_array_new (FALSE, FALSE, sizeof (TrbBeamExtremes));
+      sets_finite[0] = evaluate_set (r, &rr, &r->strength, NULL, 0, NULL);
+      sets_finite[1] = evaluate_set (r, &rr, &r->live, ab, sx->n_spans, sx->live);
+      sets_finite[2] = evaluate_set (r, &rr, &r->total, ab, sx->n_spans, sx->total);
+    }
+  else
+    {
+      sets_finite[0] = evaluate_set (r, &rr, &r->strength, NULL, 0, NULL);
+      sets_finite[1] = evaluate_set (r, &rr, &r->live, NULL, 0, NULL);
+      sets_finite[2] = evaluate_set (r, &rr, &r->total, NULL, 0, NULL);
+    }
   region_results_clear (&rr, r->regions->len);
 
   /* Each length, load and stiffness may be finite and still overflow with the others (a span
    * of 1e308 ft, an I of 1e-308 in4): such a member is in error, never a result of inf. */
-  if (!analysis_finite (r))
+  if (!analysis_finite (r, sets_finite))
     {
       set_status (r, TRB_STATUS_ERROR, "the analysis overflows: the lengths, loads or section "
                   "properties are out of any real range");
@@ -691,46 +820,64 @@ analyse (const TrbProject  *project,
 }
 
 /* The worst deflection check over every result of a deflection set, named after the
- * combination and pattern that gave it. */
+ * combination and pattern that gave it: trb_design_check_deflection() on each entry, the
+ * worst kept (the first of equals), from the extremes over the spans evaluate_set() found
+ * (span_ext: n_spans for each entry); only the worst is written out. */
 static void
 check_deflection_set (TrbDesignInput          *input,
                       const TrbComboSetResult *set,
                       gboolean                 live,
                       double                   limit,
+                      const SpanExtremes      *sx,
+                      const GArray            *span_ext,
                       GArray                  *checks)
 {
-  g_autoptr(GArray) tmp = g_array_new (FALSE, TRUE, sizeof (TrbCheck));
-  TrbCheck worst;
+  const TrbDeflectionSpan *worst_span = NULL;
+  double worst_ratio = 0, worst_defl = 0, worst_x = 0;
+  guint worst_entry = 0;
   gboolean have = FALSE;
+  TrbCheck check;
 
-  if (!(limit > 0))
+  if (!(limit > 0) || sx->n_spans == 0)
     return;
-  input->live_limit = live ? limit : 0;
-  input->total_limit = live ? 0 : limit;
+  g_assert (span_ext->len == set->entries->len * sx->n_spans);
   for (guint i = 0; i < set->entries->len; i++)
     {
-      const TrbComboResult *c = &g_array_index (set->entries, TrbComboResult, i);
+      const TrbBeamExtremes *ext = &g_array_index (span_ext, TrbBeamExtremes, i * sx->n_spans);
+      const TrbDeflectionSpan *best_span = NULL;
+      double best_ratio = 0, best_defl = 0, best_x = 0;
 
-      input->live = live ? c->result : NULL;
-      input->total = live ? NULL : c->result;
-      g_array_set_size (tmp, 0);
-      trb_design_check_deflection (input, tmp);
-      for (guint k = 0; k < tmp->len; k++)
+      for (guint j = 0; j < sx->n_spans; j++)
         {
-          TrbCheck *ck = &g_array_index (tmp, TrbCheck, k);
+          double x, defl = trb_design_deflection_demand (&ext[j], &x);
+          double ratio = trb_check_ratio (defl, sx->spans[j].judged / limit);
 
-          if (!have || ck->ratio > worst.ratio)
+          if (best_span == NULL || ratio > best_ratio)
             {
-              worst = *ck;
-              g_strlcpy (worst.combination, c->name, sizeof worst.combination);
-              have = TRUE;
+              best_span = &sx->spans[j];
+              best_ratio = ratio;
+              best_defl = defl;
+              best_x = x;
             }
         }
+      if (!have || best_ratio > worst_ratio)
+        {
+          worst_span = best_span;
+          worst_ratio = best_ratio;
+          worst_defl = best_defl;
+          worst_x = best_x;
+          worst_entry = i;
+          have = TRUE;
+        }
     }
-  input->live = input->total = NULL;
-  input->live_limit = input->total_limit = 0;
-  if (have)
-    g_array_append_val (checks, worst);
+  if (!have)
+    return;
+  trb_design_deflection_check (input, worst_span, limit, live, worst_defl, worst_x,
+                               live ? "Live" : "Total", &check);
+  g_strlcpy (check.combination,
+             g_array_index (set->entries, TrbComboResult, worst_entry).name,
+             sizeof check.combination);
+  g_array_append_val (checks, check);
 }
 
 /* The status from the checks made: fail when any ratio is above 1, not designed when a check
@@ -810,6 +957,7 @@ design_checks (const TrbProject   *project,
                const MemberInput  *in,
                const TrbSection   *section,
                const TrbWoodGrade *wood_grade,
+               const SpanExtremes *sx,
                TrbMemberResult    *r)
 {
   g_autoptr(GArray) demand = NULL;
@@ -832,6 +980,7 @@ design_checks (const TrbProject   *project,
       g_strlcpy (d.name, c->name, sizeof d.name);
       memcpy (d.factors, c->combo.factors, sizeof d.factors);
       d.result = c->result;
+      d.ext = &c->ext;
       g_array_append_val (demand, d);
     }
   brace_x = g_array_new (FALSE, TRUE, sizeof (double));
@@ -887,10 +1036,10 @@ design_checks (const TrbProject   *project,
                                                  r->checks);
     }
 
-  check_deflection_set (&input, &r->live, TRUE, trb_member_get_deflection_live (m, s),
-                        r->checks);
-  check_deflection_set (&input, &r->total, FALSE, trb_member_get_deflection_total (m, s),
-                        r->checks);
+  check_deflection_set (&input, &r->live, TRUE, trb_member_get_deflection_live (m, s), sx,
+                        sx->live, r->checks);
+  check_deflection_set (&input, &r->total, FALSE, trb_member_get_deflection_total (m, s), sx,
+                        sx->total, r->checks);
   finish_status (r, strength_checked);
 }
 
@@ -971,6 +1120,7 @@ solve_with_section (const TrbProject  *project,
   const TrbWoodGrade *wood_grade = NULL;
   double self_weight = s->self_weight ? section->weight : 0;
   double E;
+  SpanExtremes sx = { NULL };
 
   if (!s->self_weight)
     g_ptr_array_add (r->notes, g_strdup ("self-weight excluded by the project settings"));
@@ -1015,8 +1165,9 @@ solve_with_section (const TrbProject  *project,
       E = grade->E;
     }
 
-  if (analyse (project, in, E, section->Ix, self_weight, r))
-    design_checks (project, m, in, section, wood_grade, r);
+  if (analyse (project, in, E, section->Ix, self_weight, r, &sx))
+    design_checks (project, m, in, section, wood_grade, &sx, r);
+  span_extremes_clear (&sx);
   return r;
 }
 
@@ -1452,6 +1603,7 @@ solve_input (const TrbProject  *project,
   TrbMemberResult *r;
   TrbSection section;
   double self_weight = 0;
+  SpanExtremes sx = { NULL };
 
   if (!trb_member_is_custom (member))
     {
@@ -1460,7 +1612,7 @@ solve_input (const TrbProject  *project,
       /* Stability and support do not depend on the section: say so once, not per section. */
       r = member_result_new (project, member);
       g_strlcpy (r->section, member->section, sizeof r->section);
-      if (!analyse (project, in, NAN, NAN, 0, r) && r->status != TRB_STATUS_NOT_DESIGNED)
+      if (!analyse (project, in, NAN, NAN, 0, r, NULL) && r->status != TRB_STATUS_NOT_DESIGNED)
         return r;
       trb_member_result_free (r);
 
@@ -1487,8 +1639,9 @@ solve_input (const TrbProject  *project,
   else
     self_weight = custom_self_weight (member, r->notes);
   custom_section (member, self_weight, &section);
-  if (analyse (project, in, member->E, member->I, self_weight, r))
-    design_checks (project, member, in, &section, NULL, r);
+  if (analyse (project, in, member->E, member->I, self_weight, r, &sx))
+    design_checks (project, member, in, &section, NULL, &sx, r);
+  span_extremes_clear (&sx);
   record_input (r, in);
   return r;
 }
