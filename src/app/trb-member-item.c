@@ -280,6 +280,34 @@ trb_member_item_get_failing (TrbMemberItem *self)
   return self->has_result && self->status != TRB_STATUS_PASS;
 }
 
+/**
+ * trb_member_item_describe:
+ * @self: a row
+ *
+ * The row in words, for the plan's tooltip and screen readers, so that a member's status
+ * never rests on its colour: "G1, W12X14, Passes, ratio 0.87"; without the ratio when
+ * nothing was checked.
+ *
+ * Returns: (transfer full): the text
+ */
+char *
+trb_member_item_describe (TrbMemberItem *self)
+{
+  const char *section;
+
+  g_return_val_if_fail (TRB_IS_MEMBER_ITEM (self), NULL);
+
+  section = self->section != NULL ? self->section : "";
+  if (isnan (self->ratio))
+    /* Translators: a member in words: its mark, its section and its status */
+    return g_strdup_printf (_("%s, %s, %s"), self->mark, section,
+                            trb_member_item_get_status (self));
+  /* Translators: a member in words: its mark, its section, its status and its utilization
+   * ratio (demand over capacity) */
+  return g_strdup_printf (_("%s, %s, %s, ratio %.2f"), self->mark, section,
+                          trb_member_item_get_status (self), self->ratio);
+}
+
 static void
 trb_member_item_finalize (GObject *object)
 {

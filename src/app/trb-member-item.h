@@ -32,6 +32,7 @@ const char    *trb_member_item_get_status_class (TrbMemberItem         *self);
 double         trb_member_item_get_ratio        (TrbMemberItem         *self);
 const char    *trb_member_item_get_governing    (TrbMemberItem         *self);
 gboolean       trb_member_item_get_failing      (TrbMemberItem         *self);
+char          *trb_member_item_describe         (TrbMemberItem         *self);
 
 const char    *trb_role_label                   (TrbFrameRole           role);
 const char    *trb_status_label                 (TrbStatus              status);

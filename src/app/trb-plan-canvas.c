@@ -11,6 +11,7 @@
 #include "trb-app-enums.h"
 #include "trb-edit.h"
 #include "trb-layout.h"
+#include "trb-member-item.h"
 #include "trb-plan-canvas.h"
 #include "trb-render-plan.h"
 #include "trb-units.h"
@@ -58,6 +59,7 @@ struct _TrbPlanCanvas
 
   GHashTable     *selection;      /* model pointers: members, columns, walls, loads */
   TrbMember      *focus_member;   /* the member the panels show: the last one picked */
+  GListModel     *member_order;   /* TrbMemberItem: the members list's rows, for the keys */
   TrbPlanHit      hover;
 
   /* the pointer, in device and plan units, and where it snaps */
@@ -127,6 +129,7 @@ enum {
 enum {
   SELECTION_CHANGED,
   EDIT_REFUSED,
+  MEMBER_OPENED,
   N_SIGNALS
 };
 
@@ -1398,12 +1401,64 @@ on_key_pressed (TrbPlanCanvas         *self,
                 GdkModifierType        state,
                 GtkEventControllerKey *controller)
 {
+  int step;
+
   if (keyval == GDK_KEY_space)
     {
       self->space_held = TRUE;
       return TRUE;
     }
+  step = trb_plan_canvas_key_step (keyval, state);
+  if (step != 0)
+    {
+      trb_plan_canvas_step_selection (self, step);
+      /* taken even at the end of the list: an arrow key that sometimes stepped the selection
+       * and sometimes moved the focus out of the plan would lose the engineer's place */
+      return TRUE;
+    }
   return FALSE;
+}
+
+/* The member under a device point in words, or the selected one's for a tooltip asked for
+ * from the keyboard. */
+static char *
+describe_member (TrbPlanCanvas *self,
+                 TrbMember     *member)
+{
+  g_autoptr(TrbMemberItem) item = NULL;
+
+  if (member == NULL || self->document == NULL)
+    return NULL;
+  item = trb_member_item_new (member, trb_document_lookup_result (self->document, member));
+  return trb_member_item_describe (item);
+}
+
+static TrbMember *
+member_at (TrbPlanCanvas *self,
+           double         x,
+           double         y)
+{
+  TrbPlanHit hit;
+
+  if (hit_at (self, x, y, &hit) && hit.kind == TRB_PLAN_HIT_MEMBER)
+    return (TrbMember *) hit.object;
+  return NULL;
+}
+
+static gboolean
+on_query_tooltip (TrbPlanCanvas *self,
+                  int            x,
+                  int            y,
+                  gboolean       keyboard_mode,
+                  GtkTooltip    *tooltip)
+{
+  g_autofree char *text = NULL;
+
+  text = describe_member (self, keyboard_mode ? self->focus_member : member_at (self, x, y));
+  if (text == NULL)
+    return FALSE;
+  gtk_tooltip_set_text (tooltip, text);
+  return TRUE;
 }
 
 static void
@@ -1975,6 +2030,187 @@ trb_plan_canvas_select_all (TrbPlanCanvas *self)
   emit_selection_changed (self);
 }
 
+/* ---- keyboard -------------------------------------------------------------------------------- */
+
+/**
+ * trb_plan_canvas_key_step:
+ * @keyval: a key
+ * @state: the modifiers held
+ *
+ * Returns: +1 for a key that steps the selection to the next member (Down, Right), -1 for
+ *   one that steps it back (Up, Left), 0 for any other key or with Ctrl, Alt or Super held,
+ *   which are the window's.
+ */
+int
+trb_plan_canvas_key_step (guint           keyval,
+                          GdkModifierType state)
+{
+  if ((state & (GDK_CONTROL_MASK | GDK_ALT_MASK | GDK_SUPER_MASK | GDK_META_MASK)) != 0)
+    return 0;
+  switch (keyval)
+    {
+    case GDK_KEY_Down:
+    case GDK_KEY_KP_Down:
+    case GDK_KEY_Right:
+    case GDK_KEY_KP_Right:
+      return 1;
+    case GDK_KEY_Up:
+    case GDK_KEY_KP_Up:
+    case GDK_KEY_Left:
+    case GDK_KEY_KP_Left:
+      return -1;
+    default:
+      return 0;
+    }
+}
+
+static TrbMember *
+order_member (GListModel *order,
+              guint       position)
+{
+  g_autoptr(TrbMemberItem) item = g_list_model_get_item (order, position);
+
+  /* the project keeps its members; the row only points at one */
+  return trb_member_item_get_member (item);
+}
+
+/**
+ * trb_plan_canvas_step_member:
+ * @order: the members as the list shows them (#TrbMemberItem), filtered and sorted
+ * @floor: (nullable): the floor on the plan; members of other floors are passed over
+ * @current: (nullable): the selected member
+ * @step: how many members on (negative: back)
+ *
+ * The member @step places from @current in @order, going round from the last to the first;
+ * from no member (or one the list does not show), the first going on and the last going
+ * back.
+ *
+ * Returns: (transfer none) (nullable): the member, or %NULL when @order has none of @floor
+ */
+TrbMember *
+trb_plan_canvas_step_member (GListModel *order,
+                             TrbFloor   *floor,
+                             TrbMember  *current,
+                             int         step)
+{
+  guint n, at = G_MAXUINT;
+  int dir;
+
+  g_return_val_if_fail (G_IS_LIST_MODEL (order), NULL);
+
+  n = g_list_model_get_n_items (order);
+  if (n == 0)
+    return NULL;
+  for (guint i = 0; i < n && current != NULL; i++)
+    if (order_member (order, i) == current)
+      {
+        at = i;
+        break;
+      }
+  if (step == 0)
+    return at != G_MAXUINT ? current : NULL;
+
+  dir = step > 0 ? 1 : -1;
+  /* from nowhere, start just outside the list so that one step lands on an end */
+  if (at == G_MAXUINT)
+    at = dir > 0 ? n - 1 : 0;
+  for (guint remaining = ABS (step); remaining > 0; remaining--)
+    {
+      guint tried = 0;
+
+      do
+        {
+          at = (at + n + dir) % n;
+          tried++;
+        }
+      while (order_member (order, at)->floor != floor && tried < n);
+      if (order_member (order, at)->floor != floor)
+        return NULL;
+    }
+  return order_member (order, at);
+}
+
+/**
+ * trb_plan_canvas_set_member_order:
+ * @self: a canvas
+ * @order: (nullable): the members as the list shows them (#TrbMemberItem)
+ *
+ * The order the arrow keys step the selection in.
+ */
+void
+trb_plan_canvas_set_member_order (TrbPlanCanvas *self,
+                                  GListModel    *order)
+{
+  g_return_if_fail (TRB_IS_PLAN_CANVAS (self));
+  g_return_if_fail (order == NULL || G_IS_LIST_MODEL (order));
+
+  g_set_object (&self->member_order, order);
+}
+
+/**
+ * trb_plan_canvas_step_selection:
+ * @self: a canvas
+ * @step: +1 for the next member, -1 for the one before
+ *
+ * The arrow keys: selects the member @step places on in the members list's order and pans
+ * the plan to it when it is out of view.
+ */
+void
+trb_plan_canvas_step_selection (TrbPlanCanvas *self,
+                                int            step)
+{
+  TrbMember *member;
+
+  g_return_if_fail (TRB_IS_PLAN_CANVAS (self));
+
+  if (self->member_order == NULL || self->document == NULL || step == 0)
+    return;
+  member = trb_plan_canvas_step_member (self->member_order, current_floor (self),
+                                        self->focus_member, step);
+  if (member != NULL)
+    trb_plan_canvas_select_member (self, member, TRUE);
+}
+
+/**
+ * trb_plan_canvas_open_selected:
+ * @self: a canvas
+ *
+ * Enter with the Select tool: asks (::member-opened) for the selected member to be shown in
+ * the member panel, where the keyboard can change it.
+ */
+void
+trb_plan_canvas_open_selected (TrbPlanCanvas *self)
+{
+  g_return_if_fail (TRB_IS_PLAN_CANVAS (self));
+
+  if (self->focus_member != NULL)
+    g_signal_emit (self, signals[MEMBER_OPENED], 0, self->focus_member);
+}
+
+/**
+ * trb_plan_canvas_describe_at:
+ * @self: a canvas
+ * @x: plan x (m)
+ * @y: plan y (m)
+ *
+ * What the plan's tooltip says with the pointer at (@x, @y).
+ *
+ * Returns: (transfer full) (nullable): "G1, W12X14, Passes, ratio 0.87" for the member
+ *   there, %NULL with none
+ */
+char *
+trb_plan_canvas_describe_at (TrbPlanCanvas *self,
+                             double         x,
+                             double         y)
+{
+  double dx, dy;
+
+  g_return_val_if_fail (TRB_IS_PLAN_CANVAS (self), NULL);
+
+  trb_plan_view_to_device (&self->view, x, y, &dx, &dy);
+  return describe_member (self, member_at (self, dx, dy));
+}
+
 /* ---- actions --------------------------------------------------------------------------------- */
 
 static void
@@ -2004,7 +2240,13 @@ action_edit (GtkWidget  *widget,
   else if (g_str_equal (name, "canvas.cancel"))
     trb_plan_canvas_cancel (self);
   else if (g_str_equal (name, "canvas.finish"))
-    trb_plan_canvas_finish (self);
+    {
+      /* Enter: with nothing being drawn, the selected member is opened */
+      if (self->tool == TRB_TOOL_SELECT)
+        trb_plan_canvas_open_selected (self);
+      else
+        trb_plan_canvas_finish (self);
+    }
   else if (g_str_equal (name, "canvas.select-all"))
     trb_plan_canvas_select_all (self);
 }
@@ -2021,6 +2263,7 @@ trb_plan_canvas_dispose (GObject *object)
   g_clear_pointer (&self->scene, trb_plan_scene_free);
   g_clear_pointer (&self->plan_node, gsk_render_node_unref);
   g_clear_object (&self->document);
+  g_clear_object (&self->member_order);
   g_clear_pointer (&self->preview, g_array_unref);
 
   G_OBJECT_CLASS (trb_plan_canvas_parent_class)->dispose (object);
@@ -2211,6 +2454,15 @@ trb_plan_canvas_class_init (TrbPlanCanvasClass *klass)
   signals[EDIT_REFUSED] =
     g_signal_new ("edit-refused", G_TYPE_FROM_CLASS (klass), G_SIGNAL_RUN_LAST, 0,
                   NULL, NULL, NULL, G_TYPE_NONE, 1, G_TYPE_STRING);
+  /**
+   * TrbPlanCanvas::member-opened:
+   * @member: (type gpointer): the #TrbMember selected
+   *
+   * Enter on a selected member: the window shows it in the member panel.
+   */
+  signals[MEMBER_OPENED] =
+    g_signal_new ("member-opened", G_TYPE_FROM_CLASS (klass), G_SIGNAL_RUN_LAST, 0,
+                  NULL, NULL, NULL, G_TYPE_NONE, 1, G_TYPE_POINTER);
 
   gtk_widget_class_install_property_action (widget_class, "canvas.tool", "tool");
   gtk_widget_class_install_action (widget_class, "canvas.zoom-in", NULL, action_zoom);
@@ -2270,6 +2522,9 @@ trb_plan_canvas_init (TrbPlanCanvas *self)
   self->needs_fit = TRUE;
 
   gtk_widget_set_focusable (GTK_WIDGET (self), TRUE);
+  /* the member under the pointer in words, as the members list has it */
+  gtk_widget_set_has_tooltip (GTK_WIDGET (self), TRUE);
+  g_signal_connect (self, "query-tooltip", G_CALLBACK (on_query_tooltip), NULL);
   gtk_widget_set_hexpand (GTK_WIDGET (self), TRUE);
   gtk_widget_set_vexpand (GTK_WIDGET (self), TRUE);
 

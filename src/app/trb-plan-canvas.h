@@ -68,4 +68,25 @@ void             trb_plan_canvas_drag_plan           (TrbPlanCanvas   *self,
 void             trb_plan_canvas_finish              (TrbPlanCanvas   *self);
 void             trb_plan_canvas_cancel              (TrbPlanCanvas   *self);
 
+/* The keyboard's way through the members: the arrow keys step the selection in the members
+ * list's order (#TrbMemberItem rows as shown, set by the window), Enter opens the selected
+ * member in the member panel (::member-opened). The two pure helpers decide; the canvas only
+ * applies them. */
+void             trb_plan_canvas_set_member_order    (TrbPlanCanvas   *self,
+                                                      GListModel      *order);
+void             trb_plan_canvas_step_selection      (TrbPlanCanvas   *self,
+                                                      int              step);
+void             trb_plan_canvas_open_selected       (TrbPlanCanvas   *self);
+int              trb_plan_canvas_key_step            (guint            keyval,
+                                                      GdkModifierType  state);
+TrbMember       *trb_plan_canvas_step_member         (GListModel      *order,
+                                                      TrbFloor        *floor,
+                                                      TrbMember       *current,
+                                                      int              step);
+
+/* The tooltip of the plan at a plan point (m): the member there in words, or NULL. */
+char            *trb_plan_canvas_describe_at         (TrbPlanCanvas   *self,
+                                                      double           x,
+                                                      double           y);
+
 G_END_DECLS

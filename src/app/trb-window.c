@@ -105,6 +105,19 @@ on_member_activated (TrbWindow     *self,
   trb_plan_canvas_select_member (self->canvas, member, TRUE);
 }
 
+/* Enter on the plan: the panels show the selection already; the member page comes forward,
+ * with the keyboard in it, so that the member can be changed without the pointer. */
+static void
+on_member_opened (TrbWindow     *self,
+                  TrbMember     *member,
+                  TrbPlanCanvas *canvas)
+{
+  if (!self->show_panel)
+    g_object_set (self, "show-panel", TRUE, NULL);
+  trb_window_show_page (self, "member");
+  gtk_widget_child_focus (GTK_WIDGET (self->member_panel), GTK_DIR_TAB_FORWARD);
+}
+
 static void
 on_edit_refused (TrbWindow  *self,
                  const char *message)
@@ -288,15 +301,15 @@ update_tool_options (TrbWindow *self)
   switch (tool)
     {
     case TRB_TOOL_AREA_LOAD:
-      gtk_label_set_text (self->value_label, _("Pressure"));
+      gtk_label_set_text_with_mnemonic (self->value_label, _("_Pressure"));
       text = self->area_text;
       break;
     case TRB_TOOL_LINE_LOAD:
-      gtk_label_set_text (self->value_label, _("Load per length"));
+      gtk_label_set_text_with_mnemonic (self->value_label, _("Load per _length"));
       text = self->line_text;
       break;
     case TRB_TOOL_POINT_LOAD:
-      gtk_label_set_text (self->value_label, _("Load"));
+      gtk_label_set_text_with_mnemonic (self->value_label, _("_Load"));
       text = self->point_text;
       break;
     default:
@@ -725,6 +738,7 @@ trb_window_class_init (TrbWindowClass *klass)
   gtk_widget_class_bind_template_child (widget_class, TrbWindow, recent_menu);
   gtk_widget_class_bind_template_callback (widget_class, on_selection_changed);
   gtk_widget_class_bind_template_callback (widget_class, on_member_activated);
+  gtk_widget_class_bind_template_callback (widget_class, on_member_opened);
   gtk_widget_class_bind_template_callback (widget_class, on_edit_refused);
   gtk_widget_class_bind_template_callback (widget_class, on_tool_changed);
   gtk_widget_class_bind_template_callback (widget_class, on_value_changed);
@@ -744,6 +758,8 @@ trb_window_init (TrbWindow *self)
 
   gtk_widget_init_template (GTK_WIDGET (self));
   self->show_panel = TRUE;
+  /* the arrow keys on the plan step through the members as the list shows them */
+  trb_plan_canvas_set_member_order (self->canvas, trb_member_list_get_model (self->member_list));
 
   for (guint i = 0; case_labels[i] != NULL; i++)
     gtk_string_list_append (cases, _(case_labels[i]));
