@@ -557,6 +557,10 @@ trb_member_list_dispose (GObject *object)
 
   if (self->document != NULL)
     g_signal_handlers_disconnect_by_data (self->document, self);
+  /* the column view lets go of a sorted model as it goes, and the selection may still say its
+   * row changed after ours is cleared */
+  if (self->selection != NULL)
+    g_signal_handlers_disconnect_by_data (self->selection, self);
   gtk_widget_dispose_template (GTK_WIDGET (self), TRB_TYPE_MEMBER_LIST);
   g_clear_object (&self->document);
   g_clear_object (&self->selection);
