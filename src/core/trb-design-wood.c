@@ -651,16 +651,51 @@ zero_moment_length (const TrbBeamResult *result,
   return right - left;
 }
 
+/* A check of one combination on one segment, span or support, with what its detail text
+ * needs: the text is written only for the check that governs (write_*()), after every
+ * candidate is compared by its ratio. */
+typedef struct
+{
+  double      demand, capacity, ratio, x;
+  const char *combination;
+  const char *clause;
+  /* flexure */
+  gboolean    not_permitted;  /* R_B above 50 */
+  double      RB, lu, Fb_ref, CD, CV, CL;
+  gboolean    negative;
+  /* shear */
+  double      V;
+  gboolean    at_d;
+  /* bearing */
+  double      Cb, required;
+} Candidate;
+
 static void
-keep_worse (TrbCheck       *governing,
-            gboolean       *have,
-            const TrbCheck *candidate)
+keep_worse (Candidate       *governing,
+            gboolean        *have,
+            const Candidate *candidate)
 {
   if (!*have || candidate->ratio > governing->ratio)
     {
       *governing = *candidate;
       *have = TRUE;
     }
+}
+
+static void
+candidate_set (Candidate  *c,
+               const char *clause,
+               double      demand,
+               double      capacity,
+               const char *combination,
+               double      x)
+{
+  c->clause = clause;
+  c->demand = demand;
+  c->capacity = capacity;
+  c->ratio = trb_check_ratio (demand, capacity);
+  c->combination = combination;
+  c->x = x;
 }
 
 static int
@@ -698,14 +733,13 @@ check_flexure_region (const WoodContext    *ctx,
                       double                seg_b,
                       double                M,
                       double                x,
-                      TrbCheck             *out)
+                      Candidate            *out)
 {
   const TrbWoodGrade *grade = ctx->grade;
   gboolean negative = M < 0;
   gboolean glulam = ctx->cls == WOOD_GLULAM;
   double Fb_ref, Fb_star, CL = 1.0, CV = 1.0, RB = 0, Fb_adj;
   gboolean braced;
-  char fb[32], fref[32], lu[32];
 
   Fb_ref = grade->Fb;
   /* Glulam: a negative moment stresses the compression-zone laminations in tension (Fbx-). */
@@ -737,29 +771,49 @@ check_flexure_region (const WoodContext    *ctx,
       Fb_adj = Fb_star * CL * WOOD_CFU;
     }
 
-  if (RB > 50.0)
+  out->negative = negative;
+  out->Fb_ref = Fb_ref;
+  out->CD = CD;
+  out->CV = CV;
+  out->CL = CL;
+  out->RB = RB;
+  out->lu = seg_b - seg_a;
+  out->not_permitted = RB > 50.0;
+  if (out->not_permitted)
     {
       /* NDS 2018 3.3.3.7: a slenderness ratio above 50 is not permitted at all. */
-      trb_check_set (out, "Flexure", "NDS 2018 3.3.3.7", TRB_DIM_STRESS, fabs (M) / ctx->S, 0,
-                     combo->name, x);
-      g_snprintf (out->detail, sizeof out->detail, "R_B = %.1f > 50 over l_u = %s: not permitted",
-                  RB, trb_design_format (lu, sizeof lu, seg_b - seg_a, ctx->span_unit));
+      candidate_set (out, "NDS 2018 3.3.3.7", fabs (M) / ctx->S, 0, combo->name, x);
       return;
     }
+  candidate_set (out, "NDS 2018 3.3.1", fabs (M) / ctx->S, Fb_adj, combo->name, x);
+}
 
-  trb_check_set (out, "Flexure", "NDS 2018 3.3.1", TRB_DIM_STRESS, fabs (M) / ctx->S, Fb_adj,
-                 combo->name, x);
-  trb_design_format (fb, sizeof fb, Fb_adj, ctx->stress_unit);
-  if (glulam)
+static void
+write_flexure (const WoodContext *ctx,
+               const Candidate   *c,
+               TrbCheck          *out)
+{
+  char fb[32], fref[32], lu[32];
+
+  trb_check_set (out, "Flexure", c->clause, TRB_DIM_STRESS, c->demand, c->capacity,
+                 c->combination, c->x);
+  if (c->not_permitted)
+    {
+      g_snprintf (out->detail, sizeof out->detail, "R_B = %.1f > 50 over l_u = %s: not permitted",
+                  c->RB, trb_design_format (lu, sizeof lu, c->lu, ctx->span_unit));
+      return;
+    }
+  trb_design_format (fb, sizeof fb, c->capacity, ctx->stress_unit);
+  if (ctx->cls == WOOD_GLULAM)
     g_snprintf (out->detail, sizeof out->detail,
                 "%s %s; C_D %.2f, C_M %.2f, C_t 1.00, C_V %.3f, C_L %.3f -> Fb' = %s",
-                negative ? "Fbx-" : "Fbx+",
-                trb_design_format (fref, sizeof fref, Fb_ref, ctx->stress_unit),
-                CD, ctx->CM_b, CV, CL, fb);
+                c->negative ? "Fbx-" : "Fbx+",
+                trb_design_format (fref, sizeof fref, c->Fb_ref, ctx->stress_unit),
+                c->CD, ctx->CM_b, c->CV, c->CL, fb);
   else
     g_snprintf (out->detail, sizeof out->detail,
                 "C_D %.2f, C_M %.2f, C_t 1.00, C_F %.3f, C_i %.2f, C_r %.2f, C_L %.3f -> Fb' = %s",
-                CD, ctx->CM_b, ctx->CF, ctx->Ci_b, ctx->Cr, CL, fb);
+                c->CD, ctx->CM_b, ctx->CF, ctx->Ci_b, ctx->Cr, c->CL, fb);
 }
 
 static void
@@ -767,7 +821,7 @@ check_flexure (const WoodContext    *ctx,
                const TrbDemandCombo *combo,
                double                CD,
                GArray               *segments,
-               TrbCheck             *governing,
+               Candidate            *governing,
                gboolean             *have)
 {
   for (guint i = 0; i + 1 < segments->len; i++)
@@ -775,7 +829,7 @@ check_flexure (const WoodContext    *ctx,
       double a = g_array_index (segments, double, i);
       double b = g_array_index (segments, double, i + 1);
       TrbBeamExtremes ext;
-      TrbCheck check;
+      Candidate check;
 
       trb_beam_result_extremes (combo->result, a, b, &ext);
       if (ext.M_max > 0)
@@ -853,7 +907,7 @@ check_shear (const WoodContext    *ctx,
              const TrbDemandCombo *combo,
              double                CD,
              GArray               *spans,
-             TrbCheck             *governing,
+             Candidate            *governing,
              gboolean             *have)
 {
   const TrbWoodGrade *grade = ctx->grade;
@@ -868,8 +922,7 @@ check_shear (const WoodContext    *ctx,
       double aa, bb, V = 0, Vx = a;
       gboolean at_d = FALSE;
       TrbBeamExtremes ext;
-      TrbCheck check;
-      char vtext[32], fv[32];
+      Candidate check;
 
       /* Loads within d of a support the member bears on may be left out (NDS 2018 3.4.3.1);
        * a support that pulls down (uplift) is not bearing. */
@@ -930,21 +983,34 @@ check_shear (const WoodContext    *ctx,
             }
         }
 
-      trb_check_set (&check, "Shear", "NDS 2018 Eq. 3.4-2", TRB_DIM_STRESS, 1.5 * V / ctx->A,
-                     Fv_adj, combo->name, Vx);
-      g_snprintf (check.detail, sizeof check.detail,
-                  "V = %s%s; C_D %.2f, C_M %.2f, C_t 1.00, C_i %.2f -> Fv' = %s",
-                  trb_design_format (vtext, sizeof vtext, V, ctx->force_unit),
-                  at_d ? " at d" : "", CD, ctx->CM_v, ctx->Ci_v,
-                  trb_design_format (fv, sizeof fv, Fv_adj, ctx->stress_unit));
+      candidate_set (&check, "NDS 2018 Eq. 3.4-2", 1.5 * V / ctx->A, Fv_adj, combo->name, Vx);
+      check.V = V;
+      check.at_d = at_d;
+      check.CD = CD;
       keep_worse (governing, have, &check);
     }
 }
 
 static void
+write_shear (const WoodContext *ctx,
+             const Candidate   *c,
+             TrbCheck          *out)
+{
+  char vtext[32], fv[32];
+
+  trb_check_set (out, "Shear", c->clause, TRB_DIM_STRESS, c->demand, c->capacity,
+                 c->combination, c->x);
+  g_snprintf (out->detail, sizeof out->detail,
+              "V = %s%s; C_D %.2f, C_M %.2f, C_t 1.00, C_i %.2f -> Fv' = %s",
+              trb_design_format (vtext, sizeof vtext, c->V, ctx->force_unit),
+              c->at_d ? " at d" : "", c->CD, ctx->CM_v, ctx->Ci_v,
+              trb_design_format (fv, sizeof fv, c->capacity, ctx->stress_unit));
+}
+
+static void
 check_bearing (const WoodContext    *ctx,
                const TrbDemandCombo *combo,
-               TrbCheck             *governing,
+               Candidate            *governing,
                gboolean             *have)
 {
   const TrbReaction *reactions;
@@ -960,8 +1026,7 @@ check_bearing (const WoodContext    *ctx,
       double x = reactions[i].x;
       gboolean near_end;
       double Cb, required;
-      TrbCheck check;
-      char lbt[32], fc[32], req[32];
+      Candidate check;
 
       if (R <= 0)
         continue;
@@ -970,15 +1035,27 @@ check_bearing (const WoodContext    *ctx,
       Cb = trb_design_wood_cb (lb, near_end);
       required = trb_design_wood_required_bearing (R, ctx->b, F0, near_end);
 
-      trb_check_set (&check, "Bearing", "NDS 2018 3.10", TRB_DIM_STRESS, R / (ctx->b * lb),
-                     F0 * Cb, combo->name, x);
-      g_snprintf (check.detail, sizeof check.detail,
-                  "l_b %s, C_M %.2f, C_t 1.00, C_b %.3f -> Fc_perp' = %s; l_b,req %s",
-                  trb_design_format (lbt, sizeof lbt, lb, ctx->length_unit), ctx->CM_cp, Cb,
-                  trb_design_format (fc, sizeof fc, F0 * Cb, ctx->stress_unit),
-                  trb_design_format (req, sizeof req, required, ctx->length_unit));
+      candidate_set (&check, "NDS 2018 3.10", R / (ctx->b * lb), F0 * Cb, combo->name, x);
+      check.Cb = Cb;
+      check.required = required;
       keep_worse (governing, have, &check);
     }
+}
+
+static void
+write_bearing (const WoodContext *ctx,
+               const Candidate   *c,
+               TrbCheck          *out)
+{
+  char lbt[32], fc[32], req[32];
+
+  trb_check_set (out, "Bearing", c->clause, TRB_DIM_STRESS, c->demand, c->capacity,
+                 c->combination, c->x);
+  g_snprintf (out->detail, sizeof out->detail,
+              "l_b %s, C_M %.2f, C_t 1.00, C_b %.3f -> Fc_perp' = %s; l_b,req %s",
+              trb_design_format (lbt, sizeof lbt, ctx->options->bearing_length, ctx->length_unit),
+              ctx->CM_cp, c->Cb, trb_design_format (fc, sizeof fc, c->capacity, ctx->stress_unit),
+              trb_design_format (req, sizeof req, c->required, ctx->length_unit));
 }
 
 /**
@@ -1009,7 +1086,8 @@ trb_design_wood_check (const TrbDesignInput *input,
   g_autoptr(GArray) xs = NULL;
   g_autoptr(GArray) segments = NULL;
   g_autoptr(GArray) spans = NULL;
-  TrbCheck flexure = { 0 }, shear = { 0 }, bearing = { 0 };
+  Candidate flexure = { 0 }, shear = { 0 }, bearing = { 0 };
+  TrbCheck check;
   gboolean have_flexure = FALSE, have_shear = FALSE, have_bearing = FALSE;
   double zero = 0;
   gboolean si;
@@ -1080,11 +1158,20 @@ trb_design_wood_check (const TrbDesignInput *input,
     }
 
   if (have_flexure)
-    g_array_append_val (checks, flexure);
+    {
+      write_flexure (&ctx, &flexure, &check);
+      g_array_append_val (checks, check);
+    }
   if (have_shear)
-    g_array_append_val (checks, shear);
+    {
+      write_shear (&ctx, &shear, &check);
+      g_array_append_val (checks, check);
+    }
   if (have_bearing)
-    g_array_append_val (checks, bearing);
+    {
+      write_bearing (&ctx, &bearing, &check);
+      g_array_append_val (checks, check);
+    }
 
   trb_design_check_deflection (input, checks);
 }
