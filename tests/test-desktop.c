@@ -317,6 +317,12 @@ press_key (GtkEventControllerKey *keys,
   return handled;
 }
 
+static GListModel *
+window_rows (TrbWindow *window)
+{
+  return trb_member_list_get_model (TRB_MEMBER_LIST (trb_window_get_member_list (window)));
+}
+
 static TrbMember *
 row_member (GListModel *rows,
             guint       position)
@@ -380,7 +386,7 @@ test_plan_keys (void)
   TrbDocument *document = trb_window_get_document (window);
   TrbPlanCanvas *canvas = TRB_PLAN_CANVAS (trb_window_get_canvas (window));
   GtkWidget *panel = trb_window_get_member_panel (window);
-  GListModel *rows = trb_member_list_get_model (TRB_MEMBER_LIST (trb_window_get_member_list (window)));
+  GListModel *rows = window_rows (window);
   GtkEventControllerKey *keys = find_key_controller (GTK_WIDGET (canvas));
   TrbFloor *floor = trb_document_get_floor (document);
   AdwViewStack *stack;
@@ -444,12 +450,6 @@ test_plan_keys (void)
   g_assert_true (gtk_widget_activate_action (GTK_WIDGET (canvas), "canvas.cancel", NULL));
   g_assert_cmpint (trb_plan_canvas_get_tool (canvas), ==, TRB_TOOL_SELECT);
   close_window (window);
-}
-
-static GListModel *
-window_rows (TrbWindow *window)
-{
-  return trb_member_list_get_model (TRB_MEMBER_LIST (trb_window_get_member_list (window)));
 }
 
 /* The plan's tooltip: the member under the pointer in the members list's words, so that its
@@ -562,8 +562,8 @@ test_names_and_mnemonics (void)
     GTK_ACCESSIBLE (panel), GTK_ACCESSIBLE_PROPERTY_DESCRIPTION,
     "The selected member: its properties, design settings, checks and loads");
   g_assert_null (mismatch);
-  g_assert_true (gtk_test_accessible_has_property (GTK_ACCESSIBLE (trb_window_get_shortlist (window)),
-                                                   GTK_ACCESSIBLE_PROPERTY_DESCRIPTION));
+  g_assert_true (gtk_test_accessible_has_property (
+    GTK_ACCESSIBLE (trb_window_get_shortlist (window)), GTK_ACCESSIBLE_PROPERTY_DESCRIPTION));
 
   g_assert_nonnull (girder);
   g_assert_nonnull (wall);
