@@ -5,6 +5,7 @@
 
 #include <glib/gi18n.h>
 
+#include "trb-print.h"
 #include "trb-window-private.h"
 
 static GtkFileFilter *
@@ -172,6 +173,19 @@ save_action (GtkWidget  *widget,
   trb_window_save (TRB_WINDOW (widget), g_str_equal (name, "win.save-as"), FALSE);
 }
 
+/* ---- print and export ------------------------------------------------------------------------ */
+
+static void
+print_action (GtkWidget  *widget,
+              const char *name,
+              GVariant   *param)
+{
+  if (g_str_equal (name, "win.print"))
+    trb_print_run (TRB_WINDOW (widget));
+  else
+    trb_print_export_dialog (TRB_WINDOW (widget));
+}
+
 /* ---- edit ------------------------------------------------------------------------------------ */
 
 static void
@@ -248,6 +262,8 @@ trb_window_class_add_actions (GtkWidgetClass *widget_class)
   gtk_widget_class_install_action (widget_class, "win.open", NULL, open_action);
   gtk_widget_class_install_action (widget_class, "win.save", NULL, save_action);
   gtk_widget_class_install_action (widget_class, "win.save-as", NULL, save_action);
+  gtk_widget_class_install_action (widget_class, "win.print", NULL, print_action);
+  gtk_widget_class_install_action (widget_class, "win.export-report", NULL, print_action);
   gtk_widget_class_install_action (widget_class, "win.undo", NULL, undo_action);
   gtk_widget_class_install_action (widget_class, "win.redo", NULL, undo_action);
   gtk_widget_class_install_action (widget_class, "win.close", NULL, close_action);

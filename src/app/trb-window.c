@@ -9,6 +9,7 @@
 #include "trb-app-enums.h"
 #include "trb-autosave.h"
 #include "trb-plan-a11y.h"
+#include "trb-print.h"
 #include "trb-units.h"
 #include "trb-window-private.h"
 
@@ -544,6 +545,16 @@ trb_window_close_request (GtkWindow *window)
   return TRUE;
 }
 
+/* The application is set after constructed(), by g_object_new's ordinary properties. */
+static void
+on_application_notify (TrbWindow *self)
+{
+  GtkApplication *app = gtk_window_get_application (GTK_WINDOW (self));
+
+  if (app != NULL)
+    trb_print_add_accels (app);
+}
+
 /* ---- object ---------------------------------------------------------------------------------- */
 
 static void
@@ -792,6 +803,7 @@ trb_window_init (TrbWindow *self)
 
   g_signal_connect_object (gtk_recent_manager_get_default (), "changed",
                            G_CALLBACK (update_recent), self, G_CONNECT_SWAPPED);
+  g_signal_connect (self, "notify::application", G_CALLBACK (on_application_notify), NULL);
 }
 
 GtkWidget *
