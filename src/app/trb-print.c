@@ -228,8 +228,8 @@ on_print_done (GtkPrintOperation       *op,
       g_autoptr(GError) error = NULL;
       g_autofree char *message = NULL;
 
-      gtk_print_operation_get_error (op, &error);
       /* the banner rather than a toast: a print that failed is not to be missed */
+      gtk_print_operation_get_error (op, &error);
       message = g_strdup_printf (_("Could not print: %s"),
                                  error != NULL ? error->message
                                                : gtk_print_operation_get_status_string (op));
