@@ -296,7 +296,7 @@ test_keys (Fixture       *f,
 
   /* Ctrl+P prints, as in every GNOME application (GNOME HIG, keyboard shortcuts) */
   g_assert_true (g_strv_contains ((const char *const *) print, "<Control>p"));
-  /* Shift+Ctrl+E exports (common practice among GNOME applications) */
+  /* Shift+Ctrl+E exports, the key the issue "Printed output" asks for (docs/user-guide.md) */
   g_assert_true (g_strv_contains ((const char *const *) export, "<Shift><Control>e"));
 }
 
