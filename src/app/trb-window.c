@@ -553,19 +553,10 @@ on_application_notify (TrbWindow *self)
 
   if (app != NULL)
     trb_print_add_accels (app);
-}
 
-/* ---- object ---------------------------------------------------------------------------------- */
-
-static void
-trb_window_constructed (GObject *object)
-{
-  TrbWindow *self = TRB_WINDOW (object);
-  GtkApplication *app = gtk_window_get_application (GTK_WINDOW (self));
-
-  G_OBJECT_CLASS (trb_window_parent_class)->constructed (object);
-
-  if (TRB_IS_APPLICATION (app))
+  /* The window's size and the canvas's grid and snapping follow the preferences: bound once,
+   * when the window first gets its application. */
+  if (TRB_IS_APPLICATION (app) && self->settings == NULL)
     {
       self->settings = g_object_ref (trb_application_get_settings (TRB_APPLICATION (app)));
       gtk_window_set_default_size (GTK_WINDOW (self),
@@ -580,6 +571,18 @@ trb_window_constructed (GObject *object)
       g_settings_bind (self->settings, "snap-to-members", self->canvas, "snap-to-members",
                        G_SETTINGS_BIND_GET);
     }
+}
+
+/* ---- object ---------------------------------------------------------------------------------- */
+
+static void
+trb_window_constructed (GObject *object)
+{
+  TrbWindow *self = TRB_WINDOW (object);
+
+  G_OBJECT_CLASS (trb_window_parent_class)->constructed (object);
+
+  /* The application, and with it the preferences, comes later: on_application_notify(). */
   trb_autosave_attach (self);
   trb_plan_a11y_attach (self);
   update_recent (self);
