@@ -1186,6 +1186,62 @@ test_empty (void)
   assert_abs (e.defl_up, 0, 0);
 }
 
+/* Numerical edge cases: spans of 1 in and 200 ft on one member, and sections a billion times
+ * apart in stiffness, solved exactly to the tolerance of the other cases here.
+ * Two spans L1, L2 under a uniform w, pinned ends: Clapeyron's three-moment equation gives the
+ * support moment M_B = -w (L1^3 + L2^3) / (8 (L1 + L2)), and statics the reactions
+ * R_A = w L1 / 2 + M_B / L1, R_C = w L2 / 2 + M_B / L2, R_B = w (L1 + L2) - R_A - R_C
+ * (common practice; any structural analysis text). With L1 = 1 in the short span lifts off
+ * its end support (R_A < 0). */
+static void
+test_numerical_edges (void)
+{
+  const double w = 1.0 * TRB_KLF;
+  const double L1 = 1 * TRB_IN, L2 = 200 * TRB_FT, L = L1 + L2;
+  const TrbSupport two[] = { { 0, TRB_SUPPORT_PIN }, { L1, TRB_SUPPORT_ROLLER },
+                             { L, TRB_SUPPORT_ROLLER } };
+  const TrbLoad uniform = { TRB_LOAD_UNIFORM, 0, L, w, w };
+  double MB = -w * (L1 * L1 * L1 + L2 * L2 * L2) / (8 * L);
+  double RA = w * L1 / 2 + MB / L1, RC = w * L2 / 2 + MB / L2, RB = w * L - RA - RC;
+  g_autoptr(TrbBeam) beam = make_beam (L, two, G_N_ELEMENTS (two));
+  g_autoptr(TrbBeamResult) r = solve (beam, &uniform, 1);
+  const TrbReaction *reactions;
+  guint n;
+  double scale = fabs (RA) + fabs (RB) + fabs (RC);
+
+  reactions = trb_beam_result_get_reactions (r, &n);
+  g_assert_cmpuint (n, ==, 3);
+  g_assert_cmpfloat (RA, <, 0);
+  g_assert_cmpfloat_with_epsilon (reactions[0].force / scale, RA / scale, 1e-12);
+  g_assert_cmpfloat_with_epsilon (reactions[1].force / scale, RB / scale, 1e-12);
+  g_assert_cmpfloat_with_epsilon (reactions[2].force / scale, RC / scale, 1e-12);
+  g_assert_cmpfloat_with_epsilon (at (r, L1, TRB_SIDE_LEFT).M / fabs (MB), MB / fabs (MB),
+                                  1e-12);
+
+  /* A simple span of 20 ft under 1 kip/ft with I from 1e-3 to 1e6 in^4: M = wL^2/8 whatever
+   * the stiffness, mid-span deflection 5wL^4/(384EI) (AISC Manual Table 3-23 case 1, from
+   * memory) to 1e-12 relative. */
+  for (double I_in4 = 1e-3; I_in4 <= 1e6; I_in4 *= 1e3)
+    {
+      const double span = 20 * TRB_FT;
+      const double I = I_in4 * TRB_IN * TRB_IN * TRB_IN * TRB_IN;
+      const TrbSupport ends[] = { { 0, TRB_SUPPORT_PIN }, { span, TRB_SUPPORT_ROLLER } };
+      const TrbLoad load = { TRB_LOAD_UNIFORM, 0, span, w, w };
+      g_autoptr(GError) error = NULL;
+      g_autoptr(TrbBeam) b = trb_beam_new (span, E_STEEL, I, ends, 2, &error);
+      g_autoptr(TrbBeamResult) rr = NULL;
+      double want = 5 * w * pow (span, 4) / (384 * E_STEEL * I);
+      TrbBeamValues mid;
+
+      g_assert_no_error (error);
+      rr = solve (b, &load, 1);
+      mid = at (rr, span / 2, TRB_SIDE_LEFT);
+      g_assert_true (isfinite (mid.defl));
+      g_assert_cmpfloat_with_epsilon (mid.defl / want, 1.0, 1e-12);
+      g_assert_cmpfloat_with_epsilon (mid.M / (w * span * span / 8), 1.0, 1e-12);
+    }
+}
+
 int
 main (int    argc,
       char **argv)
@@ -1215,6 +1271,7 @@ main (int    argc,
   g_test_add_func ("/trb/beam/sample-breaks-copy", test_sample_breaks_copy);
   g_test_add_func ("/trb/beam/many-loads", test_many_loads);
   g_test_add_func ("/trb/beam/empty", test_empty);
+  g_test_add_func ("/trb/beam/numerical-edges", test_numerical_edges);
 
   return g_test_run ();
 }
