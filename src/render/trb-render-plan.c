@@ -712,6 +712,9 @@ typedef struct
   TrbRgba                   paper;
   double                    fs;        /* font size */
   double                    lw;        /* member line width */
+  GArray                   *near_lines;    /* device lines (4 doubles) of the members
+                                            * member_visible() keeps; NULL until needed */
+  TrbPlanBounds             near_box;      /* a device box only they can reach */
   gboolean                  swatches_ok;   /* set_line_color() may use swatches */
   guint                     n_swatches;
   TrbRgba                   swatch_colors[8];
@@ -839,24 +842,75 @@ centroid (const GArray *points,
   *y = cy / (3 * a);
 }
 
-/* Does a device rectangle cross a member's line? */
+static gboolean
+member_visible (const DrawContext *dc,
+                const TrbMember   *m)
+{
+  return MAX (m->start.x, m->end.x) >= dc->visible.min_x &&
+         MIN (m->start.x, m->end.x) <= dc->visible.max_x &&
+         MAX (m->start.y, m->end.y) >= dc->visible.min_y &&
+         MIN (m->start.y, m->end.y) <= dc->visible.max_y;
+}
+
+static gboolean
+line_touches_box (const double         line[4],
+                  const TrbPlanBounds *box)
+{
+  double ax = line[0], ay = line[1], bx = line[2], by = line[3];
+
+  if (MAX (ax, bx) < box->min_x || MIN (ax, bx) > box->max_x ||
+      MAX (ay, by) < box->min_y || MIN (ay, by) > box->max_y)
+    return FALSE;
+  return segment_touches_rect (ax, ay, bx, by, box);
+}
+
+/* Does a device rectangle cross a member's line? A box inside the drawing rectangle padded for
+ * labels can only meet the members drawn, which are computed once a draw; zoomed in, a few
+ * hundred of ten thousand. */
 static gboolean
 box_hits_member (DrawContext         *dc,
                  const TrbPlanBounds *box)
 {
   const TrbFloor *floor = dc->scene->floor;
 
+  if (dc->near_lines == NULL)
+    {
+      /* the padding of dc->visible on the device, less a unit for rounding */
+      double pad = MAX (6 * dc->fs - 1, 0);
+
+      dc->near_lines = g_array_new (FALSE, FALSE, sizeof (double) * 4);
+      for (guint i = 0; i < floor->members->len; i++)
+        {
+          const TrbMember *m = g_ptr_array_index (floor->members, i);
+          double line[4];
+
+          if (!member_visible (dc, m))
+            continue;
+          trb_plan_view_to_device (dc->view, m->start.x, m->start.y, &line[0], &line[1]);
+          trb_plan_view_to_device (dc->view, m->end.x, m->end.y, &line[2], &line[3]);
+          g_array_append_val (dc->near_lines, line);
+        }
+      dc->near_box = (TrbPlanBounds) { dc->device.min_x - pad, dc->device.min_y - pad,
+                                       dc->device.max_x + pad, dc->device.max_y + pad };
+    }
+
+  if (box->min_x >= dc->near_box.min_x && box->max_x <= dc->near_box.max_x &&
+      box->min_y >= dc->near_box.min_y && box->max_y <= dc->near_box.max_y)
+    {
+      for (guint i = 0; i < dc->near_lines->len; i++)
+        if (line_touches_box (&g_array_index (dc->near_lines, double, 4 * i), box))
+          return TRUE;
+      return FALSE;
+    }
+
   for (guint i = 0; i < floor->members->len; i++)
     {
       const TrbMember *m = g_ptr_array_index (floor->members, i);
-      double ax, ay, bx, by;
+      double line[4];
 
-      trb_plan_view_to_device (dc->view, m->start.x, m->start.y, &ax, &ay);
-      trb_plan_view_to_device (dc->view, m->end.x, m->end.y, &bx, &by);
-      if (MAX (ax, bx) < box->min_x || MIN (ax, bx) > box->max_x ||
-          MAX (ay, by) < box->min_y || MIN (ay, by) > box->max_y)
-        continue;
-      if (segment_touches_rect (ax, ay, bx, by, box))
+      trb_plan_view_to_device (dc->view, m->start.x, m->start.y, &line[0], &line[1]);
+      trb_plan_view_to_device (dc->view, m->end.x, m->end.y, &line[2], &line[3]);
+      if (line_touches_box (line, box))
         return TRUE;
     }
   return FALSE;
@@ -960,7 +1014,9 @@ draw_area_loads (DrawContext *dc)
       /* Loads of one colour over the same outline one after the other (an office's live load
        * and its partition allowance) get one fill of their opacities together, 1 - 0.9^n:
        * painting over with one colour gives the same whatever the order, so their shades and
-       * outlines come out as before, with a pass over the shaded pixels fewer each. */
+       * outlines come out as before (within a level in 255 on the outline's partly covered
+       * pixels), with a pass over the shaded pixels fewer each. Their outlines stay one stroke
+       * each: at 0.6 opacity, two strokes' edge pixels differ visibly from one of both. */
       for (; next < floor->area_loads->len; next++, n++)
         {
           const TrbAreaLoad *b = g_ptr_array_index (floor->area_loads, next);
@@ -1066,9 +1122,9 @@ draw_openings (DrawContext *dc)
       if (!points_visible (dc, o->points))
         continue;
       path_points (dc, o->points, TRUE);
-      trb_render_set_color (cr, &dc->paper);
+      set_line_color (dc, &dc->paper);
       cairo_fill_preserve (cr);
-      trb_render_set_color (cr, &dc->ink);
+      set_line_color (dc, &dc->ink);
       cairo_set_line_width (cr, 0.5 * dc->lw);
       cairo_stroke (cr);
 
@@ -1117,7 +1173,7 @@ draw_grids (DrawContext *dc)
       ux = (bx - ax) / len;
       uy = (by - ay) / len;
 
-      trb_render_set_color (cr, &grey);
+      set_line_color (dc, &grey);
       cairo_set_line_width (cr, 0.35 * dc->lw);
       cairo_set_dash (cr, dash, 4, 0);
       cairo_move_to (cr, ax, ay);
@@ -1133,11 +1189,12 @@ draw_grids (DrawContext *dc)
 
           cairo_new_sub_path (cr);
           cairo_arc (cr, cx, cy, r, 0, 2 * G_PI);
-          trb_render_set_color (cr, &dc->paper);
+          set_line_color (dc, &dc->paper);
           cairo_fill_preserve (cr);
-          trb_render_set_color (cr, &dc->ink);
+          set_line_color (dc, &dc->ink);
           cairo_set_line_width (cr, 0.5 * dc->lw);
           cairo_stroke (cr);
+          trb_render_set_color (cr, &dc->ink);
           trb_render_text_cached (dc->texts, cr, dc->style, g->name, dc->fs * 1.05, TRUE, cx, cy, 0.5, 0.5, NULL);
         }
     }
@@ -1227,10 +1284,10 @@ draw_walls (DrawContext *dc)
           cairo_line_to (cr, bx - nx, by - ny);
           cairo_line_to (cr, ax - nx, ay - ny);
           cairo_close_path (cr);
-          trb_render_set_color (cr, &dc->paper);
+          set_line_color (dc, &dc->paper);
           cairo_fill_preserve (cr);
           cairo_clip_preserve (cr);
-          trb_render_set_color (cr, &dc->ink);
+          set_line_color (dc, &dc->ink);
           cairo_set_line_width (cr, 0.6 * dc->lw);
           cairo_stroke (cr);
 
@@ -1406,16 +1463,6 @@ member_path (DrawContext     *dc,
   trb_plan_view_to_device (dc->view, m->end.x, m->end.y, &bx, &by);
   cairo_move_to (dc->cr, ax, ay);
   cairo_line_to (dc->cr, bx, by);
-}
-
-static gboolean
-member_visible (const DrawContext *dc,
-                const TrbMember   *m)
-{
-  return MAX (m->start.x, m->end.x) >= dc->visible.min_x &&
-         MIN (m->start.x, m->end.x) <= dc->visible.max_x &&
-         MAX (m->start.y, m->end.y) >= dc->visible.min_y &&
-         MIN (m->start.y, m->end.y) <= dc->visible.max_y;
 }
 
 /* The status text the CLI's table uses, so the plan and the table read alike. */
@@ -1877,9 +1924,11 @@ draw_columns (DrawContext *dc)
           cairo_rectangle (cr, x - h - 4, y - h - 4, 2 * h + 8, 2 * h + 8);
           cairo_fill (cr);
         }
-      trb_render_set_color (cr, &dc->ink);
+      set_line_color (dc, &dc->ink);
       cairo_rectangle (cr, x - h, y - h, 2 * h, 2 * h);
       cairo_fill (cr);
+      /* text in a plain colour: glyphs are drawn best from one */
+      trb_render_set_color (cr, &dc->ink);
 
       if (dc->options->layers & TRB_PLAN_LAYER_LABELS)
         trb_render_text_cached (dc->texts, cr, dc->style, c->id, dc->fs * 0.95, TRUE, x - h - 1.5, y - h - 1.0,
@@ -2132,6 +2181,7 @@ trb_plan_draw (cairo_t                  *cr,
   dc.visible.max_x += pad;
   dc.visible.max_y += pad;
 
+  dc.near_lines = NULL;
   dc.n_swatches = 0;
   switch (cairo_surface_get_type (cairo_get_target (cr)))
     {
@@ -2184,4 +2234,5 @@ trb_plan_draw (cairo_t                  *cr,
   cairo_restore (cr);
   for (guint i = 0; i < dc.n_swatches; i++)
     cairo_pattern_destroy (dc.swatches[i]);
+  g_clear_pointer (&dc.near_lines, g_array_unref);
 }

@@ -6,6 +6,7 @@
 #include "trb-render-style.h"
 
 #include <math.h>
+#include <string.h>
 
 /* The GNOME palette (GNOME Human Interface Guidelines, "Palette"): the named colours every
  * GNOME application shares, as 0xRRGGBB. */
@@ -351,15 +352,51 @@ typedef struct
   double       y;
 } CachedText;
 
+typedef struct
+{
+  char    *family;
+  double   size;
+  gboolean bold;
+  char    *text;
+} TextKey;
+
 struct _TrbRenderTextCache
 {
-  GHashTable          *texts;       /* key (family, size, weight, text) -> CachedText */
+  GHashTable          *texts;       /* TextKey -> CachedText */
   PangoContext        *context;     /* NULL until the first use */
   cairo_surface_type_t surface_type;
   double               scale_x;     /* the font scale factors of the transformation */
   double               scale_y;
-  GString             *key;         /* reused for lookups */
 };
+
+static guint
+text_key_hash (gconstpointer p)
+{
+  const TextKey *k = p;
+  guint64 bits;
+
+  memcpy (&bits, &k->size, sizeof bits);
+  return g_str_hash (k->text) ^ g_str_hash (k->family) * 31 ^ (guint) (bits ^ bits >> 32) * 7 ^
+         (guint) k->bold;
+}
+
+static gboolean
+text_key_equal (gconstpointer a,
+                gconstpointer b)
+{
+  const TextKey *x = a, *y = b;
+
+  return x->size == y->size && x->bold == y->bold && strcmp (x->text, y->text) == 0 &&
+         strcmp (x->family, y->family) == 0;
+}
+
+static void
+text_key_free (TextKey *k)
+{
+  g_free (k->family);
+  g_free (k->text);
+  g_free (k);
+}
 
 static void
 cached_text_free (CachedText *t)
@@ -378,9 +415,9 @@ trb_render_text_cache_new (void)
 {
   TrbRenderTextCache *cache = g_new0 (TrbRenderTextCache, 1);
 
-  cache->texts = g_hash_table_new_full (g_str_hash, g_str_equal, g_free,
+  cache->texts = g_hash_table_new_full (text_key_hash, text_key_equal,
+                                        (GDestroyNotify) text_key_free,
                                         (GDestroyNotify) cached_text_free);
-  cache->key = g_string_new (NULL);
   return cache;
 }
 
@@ -391,7 +428,6 @@ trb_render_text_cache_free (TrbRenderTextCache *cache)
     return;
   g_clear_pointer (&cache->texts, g_hash_table_unref);
   g_clear_object (&cache->context);
-  g_string_free (cache->key, TRUE);
   g_free (cache);
 }
 
@@ -454,13 +490,14 @@ text_cache_lookup (TrbRenderTextCache   *cache,
                    gboolean              bold)
 {
   const char *family = style->font_family != NULL ? style->font_family : "Sans";
+  TextKey key = { (char *) family, size, bold != FALSE, (char *) text };
+  TextKey *stored;
   CachedText *t;
   PangoFontDescription *desc;
   PangoRectangle logical;
 
   text_cache_prepare (cache, cr);
-  g_string_printf (cache->key, "%s\n%a\n%d\n%s", family, size, bold ? 1 : 0, text);
-  t = g_hash_table_lookup (cache->texts, cache->key->str);
+  t = g_hash_table_lookup (cache->texts, &key);
   if (t != NULL)
     return t;
 
@@ -480,7 +517,12 @@ text_cache_lookup (TrbRenderTextCache   *cache,
   t->height = (double) logical.height / PANGO_SCALE;
   t->x = (double) logical.x / PANGO_SCALE;
   t->y = (double) logical.y / PANGO_SCALE;
-  g_hash_table_insert (cache->texts, g_strdup (cache->key->str), t);
+  stored = g_new (TextKey, 1);
+  stored->family = g_strdup (family);
+  stored->size = size;
+  stored->bold = bold != FALSE;
+  stored->text = g_strdup (text);
+  g_hash_table_insert (cache->texts, stored, t);
   return t;
 }
 
