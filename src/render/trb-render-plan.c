@@ -768,6 +768,31 @@ set_line_color (DrawContext   *dc,
   cairo_set_source (dc->cr, dc->swatches[i]);
 }
 
+/* Text through the scene's cache of laid-out text. */
+static double
+draw_text (DrawContext *dc,
+           const char  *text,
+           double       size,
+           gboolean     bold,
+           double       x,
+           double       y,
+           double       ax,
+           double       ay,
+           double      *height)
+{
+  return trb_render_text_cached (dc->texts, dc->cr, dc->style, text, size, bold, x, y, ax, ay,
+                                 height);
+}
+
+static double
+text_width (DrawContext *dc,
+            const char  *text,
+            double       size,
+            gboolean     bold)
+{
+  return trb_render_text_width_cached (dc->texts, dc->cr, dc->style, text, size, bold);
+}
+
 static gboolean
 is_selected (const DrawContext *dc,
              gconstpointer      object)
@@ -937,7 +962,7 @@ label_clear_of_members (DrawContext  *dc,
                         double       *x,
                         double       *y)
 {
-  double w = trb_render_text_width_cached (dc->texts, dc->cr, dc->style, text, size, FALSE);
+  double w = text_width (dc, text, size, FALSE);
   double h = size * 1.3;
   double band = 1.6 * dc->fs;
   TrbPlanBounds mine = { *x - w / 2, *y - h / 2, *x + w / 2, *y + h / 2 };
@@ -1093,7 +1118,7 @@ draw_area_loads (DrawContext *dc)
         c.b *= 0.6;
         {
           /* a paper-coloured ground, so that the label reads over the lines under it */
-          double tw = trb_render_text_width_cached (dc->texts, dc->cr, dc->style, text, dc->fs * 0.95, FALSE);
+          double tw = text_width (dc, text, dc->fs * 0.95, FALSE);
           TrbRgba ground = dc->paper;
 
           ground.a = 0.85;
@@ -1102,7 +1127,7 @@ draw_area_loads (DrawContext *dc)
           cairo_fill (dc->cr);
         }
         trb_render_set_color (dc->cr, &c);
-        trb_render_text_cached (dc->texts, dc->cr, dc->style, text, dc->fs * 0.95, FALSE, dx, dy, 0.5, 0.5, NULL);
+        draw_text (dc, text, dc->fs * 0.95, FALSE, dx, dy, 0.5, 0.5, NULL);
       }
   }
 }
@@ -1195,7 +1220,7 @@ draw_grids (DrawContext *dc)
           cairo_set_line_width (cr, 0.5 * dc->lw);
           cairo_stroke (cr);
           trb_render_set_color (cr, &dc->ink);
-          trb_render_text_cached (dc->texts, cr, dc->style, g->name, dc->fs * 1.05, TRUE, cx, cy, 0.5, 0.5, NULL);
+          draw_text (dc, g->name, dc->fs * 1.05, TRUE, cx, cy, 0.5, 0.5, NULL);
         }
     }
 }
@@ -1348,8 +1373,7 @@ draw_walls (DrawContext *dc)
                                                   w->material != NULL ? " " : "",
                                                   w->material != NULL ? w->material : "");
 
-            trb_render_text_cached (dc->texts, cr, dc->style, t, dc->fs * 0.9, FALSE, 0, h + 1.5 * dc->lw,
-                             0.5, 0, NULL);
+            draw_text (dc, t, dc->fs * 0.9, FALSE, 0, h + 1.5 * dc->lw, 0.5, 0, NULL);
           }
           cairo_restore (cr);
         }
@@ -1511,7 +1535,7 @@ draw_flag (DrawContext *dc,
   cairo_set_source_rgb (cr, 0, 0, 0);
   if (dc->style->dark && !dc->style->print)
     trb_render_set_color (cr, &dc->ink);
-  trb_render_text_cached (dc->texts, cr, dc->style, "!", s * 1.1, TRUE, x, y + s * 0.05, 0.5, 0.5, NULL);
+  draw_text (dc, "!", s * 1.1, TRUE, x, y + s * 0.05, 0.5, 0.5, NULL);
 }
 
 /* One label: a member's, or a joist run's. */
@@ -1761,7 +1785,7 @@ draw_member_labels (DrawContext *dc)
       /* a label needs a few characters' room at least */
       if (len < 4 * fs)
         continue;
-      tw = trb_render_text_width_cached (dc->texts, cr, dc->style, l->top, fs, TRUE);
+      tw = text_width (dc, l->top, fs, TRUE);
       if (tw > len * 0.95)
         {
           /* a smaller size still fits on a short member; below that, leave it out */
@@ -1770,7 +1794,7 @@ draw_member_labels (DrawContext *dc)
             continue;
           tw = len * 0.95;
         }
-      bw = trb_render_text_width_cached (dc->texts, cr, dc->style, l->bottom, fs, TRUE) +
+      bw = text_width (dc, l->bottom, fs, TRUE) +
            (l->status == TRB_RENDER_STATUS_FAIL ? 2.5 * fs : 0);
 
       ang = atan2 (by - ay, bx - ax);
@@ -1792,16 +1816,15 @@ draw_member_labels (DrawContext *dc)
       cairo_translate (cr, (ax + bx) / 2, (ay + by) / 2);
       cairo_rotate (cr, ang);
       trb_render_set_color (cr, &dc->ink);
-      trb_render_text_cached (dc->texts, cr, dc->style, l->top, fs, TRUE, 0, -off, 0.5, 1.0, NULL);
+      draw_text (dc, l->top, fs, TRUE, 0, -off, 0.5, 1.0, NULL);
       trb_render_status_color (dc->style, l->status, &c);
       /* amber text on white is faint: print the ratio in ink, the line carries colour */
       if (dc->style->print && l->status == TRB_RENDER_STATUS_NEAR)
         c = dc->ink;
       trb_render_set_color (cr, &c);
       {
-        double w = trb_render_text_cached (dc->texts, cr, dc->style, l->bottom, fs,
-                                    l->status == TRB_RENDER_STATUS_FAIL, 0, off, 0.5, 0.0,
-                                    NULL);
+        double w = draw_text (dc, l->bottom, fs, l->status == TRB_RENDER_STATUS_FAIL, 0, off,
+                              0.5, 0.0, NULL);
 
         if (l->status == TRB_RENDER_STATUS_FAIL)
           draw_flag (dc, -w / 2 - fs * 1.0, off + fs * 0.6, &c);
@@ -1931,8 +1954,7 @@ draw_columns (DrawContext *dc)
       trb_render_set_color (cr, &dc->ink);
 
       if (dc->options->layers & TRB_PLAN_LAYER_LABELS)
-        trb_render_text_cached (dc->texts, cr, dc->style, c->id, dc->fs * 0.95, TRUE, x - h - 1.5, y - h - 1.0,
-                         1.0, 1.0, NULL);
+        draw_text (dc, c->id, dc->fs * 0.95, TRUE, x - h - 1.5, y - h - 1.0, 1.0, 1.0, NULL);
 
       if (loads && trb_plan_scene_get_column_load (dc->scene, i, load))
         {
@@ -1948,8 +1970,7 @@ draw_columns (DrawContext *dc)
                 continue;
               v = trb_units_format (load[k], TRB_DIM_FORCE, dc->scene->units);
               t = g_strdup_printf ("%s %s", trb_load_case_name (k), v);
-              trb_render_text_cached (dc->texts, cr, dc->style, t, dc->fs * 0.85, FALSE, x + h + 1.5, ty, 0.0,
-                               0.0, &th);
+              draw_text (dc, t, dc->fs * 0.85, FALSE, x + h + 1.5, ty, 0.0, 0.0, &th);
               ty += th;
             }
         }
@@ -2048,8 +2069,8 @@ draw_line_loads (DrawContext *dc)
           cairo_translate (cr, lx, ly);
           cairo_rotate (cr, flip ? lang + G_PI : lang);
           /* on the far side of the load line from the member */
-          trb_render_text_cached (dc->texts, cr, dc->style, t, dc->fs * 0.9, FALSE, 0, flip ? 1.0 : -1.0, 0.5,
-                           flip ? 0.0 : 1.0, NULL);
+          draw_text (dc, t, dc->fs * 0.9, FALSE, 0, flip ? 1.0 : -1.0, 0.5, flip ? 0.0 : 1.0,
+                     NULL);
           cairo_restore (cr);
         }
     }
@@ -2082,8 +2103,8 @@ draw_line_loads (DrawContext *dc)
       v = trb_units_format (p->P, TRB_DIM_FORCE, dc->scene->units);
       t = g_strdup_printf ("%s %s%s%s", trb_load_case_name (p->lcase), v,
                            p->label != NULL ? " " : "", p->label != NULL ? p->label : "");
-      trb_render_text_cached (dc->texts, cr, dc->style, t, dc->fs * 0.9, FALSE, x - 2.4 * alen * u,
-                       y - 2.4 * alen * u - 1, 0.5, 1.0, NULL);
+      draw_text (dc, t, dc->fs * 0.9, FALSE, x - 2.4 * alen * u, y - 2.4 * alen * u - 1, 0.5,
+                 1.0, NULL);
     }
 }
 
