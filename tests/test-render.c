@@ -410,6 +410,299 @@ test_draw_ten_thousand (void)
   fake_results_free (pr);
 }
 
+static TrbStatus
+status_fail_sevenths (guint   i,
+                      double *ratio)
+{
+  *ratio = i % 7 == 3 ? 1.25 : 0.5;
+  return i % 7 == 3 ? TRB_STATUS_FAIL : TRB_STATUS_PASS;
+}
+
+static gboolean
+is_red3 (int r,
+         int g,
+         int b)
+{
+  /* GNOME palette Red 3 #e01b24 (GNOME HIG, Palette) */
+  return r == 0xe0 && g == 0x1b && b == 0x24;
+}
+
+static void
+test_draw_failures (void)
+{
+  g_autoptr(TrbProject) p = trb_project_new ();
+  TrbFloor *f = trb_floor_new ("Runs");
+  TrbProjectResult *pr;
+  g_autoptr(TrbPlanScene) scene = NULL;
+  cairo_surface_t *s = cairo_image_surface_create (CAIRO_FORMAT_RGB24, 1000, 900);
+  cairo_t *cr = cairo_create (s);
+  TrbPlanDrawOptions options;
+  /* 50 device units a metre, the plan's y = 0 on the middle of a pixel row */
+  TrbPlanView view = { 50, 40, 850.5 };
+  double fs, flag_w;
+  guint n_failing = 0;
+
+  /* three bays of 40 joists 6 m long at 0.4 m, every seventh failing: the plan's redraw on an
+   * image, where lines go through the fast colour sources and text through the scene's
+   * cache, must still give each failure its double stroke and its flag */
+  trb_project_add_floor (p, f);
+  for (int bay = 0; bay < 3; bay++)
+    for (int j = 0; j < 40; j++)
+      {
+        g_autofree char *id = g_strdup_printf ("J%d", bay * 40 + j + 1);
+
+        add_member (p, f, id, bay * 6.0, j * 0.4, bay * 6.0 + 6.0, j * 0.4,
+                    TRB_FRAME_ROLE_JOIST);
+      }
+  pr = fake_results (p, status_fail_sevenths);
+  scene = trb_plan_scene_new (p, f, pr);
+  trb_plan_draw_options_init (&options, 1000, 900);
+  options.style.line_width = 4;
+  fs = options.style.font_size;
+
+  /* twice: the second draw lays out nothing and takes its text from the scene */
+  for (int k = 0; k < 2; k++)
+    {
+      cairo_set_source_rgb (cr, 1, 1, 1);
+      cairo_paint (cr);
+      trb_plan_draw (cr, scene, &view, &options);
+    }
+  cairo_surface_flush (s);
+
+  /* the flag sits left of the ratio "1.250 FAILS" (bold), one font size from its end */
+  flag_w = trb_render_text_width (cr, &options.style, "1.250 FAILS", fs, TRUE);
+  for (guint i = 0; i < f->members->len; i++)
+    {
+      const TrbMember *m = g_ptr_array_index (f->members, i);
+      double x0, y, x1, mx, off, fx, fy;
+      int r, g, b;
+
+      if (i % 7 != 3)
+        continue;
+      n_failing++;
+      trb_plan_view_to_device (&view, m->start.x, m->start.y, &x0, &y);
+      trb_plan_view_to_device (&view, m->end.x, m->end.y, &x1, NULL);
+
+      /* the double stroke, a metre from the start, clear of the labels: a joist's line is
+       * 0.6 x 4 = 2.4 wide, its outer stroke 3 x 2.4 = 7.2, so the row through the axis is
+       * the paper-white core and the rows 2 above and below are Red 3 */
+      pixel (s, (int) (x0 + 50), (int) y, &r, &g, &b);
+      g_assert_cmpint (r, ==, 0xff);
+      g_assert_cmpint (g, ==, 0xff);
+      g_assert_cmpint (b, ==, 0xff);
+      pixel (s, (int) (x0 + 50), (int) y - 2, &r, &g, &b);
+      g_assert_true (is_red3 (r, g, b));
+      pixel (s, (int) (x0 + 50), (int) y + 2, &r, &g, &b);
+      g_assert_true (is_red3 (r, g, b));
+
+      /* the flag: the ratio hangs off = 2.4 x 1.5 + 1.2 = 4.8 below the axis, centred; the
+       * triangle's centre is fs left of the ratio and 0.6 fs down, its base 0.65 x 0.75 fs
+       * below that, outlined 0.6 x 4 = 2.4 wide in Red 3: the base line at y + 4.8 + 7.2 +
+       * 5.85 = y + 17.85, with y on a row's middle, covers the row it falls in whole */
+      mx = (x0 + x1) / 2;
+      off = 4.8;
+      fx = mx - flag_w / 2 - fs;
+      fy = y + off + 0.6 * fs;
+      pixel (s, (int) (fx + 4), (int) (fy + 0.65 * 0.75 * fs), &r, &g, &b);
+      g_assert_true (is_red3 (r, g, b));
+      /* and paper inside it, between the outline and the "!": 3 below the centre the inside
+       * reaches 0.95 x 9 x 12 / 14.85 - 2.4 / 2 / sin 60 = 5.5 either side */
+      pixel (s, (int) (fx - 3.5), (int) (fy + 3), &r, &g, &b);
+      g_assert_cmpint (r, >=, 0xf0);
+      g_assert_cmpint (g, >=, 0xf0);
+      g_assert_cmpint (b, >=, 0xf0);
+    }
+  /* 120 joists, those numbered 3, 10, 17, ... from 0: 17 of them */
+  g_assert_cmpuint (n_failing, ==, 17);
+
+  cairo_destroy (cr);
+  cairo_surface_destroy (s);
+  fake_results_free (pr);
+}
+
+static void
+test_draw_wall_hatch (void)
+{
+  g_autoptr(TrbProject) p = trb_project_new ();
+  TrbFloor *f = trb_floor_new ("Wall");
+  TrbWall *w = trb_wall_new ("W1", NULL);
+  g_autoptr(TrbPlanScene) scene = NULL;
+  cairo_surface_t *s = cairo_image_surface_create (CAIRO_FORMAT_RGB24, 800, 200);
+  cairo_t *cr = cairo_create (s);
+  TrbPlanDrawOptions options;
+  TrbPlanView view = { 50, 400, 100.5 };
+  TrbRgba ink;
+  const int from[] = { 0, 350, 700 };
+
+  /* a wall 200 m long, of which 16 m show: the hatch is drawn only where it shows, and must
+   * still fill the band from one edge of the drawing to the other */
+  trb_project_add_floor (p, f);
+  trb_points_append (w->points, -100, 0);
+  trb_points_append (w->points, 100, 0);
+  g_ptr_array_add (f->walls, w);
+  scene = trb_plan_scene_new (p, f, NULL);
+  trb_plan_draw_options_init (&options, 800, 200);
+  options.layers = 0;
+  trb_render_ink_color (&options.style, &ink);
+  cairo_set_source_rgb (cr, 1, 1, 1);
+  cairo_paint (cr);
+  trb_plan_draw (cr, scene, &view, &options);
+  cairo_surface_flush (s);
+
+  /* At 50 units a metre the band is 2 x 0.10 x 50 = 10 wide (a 200 mm wall), from 95.5 to
+   * 105.5; its 45-degree hatch lines are 0.3 x 2 = 0.6 wide at 0.9 x 5 = 4.5 apart along x,
+   * 4.5 / sqrt 2 = 3.18 apart square to them, so they cover 0.6 / 3.18 = 0.189 of the band.
+   * The rows 97 to 103 are clear of the outline: the ink's share there, read from green
+   * (paper 255, ink ink.g), is that within 15 %, at the left, middle and right. */
+  for (guint k = 0; k < G_N_ELEMENTS (from); k++)
+    {
+      double cover = 0;
+      int n = 0;
+
+      for (int y = 97; y <= 103; y++)
+        for (int x = from[k]; x < from[k] + 100; x++)
+          {
+            int r, g, b;
+
+            pixel (s, x, y, &r, &g, &b);
+            cover += (255 - g) / (255 - 255 * ink.g);
+            n++;
+          }
+      g_assert_cmpfloat_with_epsilon (cover / n, 0.189, 0.189 * 0.15);
+    }
+
+  cairo_destroy (cr);
+  cairo_surface_destroy (s);
+}
+
+static void
+test_draw_stacked_loads (void)
+{
+  g_autoptr(TrbProject) p = trb_project_new ();
+  TrbFloor *f = trb_floor_new ("Loads");
+  g_autoptr(TrbPlanScene) scene = NULL;
+  cairo_surface_t *s = cairo_image_surface_create (CAIRO_FORMAT_RGB24, 400, 400);
+  cairo_t *cr = cairo_create (s);
+  TrbPlanDrawOptions options;
+  TrbPlanView view = { 50, 0, 400 };
+  TrbRgba c;
+  int r, g, b;
+
+  /* a live load and its partition allowance over one outline, and a dead load over half of
+   * it: the first two are shaded in one pass, and must still read as two shades of 0.10 */
+  trb_project_add_floor (p, f);
+  for (int k = 0; k < 3; k++)
+    {
+      TrbAreaLoad *a = trb_area_load_new (k < 2 ? TRB_CASE_L : TRB_CASE_D,
+                                          k == 1 ? TRB_AREA_LOAD_PARTITION
+                                          : TRB_AREA_LOAD_ORDINARY, 1000, NULL, NULL);
+      double x1 = k < 2 ? 8 : 4;
+
+      trb_points_append (a->points, 0, 0);
+      trb_points_append (a->points, x1, 0);
+      trb_points_append (a->points, x1, 8);
+      trb_points_append (a->points, 0, 8);
+      g_ptr_array_add (f->area_loads, a);
+    }
+  scene = trb_plan_scene_new (p, f, NULL);
+  trb_plan_draw_options_init (&options, 400, 400);
+  options.layers = TRB_PLAN_LAYER_AREA_LOADS;
+  cairo_set_source_rgb (cr, 1, 1, 1);
+  cairo_paint (cr);
+  trb_plan_draw (cr, scene, &view, &options);
+  cairo_surface_flush (s);
+
+  /* at (6 m, 6 m), the live load alone: paper painted over twice with the live load's hue at
+   * 0.10 (compositing "over", Porter and Duff 1984) keeps 0.9 x 0.9 = 0.81 of the paper:
+   * 255 - 0.19 x (255 - c) a channel */
+  trb_render_case_color (&options.style, TRB_CASE_L, &c);
+  pixel (s, 300, 100, &r, &g, &b);
+  g_assert_cmpint (ABS (r - (int) round (255 - 0.19 * (255 - 255 * c.r))), <=, 1);
+  g_assert_cmpint (ABS (g - (int) round (255 - 0.19 * (255 - 255 * c.g))), <=, 1);
+  g_assert_cmpint (ABS (b - (int) round (255 - 0.19 * (255 - 255 * c.b))), <=, 1);
+
+  cairo_destroy (cr);
+  cairo_surface_destroy (s);
+}
+
+/* ---- text laid out once ------------------------------------------------------------------ */
+
+static void
+draw_label (cairo_surface_t    *s,
+            TrbRenderTextCache *cache,
+            double              scale,
+            double              angle,
+            double             *width,
+            double             *height)
+{
+  cairo_t *cr = cairo_create (s);
+  TrbRenderStyle style;
+
+  trb_render_style_init (&style);
+  cairo_set_source_rgb (cr, 1, 1, 1);
+  cairo_paint (cr);
+  cairo_scale (cr, scale, scale);
+  cairo_translate (cr, 100, 60);
+  cairo_rotate (cr, angle);
+  cairo_set_source_rgb (cr, 0, 0, 0);
+  if (cache != NULL)
+    *width = trb_render_text_cached (cache, cr, &style, "J12.3.4 W12X26", 12, TRUE, 0, 0, 0.5,
+                                     1.0, height);
+  else
+    *width = trb_render_text (cr, &style, "J12.3.4 W12X26", 12, TRUE, 0, 0, 0.5, 1.0, height);
+  cairo_destroy (cr);
+  cairo_surface_flush (s);
+}
+
+static void
+test_text_cache (void)
+{
+  g_autoptr(TrbRenderTextCache) cache = trb_render_text_cache_new ();
+  const double scales[] = { 1, 1, 2, 1 };
+  const double angles[] = { 0, G_PI / 2, -G_PI / 6, 0.3 };
+
+  /* Text drawn through the cache gives the very pixels and measures trb_render_text() gives,
+   * the second time (from the cache) as the first; plain, turned onto a member, and at twice
+   * the scale (a screen of two pixels to the unit) */
+  for (guint k = 0; k < G_N_ELEMENTS (scales); k++)
+    {
+      int size = (int) (200 * scales[k]);
+      cairo_surface_t *plain = cairo_image_surface_create (CAIRO_FORMAT_RGB24, size, size);
+      cairo_surface_t *cached = cairo_image_surface_create (CAIRO_FORMAT_RGB24, size, size);
+      double w0, h0, w1, h1;
+
+      draw_label (plain, NULL, scales[k], angles[k], &w0, &h0);
+      for (int again = 0; again < 2; again++)
+        {
+          draw_label (cached, cache, scales[k], angles[k], &w1, &h1);
+          g_assert_cmpfloat_with_epsilon (w1, w0, 1e-9);
+          g_assert_cmpfloat_with_epsilon (h1, h0, 1e-9);
+          g_assert_cmpint (memcmp (cairo_image_surface_get_data (plain),
+                                   cairo_image_surface_get_data (cached),
+                                   cairo_image_surface_get_stride (plain) * size), ==, 0);
+        }
+      /* one string in the cache: a change of scale starts it again */
+      g_assert_cmpuint (trb_render_text_cache_size (cache), ==, 1);
+      cairo_surface_destroy (plain);
+      cairo_surface_destroy (cached);
+    }
+
+  /* another size or weight of the same text is another entry */
+  {
+    cairo_surface_t *s = cairo_image_surface_create (CAIRO_FORMAT_RGB24, 10, 10);
+    cairo_t *cr = cairo_create (s);
+    TrbRenderStyle style;
+
+    trb_render_style_init (&style);
+    trb_render_text_width_cached (cache, cr, &style, "J12.3.4 W12X26", 12, FALSE);
+    trb_render_text_width_cached (cache, cr, &style, "J12.3.4 W12X26", 11, TRUE);
+    trb_render_text_width_cached (cache, cr, &style, "J12.3.4 W12X26", 12, TRUE);
+    g_assert_cmpuint (trb_render_text_cache_size (cache), ==, 3);
+    cairo_destroy (cr);
+    cairo_surface_destroy (s);
+  }
+}
+
 /* ---- scales and paper --------------------------------------------------------------------- */
 
 static void
@@ -697,6 +990,10 @@ main (int    argc,
   g_test_add_func ("/trb/render/hit/rect", test_hit_rect);
   g_test_add_func ("/trb/render/draw/status", test_draw_status);
   g_test_add_func ("/trb/render/draw/ten-thousand", test_draw_ten_thousand);
+  g_test_add_func ("/trb/render/draw/failures", test_draw_failures);
+  g_test_add_func ("/trb/render/draw/wall-hatch", test_draw_wall_hatch);
+  g_test_add_func ("/trb/render/draw/stacked-loads", test_draw_stacked_loads);
+  g_test_add_func ("/trb/render/text-cache", test_text_cache);
   g_test_add_func ("/trb/render/scale/parse", test_scale_parse);
   g_test_add_func ("/trb/render/scale/fit", test_scale_fit);
   g_test_add_func ("/trb/render/paper", test_paper);
