@@ -247,10 +247,182 @@ test_self_weight_of_chosen (void)
   g_assert_cmpfloat (r->self_weight, >, 0);
 }
 
+/* ---- sizing's shortcuts against sizing without them -------------------------------------
+ *
+ * Sizing judges most candidates from bounds and analyses the others with only the
+ * combinations that can govern (trb-solve.c, "sizing: bounds and the lean evaluation of
+ * candidates"). Without the shortcuts every candidate is analysed in full. The check values
+ * are sizing's own results without the shortcuts: with them every number must be the same,
+ * bit for bit, every shortlist (of every passing section) too. The members are drawn at
+ * random from a fixed seed (spans, overhangs, fixed ends, loads of every kind and case,
+ * bracing, methods, steel and timber, depth limits, named sections): made-up members, not
+ * designs. */
+
+static void
+digest_check (GByteArray     *d,
+              const TrbCheck *ck)
+{
+  g_byte_array_append (d, (const guint8 *) ck->name, strlen (ck->name) + 1);
+  g_byte_array_append (d, (const guint8 *) ck->clause, strlen (ck->clause) + 1);
+  g_byte_array_append (d, (const guint8 *) &ck->demand, sizeof ck->demand);
+  g_byte_array_append (d, (const guint8 *) &ck->capacity, sizeof ck->capacity);
+  g_byte_array_append (d, (const guint8 *) &ck->ratio, sizeof ck->ratio);
+  g_byte_array_append (d, (const guint8 *) ck->combination, strlen (ck->combination) + 1);
+  g_byte_array_append (d, (const guint8 *) &ck->x, sizeof ck->x);
+  g_byte_array_append (d, (const guint8 *) ck->detail, strlen (ck->detail) + 1);
+}
+
+static GBytes *
+sizing_digest (const TrbProject *project,
+               gboolean          shortcuts)
+{
+  TrbSolveOptions options;
+  g_autoptr(TrbProjectResult) pr = NULL;
+  GByteArray *d = g_byte_array_new ();
+
+  trb_solve_options_init (&options);
+  options.shortlist_max = G_MAXUINT;
+  options.cache = options.bounds = shortcuts;
+  pr = trb_solve_project_full (project, &options);
+  for (guint i = 0; i < pr->members->len; i++)
+    {
+      const TrbMemberResult *r = g_ptr_array_index (pr->members, i);
+      const TrbComboSetResult *sets[] = { &r->strength, &r->live, &r->total };
+
+      g_byte_array_append (d, (const guint8 *) &r->status, sizeof r->status);
+      g_byte_array_append (d, (const guint8 *) r->section, strlen (r->section) + 1);
+      g_byte_array_append (d, (const guint8 *) &r->ratio, sizeof r->ratio);
+      g_byte_array_append (d, (const guint8 *) r->governing, strlen (r->governing) + 1);
+      if (r->message != NULL)
+        g_byte_array_append (d, (const guint8 *) r->message, strlen (r->message) + 1);
+      for (guint k = 0; k < r->checks->len; k++)
+        digest_check (d, &g_array_index (r->checks, TrbCheck, k));
+      for (guint k = 0; k < r->shortlist->len; k++)
+        {
+          const TrbShortlistEntry *e = &g_array_index (r->shortlist, TrbShortlistEntry, k);
+
+          g_byte_array_append (d, (const guint8 *) e->section, strlen (e->section) + 1);
+          g_byte_array_append (d, (const guint8 *) &e->weight, sizeof e->weight);
+          g_byte_array_append (d, (const guint8 *) &e->ratio, sizeof e->ratio);
+          g_byte_array_append (d, (const guint8 *) e->governing, strlen (e->governing) + 1);
+        }
+      for (guint s = 0; s < G_N_ELEMENTS (sets); s++)
+        for (guint k = 0; sets[s]->entries != NULL && k < sets[s]->entries->len; k++)
+          {
+            const TrbComboResult *c = &g_array_index (sets[s]->entries, TrbComboResult, k);
+
+            g_byte_array_append (d, (const guint8 *) &c->ext, sizeof c->ext);
+          }
+    }
+  return g_byte_array_free_to_bytes (d);
+}
+
+static void
+append_random_member (GString *xml,
+                      GRand   *rand,
+                      guint    i)
+{
+  static const char *const cases[] = { "D", "L", "Lr", "S" };
+  int material = g_rand_int_range (rand, 0, 4);   /* steel, steel, sawn, glulam */
+  int n_spans = g_rand_int_range (rand, 1, 4);
+  double left = g_rand_int_range (rand, 0, 3) == 0 ? g_rand_double_range (rand, 2, 6) : 0;
+  double right = g_rand_int_range (rand, 0, 3) == 0 ? g_rand_double_range (rand, 2, 6) : 0;
+  double x = left, length;
+  double spans[4];
+  int n_loads = g_rand_int_range (rand, 2, 8);
+  double scale = material >= 2 ? 0.1 : 1.0;
+
+  for (int s = 0; s < n_spans; s++)
+    spans[s] = g_rand_double_range (rand, material == 2 ? 6 : 10, material == 2 ? 16 : 30);
+  length = left + right;
+  for (int s = 0; s < n_spans; s++)
+    length += spans[s];
+
+  g_string_append_printf (xml, "<beam id=\"M%u\" length=\"%.4f ft\" section=\"%s\"", i, length,
+                          g_rand_int_range (rand, 0, 8) == 0 && material < 2 ? "W14X30"
+                          : "auto");
+  if (material < 2)
+    g_string_append_printf (xml, " material=\"steel\" method=\"%s\"",
+                            g_rand_boolean (rand) ? "asd" : "lrfd");
+  else if (material == 2)
+    g_string_append (xml, " material=\"wood\" species=\"Douglas Fir-Larch\" grade=\"No.2\" "
+                     "max-plies=\"2\"");
+  else
+    g_string_append (xml, " material=\"wood\" species=\"Douglas Fir (glulam)\" "
+                     "grade=\"24F-V4 DF/DF\"");
+  if (g_rand_int_range (rand, 0, 3) == 0)
+    g_string_append (xml, " bracing=\"supports\"");
+  if (material < 2 && g_rand_int_range (rand, 0, 4) == 0)
+    g_string_append (xml, " min-depth=\"12 in\" max-depth=\"18.5 in\"");
+  g_string_append (xml, ">");
+  g_string_append_printf (xml, "<support at=\"%.4f ft\" type=\"%s\"/>", x,
+                          left == 0 && g_rand_int_range (rand, 0, 5) == 0 ? "fixed" : "pin");
+  for (int s = 0; s < n_spans; s++)
+    {
+      x += spans[s];
+      g_string_append_printf (xml, "<support at=\"%.4f ft\" type=\"roller\"/>", x);
+    }
+  if (g_rand_int_range (rand, 0, 3) == 0)
+    g_string_append_printf (xml, "<brace at=\"%.4f ft\"/>", g_rand_double_range (rand, 0, length));
+  for (int k = 0; k < n_loads; k++)
+    {
+      const char *c = cases[k < 2 ? k : g_rand_int_range (rand, 0, 4)];
+      double a = g_rand_double_range (rand, 0, length);
+      double b = g_rand_double_range (rand, a, length);
+
+      switch (g_rand_int_range (rand, 0, 5))
+        {
+        case 0:
+          g_string_append_printf (xml, "<load case=\"%s\" type=\"point\" at=\"%.4f ft\" "
+                                  "p=\"%.3f kip\"/>", c, a,
+                                  scale * g_rand_double_range (rand, 1, 10));
+          break;
+        case 1:
+          g_string_append_printf (xml, "<load case=\"%s\" type=\"moment\" at=\"%.4f ft\" "
+                                  "m=\"%.3f kip*ft\"/>", c, a,
+                                  scale * g_rand_double_range (rand, -10, 10));
+          break;
+        case 2:
+          g_string_append_printf (xml, "<load case=\"%s\" type=\"linear\" from=\"%.4f ft\" "
+                                  "to=\"%.4f ft\" w1=\"%.3f kip/ft\" w2=\"%.3f kip/ft\"/>", c,
+                                  a, b, scale * g_rand_double_range (rand, 0, 1),
+                                  scale * g_rand_double_range (rand, 0, 1));
+          break;
+        default:
+          g_string_append_printf (xml, "<load case=\"%s\" type=\"uniform\" from=\"%.4f ft\" "
+                                  "to=\"%.4f ft\" w=\"%.3f kip/ft\"/>", c,
+                                  k < 2 ? 0.0 : a, k < 2 ? length : b,
+                                  scale * g_rand_double_range (rand, 0.1, 1.2));
+          break;
+        }
+    }
+  g_string_append (xml, "</beam>");
+}
+
+static void
+test_auto_shortcuts (void)
+{
+  g_autoptr(GRand) rand = g_rand_new_with_seed (20261205);
+  g_autoptr(GString) xml = g_string_new ("<trabeate-project format=\"1\">");
+  g_autoptr(TrbProject) project = NULL;
+  g_autoptr(GBytes) with = NULL;
+  g_autoptr(GBytes) without = NULL;
+
+  for (guint i = 0; i < 60; i++)
+    append_random_member (xml, rand, i);
+  g_string_append (xml, "</trabeate-project>");
+  project = load (xml->str);
+  with = sizing_digest (project, TRUE);
+  without = sizing_digest (project, FALSE);
+  g_assert_cmpmem (g_bytes_get_data (with, NULL), g_bytes_get_size (with),
+                   g_bytes_get_data (without, NULL), g_bytes_get_size (without));
+}
+
 int
 main (int argc, char **argv)
 {
   g_test_init (&argc, &argv, NULL);
+  g_test_add_func ("/trb/solve/auto/shortcuts", test_auto_shortcuts);
   g_test_add_func ("/trb/solve/auto/brute-force", test_auto_brute_force);
   g_test_add_func ("/trb/solve/auto/design-example-f1-1a", test_design_example_f11a);
   g_test_add_func ("/trb/solve/auto/project-sections", test_project_sections);

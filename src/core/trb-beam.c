@@ -1024,6 +1024,44 @@ trb_beam_result_combine (TrbBeamResult **results,
   return res;
 }
 
+/**
+ * trb_beam_result_bound:
+ * @result: a result
+ *
+ * A bound on the size of every value of the result at every point of the member (V, M,
+ * theta, the deflection, the reactions) and of the coefficients of its polynomials: on each
+ * segment the sum of the absolute values of the terms of each polynomial at the segment's
+ * length (or 1 m, if longer). Sums of results are bounded by the sums of their bounds.
+ *
+ * Returns: the bound; inf when something is not finite
+ */
+double
+trb_beam_result_bound (const TrbBeamResult *result)
+{
+  double bound = 0, inv_EI;
+
+  g_return_val_if_fail (result != NULL, INFINITY);
+
+  inv_EI = fabs (result->inv_EI);
+  for (guint i = 0; i < result->n_reactions; i++)
+    bound = MAX (bound, MAX (fabs (result->reactions[i].force),
+                             fabs (result->reactions[i].moment)));
+  for (guint k = 0; k + 1 < result->n_breaks; k++)
+    {
+      const TrbSegment *s = &result->segments[k];
+      double h = MAX (result->breaks[k + 1] - result->breaks[k], 1.0);
+      double w = fabs (s->w), dw = fabs (s->dw), V = fabs (s->V), M = fabs (s->M);
+      double loads_V = w * h + dw * h * h;
+      double b_V = V + loads_V;
+      double b_M = M + h * b_V;
+      double b_theta = fabs (s->theta) + h * b_M * inv_EI;
+      double b_v = fabs (s->v) + h * b_theta;
+
+      bound = MAX (bound, MAX (MAX (b_V, b_M), MAX (b_theta, b_v)));
+    }
+  return isfinite (bound) ? bound : INFINITY;
+}
+
 /* ---- many combinations of the same results ---- */
 
 /* The state of one part at one break of the union: what trb_beam_result_combine() takes

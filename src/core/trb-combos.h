@@ -118,6 +118,8 @@ TrbBeamResult   *trb_beam_combiner_combine  (const TrbBeamCombiner *combiner,
                                              guint                  n);
 void             trb_beam_combiner_free     (TrbBeamCombiner       *combiner);
 
+double           trb_beam_result_bound      (const TrbBeamResult   *result);
+
 void             trb_beam_result_extremes_intervals (const TrbBeamResult *result,
                                                      const double        *ab,
                                                      guint                n_intervals,

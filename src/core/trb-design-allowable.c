@@ -273,10 +273,11 @@ trb_design_allowable_check (const TrbDesignInput *input,
       trb_check_set (&check, "Section modulus", "Allowable stress, fb = M/S ≤ Fb",
                      TRB_DIM_SECTION_MODULUS, moment.value / Fb, section->Sx,
                      moment.combination, moment.x);
-      g_snprintf (check.detail, sizeof check.detail, "M = %s, fb = M/S = %s, Fb = %s",
-                  trb_design_format (m, sizeof m, moment.value, si ? "kN-m" : "kip-ft"),
-                  trb_design_format (fb, sizeof fb, moment.value / section->Sx, su),
-                  trb_design_format (fb_allow, sizeof fb_allow, Fb, su));
+      if (!input->no_detail)
+        g_snprintf (check.detail, sizeof check.detail, "M = %s, fb = M/S = %s, Fb = %s",
+                    trb_design_format (m, sizeof m, moment.value, si ? "kN-m" : "kip-ft"),
+                    trb_design_format (fb, sizeof fb, moment.value / section->Sx, su),
+                    trb_design_format (fb_allow, sizeof fb_allow, Fb, su));
       g_array_append_val (checks, check);
     }
 
@@ -306,11 +307,12 @@ trb_design_allowable_check (const TrbDesignInput *input,
 
           trb_check_set (&check, "Web shear", "Allowable stress, fv ≤ Fv", TRB_DIM_STRESS,
                          fv, Fv, shear.combination, shear.x);
-          g_snprintf (check.detail, sizeof check.detail, "V = %s, fv = %s = %s, Fv = %s",
-                      trb_design_format (v, sizeof v, shear.value, si ? "kN" : "kip"),
-                      formula,
-                      trb_design_format (fv_text, sizeof fv_text, fv, su),
-                      trb_design_format (fv_allow, sizeof fv_allow, Fv, su));
+          if (!input->no_detail)
+            g_snprintf (check.detail, sizeof check.detail, "V = %s, fv = %s = %s, Fv = %s",
+                        trb_design_format (v, sizeof v, shear.value, si ? "kN" : "kip"),
+                        formula,
+                        trb_design_format (fv_text, sizeof fv_text, fv, su),
+                        trb_design_format (fv_allow, sizeof fv_allow, Fv, su));
           g_array_append_val (checks, check);
         }
     }

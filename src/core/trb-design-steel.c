@@ -9,6 +9,7 @@
 #include "trb-units.h"
 
 #include <math.h>
+#include <stdlib.h>
 #include <string.h>
 
 /* ASTM minimum yield and tensile stresses; E and G as AISC 360-16 Section B4 / the Manual use
@@ -492,37 +493,65 @@ is_braced_at (const TrbDesignInput *input,
   return FALSE;
 }
 
-/* The ends of the unbraced segments: both member ends, every support and every brace point,
- * sorted, without repeats. */
-static GArray *
-segment_points (const TrbDesignInput *input,
-                double                tol)
+/**
+ * trb_design_steel_free_end:
+ * @input: the member
+ * @a: a segment's start (trb_design_steel_segment_points())
+ * @b: its end
+ *
+ * Returns: whether an end of the segment is neither supported nor braced, so that the flexure
+ *   check takes Cb = 1 on it
+ */
+gboolean
+trb_design_steel_free_end (const TrbDesignInput *input,
+                           double                a,
+                           double                b)
 {
-  GArray *pts = g_array_new (FALSE, FALSE, sizeof (double));
-  GArray *out = g_array_new (FALSE, FALSE, sizeof (double));
-  double zero = 0;
+  const double tol = 1e-9 * MAX (input->length, 1.0);
 
-  g_array_append_val (pts, zero);
-  g_array_append_val (pts, input->length);
+  return !is_braced_at (input, a, tol) || !is_braced_at (input, b, tol);
+}
+
+/**
+ * trb_design_steel_segment_points:
+ * @input: the member
+ * @points: (out caller-allocates): room for 2 + n_supports + n_braces positions
+ *
+ * The ends of the unbraced segments: both member ends, every support and every brace point,
+ * sorted, without repeats (within 1e-9 of the length).
+ *
+ * Returns: how many
+ */
+guint
+trb_design_steel_segment_points (const TrbDesignInput *input,
+                                 double               *points)
+{
+  const double tol = 1e-9 * MAX (input->length, 1.0);
+  g_autofree double *pts = g_new (double, 2 + input->n_supports + input->n_braces);
+  guint n = 0, out = 0;
+
+  pts[n++] = 0;
+  pts[n++] = input->length;
   for (guint i = 0; i < input->n_supports; i++)
-    g_array_append_val (pts, input->supports[i].x);
+    pts[n++] = input->supports[i].x;
   for (guint i = 0; i < input->n_braces; i++)
-    {
-      double x = CLAMP (input->brace_x[i], 0, input->length);
+    pts[n++] = CLAMP (input->brace_x[i], 0, input->length);
+  qsort (pts, n, sizeof (double), compare_double);
 
-      g_array_append_val (pts, x);
-    }
-  g_array_sort (pts, compare_double);
+  for (guint i = 0; i < n; i++)
+    if (out == 0 || pts[i] - points[out - 1] > tol)
+      points[out++] = pts[i];
+  return out;
+}
 
-  for (guint i = 0; i < pts->len; i++)
-    {
-      double x = g_array_index (pts, double, i);
+static GArray *
+segment_points (const TrbDesignInput *input)
+{
+  GArray *out = g_array_sized_new (FALSE, FALSE, sizeof (double),
+                                   2 + input->n_supports + input->n_braces);
 
-      if (out->len == 0 || x - g_array_index (out, double, out->len - 1) > tol)
-        g_array_append_val (out, x);
-    }
-
-  g_array_free (pts, TRUE);
+  g_array_set_size (out, 2 + input->n_supports + input->n_braces);
+  g_array_set_size (out, trb_design_steel_segment_points (input, (double *) out->data));
   return out;
 }
 
@@ -591,7 +620,7 @@ check_flexure (const TrbDesignInput *input,
       return;
     }
 
-  pts = segment_points (input, tol);
+  pts = segment_points (input);
   for (guint i = 0; i + 1 < pts->len; i++)
     {
       double a = g_array_index (pts, double, i);
@@ -611,7 +640,10 @@ check_flexure (const TrbDesignInput *input,
           if (combo->result == NULL)
             continue;
 
-          trb_beam_result_extremes (combo->result, a, b, &ext);
+          if (combo->seg_ext != NULL && combo->n_seg_ext + 1 == pts->len)
+            ext = combo->seg_ext[i];
+          else
+            trb_beam_result_extremes (combo->result, a, b, &ext);
           m_pos = MAX (ext.M_max, 0);
           m_neg = MAX (-ext.M_min, 0);
           m_abs = MAX (m_pos, m_neg);
@@ -661,6 +693,11 @@ check_flexure (const TrbDesignInput *input,
   g_snprintf (clause, sizeof clause, "AISC 360-16 Eq. %s", best.flex.equation);
   trb_check_set (&check, "Flexure", clause, TRB_DIM_MOMENT, best.demand, best.capacity,
                  best.combination, best.x);
+  if (input->no_detail)
+    {
+      g_array_append_val (checks, check);
+      return;
+    }
 
   trb_design_format (lp, sizeof lp, best.flex.Lp, len_unit);
   trb_design_format (lr, sizeof lr, best.flex.Lr, len_unit);
@@ -746,11 +783,12 @@ check_shear (const TrbDesignInput *input,
   g_snprintf (clause, sizeof clause, "AISC 360-16 Eq. G2-1, %s", shear.provision);
   trb_check_set (&check, "Shear", clause, TRB_DIM_FORCE, best_v, capacity, best_combo,
                  best_x);
-  g_snprintf (check.detail, sizeof check.detail,
-              "Vn = %s, Aw = d tw = %s, h/tw = %.1f, Cv1 = %.2f",
-              trb_design_format (vn, sizeof vn, shear.Vn, si ? "kN" : "kip"),
-              trb_design_format (aw, sizeof aw, shear.Aw, si ? "mm2" : "in2"),
-              shear.h_tw, shear.Cv1);
+  if (!input->no_detail)
+    g_snprintf (check.detail, sizeof check.detail,
+                "Vn = %s, Aw = d tw = %s, h/tw = %.1f, Cv1 = %.2f",
+                trb_design_format (vn, sizeof vn, shear.Vn, si ? "kN" : "kip"),
+                trb_design_format (aw, sizeof aw, shear.Aw, si ? "mm2" : "in2"),
+                shear.h_tw, shear.Cv1);
   g_array_append_val (checks, check);
 }
 

@@ -579,6 +579,77 @@ typedef struct
   const char           *stress_unit, *length_unit, *force_unit, *span_unit;
 } WoodContext;
 
+static void
+wood_context_init (WoodContext          *ctx,
+                   const TrbDesignInput *input,
+                   const TrbWoodGrade   *grade,
+                   const TrbWoodOptions *options)
+{
+  const TrbSection *section = input->section;
+  gboolean si = input->units == TRB_UNIT_SYSTEM_SI;
+
+  memset (ctx, 0, sizeof *ctx);
+  ctx->input = input;
+  ctx->grade = grade;
+  ctx->options = options;
+  ctx->cls = wood_class (section, grade);
+  ctx->stress_unit = si ? "MPa" : "psi";
+  ctx->length_unit = si ? "mm" : "in";
+  ctx->force_unit = si ? "kN" : "lb";
+  ctx->span_unit = si ? "m" : "ft";
+  ctx->b = section->b;
+  ctx->d = section->d;
+  ctx->A = isfinite (section->A) && section->A > 0 ? section->A : ctx->b * ctx->d;
+  ctx->S = isfinite (section->Sx) && section->Sx > 0 ? section->Sx : ctx->b * ctx->d * ctx->d / 6;
+  ctx->Emin_adj = trb_design_wood_adjusted_e (section, grade, options, TRB_WOOD_EMIN);
+  ctx->CF = trb_design_wood_cf (section, grade, TRB_WOOD_FB);
+  ctx->Cr = trb_design_wood_cr (section, options);
+  ctx->CM_b = trb_design_wood_cm (section, grade, TRB_WOOD_FB, options->wet_service);
+  ctx->CM_v = trb_design_wood_cm (section, grade, TRB_WOOD_FV, options->wet_service);
+  ctx->CM_cp = trb_design_wood_cm (section, grade, TRB_WOOD_FC_PERP, options->wet_service);
+  ctx->Ci_b = trb_design_wood_ci (section, TRB_WOOD_FB, options->incised);
+  ctx->Ci_v = trb_design_wood_ci (section, TRB_WOOD_FV, options->incised);
+  ctx->Ci_cp = trb_design_wood_ci (section, TRB_WOOD_FC_PERP, options->incised);
+}
+
+/* Fb*, C_L and its R_B for one combination (load duration factor CD) on one segment and one
+ * sign of moment: what Fb' is before the volume factor of glulam. */
+static double
+flexure_fb_star (const WoodContext *ctx,
+                 double             CD,
+                 double             seg_length,
+                 gboolean           negative,
+                 double            *Fb_ref_out,
+                 double            *CL_out,
+                 double            *RB_out)
+{
+  const TrbWoodGrade *grade = ctx->grade;
+  gboolean glulam = ctx->cls == WOOD_GLULAM;
+  double Fb_ref, Fb_star, CL = 1.0, RB = 0;
+  gboolean braced;
+
+  Fb_ref = grade->Fb;
+  /* Glulam: a negative moment stresses the compression-zone laminations in tension (Fbx-). */
+  if (negative && glulam && isfinite (grade->Fb_neg) && grade->Fb_neg > 0)
+    Fb_ref = grade->Fb_neg;
+
+  Fb_star = Fb_ref * CD * ctx->CM_b * WOOD_CT * ctx->CF * ctx->Ci_b * ctx->Cr;
+
+  /* Sheathing holds the top edge, in compression under positive moment; the bottom edge, in
+   * compression under negative moment, is held only at the supports and brace points. */
+  braced = !negative && ctx->input->bracing == TRB_BRACING_CONTINUOUS;
+  if (!braced)
+    {
+      double le = trb_design_wood_effective_length (seg_length, ctx->d);
+
+      CL = trb_design_wood_cl (Fb_star, ctx->Emin_adj, le, ctx->b, ctx->d, &RB, NULL);
+    }
+  *Fb_ref_out = Fb_ref;
+  *CL_out = CL;
+  *RB_out = RB;
+  return Fb_star;
+}
+
 static double
 moment_at (const TrbBeamResult *result,
            double               x)
@@ -724,6 +795,49 @@ distinct_positions (GArray *xs)
   return out;
 }
 
+/* The spans (between the member ends and the supports) and the segments for stability (the
+ * spans cut again at the brace points). */
+static void
+wood_positions (const TrbDesignInput  *input,
+                GArray               **spans,
+                GArray               **segments)
+{
+  g_autoptr(GArray) xs = g_array_new (FALSE, FALSE, sizeof (double));
+  double zero = 0;
+
+  g_array_append_val (xs, zero);
+  g_array_append_val (xs, input->length);
+  for (guint i = 0; i < input->n_supports; i++)
+    g_array_append_val (xs, input->supports[i].x);
+  *spans = distinct_positions (xs);
+  for (guint i = 0; i < input->n_braces; i++)
+    if (input->brace_x[i] > 0 && input->brace_x[i] < input->length)
+      g_array_append_val (xs, input->brace_x[i]);
+  *segments = distinct_positions (xs);
+}
+
+/**
+ * trb_design_wood_segment_points:
+ * @input: the member
+ * @points: (out caller-allocates): room for 2 + n_supports + n_braces positions
+ *
+ * The ends of the segments the timber flexure check takes: the member's ends, its supports
+ * and its brace points inside it, sorted, without repeats (within 1e-9 m).
+ *
+ * Returns: how many
+ */
+guint
+trb_design_wood_segment_points (const TrbDesignInput *input,
+                                double               *points)
+{
+  g_autoptr(GArray) spans = NULL;
+  g_autoptr(GArray) segments = NULL;
+
+  wood_positions (input, &spans, &segments);
+  memcpy (points, segments->data, segments->len * sizeof (double));
+  return segments->len;
+}
+
 /* One sign of moment in one segment between bracing points. */
 static void
 check_flexure_region (const WoodContext    *ctx,
@@ -738,25 +852,9 @@ check_flexure_region (const WoodContext    *ctx,
   const TrbWoodGrade *grade = ctx->grade;
   gboolean negative = M < 0;
   gboolean glulam = ctx->cls == WOOD_GLULAM;
-  double Fb_ref, Fb_star, CL = 1.0, CV = 1.0, RB = 0, Fb_adj;
-  gboolean braced;
+  double Fb_ref, Fb_star, CL, CV = 1.0, RB, Fb_adj;
 
-  Fb_ref = grade->Fb;
-  /* Glulam: a negative moment stresses the compression-zone laminations in tension (Fbx-). */
-  if (negative && glulam && isfinite (grade->Fb_neg) && grade->Fb_neg > 0)
-    Fb_ref = grade->Fb_neg;
-
-  Fb_star = Fb_ref * CD * ctx->CM_b * WOOD_CT * ctx->CF * ctx->Ci_b * ctx->Cr;
-
-  /* Sheathing holds the top edge, in compression under positive moment; the bottom edge, in
-   * compression under negative moment, is held only at the supports and brace points. */
-  braced = !negative && ctx->input->bracing == TRB_BRACING_CONTINUOUS;
-  if (!braced)
-    {
-      double le = trb_design_wood_effective_length (seg_b - seg_a, ctx->d);
-
-      CL = trb_design_wood_cl (Fb_star, ctx->Emin_adj, le, ctx->b, ctx->d, &RB, NULL);
-    }
+  Fb_star = flexure_fb_star (ctx, CD, seg_b - seg_a, negative, &Fb_ref, &CL, &RB);
 
   if (glulam)
     {
@@ -797,6 +895,8 @@ write_flexure (const WoodContext *ctx,
 
   trb_check_set (out, "Flexure", c->clause, TRB_DIM_STRESS, c->demand, c->capacity,
                  c->combination, c->x);
+  if (ctx->input->no_detail)
+    return;
   if (c->not_permitted)
     {
       g_snprintf (out->detail, sizeof out->detail, "R_B = %.1f > 50 over l_u = %s: not permitted",
@@ -816,6 +916,53 @@ write_flexure (const WoodContext *ctx,
                 c->CD, ctx->CM_b, ctx->CF, ctx->Ci_b, ctx->Cr, c->CL, fb);
 }
 
+/**
+ * trb_design_wood_fb_range:
+ * @input: the section and the member (its length and bracing)
+ * @grade: the section's species and grade
+ * @options: the service conditions
+ * @CD: the combination's load duration factor
+ * @seg_length: the length of the segment between bracing points, m
+ * @negative: for negative moment
+ * @lo: (out): the least Fb' the flexure check can take there
+ * @hi: (out): the largest
+ *
+ * The adjusted bending design value of one combination on one segment, as the flexure check
+ * of trb_design_wood_check() computes it: for sawn lumber exactly (lo = hi); for glulam the
+ * volume factor depends on where the moment changes sign, between its value over the whole
+ * member and 1. Both 0 where the slenderness is not permitted (R_B above 50).
+ */
+void
+trb_design_wood_fb_range (const TrbDesignInput *input,
+                          const TrbWoodGrade   *grade,
+                          const void           *options,
+                          double                CD,
+                          double                seg_length,
+                          gboolean              negative,
+                          double               *lo,
+                          double               *hi)
+{
+  WoodContext ctx;
+  double Fb_ref, Fb_star, CL, RB;
+
+  wood_context_init (&ctx, input, grade, options);
+  Fb_star = flexure_fb_star (&ctx, CD, seg_length, negative, &Fb_ref, &CL, &RB);
+  if (RB > 50.0)
+    {
+      *lo = *hi = 0;
+      return;
+    }
+  if (ctx.cls == WOOD_GLULAM)
+    {
+      double CV = trb_design_wood_cv (input->section, grade, input->length);
+
+      *lo = Fb_star * MIN (CL, CV) * WOOD_CFU;
+      *hi = Fb_star * CL * WOOD_CFU;
+    }
+  else
+    *lo = *hi = Fb_star * CL * WOOD_CFU;
+}
+
 static void
 check_flexure (const WoodContext    *ctx,
                const TrbDemandCombo *combo,
@@ -831,7 +978,10 @@ check_flexure (const WoodContext    *ctx,
       TrbBeamExtremes ext;
       Candidate check;
 
-      trb_beam_result_extremes (combo->result, a, b, &ext);
+      if (combo->seg_ext != NULL && combo->n_seg_ext + 1 == segments->len)
+        ext = combo->seg_ext[i];
+      else
+        trb_beam_result_extremes (combo->result, a, b, &ext);
       if (ext.M_max > 0)
         {
           check_flexure_region (ctx, combo, CD, a, b, ext.M_max, ext.M_max_x, &check);
@@ -1000,6 +1150,8 @@ write_shear (const WoodContext *ctx,
 
   trb_check_set (out, "Shear", c->clause, TRB_DIM_STRESS, c->demand, c->capacity,
                  c->combination, c->x);
+  if (ctx->input->no_detail)
+    return;
   g_snprintf (out->detail, sizeof out->detail,
               "V = %s%s; C_D %.2f, C_M %.2f, C_t 1.00, C_i %.2f -> Fv' = %s",
               trb_design_format (vtext, sizeof vtext, c->V, ctx->force_unit),
@@ -1051,6 +1203,8 @@ write_bearing (const WoodContext *ctx,
 
   trb_check_set (out, "Bearing", c->clause, TRB_DIM_STRESS, c->demand, c->capacity,
                  c->combination, c->x);
+  if (ctx->input->no_detail)
+    return;
   g_snprintf (out->detail, sizeof out->detail,
               "l_b %s, C_M %.2f, C_t 1.00, C_b %.3f -> Fc_perp' = %s; l_b,req %s",
               trb_design_format (lbt, sizeof lbt, ctx->options->bearing_length, ctx->length_unit),
@@ -1083,14 +1237,11 @@ trb_design_wood_check (const TrbDesignInput *input,
   const TrbSection *section;
   TrbWoodOptions defaults;
   WoodContext ctx = { 0 };
-  g_autoptr(GArray) xs = NULL;
   g_autoptr(GArray) segments = NULL;
   g_autoptr(GArray) spans = NULL;
   Candidate flexure = { 0 }, shear = { 0 }, bearing = { 0 };
   TrbCheck check;
   gboolean have_flexure = FALSE, have_shear = FALSE, have_bearing = FALSE;
-  double zero = 0;
-  gboolean si;
 
   g_return_if_fail (input != NULL && input->section != NULL);
   g_return_if_fail (grade != NULL);
@@ -1107,42 +1258,12 @@ trb_design_wood_check (const TrbDesignInput *input,
   section = input->section;
   g_return_if_fail (section->kind == TRB_SHAPE_SAWN || section->kind == TRB_SHAPE_GLULAM ||
                     section->kind == TRB_SHAPE_CUSTOM);
-  ctx.input = input;
-  ctx.grade = grade;
-  ctx.options = options;
-  ctx.cls = wood_class (section, grade);
-  si = input->units == TRB_UNIT_SYSTEM_SI;
-  ctx.stress_unit = si ? "MPa" : "psi";
-  ctx.length_unit = si ? "mm" : "in";
-  ctx.force_unit = si ? "kN" : "lb";
-  ctx.span_unit = si ? "m" : "ft";
-  ctx.b = section->b;
-  ctx.d = section->d;
-  g_return_if_fail (ctx.b > 0 && ctx.d > 0);
-  ctx.A = isfinite (section->A) && section->A > 0 ? section->A : ctx.b * ctx.d;
-  ctx.S = isfinite (section->Sx) && section->Sx > 0 ? section->Sx : ctx.b * ctx.d * ctx.d / 6;
-  ctx.Emin_adj = trb_design_wood_adjusted_e (section, grade, options, TRB_WOOD_EMIN);
-  ctx.CF = trb_design_wood_cf (section, grade, TRB_WOOD_FB);
-  ctx.Cr = trb_design_wood_cr (section, options);
-  ctx.CM_b = trb_design_wood_cm (section, grade, TRB_WOOD_FB, options->wet_service);
-  ctx.CM_v = trb_design_wood_cm (section, grade, TRB_WOOD_FV, options->wet_service);
-  ctx.CM_cp = trb_design_wood_cm (section, grade, TRB_WOOD_FC_PERP, options->wet_service);
-  ctx.Ci_b = trb_design_wood_ci (section, TRB_WOOD_FB, options->incised);
-  ctx.Ci_v = trb_design_wood_ci (section, TRB_WOOD_FV, options->incised);
-  ctx.Ci_cp = trb_design_wood_ci (section, TRB_WOOD_FC_PERP, options->incised);
+  g_return_if_fail (section->b > 0 && section->d > 0);
+  wood_context_init (&ctx, input, grade, options);
 
   /* Spans: between the member ends and the supports. Segments for stability: the spans cut
    * again at the brace points. */
-  xs = g_array_new (FALSE, FALSE, sizeof (double));
-  g_array_append_val (xs, zero);
-  g_array_append_val (xs, input->length);
-  for (guint i = 0; i < input->n_supports; i++)
-    g_array_append_val (xs, input->supports[i].x);
-  spans = distinct_positions (xs);
-  for (guint i = 0; i < input->n_braces; i++)
-    if (input->brace_x[i] > 0 && input->brace_x[i] < input->length)
-      g_array_append_val (xs, input->brace_x[i]);
-  segments = distinct_positions (xs);
+  wood_positions (input, &spans, &segments);
 
   for (guint i = 0; i < input->n_combos; i++)
     {

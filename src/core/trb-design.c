@@ -269,6 +269,8 @@ trb_design_deflection_check (const TrbDesignInput    *input,
   trb_check_set (check, live ? "Live deflection" : "Total deflection",
                  span->overhang ? "IBC 2021 Table 1604.3, note i" : "IBC 2021 Table 1604.3",
                  TRB_DIM_LENGTH, defl, span->judged / limit, combination, x);
+  if (input->no_detail)
+    return;
   if (check->demand > 0)
     g_snprintf (actual, sizeof actual, "L/%.0f", floor (span->judged / check->demand));
   else

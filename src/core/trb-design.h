@@ -5,6 +5,7 @@
 #include <glib.h>
 
 #include "trb-beam.h"
+#include "trb-catalog.h"
 #include "trb-section.h"
 #include "trb-types.h"
 #include "trb-units.h"
@@ -36,6 +37,11 @@ typedef struct
   const TrbBeamExtremes *ext;            /* its extremes over the whole member when known
                                           * (trb_beam_result_extremes() from 0 to the
                                           * length), not owned; NULL: the checks find them */
+  const TrbBeamExtremes *seg_ext;        /* and over each flexure segment of the method
+                                          * (trb_design_steel_segment_points(),
+                                          * trb_design_wood_segment_points()), n_seg_ext of
+                                          * them; NULL: the checks find them */
+  guint                  n_seg_ext;
 } TrbDemandCombo;
 
 /* The two ways a method may set capacities against loads: allowable strength (ASD, service
@@ -78,6 +84,10 @@ typedef struct
 
   /* the unit system of the detail texts ("Lb = 12.0 ft"); US when zero-initialised */
   TrbUnitSystem        units;
+
+  /* TRUE: the checks' detail texts are left empty (sizing asks only for the ratios of the
+   * sections it does not keep); every number is the same */
+  gboolean             no_detail;
 } TrbDesignInput;
 
 /* The deflection checks every method shares: the live and total limits as span ratios on each
@@ -112,6 +122,28 @@ void        trb_design_deflection_check  (const TrbDesignInput    *input,
 
 double      trb_check_ratio             (double                demand,
                                          double                capacity);
+
+/* Where the methods cut the member for flexure (defined in trb-design-steel.c and
+ * trb-design-wood.c): the ends of the unbraced segments, sorted, without repeats. points needs
+ * room for 2 + n_supports + n_braces. Returns how many. */
+guint       trb_design_steel_segment_points (const TrbDesignInput *input,
+                                             double               *points);
+guint       trb_design_wood_segment_points  (const TrbDesignInput *input,
+                                             double               *points);
+gboolean    trb_design_steel_free_end       (const TrbDesignInput *input,
+                                             double                a,
+                                             double                b);
+
+/* (trb-design-wood.c) options is a TrbWoodOptions of trb-design-wood.h, which includes this
+ * header and so cannot be named here */
+void        trb_design_wood_fb_range        (const TrbDesignInput *input,
+                                             const TrbWoodGrade   *grade,
+                                             const void           *options,
+                                             double                CD,
+                                             double                seg_length,
+                                             gboolean              negative,
+                                             double               *lo,
+                                             double               *hi);
 
 void        trb_check_set               (TrbCheck             *check,
                                          const char           *name,

@@ -388,6 +388,27 @@ region_results_prepare (RegionResults         *rr,
   rr->combiner = trb_beam_combiner_new ((TrbBeamResult **) parts->pdata, parts->len);
 }
 
+/* Whether every entry the parts can make is certainly finite everywhere, as the lean analysis
+ * of sizing must know of the entries it leaves out: an entry is a sum of parts, each at most
+ * once, times factors of at most 1.6 (LRFD 2, 3) or 1.4, so its values are at most 1.6 times
+ * the sum of the parts' bounds (trb_beam_result_bound()); far below the largest double, with
+ * room for rounding and the extremes' searches inside the segments. */
+static gboolean
+parts_bounded (const RegionResults   *rr,
+               const TrbMemberResult *r)
+{
+  double sum = trb_beam_result_bound (rr->zero);
+
+  for (guint c = 0; c < TRB_N_CASES; c++)
+    {
+      if (r->cases[c] != NULL)
+        sum += trb_beam_result_bound (r->cases[c]);
+      for (guint reg = 0; rr->by_region[c] != NULL && reg < r->regions->len; reg++)
+        sum += trb_beam_result_bound (rr->by_region[c][reg]);
+    }
+  return sum < 1e280;
+}
+
 static gboolean
 is_patterned_case (TrbLoadCase c)
 {
@@ -477,34 +498,41 @@ name_with_pattern (char       *dst,
 
 /* Evaluates every combination of set, under every pattern where it carries a patterned case,
  * and takes the envelope. With ab (n_ab intervals: the spans of the deflection checks), the
- * extremes over each interval go to span_ext, n_ab for each entry. Returns whether every
- * entry's result is finite, as beam_result_finite() says. */
+ * extremes over each interval go to span_ext, n_ab for each entry. With keep (sizing's lean
+ * analysis), only the entries it marks, by their place among all, and no envelope. Returns
+ * whether every entry's result is finite, as beam_result_finite() says. */
 static gboolean
 evaluate_set (TrbMemberResult     *r,
               const RegionResults *rr,
               TrbComboSetResult   *out,
               const double        *ab,
               guint                n_ab,
-              GArray              *span_ext)
+              GArray              *span_ext,
+              const gboolean      *keep,
+              gboolean             envelope)
 {
   const GArray *combos = combos_for (out->set, r->has_case);
   gboolean patterns_on = r->patterns->len > 0;
   gboolean finite = TRUE;
   guint index[TRB_N_CASES * TRB_PATTERN_MAX_REGIONS + 1];
   double factors[TRB_N_CASES * TRB_PATTERN_MAX_REGIONS + 1];
-  guint n_entries = 0, first = out->entries->len, e = first;
+  guint n_entries = 0, first = out->entries->len, e = first, all = 0;
 
   /* every entry in place at once: the arrays grow once */
   for (guint i = 0; i < combos->len; i++)
     {
       const TrbCombo *combo = &g_array_index (combos, TrbCombo, i);
       gboolean patterned = FALSE;
+      guint n;
 
       for (guint c = 0; c < TRB_N_CASES; c++)
         if (combo->factors[c] != 0 && is_patterned_case (c) && rr->by_region[c] != NULL)
           patterned = patterns_on;
-      n_entries += patterned ? r->patterns->len : 1;
+      n = patterned ? r->patterns->len : 1;
+      for (guint p = 0; p < n; p++, all++)
+        n_entries += keep == NULL || keep[all];
     }
+  all = 0;
   g_array_set_size (out->entries, e + n_entries);
   if (span_ext != NULL)
     g_array_set_size (span_ext, n_entries * n_ab);
@@ -520,12 +548,16 @@ evaluate_set (TrbMemberResult     *r,
           patterned = patterns_on;
 
       n_patterns = patterned ? r->patterns->len : 1;
-      for (guint p = 0; p < n_patterns; p++, e++)
+      for (guint p = 0; p < n_patterns; p++)
         {
           const TrbPattern *pat = patterned ? &g_array_index (r->patterns, TrbPattern, p) : NULL;
-          TrbComboResult *cr = &g_array_index (out->entries, TrbComboResult, e);
+          TrbComboResult *cr;
           guint n = 0;
           gboolean ok;
+
+          if (keep != NULL && !keep[all++])
+            continue;
+          cr = &g_array_index (out->entries, TrbComboResult, e++);
 
           for (guint c = 0; c < TRB_N_CASES; c++)
             {
@@ -570,7 +602,7 @@ evaluate_set (TrbMemberResult     *r,
           if (span_ext != NULL)
             trb_beam_result_extremes_intervals (cr->result, ab, n_ab, &cr->ext,
                                                 &g_array_index (span_ext, TrbBeamExtremes,
-                                                                (e - first) * n_ab),
+                                                                (e - 1 - first) * n_ab),
                                                 &ok);
           else
             trb_beam_result_extremes_intervals (cr->result, NULL, 0, &cr->ext, NULL, &ok);
@@ -579,7 +611,7 @@ evaluate_set (TrbMemberResult     *r,
     }
 
   /* once every entry is in place, since the envelope points at their names */
-  for (guint i = 0; i < out->entries->len; i++)
+  for (guint i = 0; envelope && i < out->entries->len; i++)
     envelope_add (&out->envelope, &g_array_index (out->entries, TrbComboResult, i));
   return finite;
 }
@@ -623,6 +655,7 @@ typedef struct
   guint             n_loads[TRB_N_CASES];
   double            repetitive_spacing;  /* m; NAN: from the member's "repetitive" flag */
   Memo             *memo;                /* lookups to reuse; may be NULL */
+  const TrbMember  *member;              /* whose braces and design attributes they are */
 } MemberInput;
 
 /* The extremes of the deflection sets' entries over each span the deflection checks judge,
@@ -633,6 +666,10 @@ typedef struct
   guint              n_spans;
   GArray            *live;    /* TrbBeamExtremes: n_spans for each entry of r->live */
   GArray            *total;   /* the same for r->total */
+  /* and the strength entries' extremes over the flexure segments of the member's method */
+  double            *seg;     /* n_seg + 1 points */
+  guint              n_seg;
+  GArray            *strength;
 } SpanExtremes;
 
 static void
@@ -641,6 +678,8 @@ span_extremes_clear (SpanExtremes *sx)
   g_clear_pointer (&sx->spans, g_free);
   g_clear_pointer (&sx->live, g_array_unref);
   g_clear_pointer (&sx->total, g_array_unref);
+  g_clear_pointer (&sx->seg, g_free);
+  g_clear_pointer (&sx->strength, g_array_unref);
 }
 
 /* The analysis with a given stiffness and self-weight (N/m, added to D); with E or I NAN only
@@ -648,6 +687,16 @@ span_extremes_clear (SpanExtremes *sx)
  * there is nothing more to do. The design step runs this for each section it tries, with that
  * section's E, I and weight, on a fresh result. Reads only its arguments; sx (may be NULL)
  * gets the deflection sets' extremes over the spans. */
+/* Sizing's lean analysis of a section: only the entries of each set that keep marks (by
+ * their place among all; NULL: every one), without envelopes; whether the entries left out
+ * and the cases are finite is proved from the size of what they are made of, and unproved
+ * says when it cannot be. */
+typedef struct
+{
+  const gboolean *keep[3];   /* strength, live, total */
+  gboolean        unproved;
+} Lean;
+
 static gboolean
 analyse (const TrbProject  *project,
          const MemberInput *in,
@@ -655,7 +704,8 @@ analyse (const TrbProject  *project,
          double             I,
          double             self_weight,
          TrbMemberResult   *r,
-         SpanExtremes      *sx)
+         SpanExtremes      *sx,
+         Lean              *lean)
 {
   g_autoptr(GError) error = NULL;
   const TrbSupport *beam_supports;
@@ -717,7 +767,9 @@ analyse (const TrbProject  *project,
                       error->message);
           return FALSE;
         }
-      trb_beam_result_extremes (r->cases[c], 0, in->length, &r->case_ext[c]);
+      /* the lean analysis of sizing proves them finite and reads no extreme of them */
+      if (lean == NULL)
+        trb_beam_result_extremes (r->cases[c], 0, in->length, &r->case_ext[c]);
     }
 
   rr.zero = trb_beam_solve (r->beam, NULL, 0, &error);
@@ -777,10 +829,20 @@ analyse (const TrbProject  *project,
     }
 
   region_results_prepare (&rr, r);
+  if (lean != NULL && !parts_bounded (&rr, r))
+    {
+      lean->unproved = TRUE;
+      region_results_clear (&rr, r->regions->len);
+      return FALSE;
+    }
   if (sx != NULL)
     {
+      const TrbMember *m = in->member;
       TrbDesignInput di = { 0 };
       g_autofree double *ab = NULL;
+      g_autofree double *seg_ab = NULL;
+      g_autoptr(GArray) brace_x = g_array_new (FALSE, FALSE, sizeof (double));
+      guint n_pts;
 
       di.length = in->length;
       di.supports = trb_beam_get_supports (r->beam, &di.n_supports);
@@ -792,23 +854,52 @@ analyse (const TrbProject  *project,
           ab[2 * i] = sx->spans[i].a;
           ab[2 * i + 1] = sx->spans[i].b;
         }
+
+      /* the flexure segments the member's method will cut it into */
+      for (guint i = 0; m != NULL && i < m->braces->len; i++)
+        g_array_append_val (brace_x, g_array_index (m->braces, TrbMemberBrace, i).x);
+      di.bracing = m != NULL ? m->bracing : TRB_BRACING_CONTINUOUS;
+      di.brace_x = (const double *) brace_x->data;
+      di.n_braces = brace_x->len;
+      sx->seg = g_new (double, 2 + di.n_supports + di.n_braces);
+      n_pts = m != NULL && m->material == TRB_MATERIAL_WOOD
+              ? trb_design_wood_segment_points (&di, sx->seg)
+              : trb_design_steel_segment_points (&di, sx->seg);
+      sx->n_seg = n_pts > 0 ? n_pts - 1 : 0;
+      seg_ab = g_new (double, 2 * sx->n_seg + 1);
+      for (guint k = 0; k < sx->n_seg; k++)
+        {
+          seg_ab[2 * k] = sx->seg[k];
+          seg_ab[2 * k + 1] = sx->seg[k + 1];
+          if (!(sx->seg[k] < sx->seg[k + 1]))
+            sx->n_seg = 0;   /* not intervals the sweep takes: the checks find their own */
+        }
+
       sx->live = g_array_new (FALSE, FALSE, sizeof (TrbBeamExtremes));
       sx->total = g_array_new (FALSE, FALSE, sizeof (TrbBeamExtremes));
-      sets_finite[0] = evaluate_set (r, &rr, &r->strength, NULL, 0, NULL);
-      sets_finite[1] = evaluate_set (r, &rr, &r->live, ab, sx->n_spans, sx->live);
-      sets_finite[2] = evaluate_set (r, &rr, &r->total, ab, sx->n_spans, sx->total);
+      sx->strength = g_array_new (FALSE, FALSE, sizeof (TrbBeamExtremes));
+      sets_finite[0] = evaluate_set (r, &rr, &r->strength, seg_ab, sx->n_seg, sx->strength,
+                                     lean != NULL ? lean->keep[0] : NULL, lean == NULL);
+      sets_finite[1] = evaluate_set (r, &rr, &r->live, ab, sx->n_spans, sx->live,
+                                     lean != NULL ? lean->keep[1] : NULL, lean == NULL);
+      sets_finite[2] = evaluate_set (r, &rr, &r->total, ab, sx->n_spans, sx->total,
+                                     lean != NULL ? lean->keep[2] : NULL, lean == NULL);
     }
   else
     {
-      sets_finite[0] = evaluate_set (r, &rr, &r->strength, NULL, 0, NULL);
-      sets_finite[1] = evaluate_set (r, &rr, &r->live, NULL, 0, NULL);
-      sets_finite[2] = evaluate_set (r, &rr, &r->total, NULL, 0, NULL);
+      sets_finite[0] = evaluate_set (r, &rr, &r->strength, NULL, 0, NULL, NULL, TRUE);
+      sets_finite[1] = evaluate_set (r, &rr, &r->live, NULL, 0, NULL, NULL, TRUE);
+      sets_finite[2] = evaluate_set (r, &rr, &r->total, NULL, 0, NULL, NULL, TRUE);
     }
   region_results_clear (&rr, r->regions->len);
 
   /* Each length, load and stiffness may be finite and still overflow with the others (a span
-   * of 1e308 ft, an I of 1e-308 in4): such a member is in error, never a result of inf. */
-  if (!analysis_finite (r, sets_finite))
+   * of 1e308 ft, an I of 1e-308 in4): such a member is in error, never a result of inf. The
+   * lean analysis has proved the cases finite. */
+  if (!(lean != NULL ? combo_set_finite (&r->strength, sets_finite[0]) &&
+                       combo_set_finite (&r->live, sets_finite[1]) &&
+                       combo_set_finite (&r->total, sets_finite[2])
+                     : analysis_finite (r, sets_finite)))
     {
       set_status (r, TRB_STATUS_ERROR, "the analysis overflows: the lengths, loads or section "
                   "properties are out of any real range");
@@ -958,6 +1049,7 @@ design_checks (const TrbProject   *project,
                const TrbSection   *section,
                const TrbWoodGrade *wood_grade,
                const SpanExtremes *sx,
+               gboolean            no_detail,
                TrbMemberResult    *r)
 {
   g_autoptr(GArray) demand = NULL;
@@ -981,6 +1073,11 @@ design_checks (const TrbProject   *project,
       memcpy (d.factors, c->combo.factors, sizeof d.factors);
       d.result = c->result;
       d.ext = &c->ext;
+      if (sx->strength != NULL && sx->n_seg > 0)
+        {
+          d.seg_ext = &g_array_index (sx->strength, TrbBeamExtremes, i * sx->n_seg);
+          d.n_seg_ext = sx->n_seg;
+        }
       g_array_append_val (demand, d);
     }
   brace_x = g_array_new (FALSE, TRUE, sizeof (double));
@@ -996,6 +1093,7 @@ design_checks (const TrbProject   *project,
   input.combos = (const TrbDemandCombo *) demand->data;
   input.n_combos = demand->len;
   input.units = s->units;
+  input.no_detail = no_detail;
 
   /* live and total stay NULL in the method checks, so they add no deflection check: those
    * come below, worst over every combination and pattern. */
@@ -1165,8 +1263,8 @@ solve_with_section (const TrbProject  *project,
       E = grade->E;
     }
 
-  if (analyse (project, in, E, section->Ix, self_weight, r, &sx))
-    design_checks (project, m, in, section, wood_grade, &sx, r);
+  if (analyse (project, in, E, section->Ix, self_weight, r, &sx, NULL))
+    design_checks (project, m, in, section, wood_grade, &sx, FALSE, r);
   span_extremes_clear (&sx);
   return r;
 }
@@ -1279,159 +1377,469 @@ sizing_candidates (const TrbProject *project,
   return out;
 }
 
-/* Exact bounds that tell, before the full check, that a sizing candidate fails. They come from
- * a reference candidate analysed in full. Live load deflection does not depend on the section's
- * weight and scales exactly with 1/(E I): the supports are rigid and E I constant along the
- * member, so the reactions and moments do not depend on E I at all. The moment of each
- * combination moves with the self-weight w by f_D w M_unit(x), M_unit the moment of a unit
- * uniform load over the member, so |M| of the candidate is at least that of the reference less
- * f_D |w - w_ref| max |M_unit|; against it the largest flexural capacity the method can give
- * (phi Mp or Mp / Omega, Fb S, Fb' S with C_L = C_V = 1) makes a lower bound of the flexure
- * ratio. A candidate is rejected only when a bound is clearly above 1, so that the rounding
- * of the full check could never make it pass: the result is the same as without bounds. */
+/* ---- sizing: bounds and the lean evaluation of candidates ---------------------------------
+ *
+ * Sizing checks sections lightest first. After one candidate is analysed in full (the
+ * reference), the others are judged from it. The reactions, shears and moments do not depend
+ * on E I (rigid supports, E I constant along the member), and the self-weight w enters case
+ * D as a uniform load, so each combination's V and M move with w by f_D w times those of a
+ * uniform unit load over the member; the deflections do the same after E I scales them:
+ * live load deflection is the reference's times E I_ref / E I exactly. From these, each
+ * combination's share in each check is bounded for each candidate (widened by a millionth
+ * of the values and a billionth of the largest, far beyond the rounding of one analysis or
+ * the other). A candidate whose bounds show a check above 1 certainly fails and is not
+ * analysed (rejected). Any other is analysed with only the combinations whose bounds can reach
+ * the largest share of some check (every combination of a timber strength check, whose shear
+ * and bearing are not bounded), without text: each check then takes the same combination,
+ * value and place as in the full analysis, so its status, ratio and governing check are
+ * those of the full analysis, bit for bit. Whatever is out of the ordinary (an error, a check
+ * not made, values too large to bound) goes to the full analysis. The shortcuts never change
+ * a result: test-solve and test-floor compare them with sizing without them. */
 #define BOUND_MARGIN 1e-6
 
 typedef struct
 {
-  gboolean ready;
-  double   EI;            /* of the reference */
-  double   self_weight;   /* N/m, of the reference */
-  double   live_ratio;    /* its worst live deflection ratio; NAN when none was checked */
-  double   m_unit;        /* max |M| of a unit uniform load over the member, m^2 */
-  GArray  *m_abs;         /* double: max |M| of each strength entry of the reference */
-  GArray  *f_dead;        /* double: the D factor of each */
-  GArray  *factors;       /* double[TRB_N_CASES]: the case factors of each (wood C_D) */
-} Bounds;
+  gboolean           ready;
+  TrbMethod          method;
+  gboolean           steel;        /* W shapes (flexure by segment, shear) */
+  gboolean           wood;         /* sawn lumber or glulam (flexure by segment) */
+  double             EI;           /* of the reference */
+  double             self_weight;  /* N/m, of the reference */
+  /* where the checks cut the member */
+  guint              n_seg;        /* flexure segments (steel or timber points) */
+  double            *seg;          /* n_seg + 1 points */
+  guint              n_spans;      /* the deflection checks' spans */
+  TrbDeflectionSpan *spans;
+  /* a uniform load of 1 N/m over the member (each combination moves by f_D (w - w_ref)
+   * times it): its least and largest V and M over the member and M on each segment, its
+   * largest deflection on each span times E I, its M at the segments' quarter points */
+  double             V_u_min, V_u_max, M_u_min, M_u_max;
+  double            *M_u_seg;      /* least and largest on each segment: 2 n_seg */
+  double            *D_u;          /* n_spans */
+  double            *Mq_u;         /* 3 n_seg */
+  gboolean          *free_end;     /* steel: Cb = 1 on each segment */
+  /* the reference's strength entries: each extreme with the unit load's value where it is
+   * (V on both sides, the unit load's V jumping at the supports) */
+  guint              n_str;
+  double            *factors;      /* TRB_N_CASES each */
+  double            *V;            /* V_max, V_u on its left and right, its side; the same of
+                                    * V_min: 8 each */
+  double            *M;            /* M_max, M_u there, M_min, M_u there: 4 each */
+  double            *M_seg;        /* the same on each segment: 4 n_seg each */
+  double            *Mq;           /* M at the quarter points, left and right: 6 n_seg each */
+  /* its deflection entries: on each span the demand, and the signed deflection and the unit
+   * load's deflection times E I where it is */
+  guint              n_live, n_total;
+  double            *d_live;       /* n_spans each */
+  double            *d_total;      /* demand, signed deflection, unit there: 3 n_spans each */
+  double            *fD_total;
+  /* the largest of each, for margins that do not vanish at zero */
+  double             M_scale, V_scale, D_scale;
+  TrbBeam           *beam;         /* the member's beam (its supports; E = I = 1) */
+  GPtrArray         *mem;          /* what the arrays above point into */
+} Reference;
 
 static void
-bounds_clear (Bounds *b)
+reference_clear (Reference *ref)
 {
-  g_clear_pointer (&b->m_abs, g_array_unref);
-  g_clear_pointer (&b->f_dead, g_array_unref);
-  g_clear_pointer (&b->factors, g_array_unref);
+  g_clear_pointer (&ref->mem, g_ptr_array_unref);
+  g_clear_pointer (&ref->spans, g_free);
+  g_clear_pointer (&ref->beam, trb_beam_free);
+  ref->ready = FALSE;
 }
 
-/* Takes the reference from a fully analysed candidate. */
-static gboolean
-bounds_init (Bounds                *b,
-             const MemberInput     *in,
-             const TrbMemberResult *r)
+static double *
+ref_alloc (Reference *ref,
+           gsize      n)
 {
+  double *p = g_new0 (double, n + 1);
+
+  g_ptr_array_add (ref->mem, p);
+  return p;
+}
+
+/* The design input the checks are given for the member, without section or combinations:
+ * what the flexure segments and the deflection spans are cut from. */
+static void
+member_design_input (const TrbMember   *m,
+                     const MemberInput *in,
+                     const TrbBeam     *beam,
+                     GArray            *brace_x,
+                     TrbDesignInput    *input)
+{
+  memset (input, 0, sizeof *input);
+  for (guint i = 0; i < m->braces->len; i++)
+    g_array_append_val (brace_x, g_array_index (m->braces, TrbMemberBrace, i).x);
+  input->length = in->length;
+  input->supports = trb_beam_get_supports (beam, &input->n_supports);
+  input->bracing = m->bracing;
+  input->brace_x = (const double *) brace_x->data;
+  input->n_braces = brace_x->len;
+}
+
+static double
+abs_max (double a,
+         double b)
+{
+  return MAX (fabs (a), fabs (b));
+}
+
+static double
+value_at (const TrbBeamResult *r,
+          double               x,
+          TrbSide              side,
+          int                  what)  /* 0 V, 1 M, 2 defl */
+{
+  TrbBeamValues v;
+
+  trb_beam_result_eval (r, x, side, &v);
+  return what == 0 ? v.V : what == 1 ? v.M : v.defl;
+}
+
+/* M at the quarter points of each segment, where the steel check takes it for Cb: the left
+ * and right values, 6 a segment */
+static void
+quarter_moments (const TrbBeamResult *result,
+                 const double        *seg,
+                 guint                n_seg,
+                 double              *out)
+{
+  for (guint k = 0; k < n_seg; k++)
+    {
+      double a = seg[k], Lb = seg[k + 1] - seg[k];
+      const double x[3] = { a + 0.25 * Lb, a + 0.50 * Lb, a + 0.75 * Lb };
+
+      for (guint j = 0; j < 3; j++)
+        {
+          out[6 * k + 2 * j] = value_at (result, x[j], TRB_SIDE_LEFT, 1);
+          out[6 * k + 2 * j + 1] = value_at (result, x[j], TRB_SIDE_RIGHT, 1);
+        }
+    }
+}
+
+/* The demand of a deflection check over each span of each entry of a set; with unit, also
+ * the signed deflection there times E I and the unit load's: 3 a span. */
+static void
+span_demands (const TrbComboSetResult *set,
+              const double            *ab,
+              guint                    n_spans,
+              const GArray            *known,
+              const TrbBeamResult     *unit,
+              double                   EI,
+              double                  *d)
+{
+  g_autofree TrbBeamExtremes *own = g_new (TrbBeamExtremes, n_spans + 1);
+  guint stride = unit != NULL ? 3 : 1;
+
+  for (guint i = 0; i < set->entries->len; i++)
+    {
+      const TrbComboResult *c = &g_array_index (set->entries, TrbComboResult, i);
+      const TrbBeamExtremes *ext = own;
+
+      if (known != NULL)
+        ext = &g_array_index (known, TrbBeamExtremes, i * n_spans);
+      else
+        trb_beam_result_extremes_intervals (c->result, ab, n_spans, NULL, own, NULL);
+      for (guint j = 0; j < n_spans; j++)
+        {
+          double *o = d + (i * n_spans + j) * stride;
+          double x, demand = trb_design_deflection_demand (&ext[j], &x);
+
+          o[0] = demand;
+          if (unit != NULL)
+            {
+              o[1] = value_at (c->result, x, TRB_SIDE_RIGHT, 2) * EI;
+              o[2] = value_at (unit, x, TRB_SIDE_RIGHT, 2) * EI;
+            }
+        }
+    }
+}
+
+/* Takes the reference from a candidate analysed (status pass or fail), with every entry of
+ * its sets; sx (may be NULL) has their extremes over the segments and spans already. */
+static gboolean
+reference_init (Reference             *ref,
+                const TrbProject      *project,
+                const TrbMember       *m,
+                const MemberInput     *in,
+                const TrbMemberResult *r,
+                const SpanExtremes    *sx)
+{
+  g_autoptr(GArray) brace_x = g_array_new (FALSE, FALSE, sizeof (double));
   g_autoptr(TrbBeamResult) unit = NULL;
+  g_autofree double *seg_ab = NULL;
+  g_autofree double *span_ab = NULL;
+  g_autofree TrbBeamExtremes *ext = NULL;
   TrbLoad load = { TRB_LOAD_UNIFORM, 0, in->length, 1.0, 1.0 };
-  TrbBeamExtremes ext;
+  TrbDesignInput input;
+  TrbBeamExtremes whole;
+  guint n_pts;
 
   if (!r->analysed || r->beam == NULL)
     return FALSE;
+  memset (ref, 0, sizeof *ref);
+  ref->mem = g_ptr_array_new_with_free_func (g_free);
+  ref->method = r->method;
+  ref->steel = m->material == TRB_MATERIAL_STEEL && r->method != TRB_METHOD_ALLOWABLE;
+  ref->wood = m->material == TRB_MATERIAL_WOOD && r->method == TRB_METHOD_ASD;
+  ref->EI = r->E * r->I;
+  ref->self_weight = r->self_weight;
+  ref->beam = trb_beam_new (in->length, 1.0, 1.0, in->supports, in->n_supports, NULL);
+  if (ref->beam == NULL)
+    return FALSE;
+
+  member_design_input (m, in, ref->beam, brace_x, &input);
+  ref->seg = ref_alloc (ref, 2 + input.n_supports + input.n_braces);
+  n_pts = ref->wood ? trb_design_wood_segment_points (&input, ref->seg)
+                    : trb_design_steel_segment_points (&input, ref->seg);
+  ref->n_seg = n_pts > 0 ? n_pts - 1 : 0;
+  ref->spans = g_new0 (TrbDeflectionSpan, input.n_supports + 1);
+  ref->n_spans = trb_design_deflection_spans (&input, ref->spans, input.n_supports + 1);
+  seg_ab = g_new (double, 2 * ref->n_seg + 1);
+  for (guint k = 0; k < ref->n_seg; k++)
+    {
+      seg_ab[2 * k] = ref->seg[k];
+      seg_ab[2 * k + 1] = ref->seg[k + 1];
+      if (!(seg_ab[2 * k] < seg_ab[2 * k + 1]))
+        return FALSE;
+    }
+  span_ab = g_new (double, 2 * ref->n_spans + 1);
+  for (guint j = 0; j < ref->n_spans; j++)
+    {
+      span_ab[2 * j] = ref->spans[j].a;
+      span_ab[2 * j + 1] = ref->spans[j].b;
+    }
+  ext = g_new (TrbBeamExtremes, MAX (ref->n_seg, ref->n_spans) + 1);
+  if (sx != NULL &&
+      !(sx->n_seg == ref->n_seg && sx->n_spans == ref->n_spans && sx->strength != NULL &&
+        sx->strength->len == r->strength.entries->len * ref->n_seg &&
+        sx->live->len == r->live.entries->len * ref->n_spans &&
+        sx->total->len == r->total.entries->len * ref->n_spans &&
+        memcmp (sx->seg, ref->seg, (ref->n_seg + 1) * sizeof (double)) == 0))
+    sx = NULL;
+
   unit = trb_beam_solve (r->beam, &load, 1, NULL);
   if (unit == NULL)
     return FALSE;
-  trb_beam_result_extremes (unit, 0, in->length, &ext);
-
-  b->EI = r->E * r->I;
-  b->self_weight = r->self_weight;
-  b->m_unit = MAX (fabs (ext.M_max), fabs (ext.M_min));
-  b->live_ratio = NAN;
-  for (guint i = 0; i < r->checks->len; i++)
+  trb_beam_result_extremes_intervals (unit, seg_ab, ref->n_seg, &whole, ext, NULL);
+  ref->V_u_min = whole.V_min;
+  ref->V_u_max = whole.V_max;
+  ref->M_u_min = whole.M_min;
+  ref->M_u_max = whole.M_max;
+  ref->M_u_seg = ref_alloc (ref, 2 * ref->n_seg);
+  for (guint k = 0; k < ref->n_seg; k++)
     {
-      const TrbCheck *ck = &g_array_index (r->checks, TrbCheck, i);
-
-      if (strcmp (ck->name, "Live deflection") == 0)
-        b->live_ratio = ck->ratio;
+      ref->M_u_seg[2 * k] = ext[k].M_min;
+      ref->M_u_seg[2 * k + 1] = ext[k].M_max;
     }
-  b->m_abs = g_array_new (FALSE, FALSE, sizeof (double));
-  b->f_dead = g_array_new (FALSE, FALSE, sizeof (double));
-  b->factors = g_array_new (FALSE, FALSE, sizeof (double) * TRB_N_CASES);
-  for (guint i = 0; i < r->strength.entries->len; i++)
+  ref->Mq_u = ref_alloc (ref, 6 * ref->n_seg);
+  quarter_moments (unit, ref->seg, ref->n_seg, ref->Mq_u);
+  ref->free_end = g_new0 (gboolean, ref->n_seg + 1);
+  g_ptr_array_add (ref->mem, ref->free_end);
+  for (guint k = 0; k < ref->n_seg; k++)
+    ref->free_end[k] = trb_design_steel_free_end (&input, ref->seg[k], ref->seg[k + 1]);
+  ref->D_u = ref_alloc (ref, ref->n_spans);
+  trb_beam_result_extremes_intervals (unit, span_ab, ref->n_spans, NULL, ext, NULL);
+  for (guint j = 0; j < ref->n_spans; j++)
+    {
+      double x;
+
+      ref->D_u[j] = trb_design_deflection_demand (&ext[j], &x) * ref->EI;
+    }
+
+  ref->n_str = r->strength.entries->len;
+  ref->factors = ref_alloc (ref, ref->n_str * TRB_N_CASES);
+  ref->V = ref_alloc (ref, ref->n_str * 8);
+  ref->M = ref_alloc (ref, ref->n_str * 4);
+  ref->M_seg = ref_alloc (ref, ref->n_str * 4 * ref->n_seg);
+  ref->Mq = ref_alloc (ref, ref->n_str * 6 * ref->n_seg);
+  for (guint i = 0; i < ref->n_str; i++)
     {
       const TrbComboResult *c = &g_array_index (r->strength.entries, TrbComboResult, i);
-      double m_abs = MAX (fabs (c->ext.M_max), fabs (c->ext.M_min));
+      double *V = ref->V + 8 * i, *M = ref->M + 4 * i;
 
-      g_array_append_val (b->m_abs, m_abs);
-      g_array_append_val (b->f_dead, c->combo.factors[TRB_CASE_D]);
-      g_array_append_vals (b->factors, c->combo.factors, 1);
+      memcpy (ref->factors + i * TRB_N_CASES, c->combo.factors, sizeof c->combo.factors);
+      for (guint e = 0; e < 2; e++)
+        {
+          double v = e == 0 ? c->ext.V_max : c->ext.V_min;
+          double x = e == 0 ? c->ext.V_max_x : c->ext.V_min_x;
+          gboolean on_l = value_at (c->result, x, TRB_SIDE_LEFT, 0) == v;
+          gboolean on_r = value_at (c->result, x, TRB_SIDE_RIGHT, 0) == v;
+
+          /* the unit load's V on either side of the extreme (it jumps at a support), and
+           * on which side the extreme is: left 1, right 2, both 3, not told 0 */
+          V[4 * e] = v;
+          V[4 * e + 1] = value_at (unit, x, TRB_SIDE_LEFT, 0);
+          V[4 * e + 2] = value_at (unit, x, TRB_SIDE_RIGHT, 0);
+          V[4 * e + 3] = (on_l ? 1 : 0) + (on_r ? 2 : 0);
+        }
+      M[0] = c->ext.M_max;
+      M[1] = value_at (unit, c->ext.M_max_x, TRB_SIDE_RIGHT, 1);
+      M[2] = c->ext.M_min;
+      M[3] = value_at (unit, c->ext.M_min_x, TRB_SIDE_RIGHT, 1);
+      ref->V_scale = MAX (ref->V_scale, abs_max (V[0], V[4]));
+      ref->M_scale = MAX (ref->M_scale, abs_max (M[0], M[2]));
+      if (sx == NULL)
+        trb_beam_result_extremes_intervals (c->result, seg_ab, ref->n_seg, NULL, ext, NULL);
+      for (guint k = 0; k < ref->n_seg; k++)
+        {
+          const TrbBeamExtremes *e = sx != NULL ? &g_array_index (sx->strength, TrbBeamExtremes,
+                                                                  i * ref->n_seg + k)
+                                                : &ext[k];
+          double *Ms = ref->M_seg + (i * ref->n_seg + k) * 4;
+
+          Ms[0] = e->M_max;
+          Ms[1] = value_at (unit, e->M_max_x, TRB_SIDE_RIGHT, 1);
+          Ms[2] = e->M_min;
+          Ms[3] = value_at (unit, e->M_min_x, TRB_SIDE_RIGHT, 1);
+        }
+      if (ref->steel)
+        quarter_moments (c->result, ref->seg, ref->n_seg, ref->Mq + i * 6 * ref->n_seg);
     }
-  b->ready = TRUE;
-  return TRUE;
+
+  ref->n_live = r->live.entries->len;
+  ref->n_total = r->total.entries->len;
+  ref->d_live = ref_alloc (ref, ref->n_live * ref->n_spans);
+  ref->d_total = ref_alloc (ref, 3 * ref->n_total * ref->n_spans);
+  ref->fD_total = ref_alloc (ref, ref->n_total);
+  span_demands (&r->live, span_ab, ref->n_spans, sx != NULL ? sx->live : NULL, NULL, 0,
+                ref->d_live);
+  span_demands (&r->total, span_ab, ref->n_spans, sx != NULL ? sx->total : NULL, unit, ref->EI,
+                ref->d_total);
+  for (guint i = 0; i < ref->n_live * ref->n_spans; i++)
+    ref->D_scale = MAX (ref->D_scale, ref->d_live[i]);
+  for (guint i = 0; i < ref->n_total; i++)
+    {
+      ref->fD_total[i] = g_array_index (r->total.entries, TrbComboResult,
+                                        i).combo.factors[TRB_CASE_D];
+      for (guint j = 0; j < ref->n_spans; j++)
+        ref->D_scale = MAX (ref->D_scale, ref->d_total[3 * (i * ref->n_spans + j)]);
+    }
+
+  ref->ready = isfinite (ref->EI) && ref->EI > 0 &&
+               isfinite (ref->V_u_min + ref->V_u_max + ref->M_u_min + ref->M_u_max) &&
+               isfinite (ref->M_scale + ref->V_scale + ref->D_scale);
+  for (guint j = 0; ref->ready && j < ref->n_spans; j++)
+    ref->ready = isfinite (ref->D_u[j]);
+  return ref->ready;
 }
 
-/* The flexural capacity no check of the method can exceed, N*m, for a combination with load
- * duration factor 1 (*per_cd TRUE: timber, times the combination's C_D) or for any (steel,
- * allowable stress); NAN when no flexure check is sure to be made (so no bound). */
-static double
-capacity_bound (const TrbProject   *project,
-                const TrbMember    *m,
-                const MemberInput  *in,
-                const TrbSection   *section,
-                const TrbWoodGrade *wood_grade,
-                TrbMethod           method,
-                gboolean           *per_cd)
+/* The margin of a bound: a millionth of the values and a billionth of the largest */
+static inline double
+margin (double a,
+        double b,
+        double scale)
 {
-  *per_cd = FALSE;
-  const TrbSettings *s = &project->settings;
-
-  if (method == TRB_METHOD_ALLOWABLE)
-    {
-      double Fb = trb_member_get_fb_allow (m, s);
-
-      if (isfinite (Fb) && Fb > 0 && isfinite (section->Sx) && section->Sx > 0)
-        return Fb * section->Sx;
-      return NAN;
-    }
-  if (m->material == TRB_MATERIAL_WOOD)
-    {
-      TrbWoodOptions options;
-      double S, Fb;
-
-      if (method == TRB_METHOD_LRFD || wood_grade == NULL)
-        return NAN;
-      wood_options_for (m, in, &options);
-      S = isfinite (section->Sx) && section->Sx > 0 ? section->Sx
-                                                    : section->b * section->d * section->d / 6;
-      Fb = wood_grade->Fb;
-      if (isfinite (wood_grade->Fb_neg))
-        Fb = MAX (Fb, wood_grade->Fb_neg);
-      *per_cd = TRUE;
-      return S * Fb *
-             trb_design_wood_cm (section, wood_grade, TRB_WOOD_FB, options.wet_service) *
-             trb_design_wood_cf (section, wood_grade, TRB_WOOD_FB) *
-             trb_design_wood_ci (section, TRB_WOOD_FB, options.incised) *
-             trb_design_wood_cr (section, &options);
-    }
-  if (section->kind == TRB_SHAPE_W)
-    {
-      const TrbSteelGrade *grade =
-        trb_design_steel_lookup_grade (trb_member_get_steel_grade (m, s));
-      TrbSteelFlexure flex;
-
-      /* only where the flexure check is sure to be made (F2, F3 cover the web) */
-      if (grade == NULL || !trb_design_steel_flexure (section, grade, 0, 1, &flex))
-        return NAN;
-      return method == TRB_METHOD_LRFD ? TRB_STEEL_PHI_B * flex.Mp
-                                       : flex.Mp / TRB_STEEL_OMEGA_B;
-    }
-  return NAN;
+  return BOUND_MARGIN * (fabs (a) + fabs (b)) + 1e-9 * scale;
 }
 
-/* TRUE when the bounds show that the candidate fails. Only for candidates whose full check
- * could not end in an error instead (a timber section on steel, a missing wood grade). */
+/* The candidate's largest value of a combination where the reference has its largest, v, and
+ * the unit load has u there (u_lo, u_hi: the unit load's least and largest where the
+ * candidate's largest may be), moving by c times the unit load: [lo, hi]. */
+static inline void
+bound_max (double  v,
+           double  u,
+           double  u_lo,
+           double  u_hi,
+           double  c,
+           double  scale,
+           double *lo,
+           double *hi)
+{
+  *lo = v + c * u;
+  *hi = v + (c >= 0 ? c * u_hi : c * u_lo);
+  *lo -= margin (*lo, c * u, scale);
+  *hi += margin (*hi, c * u_hi + c * u_lo, scale);
+}
+
+/* The unit load's value to take at a reference's extreme of V (u: left, right, side), so
+ * that the candidate's largest (max) or least is certainly beyond the reference's plus c
+ * times it: on the extreme's own side, the one that moves it least when not told. */
+static inline double
+unit_at_extreme (const double *u,
+                 double        c,
+                 gboolean      max)
+{
+  int side = (int) u[2];
+  gboolean left_less = c * u[0] < c * u[1];
+
+  if (side == 1)
+    return u[0];
+  if (side == 2)
+    return u[1];
+  /* on both sides: the candidate's extreme is beyond both; not told: beyond the lesser */
+  if ((side == 3) == max)
+    return left_less ? u[1] : u[0];
+  return left_less ? u[0] : u[1];
+}
+
+/* and its least */
+static inline void
+bound_min (double  v,
+           double  u,
+           double  u_lo,
+           double  u_hi,
+           double  c,
+           double  scale,
+           double *lo,
+           double *hi)
+{
+  *hi = v + c * u;
+  *lo = v + (c >= 0 ? c * u_lo : c * u_hi);
+  *hi += margin (*hi, c * u, scale);
+  *lo -= margin (*lo, c * u_hi + c * u_lo, scale);
+}
+
+/* Bounds on the share of each entry in each check, for one candidate. */
+typedef struct
+{
+  double  max_lo;          /* the largest lower bound of any check: above 1, it fails */
+  /* per strength entry, two checks: steel flexure and shear; allowable stress section
+   * modulus and web shear; timber flexure (and all entries kept) */
+  double *str_lo[2], *str_hi[2];
+  gboolean keep_all_strength;
+  double *live_lo, *live_hi;
+  double *total_lo, *total_hi;
+  gboolean live_checked, total_checked;
+} Shares;
+
+static void
+shares_clear (Shares *sh)
+{
+  for (guint k = 0; k < 2; k++)
+    {
+      g_clear_pointer (&sh->str_lo[k], g_free);
+      g_clear_pointer (&sh->str_hi[k], g_free);
+    }
+  g_clear_pointer (&sh->live_lo, g_free);
+  g_clear_pointer (&sh->live_hi, g_free);
+  g_clear_pointer (&sh->total_lo, g_free);
+  g_clear_pointer (&sh->total_hi, g_free);
+}
+
+static void
+share_max (double *lo,
+           double *hi,
+           double  l,
+           double  h)
+{
+  *lo = MAX (*lo, l);
+  *hi = MAX (*hi, h);
+}
+
+/* The candidate's E (as the full analysis takes it) and its timber grade, or FALSE when its
+ * analysis would end in an error. */
 static gboolean
-bounds_reject (const Bounds      *b,
-               const TrbProject  *project,
-               const TrbMember   *m,
-               const MemberInput *in,
-               const TrbSection  *section,
-               TrbMethod          method)
+section_stiffness (const TrbProject    *project,
+                   const TrbMember     *m,
+                   const MemberInput   *in,
+                   const TrbSection    *section,
+                   double              *E,
+                   const TrbWoodGrade **wood_grade)
 {
   const TrbSettings *s = &project->settings;
-  const TrbWoodGrade *wood_grade = NULL;
-  double self_weight = s->self_weight ? section->weight : 0;
-  double E, cap_base;
-  gboolean per_cd;
 
-  if (!b->ready || (self_weight > 0) != (b->self_weight > 0))
-    return FALSE;
-
+  *wood_grade = NULL;
   if (m->material == TRB_MATERIAL_WOOD)
     {
       g_autofree char *why = NULL;
@@ -1439,11 +1847,11 @@ bounds_reject (const Bounds      *b,
 
       if (section->kind != TRB_SHAPE_SAWN && section->kind != TRB_SHAPE_GLULAM)
         return FALSE;
-      wood_grade = wood_grade_for (m, in, section, &why);
-      if (wood_grade == NULL)
+      *wood_grade = wood_grade_for (m, in, section, &why);
+      if (*wood_grade == NULL)
         return FALSE;
       wood_options_for (m, in, &options);
-      E = trb_design_wood_adjusted_e (section, wood_grade, &options, TRB_WOOD_E);
+      *E = trb_design_wood_adjusted_e (section, *wood_grade, &options, TRB_WOOD_E);
     }
   else
     {
@@ -1452,71 +1860,505 @@ bounds_reject (const Bounds      *b,
 
       if (section->kind == TRB_SHAPE_SAWN || section->kind == TRB_SHAPE_GLULAM || grade == NULL)
         return FALSE;
-      E = grade->E;
+      *E = grade->E;
     }
+  return TRUE;
+}
 
-  if (isfinite (b->live_ratio) &&
-      b->live_ratio * (b->EI / (E * section->Ix)) > 1 + BOUND_MARGIN)
+/* The shares of a candidate; FALSE when they cannot be bounded (then it is analysed in
+ * full). */
+static gboolean
+candidate_shares (const Reference    *ref,
+                  const TrbProject   *project,
+                  const TrbMember    *m,
+                  const MemberInput  *in,
+                  const TrbSection   *section,
+                  double              E,
+                  const TrbWoodGrade *wood_grade,
+                  gboolean            reject,
+                  Shares             *sh)
+{
+  const TrbSettings *s = &project->settings;
+  double self_weight = s->self_weight ? section->weight : 0;
+  double EI = E * section->Ix;
+  double k_EI, dw, M_u, V_u;
+  double live_limit = trb_member_get_deflection_live (m, s);
+  double total_limit = trb_member_get_deflection_total (m, s);
+
+  memset (sh, 0, sizeof *sh);
+  if (!ref->ready || (self_weight > 0) != (ref->self_weight > 0) || !(EI > 0) ||
+      !isfinite (EI))
+    return FALSE;
+  k_EI = ref->EI / EI;
+  dw = self_weight - ref->self_weight;
+  M_u = abs_max (ref->M_u_min, ref->M_u_max);
+  V_u = abs_max (ref->V_u_min, ref->V_u_max);
+  /* far from the largest double: every value of the candidate's analysis is finite, and so
+   * is every ratio of its checks */
+  if (!(k_EI < 1e12 && k_EI > 1e-12 && fabs (dw) < 1e12 &&
+        (ref->M_scale + 2 * fabs (dw) * M_u) * (1 + k_EI) < 1e100 &&
+        (ref->V_scale + 2 * fabs (dw) * V_u) < 1e100 && ref->D_scale * (1 + k_EI) < 1e100))
+    return FALSE;
+
+  /* deflection: live load deflection scales with E I_ref / E I; the total moves with w too */
+  sh->live_checked = live_limit > 0 && ref->n_spans > 0;
+  sh->total_checked = total_limit > 0 && ref->n_spans > 0;
+  sh->live_lo = g_new0 (double, ref->n_live + 1);
+  sh->live_hi = g_new0 (double, ref->n_live + 1);
+  sh->total_lo = g_new0 (double, ref->n_total + 1);
+  sh->total_hi = g_new0 (double, ref->n_total + 1);
+  for (guint i = 0; sh->live_checked && i < ref->n_live; i++)
+    for (guint j = 0; j < ref->n_spans; j++)
+      {
+        double cap = ref->spans[j].judged / live_limit;
+        double d = ref->d_live[i * ref->n_spans + j] * k_EI;
+        double tol = margin (d, 0, ref->D_scale * k_EI);
+
+        share_max (&sh->live_lo[i], &sh->live_hi[i], MAX (d - tol, 0) / cap, (d + tol) / cap);
+      }
+  for (guint i = 0; sh->total_checked && i < ref->n_total; i++)
+    for (guint j = 0; j < ref->n_spans; j++)
+      {
+        const double *d = ref->d_total + 3 * (i * ref->n_spans + j);
+        double c = ref->fD_total[i] * dw;
+        double cap = ref->spans[j].judged / total_limit;
+        double at = fabs (d[1] + c * d[2]);
+        double hi = d[0] * ref->EI + fabs (c) * ref->D_u[j];
+        double tol = margin (hi, at, ref->D_scale * ref->EI);
+
+        share_max (&sh->total_lo[i], &sh->total_hi[i], MAX (at - tol, 0) / EI / cap,
+                   (hi + tol) / EI / cap);
+      }
+
+  for (guint i = 0; i < ref->n_live; i++)
+    sh->max_lo = MAX (sh->max_lo, sh->live_lo[i]);
+  for (guint i = 0; i < ref->n_total; i++)
+    sh->max_lo = MAX (sh->max_lo, sh->total_lo[i]);
+  /* a candidate failing here need not be bounded further */
+  if (reject && sh->max_lo > 1 + BOUND_MARGIN)
     return TRUE;
 
-  cap_base = capacity_bound (project, m, in, section, wood_grade, method, &per_cd);
-  if (!isfinite (cap_base) || !(cap_base > 0))
-    return FALSE;
-  for (guint i = 0; i < b->m_abs->len; i++)
+  for (guint k = 0; k < 2; k++)
     {
-      const double *factors = &g_array_index (b->factors, double, i * TRB_N_CASES);
-      double cap = per_cd ? cap_base * trb_design_wood_cd (factors) : cap_base;
-      double low = g_array_index (b->m_abs, double, i) -
-                   fabs (g_array_index (b->f_dead, double, i)) *
-                   fabs (self_weight - b->self_weight) * b->m_unit;
-
-      if (isfinite (cap) && cap > 0 && low > cap * (1 + BOUND_MARGIN))
-        return TRUE;
+      sh->str_lo[k] = g_new0 (double, ref->n_str + 1);
+      sh->str_hi[k] = g_new0 (double, ref->n_str + 1);
     }
-  return FALSE;
+
+  if (ref->method == TRB_METHOD_ALLOWABLE)
+    {
+      double Fb = trb_member_get_fb_allow (m, s);
+      double Fv = trb_member_get_fv_allow (m, s);
+      const char *formula;
+
+      if (!(isfinite (Fb) && Fb > 0 && isfinite (section->Sx) && section->Sx > 0 &&
+            isfinite (Fv) && Fv > 0) ||
+          isnan (trb_design_allowable_shear_stress (section, 1.0, &formula)))
+        return FALSE;
+      for (guint i = 0; i < ref->n_str; i++)
+        {
+          double c = ref->factors[i * TRB_N_CASES + TRB_CASE_D] * dw;
+          const double *M = ref->M + 4 * i, *V = ref->V + 8 * i;
+          double max_lo, max_hi, min_lo, min_hi;
+
+          /* the largest |M| and |V| over the member, against Fb Sx and Fv */
+          bound_max (M[0], M[1], ref->M_u_min, ref->M_u_max, c, ref->M_scale, &max_lo, &max_hi);
+          bound_min (M[2], M[3], ref->M_u_min, ref->M_u_max, c, ref->M_scale, &min_lo, &min_hi);
+          sh->str_lo[0][i] = MAX (MAX (max_lo, -min_hi), 0) / Fb / section->Sx;
+          sh->str_hi[0][i] = MAX (abs_max (max_lo, max_hi), abs_max (min_lo, min_hi)) / Fb /
+                             section->Sx;
+          bound_max (V[0], unit_at_extreme (V + 1, c, TRUE), ref->V_u_min, ref->V_u_max, c,
+                     ref->V_scale, &max_lo, &max_hi);
+          bound_min (V[4], unit_at_extreme (V + 5, c, FALSE), ref->V_u_min, ref->V_u_max, c,
+                     ref->V_scale, &min_lo, &min_hi);
+          sh->str_lo[1][i] = trb_design_allowable_shear_stress (section,
+                                                                MAX (MAX (max_lo, -min_hi), 0),
+                                                                NULL) / Fv;
+          sh->str_hi[1][i] = trb_design_allowable_shear_stress (section,
+                                                                MAX (abs_max (max_lo, max_hi),
+                                                                     abs_max (min_lo, min_hi)),
+                                                                NULL) / Fv;
+        }
+    }
+  else if (ref->steel && section->kind == TRB_SHAPE_W)
+    {
+      const TrbSteelGrade *grade =
+        trb_design_steel_lookup_grade (trb_member_get_steel_grade (m, s));
+      gboolean lrfd = ref->method == TRB_METHOD_LRFD;
+      TrbSteelFlexure flex;
+      TrbSteelShear shear;
+      double cap_b, cap_v;
+
+      if (grade == NULL || !trb_design_steel_flexure (section, grade, 0, 1, &flex) ||
+          !trb_design_steel_shear (section, grade, &shear))
+        return FALSE;
+      cap_b = lrfd ? TRB_STEEL_PHI_B * flex.Mn : flex.Mn / TRB_STEEL_OMEGA_B;
+      cap_v = lrfd ? shear.phi * shear.Vn : shear.Vn / shear.omega;
+      if (!(cap_b > 0 && cap_v > 0))
+        return FALSE;
+      for (guint i = 0; i < ref->n_str; i++)
+        {
+          double c = ref->factors[i * TRB_N_CASES + TRB_CASE_D] * dw;
+          const double *V = ref->V + 8 * i;
+          double max_lo, max_hi, min_lo, min_hi;
+
+          /* shear (G2): the largest |V| over the member */
+          bound_max (V[0], unit_at_extreme (V + 1, c, TRUE), ref->V_u_min, ref->V_u_max, c,
+                     ref->V_scale, &max_lo, &max_hi);
+          bound_min (V[4], unit_at_extreme (V + 5, c, FALSE), ref->V_u_min, ref->V_u_max, c,
+                     ref->V_scale, &min_lo, &min_hi);
+          sh->str_lo[1][i] = MAX (MAX (max_lo, -min_hi), 0) / cap_v;
+          sh->str_hi[1][i] = MAX (abs_max (max_lo, max_hi), abs_max (min_lo, min_hi)) / cap_v;
+          sh->max_lo = MAX (sh->max_lo, sh->str_lo[1][i]);
+        }
+      if (reject && sh->max_lo > 1 + BOUND_MARGIN)
+        return TRUE;
+      for (guint i = 0; i < ref->n_str; i++)
+        {
+          double c = ref->factors[i * TRB_N_CASES + TRB_CASE_D] * dw;
+          double max_lo, max_hi, min_lo, min_hi;
+
+          /* flexure: on each segment the sagging and hogging moments (AISC 360-16 F2 with
+           * Lb = 0 for sagging under continuous bracing, the segment's Lb and Cb otherwise) */
+          for (guint k = 0; k < ref->n_seg; k++)
+            {
+              const double *Ms = ref->M_seg + (i * ref->n_seg + k) * 4;
+              const double *u = ref->M_u_seg + 2 * k;
+              double pos_lo, pos_hi, neg_lo, neg_hi, abs_lo, abs_hi, cap_lo, cap_hi;
+              double Cb_lo = 1, Cb_hi = 1;
+
+              bound_max (Ms[0], Ms[1], u[0], u[1], c, ref->M_scale, &max_lo, &max_hi);
+              bound_min (Ms[2], Ms[3], u[0], u[1], c, ref->M_scale, &min_lo, &min_hi);
+              pos_lo = MAX (max_lo, 0);
+              pos_hi = MAX (max_hi, 0);
+              neg_lo = MAX (-min_hi, 0);
+              neg_hi = MAX (-min_lo, 0);
+              abs_lo = MAX (pos_lo, neg_lo);
+              abs_hi = MAX (pos_hi, neg_hi);
+              /* the check takes a hogging moment of a billionth of the largest as round-off */
+              if (!(neg_lo > 1e-9 * abs_hi))
+                neg_lo = 0;
+              /* Cb (F1-1) grows with the largest moment and falls with those at the quarter
+               * points; it is at least 1, and the capacity grows with it */
+              if (!ref->free_end[k])
+                {
+                  const double *q = ref->Mq + (i * ref->n_seg + k) * 6;
+                  const double *qu = ref->Mq_u + 6 * k;
+                  double q_lo[3], q_hi[3], x_hi = abs_hi;
+
+                  for (guint j = 0; j < 3; j++)
+                    {
+                      double l = q[2 * j] + c * qu[2 * j], r = q[2 * j + 1] + c * qu[2 * j + 1];
+                      double tol = margin (abs_max (l, r), c * qu[2 * j], ref->M_scale);
+
+                      q_hi[j] = abs_max (l, r) + tol;
+                      q_lo[j] = MAX (abs_max (l, r) - tol, 0);
+                      x_hi = MAX (x_hi, q_hi[j]);
+                    }
+                  if (abs_lo > 0)
+                    Cb_lo = MAX (1.0, 12.5 * abs_lo / (2.5 * abs_lo + 3 * q_hi[0] + 4 * q_hi[1] +
+                                                       3 * q_hi[2]) * (1 - BOUND_MARGIN));
+                  if (x_hi > 0)
+                    Cb_hi = MAX (1.0, 12.5 * x_hi / (2.5 * x_hi + 3 * q_lo[0] + 4 * q_lo[1] +
+                                                     3 * q_lo[2]) * (1 + BOUND_MARGIN));
+                  if (!(Cb_lo >= 1 && Cb_hi >= Cb_lo && isfinite (Cb_hi)))
+                    return FALSE;
+                }
+              trb_design_steel_flexure (section, grade, ref->seg[k + 1] - ref->seg[k], Cb_lo,
+                                        &flex);
+              cap_lo = lrfd ? TRB_STEEL_PHI_B * flex.Mn : flex.Mn / TRB_STEEL_OMEGA_B;
+              trb_design_steel_flexure (section, grade, ref->seg[k + 1] - ref->seg[k], Cb_hi,
+                                        &flex);
+              cap_hi = lrfd ? TRB_STEEL_PHI_B * flex.Mn : flex.Mn / TRB_STEEL_OMEGA_B;
+              if (!(cap_lo > 0 && cap_hi >= cap_lo))
+                return FALSE;
+              if (m->bracing == TRB_BRACING_POINTS)
+                share_max (&sh->str_lo[0][i], &sh->str_hi[0][i], abs_lo / cap_hi,
+                           abs_hi / cap_lo);
+              else
+                share_max (&sh->str_lo[0][i], &sh->str_hi[0][i],
+                           MAX (pos_lo / cap_b, neg_lo / cap_hi),
+                           MAX (pos_hi / cap_b, neg_hi / cap_lo));
+            }
+          sh->max_lo = MAX (sh->max_lo, sh->str_lo[0][i]);
+          if (reject && sh->max_lo > 1 + BOUND_MARGIN)
+            return TRUE;
+        }
+    }
+  else if (ref->wood && wood_grade != NULL)
+    {
+      TrbDesignInput input;
+      g_autoptr(GArray) brace_x = g_array_new (FALSE, FALSE, sizeof (double));
+      TrbWoodOptions options;
+      double S = isfinite (section->Sx) && section->Sx > 0 ? section->Sx
+                                                           : section->b * section->d *
+                                                             section->d / 6;
+
+      if (!(section->b > 0 && section->d > 0))
+        return FALSE;
+      member_design_input (m, in, ref->beam, brace_x, &input);
+      input.section = section;
+      wood_options_for (m, in, &options);
+      sh->keep_all_strength = TRUE;
+      for (guint i = 0; i < ref->n_str; i++)
+        {
+          double c = ref->factors[i * TRB_N_CASES + TRB_CASE_D] * dw;
+          double CD = trb_design_wood_cd (ref->factors + i * TRB_N_CASES);
+
+          /* flexure (NDS 2018 3.3.1): each sign of moment on each segment, against Fb' */
+          for (guint k = 0; k < ref->n_seg; k++)
+            {
+              const double *Ms = ref->M_seg + (i * ref->n_seg + k) * 4;
+              const double *u = ref->M_u_seg + 2 * k;
+              double max_lo, max_hi, min_lo, min_hi;
+
+              bound_max (Ms[0], Ms[1], u[0], u[1], c, ref->M_scale, &max_lo, &max_hi);
+              bound_min (Ms[2], Ms[3], u[0], u[1], c, ref->M_scale, &min_lo, &min_hi);
+              for (int sign = 0; sign < 2; sign++)
+                {
+                  double lo = sign == 0 ? max_lo : -min_hi;
+                  double hi = sign == 0 ? max_hi : -min_lo;
+                  double fb_lo, fb_hi;
+
+                  if (!(hi > 0))
+                    continue;   /* no moment of this sign there */
+                  trb_design_wood_fb_range (&input, wood_grade, &options, CD,
+                                            ref->seg[k + 1] - ref->seg[k], sign == 1, &fb_lo,
+                                            &fb_hi);
+                  if (!(fb_hi > 0))
+                    share_max (&sh->str_lo[0][i], &sh->str_hi[0][i], lo > 0 ? INFINITY : 0,
+                               INFINITY);
+                  else
+                    share_max (&sh->str_lo[0][i], &sh->str_hi[0][i], MAX (lo, 0) / S / fb_hi,
+                               hi / S / fb_lo);
+                }
+            }
+        }
+    }
+  else
+    return FALSE;
+
+  for (guint i = 0; i < ref->n_str; i++)
+    sh->max_lo = MAX (sh->max_lo, MAX (sh->str_lo[0][i], sh->str_lo[1][i]));
+
+  /* a bound that is not a number bounds nothing */
+  for (guint i = 0; i < ref->n_str; i++)
+    if (isnan (sh->str_lo[0][i] + sh->str_hi[0][i] + sh->str_lo[1][i] + sh->str_hi[1][i]))
+      return FALSE;
+  for (guint i = 0; i < ref->n_live; i++)
+    if (isnan (sh->live_lo[i] + sh->live_hi[i]))
+      return FALSE;
+  for (guint i = 0; i < ref->n_total; i++)
+    if (isnan (sh->total_lo[i] + sh->total_hi[i]))
+      return FALSE;
+  return !isnan (sh->max_lo);
+}
+
+/* The entries whose upper bound reaches the largest lower bound: among them is every entry
+ * that can give the check its value. */
+static void
+keep_reaching (const double *lo,
+               const double *hi,
+               guint         n,
+               gboolean     *keep)
+{
+  double L = 0;
+
+  for (guint i = 0; i < n; i++)
+    L = MAX (L, lo[i]);
+  for (guint i = 0; i < n; i++)
+    if (hi[i] >= L)
+      keep[i] = TRUE;
+}
+
+typedef enum
+{
+  VERDICT_UNDECIDED,  /* analyse it in full */
+  VERDICT_REJECTED,   /* certainly fails: not analysed */
+  VERDICT_DECIDED,    /* status (pass or fail), ratio and governing as the full analysis */
+} VerdictKind;
+
+typedef struct
+{
+  TrbStatus status;
+  double    ratio;
+  char      governing[40];
+} Verdict;
+
+static VerdictKind
+judge_candidate (const Reference   *ref,
+                 const TrbProject  *project,
+                 const TrbMember   *m,
+                 const MemberInput *in,
+                 const TrbSection  *section,
+                 gboolean           reject,
+                 Verdict           *v)
+{
+  const TrbWoodGrade *wood_grade;
+  double E;
+  Shares sh;
+  Lean lean = { { NULL } };
+  g_autofree gboolean *keep = NULL;
+  SpanExtremes sx = { NULL };
+  TrbMemberResult *r;
+  VerdictKind kind = VERDICT_UNDECIDED;
+
+  if (!section_stiffness (project, m, in, section, &E, &wood_grade))
+    return VERDICT_UNDECIDED;
+  if (!candidate_shares (ref, project, m, in, section, E, wood_grade, reject, &sh))
+    {
+      shares_clear (&sh);
+      return VERDICT_UNDECIDED;
+    }
+  if (reject && sh.max_lo > 1 + BOUND_MARGIN)
+    {
+      shares_clear (&sh);
+      return VERDICT_REJECTED;
+    }
+
+  keep = g_new0 (gboolean, ref->n_str + ref->n_live + ref->n_total + 1);
+  if (sh.keep_all_strength)
+    for (guint i = 0; i < ref->n_str; i++)
+      keep[i] = TRUE;
+  else
+    for (guint k = 0; k < 2; k++)
+      keep_reaching (sh.str_lo[k], sh.str_hi[k], ref->n_str, keep);
+  if (sh.live_checked)
+    keep_reaching (sh.live_lo, sh.live_hi, ref->n_live, keep + ref->n_str);
+  if (sh.total_checked)
+    keep_reaching (sh.total_lo, sh.total_hi, ref->n_total, keep + ref->n_str + ref->n_live);
+  shares_clear (&sh);
+  lean.keep[0] = keep;
+  lean.keep[1] = keep + ref->n_str;
+  lean.keep[2] = keep + ref->n_str + ref->n_live;
+
+  r = member_result_new (project, m);
+  if (analyse (project, in, E, section->Ix,
+               project->settings.self_weight ? section->weight : 0, r, &sx, &lean))
+    {
+      design_checks (project, m, in, section, wood_grade, &sx, TRUE, r);
+      if (r->status == TRB_STATUS_PASS || r->status == TRB_STATUS_FAIL)
+        {
+          v->status = r->status;
+          v->ratio = r->ratio;
+          g_strlcpy (v->governing, r->governing, sizeof v->governing);
+          kind = VERDICT_DECIDED;
+        }
+    }
+  span_extremes_clear (&sx);
+  trb_member_result_free (r);
+  return kind;
+}
+
+/* The first candidate judged: analysed with every combination (without envelopes or text),
+ * its verdict, and the reference for the others. */
+static VerdictKind
+reference_candidate (Reference         *ref,
+                     const TrbProject  *project,
+                     const TrbMember   *m,
+                     const MemberInput *in,
+                     const TrbSection  *section,
+                     Verdict           *v)
+{
+  const TrbWoodGrade *wood_grade;
+  double E;
+  Lean lean = { { NULL } };
+  SpanExtremes sx = { NULL };
+  TrbMemberResult *r;
+  VerdictKind kind = VERDICT_UNDECIDED;
+
+  if (!section_stiffness (project, m, in, section, &E, &wood_grade))
+    return VERDICT_UNDECIDED;
+  r = member_result_new (project, m);
+  if (analyse (project, in, E, section->Ix,
+               project->settings.self_weight ? section->weight : 0, r, &sx, &lean))
+    {
+      design_checks (project, m, in, section, wood_grade, &sx, TRUE, r);
+      if ((r->status == TRB_STATUS_PASS || r->status == TRB_STATUS_FAIL) &&
+          reference_init (ref, project, m, in, r, &sx))
+        {
+          v->status = r->status;
+          v->ratio = r->ratio;
+          g_strlcpy (v->governing, r->governing, sizeof v->governing);
+          kind = VERDICT_DECIDED;
+        }
+      else
+        reference_clear (ref);
+    }
+  span_extremes_clear (&sx);
+  trb_member_result_free (r);
+  return kind;
 }
 
 /* Sizing: every candidate lightest first is analysed with its own self-weight and checked;
  * the passing ones make the shortlist (up to shortlist_max), the lightest is chosen unless
  * the engineer named one. Because each candidate carries its own self-weight, the chosen
  * section is the one its own weight was computed with: nothing is left to iterate. With
- * use_bounds, candidates the bounds reject are not checked in full; should no candidate pass,
- * sizing runs again without them, since the closest one is then reported. */
+ * use_bounds, candidates other than the first analysed are judged from it (see above) and,
+ * with reject, those certainly failing are not analysed; should no candidate pass, sizing
+ * runs again without rejecting, since the closest one is then reported. Only the section
+ * chosen (and the closest, when none passes) is analysed in full for the result. */
 static TrbMemberResult *
 size_member (const TrbProject  *project,
              const TrbMember   *m,
              const MemberInput *in,
              const TrbSection  *chosen,
              guint              shortlist_max,
-             gboolean           use_bounds)
+             gboolean           use_bounds,
+             gboolean           reject)
 {
   g_autoptr(GPtrArray) candidates = sizing_candidates (project, m);
   TrbMemberResult *best = NULL;
-  TrbMemberResult *closest = NULL;
+  TrbMemberResult *closest = NULL;          /* analysed in full */
+  const TrbSection *closest_section = NULL; /* or only judged */
+  double closest_ratio = 0;
   g_autoptr(GArray) shortlist = g_array_new (FALSE, TRUE, sizeof (TrbShortlistEntry));
-  TrbMethod method = trb_member_get_method (m, &project->settings);
-  Bounds bounds = { FALSE };
+  Reference ref = { FALSE };
   guint rejected = 0;
 
   for (guint i = 0; i < candidates->len && shortlist->len < shortlist_max; i++)
     {
       const TrbSection *section = g_ptr_array_index (candidates, i);
       TrbMemberResult *c;
+      TrbShortlistEntry e = { { 0 } };
+      Verdict v;
 
-      if (use_bounds && bounds_reject (&bounds, project, m, in, section, method))
-        {
-          rejected++;
-          continue;
-        }
+      if (use_bounds)
+        switch (ref.ready ? judge_candidate (&ref, project, m, in, section, reject, &v)
+                          : reference_candidate (&ref, project, m, in, section, &v))
+          {
+          case VERDICT_REJECTED:
+            rejected++;
+            continue;
+          case VERDICT_DECIDED:
+            if (v.status == TRB_STATUS_PASS)
+              {
+                g_strlcpy (e.section, section->designation, sizeof e.section);
+                e.weight = section->weight;
+                e.ratio = v.ratio;
+                g_strlcpy (e.governing, v.governing, sizeof e.governing);
+                g_array_append_val (shortlist, e);
+                if (best == NULL && chosen == NULL)
+                  {
+                    best = solve_with_section (project, m, in, section);
+                    g_warn_if_fail (best->status == TRB_STATUS_PASS && best->ratio == v.ratio);
+                  }
+              }
+            else if (chosen == NULL && (closest_section == NULL || v.ratio < closest_ratio))
+              {
+                g_clear_pointer (&closest, trb_member_result_free);
+                closest_section = section;
+                closest_ratio = v.ratio;
+              }
+            continue;
+          case VERDICT_UNDECIDED:
+          default:
+            break;
+          }
+
       c = solve_with_section (project, m, in, section);
-      if (use_bounds && !bounds.ready && (c->status == TRB_STATUS_PASS ||
-                                          c->status == TRB_STATUS_FAIL))
-        bounds_init (&bounds, in, c);
 
       if (c->status == TRB_STATUS_PASS)
         {
-          TrbShortlistEntry e = { { 0 } };
-
           g_strlcpy (e.section, section->designation, sizeof e.section);
           e.weight = section->weight;
           e.ratio = c->ratio;
@@ -1529,14 +2371,16 @@ size_member (const TrbProject  *project,
             }
         }
       else if (chosen == NULL && c->status == TRB_STATUS_FAIL &&
-               (closest == NULL || c->ratio < closest->ratio))
+               (closest_section == NULL || c->ratio < closest_ratio))
         {
           g_clear_pointer (&closest, trb_member_result_free);
           closest = c;
+          closest_section = section;
+          closest_ratio = c->ratio;
           continue;
         }
       else if (c->status != TRB_STATUS_FAIL && c->status != TRB_STATUS_PASS && chosen == NULL &&
-               best == NULL && closest == NULL)
+               best == NULL && closest_section == NULL)
         {
           /* unstable, unsupported or an error: the same for every section */
           best = c;
@@ -1544,20 +2388,21 @@ size_member (const TrbProject  *project,
         }
       trb_member_result_free (c);
     }
-  bounds_clear (&bounds);
 
   if (chosen == NULL && best == NULL && rejected > 0)
     {
       /* nothing passes: the closest section may be one the bounds rejected */
       g_clear_pointer (&closest, trb_member_result_free);
-      return size_member (project, m, in, chosen, shortlist_max, FALSE);
+      reference_clear (&ref);
+      return size_member (project, m, in, chosen, shortlist_max, use_bounds, FALSE);
     }
 
   if (chosen != NULL)
     best = solve_with_section (project, m, in, chosen);
-  else if (best == NULL && closest != NULL)
+  else if (best == NULL && closest_section != NULL)
     {
-      best = g_steal_pointer (&closest);
+      best = closest != NULL ? g_steal_pointer (&closest)
+                             : solve_with_section (project, m, in, closest_section);
       set_status (best, TRB_STATUS_FAIL, "no section of the catalog passes; the closest is "
                   "%s (%s ratio %.2f)", best->section, best->governing, best->ratio);
     }
@@ -1569,6 +2414,7 @@ size_member (const TrbProject  *project,
                   "(family, depth, plies, allowed list)");
     }
   g_clear_pointer (&closest, trb_member_result_free);
+  reference_clear (&ref);
   g_array_append_vals (best->shortlist, shortlist->data, shortlist->len);
   return best;
 }
@@ -1612,7 +2458,8 @@ solve_input (const TrbProject  *project,
       /* Stability and support do not depend on the section: say so once, not per section. */
       r = member_result_new (project, member);
       g_strlcpy (r->section, member->section, sizeof r->section);
-      if (!analyse (project, in, NAN, NAN, 0, r, NULL) && r->status != TRB_STATUS_NOT_DESIGNED)
+      if (!analyse (project, in, NAN, NAN, 0, r, NULL, NULL) &&
+          r->status != TRB_STATUS_NOT_DESIGNED)
         return r;
       trb_member_result_free (r);
 
@@ -1628,7 +2475,7 @@ solve_input (const TrbProject  *project,
               return r;
             }
         }
-      r = size_member (project, member, in, chosen, shortlist_max, use_bounds);
+      r = size_member (project, member, in, chosen, shortlist_max, use_bounds, use_bounds);
       record_input (r, in);
       return r;
     }
@@ -1639,8 +2486,8 @@ solve_input (const TrbProject  *project,
   else
     self_weight = custom_self_weight (member, r->notes);
   custom_section (member, self_weight, &section);
-  if (analyse (project, in, member->E, member->I, self_weight, r, &sx))
-    design_checks (project, member, in, &section, NULL, &sx, r);
+  if (analyse (project, in, member->E, member->I, self_weight, r, &sx, NULL))
+    design_checks (project, member, in, &section, NULL, &sx, FALSE, r);
   span_extremes_clear (&sx);
   record_input (r, in);
   return r;
@@ -1655,6 +2502,7 @@ standalone_input (const TrbMember *member,
                   GArray         **loads)
 {
   memset (in, 0, sizeof *in);
+  in->member = member;
   in->length = member->length;
   in->repetitive_spacing = NAN;
   for (guint i = 0; i < member->supports->len; i++)
@@ -2592,6 +3440,7 @@ solve_floor_member (Solver         *sv,
     }
   in.repetitive_spacing = strip_spacing (fm);
   in.memo = sv->memo;
+  in.member = m;
 
   /* the streams decide what is handed down, so they are part of what makes members equal */
   key_int (extra, fs->reduction);
