@@ -1775,7 +1775,8 @@ piece_extremes (const TrbSegment *s,
                 const Piece      *p,
                 double            inv_EI,
                 ExtremeAcc       *acc,
-                ExtremeAcc       *acc2)
+                ExtremeAcc       *acc2,
+                gboolean          deflection)
 {
   double t0 = p->t0, t1 = p->t1;
   double V0 = p->V0, V1 = p->V1, M0 = p->M0, M1 = p->M1, th0 = p->th0, th1 = p->th1;
@@ -1840,6 +1841,9 @@ piece_extremes (const TrbSegment *s,
       if (i > 0 && ((mcut[i - 1] < 0 && mcut[i] > 0) || (mcut[i - 1] > 0 && mcut[i] < 0)))
         m_changes = TRUE;
     }
+
+  if (!deflection)
+    return;
 
   /* deflection: extremes at the roots of theta, a quartic. Between consecutive roots of M,
    * theta is monotone and has at most one root, so the roots of M (one at most between
@@ -1978,7 +1982,7 @@ trb_beam_result_extremes (const TrbBeamResult *result,
             continue;
           piece_feed (&acc, &p);
           piece_extremes (&result->segments[k], result->breaks[k], &p, result->inv_EI, &acc,
-                          NULL);
+                          NULL, TRUE);
         }
     }
 
@@ -2033,28 +2037,15 @@ acc_seed_in (const TrbBeamResult *result,
   acc->down_x = acc->up_x = a;
 }
 
-/**
- * trb_beam_result_extremes_intervals:
- * @result: a result
- * @ab: (array length=n_intervals): pairs a, b of intervals with 0 <= a < b <= L, sorted and
- *   not overlapping (they may leave gaps)
- * @n_intervals: their number
- * @whole: (out) (optional): the extremes over the whole member
- * @per: (out) (array length=n_intervals) (optional): the extremes over each interval
- * @finite: (out) (optional): whether the reactions and the values on both sides of every
- *   break are finite (each value trb_beam_result_eval() gives at a break)
- *
- * Bit for bit what trb_beam_result_extremes() gives over [0, L] and over each interval, and
- * what evaluating every break on both sides would say of finiteness, in one sweep over the
- * segments: a segment an interval takes whole is searched once for both.
- */
-void
-trb_beam_result_extremes_intervals (const TrbBeamResult *result,
-                                    const double        *ab,
-                                    guint                n_intervals,
-                                    TrbBeamExtremes     *whole,
-                                    TrbBeamExtremes     *per,
-                                    gboolean            *finite)
+/* The sweep of trb_beam_result_extremes_intervals(); without deflection, V and M only. */
+static void
+extremes_intervals (const TrbBeamResult *result,
+                    const double        *ab,
+                    guint                n_intervals,
+                    TrbBeamExtremes     *whole,
+                    TrbBeamExtremes     *per,
+                    gboolean            *finite,
+                    gboolean             deflection)
 {
   ExtremeAcc acc_stack[16];
   gboolean seeded_stack[16];
@@ -2175,16 +2166,16 @@ trb_beam_result_extremes_intervals (const TrbBeamResult *result,
           if (!piece_values (result, k, a, b, &p))
             continue;
           piece_feed (&acc_iv[i], &p);
-          piece_extremes (s, x0, &p, result->inv_EI, &acc_iv[i], NULL);
+          piece_extremes (s, x0, &p, result->inv_EI, &acc_iv[i], NULL, deflection);
         }
 
       if (whole != NULL)
         {
           piece_feed (&acc, &full);
-          piece_extremes (s, x0, &full, result->inv_EI, &acc, shared);
+          piece_extremes (s, x0, &full, result->inv_EI, &acc, shared, deflection);
         }
       else if (shared != NULL)
-        piece_extremes (s, x0, &full, result->inv_EI, shared, NULL);
+        piece_extremes (s, x0, &full, result->inv_EI, shared, NULL, deflection);
     }
 
   if (whole != NULL)
@@ -2193,4 +2184,52 @@ trb_beam_result_extremes_intervals (const TrbBeamResult *result,
     acc_finish (&acc_iv[i], ab[2 * i], &per[i]);
   if (finite != NULL)
     *finite = ok;
+}
+
+/**
+ * trb_beam_result_extremes_intervals:
+ * @result: a result
+ * @ab: (array length=n_intervals): pairs a, b of intervals with 0 <= a < b <= L, sorted and
+ *   not overlapping (they may leave gaps)
+ * @n_intervals: their number
+ * @whole: (out) (optional): the extremes over the whole member
+ * @per: (out) (array length=n_intervals) (optional): the extremes over each interval
+ * @finite: (out) (optional): whether the reactions and the values on both sides of every
+ *   break are finite (each value trb_beam_result_eval() gives at a break)
+ *
+ * Bit for bit what trb_beam_result_extremes() gives over [0, L] and over each interval, and
+ * what evaluating every break on both sides would say of finiteness, in one sweep over the
+ * segments: a segment an interval takes whole is searched once for both.
+ */
+void
+trb_beam_result_extremes_intervals (const TrbBeamResult *result,
+                                    const double        *ab,
+                                    guint                n_intervals,
+                                    TrbBeamExtremes     *whole,
+                                    TrbBeamExtremes     *per,
+                                    gboolean            *finite)
+{
+  extremes_intervals (result, ab, n_intervals, whole, per, finite, TRUE);
+}
+
+/**
+ * trb_beam_result_moments_intervals:
+ * @result: a result
+ * @ab: (array length=n_intervals): intervals as trb_beam_result_extremes_intervals() takes
+ * @n_intervals: their number
+ * @whole: (out) (optional): the extremes of V and M over the whole member
+ * @per: (out) (array length=n_intervals) (optional): the same over each interval
+ *
+ * trb_beam_result_extremes_intervals() for V and M only, bit for bit: the deflection's
+ * extremes inside the segments are not searched for, so the deflection fields are not to be
+ * read.
+ */
+void
+trb_beam_result_moments_intervals (const TrbBeamResult *result,
+                                   const double        *ab,
+                                   guint                n_intervals,
+                                   TrbBeamExtremes     *whole,
+                                   TrbBeamExtremes     *per)
+{
+  extremes_intervals (result, ab, n_intervals, whole, per, NULL, FALSE);
 }

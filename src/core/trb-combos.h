@@ -126,6 +126,11 @@ void             trb_beam_result_extremes_intervals (const TrbBeamResult *result
                                                      TrbBeamExtremes     *whole,
                                                      TrbBeamExtremes     *per,
                                                      gboolean            *finite);
+void             trb_beam_result_moments_intervals  (const TrbBeamResult *result,
+                                                     const double        *ab,
+                                                     guint                n_intervals,
+                                                     TrbBeamExtremes     *whole,
+                                                     TrbBeamExtremes     *per);
 
 G_DEFINE_AUTOPTR_CLEANUP_FUNC (TrbBeamCombiner, trb_beam_combiner_free)
 

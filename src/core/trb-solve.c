@@ -420,7 +420,10 @@ is_patterned_case (TrbLoadCase c)
  * result. */
 typedef struct
 {
-  GHashTable *grades;   /* "species\x1fgrade" -> GHashTable (section -> grade, or GRADE_NONE) */
+  GHashTable          *grades;   /* "species\x1fgrade" -> GHashTable (section -> grade, or
+                                  * GRADE_NONE) */
+  char                *steel_name;   /* the last steel grade looked up, by its name */
+  const TrbSteelGrade *steel;
 } Memo;
 
 /* a size without design values, remembered as such */
@@ -443,6 +446,7 @@ memo_free (Memo *memo)
   if (memo == NULL)
     return;
   g_hash_table_unref (memo->grades);
+  g_free (memo->steel_name);
   g_free (memo);
 }
 
@@ -499,8 +503,10 @@ name_with_pattern (char       *dst,
 /* Evaluates every combination of set, under every pattern where it carries a patterned case,
  * and takes the envelope. With ab (n_ab intervals: the spans of the deflection checks), the
  * extremes over each interval go to span_ext, n_ab for each entry. With keep (sizing's lean
- * analysis), only the entries it marks, by their place among all, and no envelope. Returns
- * whether every entry's result is finite, as beam_result_finite() says. */
+ * analysis), only the entries it marks, by their place among all; envelope FALSE: none;
+ * moments_only: the extremes of V and M only (the deflection fields are not to be read).
+ * Returns whether every entry's result is finite, as beam_result_finite() says (TRUE with
+ * moments_only, which leaves that to the caller). */
 static gboolean
 evaluate_set (TrbMemberResult     *r,
               const RegionResults *rr,
@@ -509,7 +515,8 @@ evaluate_set (TrbMemberResult     *r,
               guint                n_ab,
               GArray              *span_ext,
               const gboolean      *keep,
-              gboolean             envelope)
+              gboolean             envelope,
+              gboolean             moments_only)
 {
   const GArray *combos = combos_for (out->set, r->has_case);
   gboolean patterns_on = r->patterns->len > 0;
@@ -599,7 +606,17 @@ evaluate_set (TrbMemberResult     *r,
               factors[n++] = 0;
             }
           cr->result = trb_beam_combiner_combine (rr->combiner, index, factors, n);
-          if (span_ext != NULL)
+          if (moments_only)
+            {
+              /* the lean analysis of sizing: V and M are all the strength checks read, and
+               * the parts are proved finite */
+              trb_beam_result_moments_intervals (cr->result, ab, n_ab, &cr->ext,
+                                                 span_ext == NULL ? NULL
+                                                 : &g_array_index (span_ext, TrbBeamExtremes,
+                                                                   (e - 1 - first) * n_ab));
+              ok = TRUE;
+            }
+          else if (span_ext != NULL)
             trb_beam_result_extremes_intervals (cr->result, ab, n_ab, &cr->ext,
                                                 &g_array_index (span_ext, TrbBeamExtremes,
                                                                 (e - 1 - first) * n_ab),
@@ -657,6 +674,27 @@ typedef struct
   Memo             *memo;                /* lookups to reuse; may be NULL */
   const TrbMember  *member;              /* whose braces and design attributes they are */
 } MemberInput;
+
+/* The member's steel grade, NULL when it is unknown (the memo keeps the last one looked up,
+ * whose name sizing asks for again and again) */
+static const TrbSteelGrade *
+steel_grade_of (const TrbMember   *m,
+                const MemberInput *in,
+                const TrbSettings *s)
+{
+  const char *name = trb_member_get_steel_grade (m, s);
+  Memo *memo = in->memo;
+
+  if (memo == NULL)
+    return trb_design_steel_lookup_grade (name);
+  if (memo->steel_name == NULL || strcmp (memo->steel_name, name) != 0)
+    {
+      g_free (memo->steel_name);
+      memo->steel_name = g_strdup (name);
+      memo->steel = trb_design_steel_lookup_grade (name);
+    }
+  return memo->steel;
+}
 
 /* The extremes of the deflection sets' entries over each span the deflection checks judge,
  * found with the entries' own extremes (evaluate_set()), for design_checks(). */
@@ -879,17 +917,18 @@ analyse (const TrbProject  *project,
       sx->total = g_array_new (FALSE, FALSE, sizeof (TrbBeamExtremes));
       sx->strength = g_array_new (FALSE, FALSE, sizeof (TrbBeamExtremes));
       sets_finite[0] = evaluate_set (r, &rr, &r->strength, seg_ab, sx->n_seg, sx->strength,
-                                     lean != NULL ? lean->keep[0] : NULL, lean == NULL);
+                                     lean != NULL ? lean->keep[0] : NULL, lean == NULL,
+                                     lean != NULL);
       sets_finite[1] = evaluate_set (r, &rr, &r->live, ab, sx->n_spans, sx->live,
-                                     lean != NULL ? lean->keep[1] : NULL, lean == NULL);
+                                     lean != NULL ? lean->keep[1] : NULL, lean == NULL, FALSE);
       sets_finite[2] = evaluate_set (r, &rr, &r->total, ab, sx->n_spans, sx->total,
-                                     lean != NULL ? lean->keep[2] : NULL, lean == NULL);
+                                     lean != NULL ? lean->keep[2] : NULL, lean == NULL, FALSE);
     }
   else
     {
-      sets_finite[0] = evaluate_set (r, &rr, &r->strength, NULL, 0, NULL, NULL, TRUE);
-      sets_finite[1] = evaluate_set (r, &rr, &r->live, NULL, 0, NULL, NULL, TRUE);
-      sets_finite[2] = evaluate_set (r, &rr, &r->total, NULL, 0, NULL, NULL, TRUE);
+      sets_finite[0] = evaluate_set (r, &rr, &r->strength, NULL, 0, NULL, NULL, TRUE, FALSE);
+      sets_finite[1] = evaluate_set (r, &rr, &r->live, NULL, 0, NULL, NULL, TRUE, FALSE);
+      sets_finite[2] = evaluate_set (r, &rr, &r->total, NULL, 0, NULL, NULL, TRUE, FALSE);
     }
   region_results_clear (&rr, r->regions->len);
 
@@ -1125,8 +1164,7 @@ design_checks (const TrbProject   *project,
     }
   else
     {
-      const TrbSteelGrade *grade =
-        trb_design_steel_lookup_grade (trb_member_get_steel_grade (m, s));
+      const TrbSteelGrade *grade = steel_grade_of (m, in, s);
 
       strength_checked = trb_design_steel_check (&input, grade,
                                                  r->method == TRB_METHOD_LRFD
@@ -1245,8 +1283,7 @@ solve_with_section (const TrbProject  *project,
     }
   else
     {
-      const TrbSteelGrade *grade =
-        trb_design_steel_lookup_grade (trb_member_get_steel_grade (m, s));
+      const TrbSteelGrade *grade = steel_grade_of (m, in, s);
 
       if (section->kind == TRB_SHAPE_SAWN || section->kind == TRB_SHAPE_GLULAM)
         {
@@ -1435,6 +1472,7 @@ typedef struct
   double            *fD_total;
   /* the largest of each, for margins that do not vanish at zero */
   double             M_scale, V_scale, D_scale;
+  double            *scratch;      /* room for the shares of a candidate */
   TrbBeam           *beam;         /* the member's beam (its supports; E = I = 1) */
   GPtrArray         *mem;          /* what the arrays above point into */
 } Reference;
@@ -1699,6 +1737,7 @@ reference_init (Reference             *ref,
 
   ref->n_live = r->live.entries->len;
   ref->n_total = r->total.entries->len;
+  ref->scratch = ref_alloc (ref, 4 * ref->n_str + 2 * ref->n_live + 2 * ref->n_total);
   ref->d_live = ref_alloc (ref, ref->n_live * ref->n_spans);
   ref->d_total = ref_alloc (ref, 3 * ref->n_total * ref->n_spans);
   ref->fD_total = ref_alloc (ref, ref->n_total);
@@ -1794,6 +1833,7 @@ bound_min (double  v,
 typedef struct
 {
   double  max_lo;          /* the largest lower bound of any check: above 1, it fails */
+  double  max_hi;          /* the largest upper bound: below 1, it passes */
   /* per strength entry, two checks: steel flexure and shear; allowable stress section
    * modulus and web shear; timber flexure (and all entries kept) */
   double *str_lo[2], *str_hi[2];
@@ -1803,18 +1843,24 @@ typedef struct
   gboolean live_checked, total_checked;
 } Shares;
 
+/* The shares' arrays, in room the reference keeps for them (sizing judges one candidate at a
+ * time), all 0 */
 static void
-shares_clear (Shares *sh)
+shares_init (Shares          *sh,
+             const Reference *ref)
 {
-  for (guint k = 0; k < 2; k++)
-    {
-      g_clear_pointer (&sh->str_lo[k], g_free);
-      g_clear_pointer (&sh->str_hi[k], g_free);
-    }
-  g_clear_pointer (&sh->live_lo, g_free);
-  g_clear_pointer (&sh->live_hi, g_free);
-  g_clear_pointer (&sh->total_lo, g_free);
-  g_clear_pointer (&sh->total_hi, g_free);
+  guint n = 4 * ref->n_str + 2 * ref->n_live + 2 * ref->n_total;
+
+  memset (sh, 0, sizeof *sh);
+  memset (ref->scratch, 0, n * sizeof (double));
+  sh->str_lo[0] = ref->scratch;
+  sh->str_hi[0] = sh->str_lo[0] + ref->n_str;
+  sh->str_lo[1] = sh->str_hi[0] + ref->n_str;
+  sh->str_hi[1] = sh->str_lo[1] + ref->n_str;
+  sh->live_lo = sh->str_hi[1] + ref->n_str;
+  sh->live_hi = sh->live_lo + ref->n_live;
+  sh->total_lo = sh->live_hi + ref->n_live;
+  sh->total_hi = sh->total_lo + ref->n_total;
 }
 
 static void
@@ -1855,8 +1901,7 @@ section_stiffness (const TrbProject    *project,
     }
   else
     {
-      const TrbSteelGrade *grade =
-        trb_design_steel_lookup_grade (trb_member_get_steel_grade (m, s));
+      const TrbSteelGrade *grade = steel_grade_of (m, in, s);
 
       if (section->kind == TRB_SHAPE_SAWN || section->kind == TRB_SHAPE_GLULAM || grade == NULL)
         return FALSE;
@@ -1885,7 +1930,7 @@ candidate_shares (const Reference    *ref,
   double live_limit = trb_member_get_deflection_live (m, s);
   double total_limit = trb_member_get_deflection_total (m, s);
 
-  memset (sh, 0, sizeof *sh);
+  shares_init (sh, ref);
   if (!ref->ready || (self_weight > 0) != (ref->self_weight > 0) || !(EI > 0) ||
       !isfinite (EI))
     return FALSE;
@@ -1903,10 +1948,6 @@ candidate_shares (const Reference    *ref,
   /* deflection: live load deflection scales with E I_ref / E I; the total moves with w too */
   sh->live_checked = live_limit > 0 && ref->n_spans > 0;
   sh->total_checked = total_limit > 0 && ref->n_spans > 0;
-  sh->live_lo = g_new0 (double, ref->n_live + 1);
-  sh->live_hi = g_new0 (double, ref->n_live + 1);
-  sh->total_lo = g_new0 (double, ref->n_total + 1);
-  sh->total_hi = g_new0 (double, ref->n_total + 1);
   for (guint i = 0; sh->live_checked && i < ref->n_live; i++)
     for (guint j = 0; j < ref->n_spans; j++)
       {
@@ -1938,11 +1979,6 @@ candidate_shares (const Reference    *ref,
   if (reject && sh->max_lo > 1 + BOUND_MARGIN)
     return TRUE;
 
-  for (guint k = 0; k < 2; k++)
-    {
-      sh->str_lo[k] = g_new0 (double, ref->n_str + 1);
-      sh->str_hi[k] = g_new0 (double, ref->n_str + 1);
-    }
 
   if (ref->method == TRB_METHOD_ALLOWABLE)
     {
@@ -1981,8 +2017,7 @@ candidate_shares (const Reference    *ref,
     }
   else if (ref->steel && section->kind == TRB_SHAPE_W)
     {
-      const TrbSteelGrade *grade =
-        trb_design_steel_lookup_grade (trb_member_get_steel_grade (m, s));
+      const TrbSteelGrade *grade = steel_grade_of (m, in, s);
       gboolean lrfd = ref->method == TRB_METHOD_LRFD;
       TrbSteelFlexure flex;
       TrbSteelShear shear;
@@ -2139,6 +2174,13 @@ candidate_shares (const Reference    *ref,
 
   for (guint i = 0; i < ref->n_str; i++)
     sh->max_lo = MAX (sh->max_lo, MAX (sh->str_lo[0][i], sh->str_lo[1][i]));
+  sh->max_hi = sh->keep_all_strength ? INFINITY : 0;
+  for (guint i = 0; i < ref->n_str; i++)
+    sh->max_hi = MAX (sh->max_hi, MAX (sh->str_hi[0][i], sh->str_hi[1][i]));
+  for (guint i = 0; sh->live_checked && i < ref->n_live; i++)
+    sh->max_hi = MAX (sh->max_hi, sh->live_hi[i]);
+  for (guint i = 0; sh->total_checked && i < ref->n_total; i++)
+    sh->max_hi = MAX (sh->max_hi, sh->total_hi[i]);
 
   /* a bound that is not a number bounds nothing */
   for (guint i = 0; i < ref->n_str; i++)
@@ -2172,7 +2214,7 @@ keep_reaching (const double *lo,
 
 typedef enum
 {
-  VERDICT_UNDECIDED,  /* analyse it in full */
+  VERDICT_UNDECIDED,  /* analyse it in full (or certainly passing, as the first to pass) */
   VERDICT_REJECTED,   /* certainly fails: not analysed */
   VERDICT_DECIDED,    /* status (pass or fail), ratio and governing as the full analysis */
 } VerdictKind;
@@ -2191,6 +2233,7 @@ judge_candidate (const Reference   *ref,
                  const MemberInput *in,
                  const TrbSection  *section,
                  gboolean           reject,
+                 gboolean           full_if_passing,
                  Verdict           *v)
 {
   const TrbWoodGrade *wood_grade;
@@ -2206,14 +2249,13 @@ judge_candidate (const Reference   *ref,
     return VERDICT_UNDECIDED;
   if (!candidate_shares (ref, project, m, in, section, E, wood_grade, reject, &sh))
     {
-      shares_clear (&sh);
       return VERDICT_UNDECIDED;
     }
   if (reject && sh.max_lo > 1 + BOUND_MARGIN)
-    {
-      shares_clear (&sh);
-      return VERDICT_REJECTED;
-    }
+    return VERDICT_REJECTED;
+  /* certainly passing, and to be analysed in full anyway */
+  if (full_if_passing && sh.max_hi < 1 - BOUND_MARGIN)
+    return VERDICT_UNDECIDED;
 
   keep = g_new0 (gboolean, ref->n_str + ref->n_live + ref->n_total + 1);
   if (sh.keep_all_strength)
@@ -2226,7 +2268,6 @@ judge_candidate (const Reference   *ref,
     keep_reaching (sh.live_lo, sh.live_hi, ref->n_live, keep + ref->n_str);
   if (sh.total_checked)
     keep_reaching (sh.total_lo, sh.total_hi, ref->n_total, keep + ref->n_str + ref->n_live);
-  shares_clear (&sh);
   lean.keep[0] = keep;
   lean.keep[1] = keep + ref->n_str;
   lean.keep[2] = keep + ref->n_str + ref->n_live;
@@ -2323,7 +2364,8 @@ size_member (const TrbProject  *project,
       Verdict v;
 
       if (use_bounds)
-        switch (ref.ready ? judge_candidate (&ref, project, m, in, section, reject, &v)
+        switch (ref.ready ? judge_candidate (&ref, project, m, in, section, reject,
+                                             best == NULL && chosen == NULL, &v)
                           : reference_candidate (&ref, project, m, in, section, &v))
           {
           case VERDICT_REJECTED:
