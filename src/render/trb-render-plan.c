@@ -184,6 +184,12 @@ struct _TrbPlanScene
   /* Text laid out by earlier draws: a draw changes nothing else of the scene, and the canvas
    * and the printed page each draw their own scene from one thread. */
   TrbRenderTextCache     *texts;
+  /* Each member's status in one byte, in the floor's order when the scene was made (members
+   * then, to tell whether the floor still holds the same one at an index): a draw reads them
+   * in a row instead of a hash lookup and a result a member. */
+  const TrbMember       **status_members;
+  guint8                 *status;
+  guint                   n_status;
 };
 
 static void
@@ -232,6 +238,17 @@ trb_plan_scene_new (const TrbProject       *project,
         if (r->member != NULL && r->member->floor == floor)
           g_hash_table_insert (scene->member_results, (gpointer) r->member, (gpointer) r);
       }
+
+  scene->n_status = floor->members->len;
+  scene->status_members = g_new0 (const TrbMember *, MAX (scene->n_status, 1));
+  scene->status = g_new0 (guint8, MAX (scene->n_status, 1));
+  for (guint i = 0; i < scene->n_status; i++)
+    {
+      const TrbMember *m = g_ptr_array_index (floor->members, i);
+
+      scene->status_members[i] = m;
+      scene->status[i] = trb_render_status_of (g_hash_table_lookup (scene->member_results, m));
+    }
 
   /* the floor solve's column loads, in the floor's column order */
   for (guint f = 0; results != NULL && results->floors != NULL && f < results->floors->len; f++)
@@ -294,6 +311,8 @@ trb_plan_scene_free (TrbPlanScene *scene)
   g_clear_pointer (&scene->member_results, g_hash_table_unref);
   g_free (scene->column_loads);
   trb_render_text_cache_free (scene->texts);
+  g_free (scene->status_members);
+  g_free (scene->status);
   g_free (scene);
 }
 
@@ -712,9 +731,20 @@ typedef struct
   TrbRgba                   paper;
   double                    fs;        /* font size */
   double                    lw;        /* member line width */
-  GArray                   *near_lines;    /* device lines (4 doubles) of the members
-                                            * member_visible() keeps; NULL until needed */
-  TrbPlanBounds             near_box;      /* a device box only they can reach */
+  /* per member of the floor, for this draw: visible (member_visible), its status and role */
+  guint8                   *vis;
+  guint8                   *status;
+  guint8                   *role;
+  double                   *line;      /* 4 a member: its ends on the device, when visible */
+  guint                     n_visible;
+  /* The visible members' lines by cells of NEAR_CELL device units over near_box, the device
+   * box only they can reach: near_first[c] to near_first[c + 1] in near_index. Made when
+   * first needed. */
+  guint                    *near_first;
+  guint                    *near_index;
+  int                       near_nx;
+  int                       near_ny;
+  TrbPlanBounds             near_box;
   gboolean                  swatches_ok;   /* set_line_color() may use swatches */
   guint                     n_swatches;
   TrbRgba                   swatch_colors[8];
@@ -889,42 +919,99 @@ line_touches_box (const double         line[4],
   return segment_touches_rect (ax, ay, bx, by, box);
 }
 
+#define NEAR_CELL 64.0
+
+/* The cells of the near grid a device box covers, clamped to the grid. */
+static void
+near_cells (const DrawContext *dc,
+            double             min_x,
+            double             min_y,
+            double             max_x,
+            double             max_y,
+            int                cells[4])
+{
+  cells[0] = CLAMP ((int) floor ((min_x - dc->near_box.min_x) / NEAR_CELL), 0, dc->near_nx - 1);
+  cells[1] = CLAMP ((int) floor ((min_y - dc->near_box.min_y) / NEAR_CELL), 0, dc->near_ny - 1);
+  cells[2] = CLAMP ((int) floor ((max_x - dc->near_box.min_x) / NEAR_CELL), 0, dc->near_nx - 1);
+  cells[3] = CLAMP ((int) floor ((max_y - dc->near_box.min_y) / NEAR_CELL), 0, dc->near_ny - 1);
+}
+
+static void
+near_grid_build (DrawContext *dc)
+{
+  guint n = dc->scene->floor->members->len;
+  /* the padding of dc->visible on the device, less a unit for rounding */
+  double pad = MAX (6 * dc->fs - 1, 0);
+  guint n_cells, total = 0;
+  g_autofree guint *fill = NULL;
+
+  dc->near_box = (TrbPlanBounds) { dc->device.min_x - pad, dc->device.min_y - pad,
+                                   dc->device.max_x + pad, dc->device.max_y + pad };
+  dc->near_nx = MAX (1, (int) ceil ((dc->near_box.max_x - dc->near_box.min_x) / NEAR_CELL));
+  dc->near_ny = MAX (1, (int) ceil ((dc->near_box.max_y - dc->near_box.min_y) / NEAR_CELL));
+  n_cells = dc->near_nx * dc->near_ny;
+  dc->near_first = g_new0 (guint, n_cells + 1);
+
+  /* counted, then placed: each line in every cell its box covers */
+  for (int pass = 0; pass < 2; pass++)
+    {
+      for (guint i = 0; i < n; i++)
+        {
+          const double *l = dc->line + 4 * i;
+          int c[4];
+
+          if (!dc->vis[i])
+            continue;
+          near_cells (dc, MIN (l[0], l[2]), MIN (l[1], l[3]), MAX (l[0], l[2]),
+                      MAX (l[1], l[3]), c);
+          for (int cy = c[1]; cy <= c[3]; cy++)
+            for (int cx = c[0]; cx <= c[2]; cx++)
+              {
+                guint cell = cy * dc->near_nx + cx;
+
+                if (pass == 0)
+                  dc->near_first[cell + 1]++;
+                else
+                  dc->near_index[fill[cell]++] = i;
+              }
+        }
+      if (pass == 0)
+        {
+          for (guint c = 0; c < n_cells; c++)
+            dc->near_first[c + 1] += dc->near_first[c];
+          total = dc->near_first[n_cells];
+          dc->near_index = g_new (guint, MAX (total, 1));
+          fill = g_memdup2 (dc->near_first, sizeof (guint) * n_cells);
+        }
+    }
+}
+
 /* Does a device rectangle cross a member's line? A box inside the drawing rectangle padded for
- * labels can only meet the members drawn, which are computed once a draw; zoomed in, a few
- * hundred of ten thousand. */
+ * labels can only meet the members drawn: those in the cells of the near grid it covers. */
 static gboolean
 box_hits_member (DrawContext         *dc,
                  const TrbPlanBounds *box)
 {
   const TrbFloor *floor = dc->scene->floor;
 
-  if (dc->near_lines == NULL)
-    {
-      /* the padding of dc->visible on the device, less a unit for rounding */
-      double pad = MAX (6 * dc->fs - 1, 0);
-
-      dc->near_lines = g_array_new (FALSE, FALSE, sizeof (double) * 4);
-      for (guint i = 0; i < floor->members->len; i++)
-        {
-          const TrbMember *m = g_ptr_array_index (floor->members, i);
-          double line[4];
-
-          if (!member_visible (dc, m))
-            continue;
-          trb_plan_view_to_device (dc->view, m->start.x, m->start.y, &line[0], &line[1]);
-          trb_plan_view_to_device (dc->view, m->end.x, m->end.y, &line[2], &line[3]);
-          g_array_append_val (dc->near_lines, line);
-        }
-      dc->near_box = (TrbPlanBounds) { dc->device.min_x - pad, dc->device.min_y - pad,
-                                       dc->device.max_x + pad, dc->device.max_y + pad };
-    }
+  if (dc->near_first == NULL)
+    near_grid_build (dc);
 
   if (box->min_x >= dc->near_box.min_x && box->max_x <= dc->near_box.max_x &&
       box->min_y >= dc->near_box.min_y && box->max_y <= dc->near_box.max_y)
     {
-      for (guint i = 0; i < dc->near_lines->len; i++)
-        if (line_touches_box (&g_array_index (dc->near_lines, double, 4 * i), box))
-          return TRUE;
+      int c[4];
+
+      near_cells (dc, box->min_x, box->min_y, box->max_x, box->max_y, c);
+      for (int cy = c[1]; cy <= c[3]; cy++)
+        for (int cx = c[0]; cx <= c[2]; cx++)
+          {
+            guint cell = cy * dc->near_nx + cx;
+
+            for (guint k = dc->near_first[cell]; k < dc->near_first[cell + 1]; k++)
+              if (line_touches_box (dc->line + 4 * dc->near_index[k], box))
+                return TRUE;
+          }
       return FALSE;
     }
 
@@ -1730,23 +1817,20 @@ draw_member_labels (DrawContext *dc)
   cairo_t *cr = dc->cr;
   const TrbFloor *floor = dc->scene->floor;
   guint n = floor->members->len;
-  g_autofree guint8 *vis = g_new0 (guint8, MAX (n, 1));
-  g_autofree guint8 *skip = g_new0 (guint8, MAX (n, 1));
-  g_autoptr(GArray) labels = g_array_new (FALSE, TRUE, sizeof (Label));
-  g_autoptr(GArray) placed = g_array_new (FALSE, FALSE, sizeof (TrbPlanBounds));
-  guint n_visible = 0;
+  const guint8 *vis = dc->vis;
+  g_autofree guint8 *skip = NULL;
+  g_autoptr(GArray) labels = NULL;
+  g_autoptr(GArray) placed = NULL;
 
   /* labels, when there is room: mark and section above the line, ratio and status below */
   if (!(dc->options->layers & TRB_PLAN_LAYER_LABELS))
     return;
-  for (guint i = 0; i < n; i++)
-    {
-      vis[i] = member_visible (dc, g_ptr_array_index (floor->members, i));
-      n_visible += vis[i];
-    }
   /* beyond this many on the screen at once, labels are an unreadable grey: leave them out */
-  if (!dc->style->print && n_visible > 3000)
+  if (!dc->style->print && dc->n_visible > 3000)
     return;
+  skip = g_new0 (guint8, MAX (n, 1));
+  labels = g_array_new (FALSE, TRUE, sizeof (Label));
+  placed = g_array_new (FALSE, FALSE, sizeof (TrbPlanBounds));
 
   g_array_set_clear_func (labels, (GDestroyNotify) label_clear);
   run_labels (dc, vis, skip, labels);
@@ -1833,25 +1917,49 @@ draw_member_labels (DrawContext *dc)
     }
 }
 
+/* Which members this draw shows, with their status and role, in three byte arrays: every
+ * layer asks, and ten thousand members' own memory read once instead of a dozen times. */
 static void
-draw_members (DrawContext *dc)
+classify_members (DrawContext *dc)
 {
-  cairo_t *cr = dc->cr;
-  const TrbFloor *floor = dc->scene->floor;
+  const TrbPlanScene *scene = dc->scene;
+  const TrbFloor *floor = scene->floor;
   guint n = floor->members->len;
-  g_autofree guint8 *vis = g_new0 (guint8, MAX (n, 1));
-  g_autofree guint8 *status = g_new0 (guint8, MAX (n, 1));
-  TrbRgba sel;
 
+  dc->vis = g_new0 (guint8, MAX (n, 1));
+  dc->status = g_new0 (guint8, MAX (n, 1));
+  dc->role = g_new0 (guint8, MAX (n, 1));
+  dc->line = g_new (double, 4 * MAX (n, 1));
+  dc->n_visible = 0;
   for (guint i = 0; i < n; i++)
     {
       const TrbMember *m = g_ptr_array_index (floor->members, i);
 
       if (!member_visible (dc, m))
         continue;
-      vis[i] = 1;
-      status[i] = trb_render_status_of (trb_plan_scene_lookup_result (dc->scene, m));
+      dc->vis[i] = 1;
+      dc->n_visible++;
+      dc->role[i] = m->role;
+      trb_plan_view_to_device (dc->view, m->start.x, m->start.y, &dc->line[4 * i],
+                               &dc->line[4 * i + 1]);
+      trb_plan_view_to_device (dc->view, m->end.x, m->end.y, &dc->line[4 * i + 2],
+                               &dc->line[4 * i + 3]);
+      /* the scene's byte while the floor holds the member it was made for at i */
+      if (i < scene->n_status && scene->status_members[i] == m)
+        dc->status[i] = scene->status[i];
+      else
+        dc->status[i] = trb_render_status_of (trb_plan_scene_lookup_result (scene, m));
     }
+}
+
+static void
+draw_members (DrawContext *dc)
+{
+  cairo_t *cr = dc->cr;
+  const TrbFloor *floor = dc->scene->floor;
+  guint n = floor->members->len;
+  const guint8 *vis = dc->vis, *status = dc->status, *roles = dc->role;
+  TrbRgba sel;
 
   cairo_set_line_cap (cr, CAIRO_LINE_CAP_BUTT);
 
@@ -1881,13 +1989,13 @@ draw_members (DrawContext *dc)
         double w = dc->lw * role_width (role);
         gboolean any = FALSE;
 
+        /* from the bytes and lines classify_members() keeps: no member's own memory again */
         for (guint i = 0; i < n; i++)
           {
-            const TrbMember *m = g_ptr_array_index (floor->members, i);
-
-            if (!vis[i] || (int) m->role != role || status[i] != st)
+            if (!vis[i] || roles[i] != role || status[i] != st)
               continue;
-            member_path (dc, m);
+            cairo_move_to (cr, dc->line[4 * i], dc->line[4 * i + 1]);
+            cairo_line_to (cr, dc->line[4 * i + 2], dc->line[4 * i + 3]);
             any = TRUE;
           }
         if (!any)
@@ -2202,8 +2310,10 @@ trb_plan_draw (cairo_t                  *cr,
   dc.visible.max_x += pad;
   dc.visible.max_y += pad;
 
-  dc.near_lines = NULL;
+  dc.near_first = NULL;
+  dc.near_index = NULL;
   dc.n_swatches = 0;
+  classify_members (&dc);
   switch (cairo_surface_get_type (cairo_get_target (cr)))
     {
     case CAIRO_SURFACE_TYPE_IMAGE:
@@ -2255,5 +2365,10 @@ trb_plan_draw (cairo_t                  *cr,
   cairo_restore (cr);
   for (guint i = 0; i < dc.n_swatches; i++)
     cairo_pattern_destroy (dc.swatches[i]);
-  g_clear_pointer (&dc.near_lines, g_array_unref);
+  g_free (dc.near_first);
+  g_free (dc.near_index);
+  g_free (dc.line);
+  g_free (dc.vis);
+  g_free (dc.status);
+  g_free (dc.role);
 }
