@@ -181,6 +181,32 @@ compare_double (const void *a,
   return (x > y) - (x < y);
 }
 
+/* qsort() for the few values a member has: glibc's qsort is a stable merge sort, and so is
+ * this, so both give the same order (of -0 and 0 too); a call of qsort costs more than
+ * sorting a handful. */
+static void
+sort_doubles (double *v,
+              guint   n)
+{
+  if (n > 32)
+    {
+      qsort (v, n, sizeof (double), compare_double);
+      return;
+    }
+  for (guint i = 1; i < n; i++)
+    {
+      double t = v[i];
+      guint j = i;
+
+      while (j > 0 && v[j - 1] > t)
+        {
+          v[j] = v[j - 1];
+          j--;
+        }
+      v[j] = t;
+    }
+}
+
 /* Sorts and drops values within SAME_X of the one before. */
 static void
 sort_unique (GArray *values)
@@ -189,7 +215,7 @@ sort_unique (GArray *values)
 
   if (values->len == 0)
     return;
-  qsort (values->data, values->len, sizeof (double), compare_double);
+  sort_doubles ((double *) values->data, values->len);
   for (guint i = 1; i < values->len; i++)
     if (g_array_index (values, double, i) - g_array_index (values, double, j) > SAME_X)
       g_array_index (values, double, ++j) = g_array_index (values, double, i);
@@ -340,7 +366,8 @@ grid_query (Grid      *grid,
             gboolean   sorted,
             GArray    *out)
 {
-  guint cx0, cy0, cx1, cy1;
+  guint cx0, cy0, cx1, cy1, n = 0;
+  guint *items;
 
   g_array_set_size (out, 0);
   if (grid->n_items == 0)
@@ -350,6 +377,9 @@ grid_query (Grid      *grid,
       memset (grid->stamp, 0, grid->n_items * sizeof (guint));
       grid->query = 1;
     }
+  /* each item at most once: room for all of them, written in place */
+  g_array_set_size (out, grid->n_items);
+  items = (guint *) out->data;
   grid_cells (grid, box, &cx0, &cy0, &cx1, &cy1);
   for (guint cy = cy0; cy <= cy1; cy++)
     for (guint cx = cx0; cx <= cx1; cx++)
@@ -363,12 +393,26 @@ grid_query (Grid      *grid,
             if (grid->stamp[i] != grid->query)
               {
                 grid->stamp[i] = grid->query;
-                g_array_append_val (out, i);
+                items[n++] = i;
               }
           }
       }
-  if (sorted && out->len > 1)
-    qsort (out->data, out->len, sizeof (guint), compare_guint);
+  g_array_set_size (out, n);
+  if (sorted && n > 32)
+    qsort (items, n, sizeof (guint), compare_guint);
+  else if (sorted)
+    for (guint i = 1; i < n; i++)
+      {
+        guint t = items[i];
+        guint j = i;
+
+        while (j > 0 && items[j - 1] > t)
+          {
+            items[j] = items[j - 1];
+            j--;
+          }
+        items[j] = t;
+      }
 }
 
 /* Whether the box takes in every cell of the grid. */
@@ -1118,9 +1162,11 @@ strips_from (const Context *ctx,
   const Axis *axes = ctx->axes;
   const Axis *axis = &axes[m];
   double L = axis->length;
-  g_autoptr(GArray) neighbours = g_array_new (FALSE, FALSE, sizeof (Neighbour));
-  g_autoptr(GArray) breaks = g_array_new (FALSE, FALSE, sizeof (double));
-  double zero = 0.0;
+  g_autoptr(GArray) breaks = g_array_sized_new (FALSE, FALSE, sizeof (double),
+                                                2 * found->len + 2);
+  g_autofree Neighbour *neighbour = g_new (Neighbour, found->len + 1);
+  double *brk = (double *) breaks->data;
+  guint n_nb = 0, n_brk = 0;
 
   g_array_set_size (strips, 0);
   for (guint f = 0; f < found->len; f++)
@@ -1148,13 +1194,24 @@ strips_from (const Context *ctx,
       mid = neighbour_offset (&nb, 0.5 * (nb.a + nb.b));
       if (fabs (mid) <= TOL)
         continue;
-      g_array_append_val (neighbours, nb);
-      g_array_append_val (breaks, nb.a);
-      g_array_append_val (breaks, nb.b);
+      neighbour[n_nb++] = nb;
+      /* most neighbours span the same stretch: a value already there adds nothing once
+       * sorted (sort_unique() keeps the first of equal values) */
+      for (guint e = 0; e < 2; e++)
+        {
+          double x = e == 0 ? nb.a : nb.b;
+          guint k = 0;
+
+          while (k < n_brk && brk[k] != x)
+            k++;
+          if (k == n_brk)
+            brk[n_brk++] = x;
+        }
     }
 
-  g_array_append_val (breaks, zero);
-  g_array_append_val (breaks, L);
+  brk[n_brk++] = 0.0;
+  brk[n_brk++] = L;
+  g_array_set_size (breaks, n_brk);
   sort_unique (breaks);
 
   for (guint i = 0; i + 1 < breaks->len; i++)
@@ -1166,9 +1223,9 @@ strips_from (const Context *ctx,
 
       if (a < 0.0 || b > L)
         continue;
-      for (guint k = 0; k < neighbours->len; k++)
+      for (guint k = 0; k < n_nb; k++)
         {
-          const Neighbour *nb = &g_array_index (neighbours, Neighbour, k);
+          const Neighbour *nb = &neighbour[k];
           double v;
 
           if (mid < nb->a || mid > nb->b)
@@ -1268,16 +1325,18 @@ find_strips (Context              *ctx,
 
 /* ---- area loads over a strip --------------------------------------------------------------- */
 
+/* x and v take 2 n doubles of room the caller keeps */
 static void
 local_polygon_init (LocalPolygon        *poly,
                     const Axis          *axis,
                     const TrbFramePoint *points,
                     guint                n,
                     double               q,
-                    int                  load_case)
+                    int                  load_case,
+                    double              *room)
 {
-  poly->x = g_new (double, n);
-  poly->v = g_new (double, n);
+  poly->x = room;
+  poly->v = room + n;
   poly->n = n;
   poly->q = q;
   poly->load_case = load_case;
@@ -1291,13 +1350,6 @@ local_polygon_init (LocalPolygon        *poly,
       poly->v_min = MIN (poly->v_min, poly->v[i]);
       poly->v_max = MAX (poly->v_max, poly->v[i]);
     }
-}
-
-static void
-local_polygon_clear (LocalPolygon *poly)
-{
-  g_clear_pointer (&poly->x, g_free);
-  g_clear_pointer (&poly->v, g_free);
 }
 
 static gboolean
@@ -1330,9 +1382,7 @@ polygon_chords (const LocalPolygon *poly,
           g_array_append_val (crossings, v);
         }
     }
-  /* an empty GArray's data may be NULL, which qsort must not be given */
-  if (crossings->len > 1)
-    qsort (crossings->data, crossings->len, sizeof (double), compare_double);
+  sort_doubles ((double *) crossings->data, crossings->len);
 }
 
 /* The union of the openings' chords at x, clipped to [lo, hi], as disjoint sorted intervals. */
@@ -1513,14 +1563,28 @@ area_loads (const TrbFramePlan   *plan,
   g_autoptr(GArray) crossings = g_array_new (FALSE, FALSE, sizeof (double));
   g_autoptr(GArray) holes = g_array_new (FALSE, FALSE, sizeof (Interval));
   g_autoptr(GArray) pieces = g_array_new (FALSE, FALSE, sizeof (Piece));
+  g_autofree double *room = NULL;
+  gsize n_room = 0;
 
   for (guint i = 0; i < n_loads; i++)
-    local_polygon_init (&polys[i], axis, plan->area_loads[i].points,
-                        plan->area_loads[i].n_points, plan->area_loads[i].pressure,
-                        plan->area_loads[i].load_case);
+    n_room += 2 * (gsize) plan->area_loads[i].n_points;
   for (guint i = 0; i < n_open; i++)
-    local_polygon_init (&openings[i], axis, plan->openings[i].points,
-                        plan->openings[i].n_points, 0.0, -1);
+    n_room += 2 * (gsize) plan->openings[i].n_points;
+  room = g_new (double, n_room + 1);
+  n_room = 0;
+  for (guint i = 0; i < n_loads; i++)
+    {
+      local_polygon_init (&polys[i], axis, plan->area_loads[i].points,
+                          plan->area_loads[i].n_points, plan->area_loads[i].pressure,
+                          plan->area_loads[i].load_case, room + n_room);
+      n_room += 2 * (gsize) plan->area_loads[i].n_points;
+    }
+  for (guint i = 0; i < n_open; i++)
+    {
+      local_polygon_init (&openings[i], axis, plan->openings[i].points,
+                          plan->openings[i].n_points, 0.0, -1, room + n_room);
+      n_room += 2 * (gsize) plan->openings[i].n_points;
+    }
 
   for (int c = 0; c < TRB_N_CASES; c++)
     {
@@ -1636,11 +1700,6 @@ area_loads (const TrbFramePlan   *plan,
           }
       }
     }
-
-  for (guint i = 0; i < n_loads; i++)
-    local_polygon_clear (&polys[i]);
-  for (guint i = 0; i < n_open; i++)
-    local_polygon_clear (&openings[i]);
 }
 
 /* ---- line and point loads ------------------------------------------------------------------ */
