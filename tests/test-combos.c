@@ -657,6 +657,55 @@ test_extremes_intervals (void)
     }
 }
 
+/* trb_beam_result_restiffen() gives what solving the same loads on a beam of another E I
+ * gives, bit for bit. */
+static void
+test_restiffen (void)
+{
+  g_autoptr(GRand) rand = g_rand_new_with_seed (20261206);
+
+  for (guint trial = 0; trial < 200; trial++)
+    {
+      TrbSupport sup[6];
+      TrbLoad loads[6];
+      guint n = g_rand_int_range (rand, 2, 6), n_loads = g_rand_int_range (rand, 0, 6);
+      double x = g_rand_boolean (rand) ? g_rand_double_range (rand, 0.5, 2) : 0, length;
+      g_autoptr(TrbBeam) a = NULL;
+      g_autoptr(TrbBeam) b = NULL;
+      g_autoptr(TrbBeamResult) ra = NULL;
+      g_autoptr(TrbBeamResult) rb = NULL;
+      g_autoptr(TrbBeamResult) again = NULL;
+
+      for (guint i = 0; i < n; i++)
+        {
+          sup[i].x = x;
+          sup[i].type = g_rand_int_range (rand, 0, 6) == 0 ? TRB_SUPPORT_FIXED : TRB_SUPPORT_PIN;
+          x += g_rand_double_range (rand, 2, 9);
+        }
+      length = sup[n - 1].x + (g_rand_boolean (rand) ? g_rand_double_range (rand, 0.5, 2) : 0);
+      for (guint i = 0; i < n_loads; i++)
+        {
+          double p = g_rand_double_range (rand, 0, length);
+
+          loads[i].kind = g_rand_int_range (rand, 0, 4);
+          loads[i].a = p;
+          loads[i].b = g_rand_double_range (rand, p, length);
+          loads[i].w1 = g_rand_double_range (rand, -5e3, 2e4);
+          loads[i].w2 = g_rand_double_range (rand, -5e3, 2e4);
+        }
+      a = trb_beam_new (length, 200e9, g_rand_double_range (rand, 1e-5, 1e-3), sup, n, NULL);
+      b = trb_beam_new (length, g_rand_double_range (rand, 8e9, 2e11),
+                        g_rand_double_range (rand, 1e-5, 1e-3), sup, n, NULL);
+      g_assert_nonnull (a);
+      g_assert_nonnull (b);
+      ra = trb_beam_solve (a, loads, n_loads, NULL);
+      rb = trb_beam_solve (b, loads, n_loads, NULL);
+      again = trb_beam_result_restiffen (ra, b);
+      g_assert_nonnull (again);
+      assert_same_results (again, rb);
+    }
+}
+
 /* trb_beam_result_extremes_intervals() says a result is finite exactly when its reactions
  * and the values on both sides of each break are: loads near the largest double overflow
  * some of them (the shear, or only the deflection through a small E I). */
@@ -719,6 +768,7 @@ main (int    argc,
   g_test_add_func ("/trb/combos/engine/combiner", test_combiner);
   g_test_add_func ("/trb/combos/engine/intervals", test_extremes_intervals);
   g_test_add_func ("/trb/combos/engine/finite", test_finite);
+  g_test_add_func ("/trb/combos/engine/restiffen", test_restiffen);
   g_test_add_func ("/trb/combos/case-names", test_case_names);
   g_test_add_func ("/trb/combos/lrfd/all-cases", test_lrfd_all_cases);
   g_test_add_func ("/trb/combos/lrfd/dead-live", test_lrfd_dead_live);

@@ -73,9 +73,12 @@ struct _TrbBeamResult
   double       inv_EI;    /* multiplications are much cheaper than divisions when drawing */
   guint        n_breaks;  /* >= 2; the segments number n_breaks - 1 */
   guint        n_reactions;
+  guint        n_phi;     /* a solved result: the supports' E I theta (no E I in them), one
+                           * a support, to solve it again with another E I; else 0 */
   TrbSegment  *segments;
   double      *breaks;
   TrbReaction *reactions;
+  double      *phi;
 };
 
 /* ---- the beam ---- */
@@ -351,10 +354,12 @@ bernstein2 (double p0, double p1,
 
 static gsize
 result_size (guint n_breaks,
-             guint n_reactions)
+             guint n_reactions,
+             guint n_phi)
 {
   return sizeof (TrbBeamResult) + (n_breaks - 1) * sizeof (TrbSegment) +
-         n_breaks * sizeof (double) + n_reactions * sizeof (TrbReaction);
+         n_breaks * sizeof (double) + n_reactions * sizeof (TrbReaction) +
+         n_phi * sizeof (double);
 }
 
 static void
@@ -365,15 +370,17 @@ result_set_pointers (TrbBeamResult *r)
   r->segments = (TrbSegment *) (mem + sizeof (TrbBeamResult));
   r->breaks = (double *) (mem + sizeof (TrbBeamResult) + (r->n_breaks - 1) * sizeof (TrbSegment));
   r->reactions = (TrbReaction *) (r->breaks + r->n_breaks);
+  r->phi = (double *) (r->reactions + r->n_reactions);
 }
 
 static TrbBeamResult *
 result_alloc (double length,
               double EI,
               guint  n_breaks,
-              guint  n_reactions)
+              guint  n_reactions,
+              guint  n_phi)
 {
-  gsize size = result_size (n_breaks, n_reactions);
+  gsize size = result_size (n_breaks, n_reactions, n_phi);
   /* not zeroed: every field is written by the caller */
   TrbBeamResult *r = g_malloc (size);
 
@@ -383,6 +390,7 @@ result_alloc (double length,
   r->inv_EI = 1.0 / EI;
   r->n_breaks = n_breaks;
   r->n_reactions = n_reactions;
+  r->n_phi = n_phi;
   result_set_pointers (r);
   return r;
 }
@@ -541,6 +549,130 @@ segment_advance (const TrbSegment *s,
        h * h * (s->M * C2 + h * (s->V * C6 - h * (w * C24 + h * dw * C120))) * inv_EI;
 }
 
+/* V and M of segment_advance() alone: the same operations */
+static inline void
+segment_advance_moments (const TrbSegment *s,
+                         double            h,
+                         double           *V,
+                         double           *M)
+{
+  double w = s->w, dw = s->dw;
+
+  *V = s->V - h * (w + h * dw * C2);
+  *M = s->M + h * (s->V - h * (w * C2 + h * dw * C6));
+}
+
+/* theta and v of segment_advance() alone */
+static inline void
+segment_advance_rotation (const TrbSegment *s,
+                          double            h,
+                          double            inv_EI,
+                          double           *theta,
+                          double           *v)
+{
+  double w = s->w, dw = s->dw;
+
+  *theta = s->theta + h * (s->M + h * (s->V * C2 - h * (w * C6 + h * dw * C24))) * inv_EI;
+  *v = s->v + h * s->theta +
+       h * h * (s->M * C2 + h * (s->V * C6 - h * (w * C24 + h * dw * C120))) * inv_EI;
+}
+
+/* theta and v of every segment of a solved result whose V, M, w and dw are in place, from the
+ * supports' rotations times E I (res->phi) and E I: the left overhang integrated with a
+ * provisional theta = v = 0 at x = 0, then shifted so that v(s0) = 0 and theta(s0) matches
+ * the support; each span and the right overhang from their support. sidx: each support's
+ * break. */
+static void
+sweep_rotations (TrbBeamResult    *res,
+                 const TrbSupport *sup,
+                 guint             ns,
+                 const guint      *sidx,
+                 double            EI)
+{
+  TrbSegment *seg = res->segments;
+  const double *brk = res->breaks;
+  const double *phi = res->phi;
+  guint nseg = res->n_breaks - 1;
+  guint k0 = sidx[0];
+  double theta = 0, v = 0;
+
+  for (guint k = 0; k < k0; k++)
+    {
+      seg[k].theta = theta;
+      seg[k].v = v;
+      segment_advance_rotation (&seg[k], brk[k + 1] - brk[k], res->inv_EI, &theta, &v);
+    }
+  if (k0 > 0)
+    {
+      double t0 = phi[0] / EI - theta;
+      double v_end = v;
+
+      for (guint k = 0; k < k0; k++)
+        {
+          seg[k].v = seg[k].v - v_end - t0 * (sup[0].x - brk[k]);
+          seg[k].theta += t0;
+        }
+    }
+
+  for (guint i = 0; i < ns; i++)
+    {
+      guint kend = i + 1 < ns ? sidx[i + 1] : nseg;
+
+      for (guint k = sidx[i]; k < kend; k++)
+        {
+          if (k == sidx[i])
+            {
+              theta = phi[i] / EI;
+              v = 0;
+            }
+          seg[k].theta = theta;
+          seg[k].v = v;
+          segment_advance_rotation (&seg[k], brk[k + 1] - brk[k], res->inv_EI, &theta, &v);
+        }
+    }
+}
+
+/**
+ * trb_beam_result_restiffen:
+ * @solved: a result of trb_beam_solve()
+ * @beam: a beam of the same length and supports as the one solved, E and I aside
+ *
+ * The result trb_beam_solve() gives for the same loads on @beam, bit for bit: the shears,
+ * moments and reactions do not depend on E I, so only the rotations and deflections are
+ * swept again.
+ *
+ * Returns: (transfer full): the result, or %NULL when @solved is not one trb_beam_solve()
+ *   made on such a beam
+ */
+TrbBeamResult *
+trb_beam_result_restiffen (const TrbBeamResult *solved,
+                           const TrbBeam       *beam)
+{
+  TrbBeamResult *res;
+  guint sidx_stack[64];
+  g_autofree guint *sidx_heap = NULL;
+  guint *sidx;
+  guint ns;
+
+  g_return_val_if_fail (solved != NULL && beam != NULL, NULL);
+
+  ns = beam->n_supports;
+  if (solved->n_phi != ns || solved->n_reactions != ns || solved->length != beam->length)
+    return NULL;
+  for (guint i = 0; i < ns; i++)
+    if (solved->reactions[i].x != beam->supports[i].x)
+      return NULL;
+  sidx = ns <= G_N_ELEMENTS (sidx_stack) ? sidx_stack : (sidx_heap = g_new (guint, ns));
+  res = g_memdup2 (solved, solved->size);
+  result_set_pointers (res);
+  res->EI = beam->EI;
+  res->inv_EI = 1.0 / beam->EI;
+  for (guint i = 0; i < ns; i++)
+    sidx[i] = find_break (res->breaks, res->n_breaks, beam->supports[i].x);
+  sweep_rotations (res, beam->supports, ns, sidx, beam->EI);
+  return res;
+}
+
 /**
  * trb_beam_solve:
  * @beam: a beam
@@ -628,7 +760,7 @@ trb_beam_solve (const TrbBeam  *beam,
   }
   nseg = nb - 1;
 
-  res = result_alloc (L, EI, nb, ns);
+  res = result_alloc (L, EI, nb, ns, ns);
   memcpy (res->breaks, brk, nb * sizeof (double));
   brk = res->breaks;
   seg = res->segments;
@@ -836,35 +968,20 @@ trb_beam_solve (const TrbBeam  *beam,
         }
     }
 
-  /* the segments, swept left to right: the left overhang, each span, the right overhang */
+  /* the segments, swept left to right: the left overhang, each span, the right overhang; V
+   * and M first, then theta and v, which alone depend on E I */
   {
-    double V = 0, M = 0, theta = 0, v = 0;
+    double V = 0, M = 0;
     guint k0 = sidx[0];
 
-    /* left overhang: integrate with a provisional theta = v = 0 at x = 0, then shift so that
-     * v(s0) = 0 and theta(s0) matches the support */
     for (guint k = 0; k < k0; k++)
       {
         V -= P[k];
         M += m[k];
         seg[k].V = V;
         seg[k].M = M;
-        seg[k].theta = theta;
-        seg[k].v = v;
-        segment_advance (&seg[k], brk[k + 1] - brk[k], res->inv_EI, &V, &M, &theta, &v);
+        segment_advance_moments (&seg[k], brk[k + 1] - brk[k], &V, &M);
       }
-    if (k0 > 0)
-      {
-        double t0 = phi[0] / EI - theta;
-        double v_end = v;
-
-        for (guint k = 0; k < k0; k++)
-          {
-            seg[k].v = seg[k].v - v_end - t0 * (sup[0].x - brk[k]);
-            seg[k].theta += t0;
-          }
-      }
-
     for (guint i = 0; i < ns; i++)
       {
         guint kend = i + 1 < ns ? sidx[i + 1] : nseg;
@@ -875,8 +992,6 @@ trb_beam_solve (const TrbBeam  *beam,
               {
                 V = i + 1 < ns ? Vl[i] : WR;
                 M = i + 1 < ns ? Ml[i] : MoR;
-                theta = phi[i] / EI;
-                v = 0;
               }
             else
               {
@@ -885,12 +1000,12 @@ trb_beam_solve (const TrbBeam  *beam,
               }
             seg[k].V = V;
             seg[k].M = M;
-            seg[k].theta = theta;
-            seg[k].v = v;
-            segment_advance (&seg[k], brk[k + 1] - brk[k], res->inv_EI, &V, &M, &theta, &v);
+            segment_advance_moments (&seg[k], brk[k + 1] - brk[k], &V, &M);
           }
       }
   }
+  memcpy (res->phi, phi, ns * sizeof (double));
+  sweep_rotations (res, sup, ns, sidx, EI);
 
   return res;
 }
@@ -961,7 +1076,7 @@ trb_beam_result_combine (TrbBeamResult **results,
       memcpy (brk, first->breaks, nb * sizeof (double));
     }
 
-  res = result_alloc (first->length, first->EI, nb, first->n_reactions);
+  res = result_alloc (first->length, first->EI, nb, first->n_reactions, 0);
   memcpy (res->breaks, brk, nb * sizeof (double));
 
   /* each merged segment: every result's state at its start (a Taylor shift of that result's
@@ -1247,7 +1362,7 @@ trb_beam_combiner_combine (const TrbBeamCombiner *combiner,
   if (nb < 2)
     {
       /* every factor is zero: a zero result on the breaks of the first */
-      res = result_alloc (first->length, first->EI, first->n_breaks, first->n_reactions);
+      res = result_alloc (first->length, first->EI, first->n_breaks, first->n_reactions, 0);
       memcpy (res->breaks, first->breaks, first->n_breaks * sizeof (double));
       for (guint k = 0; k + 1 < first->n_breaks; k++)
         {
@@ -1257,7 +1372,7 @@ trb_beam_combiner_combine (const TrbBeamCombiner *combiner,
     }
   else
     {
-      res = result_alloc (first->length, first->EI, nb, first->n_reactions);
+      res = result_alloc (first->length, first->EI, nb, first->n_reactions, 0);
       for (guint k = 0; k < nb; k++)
         res->breaks[k] = combiner->u[sel[k]];
       for (guint k = 0; k + 1 < nb; k++)

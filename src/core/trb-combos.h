@@ -119,6 +119,8 @@ TrbBeamResult   *trb_beam_combiner_combine  (const TrbBeamCombiner *combiner,
 void             trb_beam_combiner_free     (TrbBeamCombiner       *combiner);
 
 double           trb_beam_result_bound      (const TrbBeamResult   *result);
+TrbBeamResult   *trb_beam_result_restiffen  (const TrbBeamResult   *solved,
+                                             const TrbBeam         *beam);
 
 void             trb_beam_result_extremes_intervals (const TrbBeamResult *result,
                                                      const double        *ab,

@@ -424,6 +424,9 @@ typedef struct
                                   * GRADE_NONE) */
   char                *steel_name;   /* the last steel grade looked up, by its name */
   const TrbSteelGrade *steel;
+  char                *wood_species; /* and the last species and grade, with its sizes */
+  char                *wood_grade;
+  GHashTable          *wood_sizes;
 } Memo;
 
 /* a size without design values, remembered as such */
@@ -447,6 +450,8 @@ memo_free (Memo *memo)
     return;
   g_hash_table_unref (memo->grades);
   g_free (memo->steel_name);
+  g_free (memo->wood_species);
+  g_free (memo->wood_grade);
   g_free (memo);
 }
 
@@ -673,7 +678,59 @@ typedef struct
   double            repetitive_spacing;  /* m; NAN: from the member's "repetitive" flag */
   Memo             *memo;                /* lookups to reuse; may be NULL */
   const TrbMember  *member;              /* whose braces and design attributes they are */
+  struct _MemberPlan *plan;              /* sizing: what its analyses share; may be NULL */
 } MemberInput;
+
+/* What sizing's analyses of one member share whatever the section, kept from the first: its
+ * regions and live-load patterns, and its load cases and per-region results other than dead
+ * load with a self-weight, solved again with each section's E I by
+ * trb_beam_result_restiffen(), which gives what solving them gives. */
+typedef struct _MemberPlan
+{
+  gboolean        ready;
+  gboolean        self_weight;             /* of the first: D is its own for each section */
+  TrbBeamResult  *cases[TRB_N_CASES];
+  GArray         *regions;
+  GArray         *patterns;
+  TrbBeamResult **by_region[TRB_N_CASES];
+  guint           n_regions;
+  /* the deflection checks' spans and the flexure segments (SpanExtremes) */
+  gboolean           have_cuts;
+  TrbDeflectionSpan *spans;
+  guint              n_spans;
+  double            *seg;
+  guint              n_seg;
+} MemberPlan;
+
+static void
+member_plan_clear (MemberPlan *plan)
+{
+  for (guint c = 0; c < TRB_N_CASES; c++)
+    {
+      g_clear_pointer (&plan->cases[c], trb_beam_result_free);
+      for (guint reg = 0; plan->by_region[c] != NULL && reg < plan->n_regions; reg++)
+        trb_beam_result_free (plan->by_region[c][reg]);
+      g_clear_pointer (&plan->by_region[c], g_free);
+    }
+  g_clear_pointer (&plan->regions, g_array_unref);
+  g_clear_pointer (&plan->patterns, g_array_unref);
+  g_clear_pointer (&plan->spans, g_free);
+  g_clear_pointer (&plan->seg, g_free);
+  plan->have_cuts = FALSE;
+  plan->ready = FALSE;
+}
+
+/* The result of case c (or of a region: by_region) solved again on beam from the plan, or
+ * NULL when the plan has none for it. */
+static TrbBeamResult *
+plan_result (const MemberPlan *plan,
+             const TrbBeam    *beam,
+             const TrbBeamResult *kept)
+{
+  if (plan == NULL || !plan->ready || kept == NULL)
+    return NULL;
+  return trb_beam_result_restiffen (kept, beam);
+}
 
 /* The member's steel grade, NULL when it is unknown (the memo keeps the last one looked up,
  * whose name sizing asks for again and again) */
@@ -786,9 +843,10 @@ analyse (const TrbProject  *project,
   for (guint c = 0; c < TRB_N_CASES; c++)
     {
       g_autoptr(GArray) loads = g_array_new (FALSE, TRUE, sizeof (TrbLoad));
+      gboolean own = c == TRB_CASE_D && r->self_weight > 0;
 
       g_array_append_vals (loads, in->loads[c], in->n_loads[c]);
-      if (c == TRB_CASE_D && r->self_weight > 0)
+      if (own)
         {
           TrbLoad sw = { TRB_LOAD_UNIFORM, 0, in->length, r->self_weight, r->self_weight };
 
@@ -798,7 +856,12 @@ analyse (const TrbProject  *project,
         continue;
 
       r->has_case[c] = TRUE;
-      r->cases[c] = trb_beam_solve (r->beam, (const TrbLoad *) loads->data, loads->len, &error);
+      if (!own && in->plan != NULL && in->plan->ready &&
+          (r->self_weight > 0) == in->plan->self_weight)
+        r->cases[c] = plan_result (in->plan, r->beam, in->plan->cases[c]);
+      if (r->cases[c] == NULL)
+        r->cases[c] = trb_beam_solve (r->beam, (const TrbLoad *) loads->data, loads->len,
+                                      &error);
       if (r->cases[c] == NULL)
         {
           set_status (r, TRB_STATUS_ERROR, "case %s: %s", trb_load_case_name (c),
@@ -819,7 +882,10 @@ analyse (const TrbProject  *project,
 
   beam_supports = trb_beam_get_supports (r->beam, &n_beam_supports);
   g_array_unref (r->regions);
-  r->regions = trb_regions_build (beam_supports, n_beam_supports, in->length);
+  if (in->plan != NULL && in->plan->ready)
+    r->regions = g_array_ref (in->plan->regions);
+  else
+    r->regions = trb_regions_build (beam_supports, n_beam_supports, in->length);
 
   use_patterns = project->settings.live_patterns && r->regions->len > 1 &&
                  (r->has_case[TRB_CASE_L] || r->has_case[TRB_CASE_LR]);
@@ -839,7 +905,10 @@ analyse (const TrbProject  *project,
       guint n_regions = r->regions->len;
 
       g_array_unref (r->patterns);
-      r->patterns = trb_patterns_build (regions, n_regions, live_label (r));
+      if (in->plan != NULL && in->plan->ready)
+        r->patterns = g_array_ref (in->plan->patterns);
+      else
+        r->patterns = trb_patterns_build (regions, n_regions, live_label (r));
 
       for (guint c = 0; c < TRB_N_CASES; c++)
         {
@@ -847,6 +916,23 @@ analyse (const TrbProject  *project,
 
           if (!is_patterned_case (c) || !r->has_case[c])
             continue;
+          if (in->plan != NULL && in->plan->ready && in->plan->by_region[c] != NULL)
+            {
+              gboolean all = TRUE;
+
+              rr.by_region[c] = g_new0 (TrbBeamResult *, n_regions);
+              for (guint reg = 0; reg < n_regions; reg++)
+                {
+                  rr.by_region[c][reg] = plan_result (in->plan, r->beam,
+                                                      in->plan->by_region[c][reg]);
+                  all = all && rr.by_region[c][reg] != NULL;
+                }
+              if (all)
+                continue;
+              for (guint reg = 0; reg < n_regions; reg++)
+                g_clear_pointer (&rr.by_region[c][reg], trb_beam_result_free);
+              g_clear_pointer (&rr.by_region[c], g_free);
+            }
           split = trb_loads_split (in->loads[c], in->n_loads[c], regions, n_regions);
           rr.by_region[c] = g_new0 (TrbBeamResult *, n_regions);
           for (guint reg = 0; reg < n_regions && r->status != TRB_STATUS_ERROR; reg++)
@@ -864,6 +950,29 @@ analyse (const TrbProject  *project,
               return FALSE;
             }
         }
+    }
+
+  if (in->plan != NULL && !in->plan->ready)
+    {
+      MemberPlan *plan = in->plan;
+
+      /* the first analysis of sizing: what the others share */
+      plan->self_weight = r->self_weight > 0;
+      for (guint c = 0; c < TRB_N_CASES; c++)
+        {
+          if (r->cases[c] != NULL && !(c == TRB_CASE_D && r->self_weight > 0))
+            plan->cases[c] = trb_beam_result_copy (r->cases[c]);
+          if (rr.by_region[c] != NULL)
+            {
+              plan->by_region[c] = g_new0 (TrbBeamResult *, r->regions->len);
+              for (guint reg = 0; reg < r->regions->len; reg++)
+                plan->by_region[c][reg] = trb_beam_result_copy (rr.by_region[c][reg]);
+            }
+        }
+      plan->regions = g_array_ref (r->regions);
+      plan->patterns = g_array_ref (r->patterns);
+      plan->n_regions = r->regions->len;
+      plan->ready = TRUE;
     }
 
   region_results_prepare (&rr, r);
@@ -884,8 +993,17 @@ analyse (const TrbProject  *project,
 
       di.length = in->length;
       di.supports = trb_beam_get_supports (r->beam, &di.n_supports);
-      sx->spans = g_new0 (TrbDeflectionSpan, di.n_supports + 1);
-      sx->n_spans = trb_design_deflection_spans (&di, sx->spans, di.n_supports + 1);
+      if (in->plan != NULL && in->plan->have_cuts)
+        {
+          sx->spans = g_memdup2 (in->plan->spans,
+                                 (in->plan->n_spans + 1) * sizeof (TrbDeflectionSpan));
+          sx->n_spans = in->plan->n_spans;
+        }
+      else
+        {
+          sx->spans = g_new0 (TrbDeflectionSpan, di.n_supports + 1);
+          sx->n_spans = trb_design_deflection_spans (&di, sx->spans, di.n_supports + 1);
+        }
       ab = g_new (double, 2 * sx->n_spans + 1);
       for (guint i = 0; i < sx->n_spans; i++)
         {
@@ -900,9 +1018,24 @@ analyse (const TrbProject  *project,
       di.brace_x = (const double *) brace_x->data;
       di.n_braces = brace_x->len;
       sx->seg = g_new (double, 2 + di.n_supports + di.n_braces);
-      n_pts = m != NULL && m->material == TRB_MATERIAL_WOOD
-              ? trb_design_wood_segment_points (&di, sx->seg)
-              : trb_design_steel_segment_points (&di, sx->seg);
+      if (in->plan != NULL && in->plan->have_cuts)
+        {
+          n_pts = in->plan->n_seg;
+          memcpy (sx->seg, in->plan->seg, n_pts * sizeof (double));
+        }
+      else
+        n_pts = m != NULL && m->material == TRB_MATERIAL_WOOD
+                ? trb_design_wood_segment_points (&di, sx->seg)
+                : trb_design_steel_segment_points (&di, sx->seg);
+      if (in->plan != NULL && !in->plan->have_cuts)
+        {
+          in->plan->spans = g_memdup2 (sx->spans,
+                                       (sx->n_spans + 1) * sizeof (TrbDeflectionSpan));
+          in->plan->n_spans = sx->n_spans;
+          in->plan->seg = g_memdup2 (sx->seg, (n_pts + 1) * sizeof (double));
+          in->plan->n_seg = n_pts;
+          in->plan->have_cuts = TRUE;
+        }
       sx->n_seg = n_pts > 0 ? n_pts - 1 : 0;
       seg_ab = g_new (double, 2 * sx->n_seg + 1);
       for (guint k = 0; k < sx->n_seg; k++)
@@ -1214,14 +1347,28 @@ wood_grade_for (const TrbMember   *m,
     }
   if (in->memo != NULL)
     {
-      g_autofree char *key = g_strconcat (m->species, "\x1f", m->grade, NULL);
+      Memo *memo = in->memo;
       gpointer found;
 
-      sizes = g_hash_table_lookup (in->memo->grades, key);
-      if (sizes == NULL)
+      /* sizing asks for one species and grade again and again */
+      if (memo->wood_species != NULL && strcmp (memo->wood_species, m->species) == 0 &&
+          strcmp (memo->wood_grade, m->grade) == 0)
+        sizes = memo->wood_sizes;
+      else
         {
-          sizes = g_hash_table_new (NULL, NULL);
-          g_hash_table_insert (in->memo->grades, g_steal_pointer (&key), sizes);
+          g_autofree char *key = g_strconcat (m->species, "\x1f", m->grade, NULL);
+
+          sizes = g_hash_table_lookup (memo->grades, key);
+          if (sizes == NULL)
+            {
+              sizes = g_hash_table_new (NULL, NULL);
+              g_hash_table_insert (memo->grades, g_steal_pointer (&key), sizes);
+            }
+          g_free (memo->wood_species);
+          g_free (memo->wood_grade);
+          memo->wood_species = g_strdup (m->species);
+          memo->wood_grade = g_strdup (m->grade);
+          memo->wood_sizes = sizes;
         }
       found = g_hash_table_lookup (sizes, section);
       if (found != NULL)
@@ -2348,6 +2495,8 @@ size_member (const TrbProject  *project,
              gboolean           reject)
 {
   g_autoptr(GPtrArray) candidates = sizing_candidates (project, m);
+  MemberInput in_plan = *in;
+  MemberPlan plan = { FALSE };
   TrbMemberResult *best = NULL;
   TrbMemberResult *closest = NULL;          /* analysed in full */
   const TrbSection *closest_section = NULL; /* or only judged */
@@ -2356,6 +2505,9 @@ size_member (const TrbProject  *project,
   Reference ref = { FALSE };
   guint rejected = 0;
 
+  /* the analyses of every section share what does not depend on it */
+  in_plan.plan = &plan;
+  in = &in_plan;
   for (guint i = 0; i < candidates->len && shortlist->len < shortlist_max; i++)
     {
       const TrbSection *section = g_ptr_array_index (candidates, i);
@@ -2436,6 +2588,8 @@ size_member (const TrbProject  *project,
       /* nothing passes: the closest section may be one the bounds rejected */
       g_clear_pointer (&closest, trb_member_result_free);
       reference_clear (&ref);
+      member_plan_clear (&plan);
+      in_plan.plan = NULL;
       return size_member (project, m, in, chosen, shortlist_max, use_bounds, FALSE);
     }
 
@@ -2457,6 +2611,7 @@ size_member (const TrbProject  *project,
     }
   g_clear_pointer (&closest, trb_member_result_free);
   reference_clear (&ref);
+  member_plan_clear (&plan);
   g_array_append_vals (best->shortlist, shortlist->data, shortlist->len);
   return best;
 }
