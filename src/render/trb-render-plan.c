@@ -751,22 +751,25 @@ typedef struct
   cairo_pattern_t          *swatches[8];
 } DrawContext;
 
-/* Sets an opaque colour for the lines and fills that follow (not text). On an image, and on a
- * recording surface (the canvas's, played back onto one), cairo 1.16 blends the partly covered
- * pixels of an opaque solid colour one at a time in plain C, but those of any other source a
- * row at a time through pixman's vector code: a one-pixel repeating image of the same colour
- * draws the same pixels (a few partly covered ones differ by one level in 255, pixman's
- * rounding) and the plan's thin lines, nearly every pixel of which is an edge, two to three
- * times faster. Elsewhere (PDF, SVG) a colour stays a colour. */
+/* Sets an opaque colour for the lines of that width, or the fills (width INFINITY), that
+ * follow; not for text. On an image, and on a recording surface (the canvas's, played back
+ * onto one), cairo 1.16 blends the partly covered pixels of an opaque solid colour one at a
+ * time in plain C, but those of any other source a row at a time through pixman's vector code:
+ * a one-pixel repeating image of the same colour draws the same pixels (a few partly covered
+ * ones differ by one level in 255, pixman's rounding), and lines under 3 units wide, nearly
+ * every pixel of which is an edge, two to three times faster. From 3 units, and for fills,
+ * whole rows of full cover take cairo's quicker plain fill, and the colour stays a colour, as
+ * it always does elsewhere (PDF, SVG). */
 static void
 set_line_color (DrawContext   *dc,
-                const TrbRgba *c)
+                const TrbRgba *c,
+                double         width)
 {
   cairo_surface_t *px;
   guint32 *data;
   guint i;
 
-  if (!dc->swatches_ok || c->a != 1.0)
+  if (!dc->swatches_ok || c->a != 1.0 || width >= 3)
     {
       trb_render_set_color (dc->cr, c);
       return;
@@ -1234,9 +1237,9 @@ draw_openings (DrawContext *dc)
       if (!points_visible (dc, o->points))
         continue;
       path_points (dc, o->points, TRUE);
-      set_line_color (dc, &dc->paper);
+      set_line_color (dc, &dc->paper, INFINITY);
       cairo_fill_preserve (cr);
-      set_line_color (dc, &dc->ink);
+      set_line_color (dc, &dc->ink, 0.5 * dc->lw);
       cairo_set_line_width (cr, 0.5 * dc->lw);
       cairo_stroke (cr);
 
@@ -1285,7 +1288,7 @@ draw_grids (DrawContext *dc)
       ux = (bx - ax) / len;
       uy = (by - ay) / len;
 
-      set_line_color (dc, &grey);
+      set_line_color (dc, &grey, 0.35 * dc->lw);
       cairo_set_line_width (cr, 0.35 * dc->lw);
       cairo_set_dash (cr, dash, 4, 0);
       cairo_move_to (cr, ax, ay);
@@ -1301,9 +1304,9 @@ draw_grids (DrawContext *dc)
 
           cairo_new_sub_path (cr);
           cairo_arc (cr, cx, cy, r, 0, 2 * G_PI);
-          set_line_color (dc, &dc->paper);
+          set_line_color (dc, &dc->paper, INFINITY);
           cairo_fill_preserve (cr);
-          set_line_color (dc, &dc->ink);
+          set_line_color (dc, &dc->ink, 0.5 * dc->lw);
           cairo_set_line_width (cr, 0.5 * dc->lw);
           cairo_stroke (cr);
           trb_render_set_color (cr, &dc->ink);
@@ -1396,10 +1399,10 @@ draw_walls (DrawContext *dc)
           cairo_line_to (cr, bx - nx, by - ny);
           cairo_line_to (cr, ax - nx, ay - ny);
           cairo_close_path (cr);
-          set_line_color (dc, &dc->paper);
+          set_line_color (dc, &dc->paper, INFINITY);
           cairo_fill_preserve (cr);
           cairo_clip_preserve (cr);
-          set_line_color (dc, &dc->ink);
+          set_line_color (dc, &dc->ink, 0.6 * dc->lw);
           cairo_set_line_width (cr, 0.6 * dc->lw);
           cairo_stroke (cr);
 
@@ -2001,13 +2004,13 @@ draw_members (DrawContext *dc)
         if (!any)
           continue;
         trb_render_status_color (dc->style, st, &c);
-        set_line_color (dc, &c);
         if (st == TRB_RENDER_STATUS_FAIL)
           {
             /* the double stroke: a wide line with a paper-coloured core */
+            set_line_color (dc, &c, MAX (3 * w, 3.0));
             cairo_set_line_width (cr, MAX (3 * w, 3.0));
             cairo_stroke_preserve (cr);
-            set_line_color (dc, &dc->paper);
+            set_line_color (dc, &dc->paper, MAX (w, 1.0));
             cairo_set_line_width (cr, MAX (w, 1.0));
             cairo_stroke (cr);
           }
@@ -2015,6 +2018,7 @@ draw_members (DrawContext *dc)
           {
             double dash[] = { MAX (4 * w, 3.0), MAX (2.5 * w, 2.0) };
 
+            set_line_color (dc, &c, w);
             cairo_set_dash (cr, dash, 2, 0);
             cairo_set_line_width (cr, w);
             cairo_stroke (cr);
@@ -2022,6 +2026,7 @@ draw_members (DrawContext *dc)
           }
         else
           {
+            set_line_color (dc, &c, w);
             cairo_set_line_width (cr, w);
             cairo_stroke (cr);
           }
@@ -2055,7 +2060,7 @@ draw_columns (DrawContext *dc)
           cairo_rectangle (cr, x - h - 4, y - h - 4, 2 * h + 8, 2 * h + 8);
           cairo_fill (cr);
         }
-      set_line_color (dc, &dc->ink);
+      set_line_color (dc, &dc->ink, INFINITY);
       cairo_rectangle (cr, x - h, y - h, 2 * h, 2 * h);
       cairo_fill (cr);
       /* text in a plain colour: glyphs are drawn best from one */

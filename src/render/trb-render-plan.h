@@ -78,7 +78,8 @@ gboolean  trb_plan_bounds_is_empty      (const TrbPlanBounds *bounds);
 /* A floor and its results, indexed for drawing and picking (a grid over the plan, a member ->
  * result map, column loads). Build one after each solve; it borrows the floor, the project
  * and the results, which must outlive it. results may be NULL (nothing solved yet: members
- * are drawn as not designed). */
+ * are drawn as not designed). It also keeps the text its draws lay out, for the next draw:
+ * draw a scene from one thread at a time. */
 typedef struct _TrbPlanScene TrbPlanScene;
 
 TrbPlanScene          *trb_plan_scene_new            (const TrbProject        *project,

@@ -339,9 +339,9 @@ trb_render_text_wrapped (cairo_t              *cr,
 
 /* ---- text laid out once ------------------------------------------------------------------- */
 
-/* Past this many strings the cache starts again: a label each of a few thousand members and
- * their widths, a few megabytes. */
-#define TEXT_CACHE_MAX 16384
+/* Past this many strings the cache starts again: the two lines of the labels of the most
+ * members a screen labels (3,000) and more, at about 1.3 kB a layout some 10 MB at most. */
+#define TEXT_CACHE_MAX 8192
 
 typedef struct
 {
