@@ -2747,30 +2747,67 @@ solve_standalone (const TrbProject *project,
 /* The cache key: the exact bytes of everything a member's result depends on besides the
  * project's settings (the same for the whole solve). Identical joists of a run give the same
  * bytes; anything else that differs, even by a rounding, gives a miss, never a wrong hit. */
-static void
-key_bytes (GByteArray   *key,
+/* The bytes of a key as they are gathered: a few hundred small pieces, each copied in place. */
+typedef struct
+{
+  guint8 *data;
+  gsize   len;
+  gsize   room;
+} Key;
+
+static inline void
+key_bytes (Key          *key,
            gconstpointer data,
            gsize         size)
 {
-  g_byte_array_append (key, data, size);
+  if (G_UNLIKELY (key->len + size > key->room))
+    {
+      key->room = MAX (2 * key->room, key->len + size + 512);
+      key->data = g_realloc (key->data, key->room);
+    }
+  memcpy (key->data + key->len, data, size);
+  key->len += size;
+}
+
+/* A hash of the key's bytes, eight at a time (g_bytes_hash() takes them one by one): keys
+ * run to kilobytes, and are equal only when every byte is. */
+static guint
+key_hash (gconstpointer bytes)
+{
+  gsize n;
+  const guint8 *p = g_bytes_get_data ((GBytes *) bytes, &n);
+  guint64 h = 0x9e3779b97f4a7c15u ^ n;
+
+  for (; n >= 8; p += 8, n -= 8)
+    {
+      guint64 w;
+
+      memcpy (&w, p, 8);
+      h = (h ^ w) * 0xff51afd7ed558ccdu;
+      h ^= h >> 32;
+    }
+  for (; n > 0; p++, n--)
+    h = (h ^ *p) * 0x100000001b3u;
+  h ^= h >> 29;
+  return (guint) (h ^ (h >> 32));
 }
 
 static void
-key_double (GByteArray *key,
+key_double (Key        *key,
             double      v)
 {
   key_bytes (key, &v, sizeof v);
 }
 
 static void
-key_int (GByteArray *key,
+key_int (Key        *key,
          gint64      v)
 {
   key_bytes (key, &v, sizeof v);
 }
 
 static void
-key_string (GByteArray *key,
+key_string (Key        *key,
             const char *s)
 {
   if (s == NULL)
@@ -2783,7 +2820,7 @@ key_string (GByteArray *key,
 }
 
 static void
-key_loads (GByteArray    *key,
+key_loads (Key           *key,
            const TrbLoad *loads,
            guint          n)
 {
@@ -2803,9 +2840,10 @@ static GBytes *
 member_key (const TrbMember   *m,
             const MemberInput *in,
             guint              shortlist_max,
-            GByteArray        *extra)
+            const Key         *extra)
 {
-  GByteArray *key = g_byte_array_sized_new (512);
+  Key k = { NULL, 0, 0 };
+  Key *key = &k;
 
   key_double (key, in->length);
   key_int (key, in->n_supports);
@@ -2853,7 +2891,7 @@ member_key (const TrbMember   *m,
   key_double (key, m->bearing_length);
   if (extra != NULL)
     key_bytes (key, extra->data, extra->len);
-  return g_byte_array_free_to_bytes (key);
+  return g_bytes_new_take (k.data, k.len);
 }
 
 /* A solved member and what it hands down, per support of its beam (sorted by x) and case:
@@ -3559,7 +3597,7 @@ solve_floor_member (Solver         *sv,
   g_autoptr(GArray) which = g_array_new (FALSE, FALSE, sizeof (int));
   g_autoptr(GArray) live_a = g_array_new (FALSE, FALSE, sizeof (TrbLoad));
   g_autoptr(GArray) live_b = g_array_new (FALSE, FALSE, sizeof (TrbLoad));
-  g_autoptr(GByteArray) extra = g_byte_array_new ();
+  Key extra = { NULL, 0, 0 };
   g_autoptr(GBytes) key = NULL;
   GArray *loads[TRB_N_CASES];
   MemberInput in = { 0 };
@@ -3640,10 +3678,11 @@ solve_floor_member (Solver         *sv,
   in.member = m;
 
   /* the streams decide what is handed down, so they are part of what makes members equal */
-  key_int (extra, fs->reduction);
-  key_loads (extra, (const TrbLoad *) live_a->data, live_a->len);
-  key_loads (extra, (const TrbLoad *) live_b->data, live_b->len);
-  key = member_key (m, &in, sv->options->shortlist_max, extra);
+  key_int (&extra, fs->reduction);
+  key_loads (&extra, (const TrbLoad *) live_a->data, live_a->len);
+  key_loads (&extra, (const TrbLoad *) live_b->data, live_b->len);
+  key = member_key (m, &in, sv->options->shortlist_max, &extra);
+  g_free (extra.data);
 
   if (sv->cache != NULL)
     entry = g_hash_table_lookup (sv->cache, key);
@@ -4196,7 +4235,7 @@ solve_project (const TrbProject      *project,
   Solver sv = { project, options, NULL, NULL };
 
   if (options->cache)
-    sv.cache = g_hash_table_new_full (g_bytes_hash, g_bytes_equal,
+    sv.cache = g_hash_table_new_full (key_hash, g_bytes_equal,
                                       (GDestroyNotify) g_bytes_unref, cache_entry_free);
   sv.memo = memo_new ();
 
