@@ -2207,14 +2207,28 @@ extremes_intervals (const TrbBeamResult *result,
       double x0 = result->breaks[k], x1 = result->breaks[k + 1];
       ExtremeAcc *shared = NULL;
       gboolean need_full = whole != NULL;
-      SegCoeffs c;
+      gboolean have_c = FALSE;
+      SegCoeffs c = { { 0 } };
       Piece full;
 
-      segment_coeffs (s, result->inv_EI, &c);
+      /* the coefficients, where something reads them */
+#define NEED_COEFFS() G_STMT_START { \
+        if (!have_c) \
+          { \
+            segment_coeffs (s, result->inv_EI, &c); \
+            have_c = TRUE; \
+          } \
+      } G_STMT_END
       if (finite != NULL && ok)
-        ok = segment_finite_at_start (&c) && segment_finite_at (&c, x1 - x0);
+        {
+          NEED_COEFFS ();
+          ok = segment_finite_at_start (&c) && segment_finite_at (&c, x1 - x0);
+        }
       if (k == 0 && whole != NULL)
-        acc_seed_in (result, &c, 0, 0, &acc);
+        {
+          NEED_COEFFS ();
+          acc_seed_in (result, &c, 0, 0, &acc);
+        }
 
       /* the intervals that reach into this segment, as trb_beam_result_extremes() walks
        * each: from the segment that holds a, while the segment starts before b */
@@ -2230,6 +2244,7 @@ extremes_intervals (const TrbBeamResult *result,
             continue;
           if (!seeded[i])
             {
+              NEED_COEFFS ();
               acc_seed_in (result, &c, k, a, &acc_iv[i]);
               seeded[i] = TRUE;
             }
@@ -2257,10 +2272,12 @@ extremes_intervals (const TrbBeamResult *result,
             }
           else
             {
+              NEED_COEFFS ();
               full.th1 = coeffs_theta (&c, full.t1);
               full.d1 = coeffs_defl (&c, full.t1);
             }
         }
+#undef NEED_COEFFS
 
       for (guint i = first_iv; i < n_intervals; i++)
         {

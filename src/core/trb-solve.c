@@ -511,7 +511,7 @@ name_with_pattern (char       *dst,
  * analysis), only the entries it marks, by their place among all; envelope FALSE: none;
  * moments_only: the extremes of V and M only (the deflection fields are not to be read).
  * Returns whether every entry's result is finite, as beam_result_finite() says (TRUE with
- * moments_only, which leaves that to the caller). */
+ * moments_only or without need_finite: the caller has proved it, parts_bounded()). */
 static gboolean
 evaluate_set (TrbMemberResult     *r,
               const RegionResults *rr,
@@ -521,7 +521,8 @@ evaluate_set (TrbMemberResult     *r,
               GArray              *span_ext,
               const gboolean      *keep,
               gboolean             envelope,
-              gboolean             moments_only)
+              gboolean             moments_only,
+              gboolean             need_finite)
 {
   const GArray *combos = combos_for (out->set, r->has_case);
   gboolean patterns_on = r->patterns->len > 0;
@@ -625,9 +626,12 @@ evaluate_set (TrbMemberResult     *r,
             trb_beam_result_extremes_intervals (cr->result, ab, n_ab, &cr->ext,
                                                 &g_array_index (span_ext, TrbBeamExtremes,
                                                                 (e - 1 - first) * n_ab),
-                                                &ok);
+                                                need_finite ? &ok : NULL);
           else
-            trb_beam_result_extremes_intervals (cr->result, NULL, 0, &cr->ext, NULL, &ok);
+            trb_beam_result_extremes_intervals (cr->result, NULL, 0, &cr->ext, NULL,
+                                                need_finite ? &ok : NULL);
+          if (!need_finite)
+            ok = TRUE;
           finite = finite && ok;
         }
     }
@@ -809,6 +813,7 @@ analyse (const TrbProject  *project,
   gboolean use_patterns;
   gboolean known = !isnan (E) && !isnan (I);
   gboolean sets_finite[3];
+  gboolean bounded;
 
   if (in->n_supports == 0)
     {
@@ -976,7 +981,9 @@ analyse (const TrbProject  *project,
     }
 
   region_results_prepare (&rr, r);
-  if (lean != NULL && !parts_bounded (&rr, r))
+  /* bounded parts make every entry finite: nothing is left to check break by break */
+  bounded = parts_bounded (&rr, r);
+  if (lean != NULL && !bounded)
     {
       lean->unproved = TRUE;
       region_results_clear (&rr, r->regions->len);
@@ -1011,7 +1018,8 @@ analyse (const TrbProject  *project,
           ab[2 * i + 1] = sx->spans[i].b;
         }
 
-      /* the flexure segments the member's method will cut it into */
+      /* the flexure segments the member's method will cut it into (a custom section is
+       * checked by no method that cuts it) */
       for (guint i = 0; m != NULL && i < m->braces->len; i++)
         g_array_append_val (brace_x, g_array_index (m->braces, TrbMemberBrace, i).x);
       di.bracing = m != NULL ? m->bracing : TRB_BRACING_CONTINUOUS;
@@ -1045,33 +1053,40 @@ analyse (const TrbProject  *project,
           if (!(sx->seg[k] < sx->seg[k + 1]))
             sx->n_seg = 0;   /* not intervals the sweep takes: the checks find their own */
         }
+      if (m == NULL || trb_member_is_custom (m))
+        sx->n_seg = 0;
 
       sx->live = g_array_new (FALSE, FALSE, sizeof (TrbBeamExtremes));
       sx->total = g_array_new (FALSE, FALSE, sizeof (TrbBeamExtremes));
       sx->strength = g_array_new (FALSE, FALSE, sizeof (TrbBeamExtremes));
       sets_finite[0] = evaluate_set (r, &rr, &r->strength, seg_ab, sx->n_seg, sx->strength,
                                      lean != NULL ? lean->keep[0] : NULL, lean == NULL,
-                                     lean != NULL);
+                                     lean != NULL, !bounded);
       sets_finite[1] = evaluate_set (r, &rr, &r->live, ab, sx->n_spans, sx->live,
-                                     lean != NULL ? lean->keep[1] : NULL, lean == NULL, FALSE);
+                                     lean != NULL ? lean->keep[1] : NULL, lean == NULL, FALSE,
+                                     !bounded);
       sets_finite[2] = evaluate_set (r, &rr, &r->total, ab, sx->n_spans, sx->total,
-                                     lean != NULL ? lean->keep[2] : NULL, lean == NULL, FALSE);
+                                     lean != NULL ? lean->keep[2] : NULL, lean == NULL, FALSE,
+                                     !bounded);
     }
   else
     {
-      sets_finite[0] = evaluate_set (r, &rr, &r->strength, NULL, 0, NULL, NULL, TRUE, FALSE);
-      sets_finite[1] = evaluate_set (r, &rr, &r->live, NULL, 0, NULL, NULL, TRUE, FALSE);
-      sets_finite[2] = evaluate_set (r, &rr, &r->total, NULL, 0, NULL, NULL, TRUE, FALSE);
+      sets_finite[0] = evaluate_set (r, &rr, &r->strength, NULL, 0, NULL, NULL, TRUE, FALSE,
+                                     !bounded);
+      sets_finite[1] = evaluate_set (r, &rr, &r->live, NULL, 0, NULL, NULL, TRUE, FALSE,
+                                     !bounded);
+      sets_finite[2] = evaluate_set (r, &rr, &r->total, NULL, 0, NULL, NULL, TRUE, FALSE,
+                                     !bounded);
     }
   region_results_clear (&rr, r->regions->len);
 
   /* Each length, load and stiffness may be finite and still overflow with the others (a span
    * of 1e308 ft, an I of 1e-308 in4): such a member is in error, never a result of inf. The
    * lean analysis has proved the cases finite. */
-  if (!(lean != NULL ? combo_set_finite (&r->strength, sets_finite[0]) &&
-                       combo_set_finite (&r->live, sets_finite[1]) &&
-                       combo_set_finite (&r->total, sets_finite[2])
-                     : analysis_finite (r, sets_finite)))
+  if (!(lean != NULL || bounded ? combo_set_finite (&r->strength, sets_finite[0]) &&
+                                   combo_set_finite (&r->live, sets_finite[1]) &&
+                                   combo_set_finite (&r->total, sets_finite[2])
+                                 : analysis_finite (r, sets_finite)))
     {
       set_status (r, TRB_STATUS_ERROR, "the analysis overflows: the lengths, loads or section "
                   "properties are out of any real range");
