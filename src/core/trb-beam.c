@@ -549,20 +549,7 @@ segment_advance (const TrbSegment *s,
        h * h * (s->M * C2 + h * (s->V * C6 - h * (w * C24 + h * dw * C120))) * inv_EI;
 }
 
-/* V and M of segment_advance() alone: the same operations */
-static inline void
-segment_advance_moments (const TrbSegment *s,
-                         double            h,
-                         double           *V,
-                         double           *M)
-{
-  double w = s->w, dw = s->dw;
-
-  *V = s->V - h * (w + h * dw * C2);
-  *M = s->M + h * (s->V - h * (w * C2 + h * dw * C6));
-}
-
-/* theta and v of segment_advance() alone */
+/* theta and v of segment_advance() alone: the same operations */
 static inline void
 segment_advance_rotation (const TrbSegment *s,
                           double            h,
@@ -968,20 +955,37 @@ trb_beam_solve (const TrbBeam  *beam,
         }
     }
 
-  /* the segments, swept left to right: the left overhang, each span, the right overhang; V
-   * and M first, then theta and v, which alone depend on E I */
+  /* the segments, swept left to right: the left overhang, each span, the right overhang (the
+   * rotations and deflections alone are swept the same way by sweep_rotations(), for
+   * trb_beam_result_restiffen()) */
   {
-    double V = 0, M = 0;
+    double V = 0, M = 0, theta = 0, v = 0;
     guint k0 = sidx[0];
 
+    /* left overhang: integrate with a provisional theta = v = 0 at x = 0, then shift so that
+     * v(s0) = 0 and theta(s0) matches the support */
     for (guint k = 0; k < k0; k++)
       {
         V -= P[k];
         M += m[k];
         seg[k].V = V;
         seg[k].M = M;
-        segment_advance_moments (&seg[k], brk[k + 1] - brk[k], &V, &M);
+        seg[k].theta = theta;
+        seg[k].v = v;
+        segment_advance (&seg[k], brk[k + 1] - brk[k], res->inv_EI, &V, &M, &theta, &v);
       }
+    if (k0 > 0)
+      {
+        double t0 = phi[0] / EI - theta;
+        double v_end = v;
+
+        for (guint k = 0; k < k0; k++)
+          {
+            seg[k].v = seg[k].v - v_end - t0 * (sup[0].x - brk[k]);
+            seg[k].theta += t0;
+          }
+      }
+
     for (guint i = 0; i < ns; i++)
       {
         guint kend = i + 1 < ns ? sidx[i + 1] : nseg;
@@ -992,6 +996,8 @@ trb_beam_solve (const TrbBeam  *beam,
               {
                 V = i + 1 < ns ? Vl[i] : WR;
                 M = i + 1 < ns ? Ml[i] : MoR;
+                theta = phi[i] / EI;
+                v = 0;
               }
             else
               {
@@ -1000,12 +1006,13 @@ trb_beam_solve (const TrbBeam  *beam,
               }
             seg[k].V = V;
             seg[k].M = M;
-            segment_advance_moments (&seg[k], brk[k + 1] - brk[k], &V, &M);
+            seg[k].theta = theta;
+            seg[k].v = v;
+            segment_advance (&seg[k], brk[k + 1] - brk[k], res->inv_EI, &V, &M, &theta, &v);
           }
       }
   }
   memcpy (res->phi, phi, ns * sizeof (double));
-  sweep_rotations (res, sup, ns, sidx, EI);
 
   return res;
 }
@@ -1884,7 +1891,7 @@ piece_feed (ExtremeAcc  *acc,
  * th0 at t0; V1, M1, th1 at t1). Looks for the extremes inside it. What it finds depends on
  * the piece alone, so it goes to acc and, when acc2 is not NULL, to acc2 as well (a piece
  * that two intervals share). */
-static void
+static inline G_ALWAYS_INLINE void
 piece_extremes (const TrbSegment *s,
                 double            x0,
                 const Piece      *p,
@@ -2168,7 +2175,7 @@ extremes_intervals (const TrbBeamResult *result,
   g_autofree gboolean *seeded_heap = NULL;
   ExtremeAcc *acc_iv;
   gboolean *seeded;
-  ExtremeAcc acc;
+  ExtremeAcc acc = { { 0 } };
   guint last, first_iv = 0;
   gboolean ok = TRUE;
 
@@ -2209,7 +2216,7 @@ extremes_intervals (const TrbBeamResult *result,
       gboolean need_full = whole != NULL;
       gboolean have_c = FALSE;
       SegCoeffs c = { { 0 } };
-      Piece full;
+      Piece full = { 0 };
 
       /* the coefficients, where something reads them */
 #define NEED_COEFFS() G_STMT_START { \
