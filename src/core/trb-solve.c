@@ -1002,8 +1002,8 @@ analyse (const TrbProject  *project,
       di.supports = trb_beam_get_supports (r->beam, &di.n_supports);
       if (in->plan != NULL && in->plan->have_cuts)
         {
-          sx->spans = g_memdup2 (in->plan->spans,
-                                 (in->plan->n_spans + 1) * sizeof (TrbDeflectionSpan));
+          sx->spans = g_new0 (TrbDeflectionSpan, in->plan->n_spans + 1);
+          memcpy (sx->spans, in->plan->spans, in->plan->n_spans * sizeof (TrbDeflectionSpan));
           sx->n_spans = in->plan->n_spans;
         }
       else
@@ -1037,10 +1037,12 @@ analyse (const TrbProject  *project,
                 : trb_design_steel_segment_points (&di, sx->seg);
       if (in->plan != NULL && !in->plan->have_cuts)
         {
-          in->plan->spans = g_memdup2 (sx->spans,
-                                       (sx->n_spans + 1) * sizeof (TrbDeflectionSpan));
+          /* exactly the entries written: the arrays may be full (two overhangs) */
+          in->plan->spans = g_new0 (TrbDeflectionSpan, sx->n_spans + 1);
+          memcpy (in->plan->spans, sx->spans, sx->n_spans * sizeof (TrbDeflectionSpan));
           in->plan->n_spans = sx->n_spans;
-          in->plan->seg = g_memdup2 (sx->seg, (n_pts + 1) * sizeof (double));
+          in->plan->seg = g_new0 (double, n_pts + 1);
+          memcpy (in->plan->seg, sx->seg, n_pts * sizeof (double));
           in->plan->n_seg = n_pts;
           in->plan->have_cuts = TRUE;
         }
