@@ -565,6 +565,7 @@ evaluate_set (TrbMemberResult     *r,
         {
           const TrbPattern *pat = patterned ? &g_array_index (r->patterns, TrbPattern, p) : NULL;
           TrbComboResult *cr;
+          TrbBeamExtremes *span_out;
           guint n = 0;
           gboolean ok;
 
@@ -612,20 +613,19 @@ evaluate_set (TrbMemberResult     *r,
               factors[n++] = 0;
             }
           cr->result = trb_beam_combiner_combine (rr->combiner, index, factors, n);
+          /* NULL when there is nothing per interval: no offset on an empty array's data */
+          span_out = span_ext != NULL && n_ab > 0
+                     ? &g_array_index (span_ext, TrbBeamExtremes, (e - 1 - first) * n_ab)
+                     : NULL;
           if (moments_only)
             {
               /* the lean analysis of sizing: V and M are all the strength checks read, and
                * the parts are proved finite */
-              trb_beam_result_moments_intervals (cr->result, ab, n_ab, &cr->ext,
-                                                 span_ext == NULL ? NULL
-                                                 : &g_array_index (span_ext, TrbBeamExtremes,
-                                                                   (e - 1 - first) * n_ab));
+              trb_beam_result_moments_intervals (cr->result, ab, n_ab, &cr->ext, span_out);
               ok = TRUE;
             }
           else if (span_ext != NULL)
-            trb_beam_result_extremes_intervals (cr->result, ab, n_ab, &cr->ext,
-                                                &g_array_index (span_ext, TrbBeamExtremes,
-                                                                (e - 1 - first) * n_ab),
+            trb_beam_result_extremes_intervals (cr->result, ab, n_ab, &cr->ext, span_out,
                                                 need_finite ? &ok : NULL);
           else
             trb_beam_result_extremes_intervals (cr->result, NULL, 0, &cr->ext, NULL,
