@@ -2713,21 +2713,125 @@ format_quantity (double         value,
   return best;
 }
 
+/* The texts of the quantities written so far, by value and dimension: a floor repeats a few
+ * hundred coordinates and loads tens of thousands of times, and format_quantity() tries
+ * several units with printf and the parser for each. A pure function of the key, so a memo
+ * gives the same bytes. Open addressing, at most half full; it stops taking entries at
+ * MEMO_MAX (a few MB) so that a file of distinct values costs no more memory than that. */
+#define MEMO_MAX (1u << 16)
+
+typedef struct
+{
+  guint64  bits;   /* of the value, -0 as 0 */
+  guint    dim;    /* TrbDimension + 1; 0 for an empty slot */
+  guint    len;
+  char    *text;
+} MemoSlot;
+
+typedef struct
+{
+  MemoSlot *slots;
+  guint     mask;  /* capacity - 1, a power of two less one */
+  guint     used;
+} Memo;
+
+static void
+memo_clear (Memo *memo)
+{
+  for (guint i = 0; memo->slots != NULL && i <= memo->mask; i++)
+    g_free (memo->slots[i].text);
+  g_clear_pointer (&memo->slots, g_free);
+  memo->mask = memo->used = 0;
+}
+
+static guint
+memo_index (const Memo *memo,
+            guint64     bits,
+            guint       dim)
+{
+  guint64 h = (bits ^ ((guint64) dim << 59)) * G_GUINT64_CONSTANT (0x9e3779b97f4a7c15);
+  guint i = (guint) (h >> 32) & memo->mask;
+
+  while (memo->slots[i].dim != 0 && (memo->slots[i].bits != bits || memo->slots[i].dim != dim))
+    i = (i + 1) & memo->mask;
+  return i;
+}
+
+/* The slot of (bits, dim): its text, or an empty slot to fill; NULL when the memo is full. */
+static MemoSlot *
+memo_lookup (Memo    *memo,
+             guint64  bits,
+             guint    dim)
+{
+  if (memo->slots == NULL)
+    {
+      memo->mask = 1023;
+      memo->slots = g_new0 (MemoSlot, memo->mask + 1);
+    }
+  else if (2 * (memo->used + 1) > memo->mask + 1)
+    {
+      MemoSlot *old = memo->slots;
+      guint old_mask = memo->mask;
+
+      if (memo->used >= MEMO_MAX)
+        {
+          MemoSlot *slot = &memo->slots[memo_index (memo, bits, dim)];
+
+          return slot->dim != 0 ? slot : NULL;
+        }
+      memo->mask = 2 * memo->mask + 1;
+      memo->slots = g_new0 (MemoSlot, memo->mask + 1);
+      for (guint i = 0; i <= old_mask; i++)
+        if (old[i].dim != 0)
+          memo->slots[memo_index (memo, old[i].bits, old[i].dim)] = old[i];
+      g_free (old);
+    }
+  return &memo->slots[memo_index (memo, bits, dim)];
+}
+
 typedef struct
 {
   GString       *out;
   TrbUnitSystem  units;
   GError       **error;
   gboolean       failed;
-  const char    *what;      /* the element being written, for messages */
+  /* the element being written, for messages, put together only for one: "settings",
+   * kind "name" or, with an index, kind index of floor "name" */
+  const char    *what_kind;
+  const char    *what_name;
+  guint          what_index;
+  Memo           memo;
 } Saver;
+
+static void
+set_what (Saver      *sv,
+          const char *kind,
+          const char *name,
+          guint       index)
+{
+  sv->what_kind = kind;
+  sv->what_name = name;
+  sv->what_index = index;
+}
 
 static void
 put_escaped (GString    *out,
              const char *text,
              gboolean    attribute)
 {
-  g_autofree char *valid = g_utf8_make_valid (text, -1);
+  g_autofree char *valid = NULL;
+  const char *q;
+
+  /* most texts are printable ASCII with nothing to escape: as they are */
+  for (q = text; *q >= 0x20 && *q < 0x7f && *q != '&' && *q != '<' && *q != '>' && *q != '"';
+       q++)
+    ;
+  if (*q == '\0')
+    {
+      g_string_append_len (out, text, q - text);
+      return;
+    }
+  valid = g_utf8_make_valid (text, -1);
 
   for (const char *p = valid; *p != '\0'; p++)
     {
@@ -2771,7 +2875,9 @@ put_attr (Saver      *sv,
           const char *name,
           const char *value)
 {
-  g_string_append_printf (sv->out, " %s=\"", name);
+  g_string_append_c (sv->out, ' ');
+  g_string_append (sv->out, name);
+  g_string_append_len (sv->out, "=\"", 2);
   put_escaped (sv->out, value, TRUE);
   g_string_append_c (sv->out, '"');
 }
@@ -2783,17 +2889,51 @@ put_quantity (Saver        *sv,
               TrbDimension  dim)
 {
   g_autofree char *text = NULL;
+  MemoSlot *slot;
+  guint64 bits;
 
   if (!isfinite (value))
     {
       if (!sv->failed)
-        g_set_error (sv->error, TRB_ERROR, TRB_ERROR_INVALID,
-                     "%s: \"%s\" is not a finite number", sv->what, name);
+        {
+          g_autofree char *what = NULL;
+
+          if (sv->what_name == NULL)
+            what = g_strdup (sv->what_kind);
+          else if (sv->what_index > 0)
+            what = g_strdup_printf ("%s %u of floor \"%s\"", sv->what_kind, sv->what_index,
+                                    sv->what_name);
+          else
+            what = g_strdup_printf ("%s \"%s\"", sv->what_kind, sv->what_name);
+          g_set_error (sv->error, TRB_ERROR, TRB_ERROR_INVALID,
+                       "%s: \"%s\" is not a finite number", what, name);
+        }
       sv->failed = TRUE;
       return;
     }
-  text = format_quantity (value, dim, sv->units);
-  put_attr (sv, name, text);
+  value += 0.0;   /* -0 is saved as 0 */
+  memcpy (&bits, &value, sizeof bits);
+  slot = memo_lookup (&sv->memo, bits, dim + 1);
+  if (slot == NULL)
+    {
+      text = format_quantity (value, dim, sv->units);
+      put_attr (sv, name, text);
+      return;
+    }
+  if (slot->dim == 0)
+    {
+      /* the texts are numbers and units: nothing to escape */
+      slot->text = format_quantity (value, dim, sv->units);
+      slot->len = (guint) strlen (slot->text);
+      slot->bits = bits;
+      slot->dim = dim + 1;
+      sv->memo.used++;
+    }
+  g_string_append_c (sv->out, ' ');
+  g_string_append (sv->out, name);
+  g_string_append_len (sv->out, "=\"", 2);
+  g_string_append_len (sv->out, slot->text, slot->len);
+  g_string_append_c (sv->out, '"');
 }
 
 static void
@@ -2841,7 +2981,7 @@ put_settings (Saver             *sv,
   static const char * const units[] = { "us", "si" };
   char above[16];
 
-  sv->what = "settings";
+  set_what (sv, "settings", NULL, 0);
   put_indent (sv, 1);
   g_string_append (sv->out, "<settings");
   put_attr (sv, "method", trb_method_name (s->method));
@@ -3042,10 +3182,9 @@ static void
 put_beam (Saver           *sv,
           const TrbMember *m)
 {
-  g_autofree char *what = g_strdup_printf ("beam \"%s\"", m->id);
   gboolean children = member_has_children (m);
 
-  sv->what = what;
+  set_what (sv, "beam", m->id, 0);
   put_indent (sv, 1);
   g_string_append (sv->out, "<beam");
   put_attr (sv, "id", m->id);
@@ -3060,10 +3199,9 @@ static void
 put_member (Saver           *sv,
             const TrbMember *m)
 {
-  g_autofree char *what = g_strdup_printf ("member \"%s\"", m->id);
   gboolean children = member_has_children (m);
 
-  sv->what = what;
+  set_what (sv, "member", m->id, 0);
   put_indent (sv, 2);
   g_string_append (sv->out, "<member");
   put_attr (sv, "id", m->id);
@@ -3103,12 +3241,11 @@ static void
 put_floor (Saver          *sv,
            const TrbFloor *f)
 {
-  g_autofree char *floor_what = g_strdup_printf ("floor \"%s\"", f->name);
   gboolean children = f->grids->len + f->columns->len + f->walls->len + f->members->len +
                       f->area_loads->len + f->openings->len + f->line_loads->len +
                       f->point_loads->len > 0;
 
-  sv->what = floor_what;
+  set_what (sv, "floor", f->name, 0);
   put_indent (sv, 1);
   g_string_append (sv->out, "<floor");
   put_attr (sv, "name", f->name);
@@ -3117,9 +3254,8 @@ put_floor (Saver          *sv,
   for (guint i = 0; i < f->grids->len; i++)
     {
       const TrbGridLine *g = g_ptr_array_index (f->grids, i);
-      g_autofree char *what = g_strdup_printf ("grid line \"%s\"", g->name);
 
-      sv->what = what;
+      set_what (sv, "grid line", g->name, 0);
       put_indent (sv, 2);
       g_string_append (sv->out, "<grid");
       put_attr (sv, "name", g->name);
@@ -3132,9 +3268,8 @@ put_floor (Saver          *sv,
   for (guint i = 0; i < f->columns->len; i++)
     {
       const TrbColumn *c = g_ptr_array_index (f->columns, i);
-      g_autofree char *what = g_strdup_printf ("column \"%s\"", c->id);
 
-      sv->what = what;
+      set_what (sv, "column", c->id, 0);
       put_indent (sv, 2);
       g_string_append (sv->out, "<column");
       put_attr (sv, "id", c->id);
@@ -3147,9 +3282,8 @@ put_floor (Saver          *sv,
   for (guint i = 0; i < f->walls->len; i++)
     {
       const TrbWall *w = g_ptr_array_index (f->walls, i);
-      g_autofree char *what = g_strdup_printf ("wall \"%s\"", w->id);
 
-      sv->what = what;
+      set_what (sv, "wall", w->id, 0);
       put_indent (sv, 2);
       g_string_append (sv->out, "<wall");
       put_attr (sv, "id", w->id);
@@ -3164,9 +3298,8 @@ put_floor (Saver          *sv,
   for (guint i = 0; i < f->area_loads->len; i++)
     {
       const TrbAreaLoad *a = g_ptr_array_index (f->area_loads, i);
-      g_autofree char *what = g_strdup_printf ("area load %u of floor \"%s\"", i + 1, f->name);
 
-      sv->what = what;
+      set_what (sv, "area load", f->name, i + 1);
       put_indent (sv, 2);
       g_string_append (sv->out, "<area-load");
       put_attr (sv, "case", trb_load_case_name (a->lcase));
@@ -3184,9 +3317,8 @@ put_floor (Saver          *sv,
   for (guint i = 0; i < f->openings->len; i++)
     {
       const TrbOpening *o = g_ptr_array_index (f->openings, i);
-      g_autofree char *what = g_strdup_printf ("opening %u of floor \"%s\"", i + 1, f->name);
 
-      sv->what = what;
+      set_what (sv, "opening", f->name, i + 1);
       put_indent (sv, 2);
       g_string_append (sv->out, "<opening>\n");
       put_points (sv, o->points, 3);
@@ -3195,9 +3327,8 @@ put_floor (Saver          *sv,
   for (guint i = 0; i < f->line_loads->len; i++)
     {
       const TrbLineLoad *l = g_ptr_array_index (f->line_loads, i);
-      g_autofree char *what = g_strdup_printf ("line load %u of floor \"%s\"", i + 1, f->name);
 
-      sv->what = what;
+      set_what (sv, "line load", f->name, i + 1);
       put_indent (sv, 2);
       g_string_append (sv->out, "<line-load");
       put_attr (sv, "case", trb_load_case_name (l->lcase));
@@ -3211,9 +3342,8 @@ put_floor (Saver          *sv,
   for (guint i = 0; i < f->point_loads->len; i++)
     {
       const TrbPointLoad *p = g_ptr_array_index (f->point_loads, i);
-      g_autofree char *what = g_strdup_printf ("point load %u of floor \"%s\"", i + 1, f->name);
 
-      sv->what = what;
+      set_what (sv, "point load", f->name, i + 1);
       put_indent (sv, 2);
       g_string_append (sv->out, "<point-load");
       put_attr (sv, "case", trb_load_case_name (p->lcase));
@@ -3248,7 +3378,7 @@ trb_project_save_data (const TrbProject  *project,
                        GError           **error)
 {
   g_autoptr(GString) out = g_string_sized_new (4096);
-  Saver sv = { out, TRB_UNIT_SYSTEM_US, error, FALSE, NULL };
+  Saver sv = { out, TRB_UNIT_SYSTEM_US, error, FALSE, NULL, NULL, 0, { NULL, 0, 0 } };
 
   g_return_val_if_fail (project != NULL, NULL);
   g_return_val_if_fail (error == NULL || *error == NULL, NULL);
@@ -3268,6 +3398,7 @@ trb_project_save_data (const TrbProject  *project,
   for (guint i = 0; i < project->floors->len; i++)
     put_floor (&sv, g_ptr_array_index (project->floors, i));
   g_string_append (out, "</trabeate-project>\n");
+  memo_clear (&sv.memo);
 
   if (sv.failed)
     return NULL;
