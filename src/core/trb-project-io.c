@@ -88,13 +88,39 @@ node_line (xmlNode *node)
 
 #define NAME(node) ((const char *) (node)->name)
 
+/* The attribute without a namespace called @attr, as xmlHasNsProp() finds it in a document
+ * without a DTD (the parser refuses one). */
+static xmlAttr *
+find_attr (xmlNode    *node,
+           const char *attr)
+{
+  if (node->type != XML_ELEMENT_NODE)
+    return NULL;
+  for (xmlAttr *a = node->properties; a != NULL; a = a->next)
+    if (a->ns == NULL && a->name[0] == (xmlChar) attr[0] &&
+        strcmp ((const char *) a->name, attr) == 0)
+      return a;
+  return NULL;
+}
+
+/* The value as xmlGetNoNsProp() gives it, read in place when it is one text (the common
+ * case) instead of copied twice. */
 static char *
 get_attr (xmlNode    *node,
           const char *attr)
 {
-  xmlChar *v = xmlGetNoNsProp (node, (const xmlChar *) attr);
+  xmlAttr *a = find_attr (node, attr);
+  xmlChar *v;
   char *copy;
 
+  if (a == NULL)
+    return NULL;
+  if (a->children == NULL)
+    return g_strdup ("");
+  if (a->children->next == NULL && (a->children->type == XML_TEXT_NODE ||
+                                    a->children->type == XML_CDATA_SECTION_NODE))
+    return g_strdup ((const char *) a->children->content);
+  v = xmlGetNoNsProp (node, (const xmlChar *) attr);
   if (v == NULL)
     return NULL;
   copy = g_strdup ((const char *) v);
@@ -106,7 +132,18 @@ static gboolean
 has_attr (xmlNode    *node,
           const char *attr)
 {
-  return xmlHasNsProp (node, (const xmlChar *) attr, NULL) != NULL;
+  return find_attr (node, attr) != NULL;
+}
+
+/* g_strv_contains(), the first byte compared before the rest */
+static gboolean
+names_contain (const char * const *names,
+               const char         *name)
+{
+  for (; *names != NULL; names++)
+    if ((*names)[0] == name[0] && strcmp (*names, name) == 0)
+      return TRUE;
+  return FALSE;
 }
 
 /* Every attribute must be one this element knows: a misspelt attribute would otherwise be
@@ -122,7 +159,7 @@ check_attributes (Loader             *ld,
         return fail_at (ld, node_line (node), TRB_ERROR_INVALID,
                         "unknown attribute \"%s:%s\" on <%s>",
                         (const char *) a->ns->prefix, (const char *) a->name, NAME (node));
-      if (!g_strv_contains (allowed, (const char *) a->name))
+      if (!names_contain (allowed, (const char *) a->name))
         return fail_at (ld, node_line (node), TRB_ERROR_INVALID,
                         "unknown attribute \"%s\" on <%s>", (const char *) a->name, NAME (node));
     }
@@ -504,7 +541,7 @@ load_load (Loader     *ld,
       g_assert_not_reached ();
     }
   for (xmlAttr *a = node->properties; a != NULL; a = a->next)
-    if (!g_strv_contains (attrs, (const char *) a->name))
+    if (!names_contain (attrs, (const char *) a->name))
       return fail_at (ld, node_line (node), TRB_ERROR_INVALID,
                       "attribute \"%s\" does not belong on a %s load",
                       (const char *) a->name, type);
@@ -2026,7 +2063,7 @@ proved_value (const AttrRule *rule,
     case V_PLIES:
       return plain_digits (v, 2, &n) && n >= 1 && n <= 99;
     case V_CHOICE:
-      return g_strv_contains (rule->choices, v);
+      return names_contain (rule->choices, v);
     default:
       return FALSE;
     }
@@ -2050,7 +2087,7 @@ find_rule (const AttrRule *rules,
            const char     *name)
 {
   for (; rules->name != NULL; rules++)
-    if (strcmp (rules->name, name) == 0)
+    if (rules->name[0] == name[0] && strcmp (rules->name, name) == 0)
       return rules;
   return NULL;
 }
