@@ -9,6 +9,7 @@
 #include <libxml/parserInternals.h>
 #include <libxml/relaxng.h>
 #include <libxml/tree.h>
+#include <float.h>
 #include <math.h>
 #include <stdarg.h>
 #include <stdlib.h>
@@ -2740,9 +2741,9 @@ consider (char **best,
  * table, then SI). A function of the value alone, so that saving what was loaded from a saved
  * file gives the same bytes. */
 static char *
-format_quantity (double         value,
-                 TrbDimension   dim,
-                 TrbUnitSystem  system)
+format_quantity_plain (double         value,
+                       TrbDimension   dim,
+                       TrbUnitSystem  system)
 {
   const char * const *units = system == TRB_UNIT_SYSTEM_SI ? file_units_si[dim]
                                                            : file_units_us[dim];
@@ -2766,6 +2767,284 @@ format_quantity (double         value,
   format_shortest (num, sizeof num, value);
   consider (&best, g_strdup_printf ("%s %s", num, file_units_base[dim]));
   return best;
+}
+
+/* ---- the same texts without printf ---- */
+
+/* 10^0 to 10^22: the powers of ten a double holds exactly */
+static const double exact_pow10[] = {
+  1e0, 1e1, 1e2, 1e3, 1e4, 1e5, 1e6, 1e7, 1e8, 1e9, 1e10, 1e11, 1e12, 1e13, 1e14, 1e15, 1e16,
+  1e17, 1e18, 1e19, 1e20, 1e21, 1e22,
+};
+
+/* The text format_number (n, 15) writes into buf (at least 40 bytes), and in *read_back the
+ * double g_ascii_strtod() reads from it, without printf or strtod; FALSE where this cannot be
+ * sure, and the caller takes their way.
+ *
+ * printf rounds the exact value of n to 15 significant digits: the integer nearest to
+ * |n| 10^(14-x), x the decimal exponent. That product of two exact doubles is rounded once,
+ * and fma() gives its rounding error exactly, so the exact fraction is known; the sum with the
+ * double's fraction is rounded too, so a sum of exactly a half goes the long way. (From
+ * 10^15 up it is |n| / 10^(x-14), whose error is at most 1/16 below 10^15: fractions within
+ * that of a half go the long way.) So do products within one of a power of ten,
+ * where x could be one off, and exponents beyond the exact powers. The text is read back as its digits M times 10^q, |q| <= 22: M and 10^q
+ * are exact, so the one rounding of the product or quotient is the correctly rounded value,
+ * which is what strtod gives. */
+static gboolean
+quick_number15 (double  n,
+                char   *buf,
+                double *read_back)
+{
+  double a = fabs (n), t, f, back;
+  char digits[16];
+  guint64 m;
+  int x, p, q, sig;
+  char *out = buf;
+
+  if (n == 0 && !signbit (n))
+    {
+      strcpy (buf, "0");
+      *read_back = 0;
+      return TRUE;
+    }
+  if (!isfinite (n) || a < DBL_MIN)
+    return FALSE;
+  x = (int) floor (log10 (a));
+  p = 14 - x;
+  if (p < -22 || p > 22)
+    return FALSE;
+  t = p >= 0 ? a * exact_pow10[p] : a / exact_pow10[-p];
+  if (!(t >= 1e14 + 1 && t < 1e15 - 1))
+    return FALSE;
+  f = t - floor (t);
+  if (p >= 0)
+    {
+      /* the product's rounding error, exactly: the fraction of the exact product is f + r */
+      f += fma (a, exact_pow10[p], -t);
+      if (f == 0.5)
+        return FALSE;
+    }
+  else if (fabs (f - 0.5) < 0.07)
+    return FALSE;
+  m = (guint64) floor (t) + (f > 0.5 ? 1 : 0);
+
+  for (int i = 14; i >= 0; i--, m /= 10)
+    digits[i] = (char) ('0' + m % 10);
+  for (sig = 15; sig > 1 && digits[sig - 1] == '0'; sig--)
+    ;
+  m = 0;
+  for (int i = 0; i < sig; i++)
+    m = 10 * m + (guint64) (digits[i] - '0');
+  q = x - (sig - 1);
+  if (q < -22 || q > 22)
+    return FALSE;
+  back = q >= 0 ? (double) m * exact_pow10[q] : (double) m / exact_pow10[-q];
+
+  if (n < 0)
+    *out++ = '-';
+  if (a >= 1e-4 && a < 1e7)
+    {
+      /* %g's plain form: x is from -4 to 6 here */
+      if (x < 0)
+        {
+          *out++ = '0';
+          *out++ = '.';
+          for (int i = 0; i < -x - 1; i++)
+            *out++ = '0';
+          memcpy (out, digits, (gsize) sig);
+          out += sig;
+        }
+      else
+        {
+          memcpy (out, digits, (gsize) x + 1);
+          out += x + 1;
+          if (sig > x + 1)
+            {
+              *out++ = '.';
+              memcpy (out, digits + x + 1, (gsize) (sig - x - 1));
+              out += sig - x - 1;
+            }
+        }
+      *out = '\0';
+    }
+  else
+    {
+      *out++ = digits[0];
+      if (sig > 1)
+        {
+          *out++ = '.';
+          memcpy (out, digits + 1, (gsize) sig - 1);
+          out += sig - 1;
+        }
+      g_snprintf (out, 16, "e%d", x);
+    }
+  *read_back = n < 0 ? -back : back;
+  return TRUE;
+}
+
+/* A candidate of the quick way: none (the long way gives NULL), a text, or one the long way
+ * would find only with 16 or 17 digits, whose numbers then take at least 17 characters (a
+ * 16-digit number below 10^7 has a point; in the exponent form the "e" and its digits). */
+typedef enum
+{
+  QUICK_NONE,
+  QUICK_TEXT,
+  QUICK_LONG,
+} QuickKind;
+
+#define QUICK_LONG_COUNT 17
+
+typedef struct
+{
+  QuickKind kind;
+  char      text[96];
+} Quick;
+
+static gboolean
+quick_unit (double      value,
+            const char *unit,
+            double      factor,
+            Quick      *c)
+{
+  double n = value / factor;
+  double back;
+  char num[48];
+
+  c->kind = QUICK_NONE;
+  if (!isfinite (n))
+    return TRUE;
+  if (!quick_number15 (n, num, &back))
+    return FALSE;
+  if (back * factor == value)
+    {
+      c->kind = QUICK_TEXT;
+      g_snprintf (c->text, sizeof c->text, "%s %s", num, unit);
+    }
+  else
+    c->kind = QUICK_LONG;
+  return TRUE;
+}
+
+static gboolean
+quick_feet_inches (double  value,
+                   double  feet,
+                   Quick  *c)
+{
+  double inches = (fabs (value) - feet * TRB_FT) / TRB_IN;
+  double back;
+  char num[48];
+
+  c->kind = QUICK_NONE;
+  if (feet < 1 || !(inches >= 0 && inches < 12))
+    return TRUE;
+  if (feet >= 1e15 || !quick_number15 (inches, num, &back))
+    return FALSE;
+  /* "%.0f" of a whole number below 2^53 is its digits */
+  g_snprintf (c->text, sizeof c->text, "%s%" G_GUINT64_FORMAT " ft %s in",
+              value < 0 ? "-" : "", (guint64) feet, num);
+  c->kind = reads_back (c->text, TRB_DIM_LENGTH, value) ? QUICK_TEXT : QUICK_LONG;
+  return TRUE;
+}
+
+/* format_quantity_plain()'s text, found with digits of our own and the parser only where
+ * that must judge (feet and inches, and the winner); NULL where the quick way cannot be sure
+ * which candidate wins. */
+static char *
+format_quantity_quick (double         value,
+                       TrbDimension   dim,
+                       TrbUnitSystem  system)
+{
+  const char * const *units = system == TRB_UNIT_SYSTEM_SI ? file_units_si[dim]
+                                                           : file_units_us[dim];
+  Quick c[5], si;
+  guint n = 0;
+  int best = -1, best_count = G_MAXINT;
+  gboolean any_long = FALSE;
+  double back;
+  char num[48];
+
+  value += 0.0;
+  for (guint u = 0; units[u] != NULL; u++)
+    if (!quick_unit (value, units[u], unit_factor (units[u], dim), &c[n++]))
+      return NULL;
+  if (dim == TRB_DIM_LENGTH && system == TRB_UNIT_SYSTEM_US && fabs (value) >= TRB_FT)
+    {
+      double feet = floor (fabs (value) / TRB_FT);
+
+      if (!quick_feet_inches (value, feet, &c[n++]) ||
+          !quick_feet_inches (value, feet - 1, &c[n++]))
+        return NULL;
+    }
+  /* the first of the fewest digits, as consider() keeps it */
+  for (guint i = 0; i < n; i++)
+    {
+      int count;
+
+      any_long |= c[i].kind == QUICK_LONG;
+      if (c[i].kind != QUICK_TEXT)
+        continue;
+      count = count_digits (c[i].text);
+      if (count < best_count)
+        {
+          best = (int) i;
+          best_count = count;
+        }
+    }
+  if (any_long && best_count >= QUICK_LONG_COUNT)
+    return NULL;
+  if (best >= 0 && !reads_back (c[best].text, dim, value))
+    {
+      best = -1;
+      best_count = G_MAXINT;
+    }
+
+  /* SI base units: format_shortest() stops at 15 digits when they read back */
+  if (!quick_number15 (value, num, &back))
+    return NULL;
+  if (back == value)
+    {
+      g_snprintf (si.text, sizeof si.text, "%s %s", num, file_units_base[dim]);
+      if (count_digits (si.text) < best_count)
+        return g_strdup (si.text);
+    }
+  else if (best < 0 || best_count >= QUICK_LONG_COUNT)
+    return NULL;
+  return g_strdup (c[best].text);
+}
+
+/* The text a quantity is saved as (format_quantity_plain()), the quick way where it can be */
+static char *
+format_quantity (double         value,
+                 TrbDimension   dim,
+                 TrbUnitSystem  system)
+{
+  char *text = format_quantity_quick (value, dim, system);
+
+  return text != NULL ? text : format_quantity_plain (value, dim, system);
+}
+
+/**
+ * trb_project_format_quantity:
+ * @value: a finite quantity, SI
+ * @dim: its dimension
+ * @system: the project's units
+ * @plain: %TRUE for the reference way (printf and the parser for every candidate)
+ *
+ * The text trb_project_save_data() writes for @value ("20 ft"). For tests, which hold the
+ * quick way to the plain one.
+ *
+ * Returns: (transfer full): the text
+ */
+char *
+trb_project_format_quantity (double         value,
+                             TrbDimension   dim,
+                             TrbUnitSystem  system,
+                             gboolean       plain)
+{
+  g_return_val_if_fail (dim < TRB_N_DIMS && isfinite (value), NULL);
+
+  return plain ? format_quantity_plain (value, dim, system)
+               : format_quantity (value, dim, system);
 }
 
 /* The texts of the quantities written so far, by value and dimension: a floor repeats a few
