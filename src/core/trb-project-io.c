@@ -2801,6 +2801,11 @@ quick_number15 (double  n,
   int x, p, q, sig;
   char *out = buf;
 
+#if !defined(FLT_EVAL_METHOD) || FLT_EVAL_METHOD != 0
+  /* doubles computed with more precision than their own (x87): the roundings above are not
+   * the ones this reasons about */
+  return FALSE;
+#endif
   if (n == 0 && !signbit (n))
     {
       strcpy (buf, "0");
