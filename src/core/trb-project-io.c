@@ -1664,7 +1664,7 @@ parse_doc (Loader     *ld,
     }
   /* Never XML_PARSE_NOENT, DTDLOAD, DTDATTR, XINCLUDE or HUGE. */
   /* XML_PARSE_COMPACT: a text shorter than 16 bytes (most attribute values: "20 ft") is kept
-   * inside its node instead of a block of its own, some 5 MB less at 10,000 members; the tree
+   * inside its node instead of a block of its own, several MB less at 10,000 members; the tree
    * is only read, never changed, which is all that option asks. */
   xmlCtxtUseOptions (ctxt, XML_PARSE_NONET | XML_PARSE_NOERROR | XML_PARSE_NOWARNING |
                            XML_PARSE_BIG_LINES | XML_PARSE_COMPACT);
