@@ -3,6 +3,7 @@
 
 #include "config.h"
 
+#include <float.h>
 #include <glib/gstdio.h>
 #include <math.h>
 #include <signal.h>
@@ -843,6 +844,212 @@ test_save_random_values (void)
   (void) dims;
 }
 
+/* One value through the quick way and the plain one (printf and the parser for every
+ * candidate, trb_project_format_quantity() with plain): the same text. */
+static guint
+check_format (double        v,
+              TrbDimension  dim,
+              TrbUnitSystem system)
+{
+  g_autofree char *quick = NULL;
+  g_autofree char *plain = NULL;
+
+  if (!isfinite (v))
+    return 0;
+  quick = trb_project_format_quantity (v, dim, system, FALSE);
+  plain = trb_project_format_quantity (v, dim, system, TRUE);
+  if (g_strcmp0 (quick, plain) != 0)
+    g_error ("%.17g (dimension %d, system %d): quick \"%s\", plain \"%s\"", v, dim, system,
+             quick, plain);
+  return 1;
+}
+
+/* The quick formatting of quantities (digits without printf, read back without strtod) gives
+ * the same text as the plain way, for every dimension in both systems: values read from
+ * texts in every unit of the file (as a loaded file holds them: "241.375 in", "12 ft 7.5 in",
+ * "1.5e-7 m4"), their neighbours a few units in the last place away, random doubles from
+ * 1e-30 to 1e30, and the edges (zero, -0, the ends of the plain decimal range 1e-4 and 1e7,
+ * the largest and smallest doubles, halfway cases). The expected texts are the plain way's,
+ * the code the save used before the quick one (common practice: a new path held to the old). */
+static void
+test_save_quick_format (void)
+{
+  /* the units the saver writes in either system, and SI base units */
+  static const char * const file_units[TRB_N_DIMS][6] = {
+    [TRB_DIM_LENGTH] = { "ft", "in", "m", "mm", NULL },
+    [TRB_DIM_FORCE] = { "kip", "lb", "kN", "N", NULL },
+    [TRB_DIM_LINE_LOAD] = { "kip/ft", "plf", "kN/m", "N/m", NULL },
+    [TRB_DIM_AREA_LOAD] = { "psf", "ksf", "kPa", "Pa", NULL },
+    [TRB_DIM_MOMENT] = { "kip*ft", "lb*ft", "kN*m", "N*m", NULL },
+    [TRB_DIM_STRESS] = { "ksi", "psi", "MPa", "GPa", "Pa", NULL },
+    [TRB_DIM_AREA] = { "in2", "mm2", "m2", NULL },
+    [TRB_DIM_SECTION_MODULUS] = { "in3", "mm3", "m3", NULL },
+    [TRB_DIM_INERTIA] = { "in4", "mm4", "m4", NULL },
+    [TRB_DIM_WARPING] = { "in6", "mm6", "m6", NULL },
+    [TRB_DIM_WEIGHT_PER_LENGTH] = { "lb/ft", "kg/m", "N/m", NULL },
+    [TRB_DIM_DENSITY] = { "pcf", "kN/m3", "N/m3", NULL },
+  };
+  static const double edges[] = {
+    0, -0.0, 1e-4, 1e7, 9999999.5, 0.5, 1.5, 2.5, 0.125, 1e-22, 1e22, 1e23, 1e-23,
+    123456789012345, 1234567890123456, 0.1, 0.2, 0.3, 1.0 / 3, 2.0 / 3, 1e-300, 1e300,
+    DBL_MIN, DBL_MAX, 4.9e-324, 12 * 0.3048, 0.3048, 0.0254,
+  };
+  guint checked = 0;
+
+  for (int system = 0; system < 2; system++)
+    for (int d = 0; d < TRB_N_DIMS; d++)
+      {
+        TrbUnitSystem sys = system == 0 ? TRB_UNIT_SYSTEM_US : TRB_UNIT_SYSTEM_SI;
+        const char * const *units = file_units[d];
+
+        for (guint i = 0; i < G_N_ELEMENTS (edges); i++)
+          for (int sign = -1; sign <= 1; sign += 2)
+            for (int ulps = -2; ulps <= 2; ulps++)
+              {
+                double v = sign * edges[i];
+
+                for (int k = 0; k < abs (ulps); k++)
+                  v = nextafter (v, ulps < 0 ? -INFINITY : INFINITY);
+                checked += check_format (v, d, sys);
+              }
+        for (int r = 0; r < 300; r++)
+          {
+            double v = g_test_rand_double_range (-1, 1) * pow (10, g_test_rand_int_range (-30,
+                                                                                        30));
+
+            checked += check_format (v, d, sys);
+          }
+        for (guint u = 0; units[u] != NULL; u++)
+          for (int r = 0; r < 60; r++)
+            {
+              g_autofree char *text = NULL;
+              double v;
+
+              /* whole numbers, a few decimals, eighths, and short forms with an exponent */
+              switch (r % 4)
+                {
+                case 0:
+                  text = g_strdup_printf ("%d %s", g_test_rand_int_range (-5000, 5000),
+                                          units[u]);
+                  break;
+                case 1:
+                  text = g_strdup_printf ("%d.%d %s", g_test_rand_int_range (-500, 500),
+                                          g_test_rand_int_range (0, 100000), units[u]);
+                  break;
+                case 2:
+                  text = g_strdup_printf ("%g %s", g_test_rand_int_range (-4000, 4000) / 8.0,
+                                          units[u]);
+                  break;
+                default:
+                  text = g_strdup_printf ("%de%d %s", g_test_rand_int_range (1, 999),
+                                          g_test_rand_int_range (-12, 12), units[u]);
+                  break;
+                }
+              g_assert_true (trb_units_parse (text, d, &v, NULL));
+              for (int ulps = -3; ulps <= 3; ulps++)
+                {
+                  double w = v;
+
+                  for (int k = 0; k < abs (ulps); k++)
+                    w = nextafter (w, ulps < 0 ? -INFINITY : INFINITY);
+                  checked += check_format (w, d, sys);
+                }
+            }
+        if (d == TRB_DIM_LENGTH)
+          for (int r = 0; r < 400; r++)
+            {
+              g_autofree char *text = g_strdup_printf ("%d ft %g in",
+                                                       g_test_rand_int_range (1, 2000),
+                                                       g_test_rand_int_range (0, 96) / 8.0);
+              double v;
+
+              g_assert_true (trb_units_parse (text, d, &v, NULL));
+              checked += check_format (v, d, sys) + check_format (-v, d, sys) +
+                         check_format (nextafter (v, 0), d, sys) +
+                         check_format (nextafter (v, INFINITY), d, sys);
+            }
+      }
+  g_assert_cmpuint (checked, >, 40000);
+}
+
+/* The line of member "Z" in a saved project */
+static char *
+member_z_line (const char *saved)
+{
+  const char *start = strstr (saved, "<member id=\"Z\"");
+  const char *end;
+
+  g_assert_nonnull (start);
+  end = strchr (start, '\n');
+  g_assert_nonnull (end);
+  return g_strndup (start, (gsize) (end - start));
+}
+
+static char *
+save_floor_with_z (guint           n_before,
+                   const double   *pool,
+                   guint           n_pool,
+                   const double   *z)
+{
+  g_autoptr(TrbProject) p = trb_project_new ();
+  TrbFloor *f = trb_floor_new ("F");
+  TrbMember *m;
+  g_autoptr(GError) error = NULL;
+  char *saved;
+
+  trb_project_add_floor (p, f);
+  for (guint i = 0; i < n_before; i++)
+    {
+      g_autofree char *id = g_strdup_printf ("M%u", i);
+
+      m = trb_member_new (id);
+      trb_member_set_plan (m, (TrbFramePoint) { pool[i % n_pool], pool[(i + 1) % n_pool] },
+                           (TrbFramePoint) { pool[(i + 2) % n_pool], pool[(i * 7) % n_pool] });
+      trb_floor_add_member (p, f, m);
+    }
+  /* the same doubles as a length and as a force */
+  for (guint i = 0; i < MIN (n_pool, 50); i++)
+    g_ptr_array_add (f->point_loads, trb_point_load_new (TRB_CASE_D, pool[i],
+                                                         (TrbFramePoint) { pool[i], 0 },
+                                                         NULL));
+  m = trb_member_new ("Z");
+  trb_member_set_plan (m, (TrbFramePoint) { z[0], z[1] }, (TrbFramePoint) { z[2], z[3] });
+  trb_floor_add_member (p, f, m);
+  saved = trb_project_save_data (p, NULL, &error);
+  g_assert_no_error (error);
+  return saved;
+}
+
+/* The save keeps the text of each value once formatted (a memo by value and dimension): a
+ * member's line is the same whether its values are new to the save or seen before as
+ * coordinates and as forces, and past the memo's size limit (70,000 distinct values). The
+ * expected line is that of the member saved alone (common practice: the memo must not show). */
+static void
+test_save_memo (void)
+{
+  double pool[64];
+  double z[4] = { 3.048, 0.0254 * 250.5, -12.5 * 0.3048, 4.4482216152605 };
+  g_autofree char *alone = NULL;
+  g_autofree char *alone_line = NULL;
+  g_autofree double *many = g_new (double, 70000);
+
+  for (guint i = 0; i < G_N_ELEMENTS (pool); i++)
+    pool[i] = i < 4 ? z[i] : g_test_rand_double_range (-100, 100);
+  for (guint i = 0; i < 70000; i++)
+    many[i] = (i + 1) * 0.001;
+
+  alone = save_floor_with_z (0, pool + 4, 1, z);
+  alone_line = member_z_line (alone);
+  for (int round = 0; round < 2; round++)
+    {
+      g_autofree char *saved = round == 0 ? save_floor_with_z (200, pool, 64, z)
+                                          : save_floor_with_z (17500, many, 70000, z);
+      g_autofree char *line = member_z_line (saved);
+
+      g_assert_cmpstr (line, ==, alone_line);
+    }
+}
+
 static char *
 read_all (const char *path,
           gsize      *n)
@@ -1239,6 +1446,8 @@ main (int    argc,
   g_test_add_func ("/trb/project-io/save-escapes", test_save_escapes);
   g_test_add_func ("/trb/project-io/save-not-finite", test_save_not_finite);
   g_test_add_func ("/trb/project-io/save-random-values", test_save_random_values);
+  g_test_add_func ("/trb/project-io/save-quick-format", test_save_quick_format);
+  g_test_add_func ("/trb/project-io/save-memo", test_save_memo);
   g_test_add_func ("/trb/project-io/save-atomic", test_save_atomic);
   g_test_add_func ("/trb/project-io/save-symlink", test_save_symlink);
   g_test_add_func ("/trb/project-io/schema", test_schema);

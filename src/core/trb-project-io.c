@@ -9,6 +9,7 @@
 #include <libxml/parserInternals.h>
 #include <libxml/relaxng.h>
 #include <libxml/tree.h>
+#include <float.h>
 #include <math.h>
 #include <stdarg.h>
 #include <stdlib.h>
@@ -88,13 +89,39 @@ node_line (xmlNode *node)
 
 #define NAME(node) ((const char *) (node)->name)
 
+/* The attribute without a namespace called @attr, as xmlHasNsProp() finds it in a document
+ * without a DTD (the parser refuses one). */
+static xmlAttr *
+find_attr (xmlNode    *node,
+           const char *attr)
+{
+  if (node->type != XML_ELEMENT_NODE)
+    return NULL;
+  for (xmlAttr *a = node->properties; a != NULL; a = a->next)
+    if (a->ns == NULL && a->name[0] == (xmlChar) attr[0] &&
+        strcmp ((const char *) a->name, attr) == 0)
+      return a;
+  return NULL;
+}
+
+/* The value as xmlGetNoNsProp() gives it, read in place when it is one text (the common
+ * case) instead of copied twice. */
 static char *
 get_attr (xmlNode    *node,
           const char *attr)
 {
-  xmlChar *v = xmlGetNoNsProp (node, (const xmlChar *) attr);
+  xmlAttr *a = find_attr (node, attr);
+  xmlChar *v;
   char *copy;
 
+  if (a == NULL)
+    return NULL;
+  if (a->children == NULL)
+    return g_strdup ("");
+  if (a->children->next == NULL && (a->children->type == XML_TEXT_NODE ||
+                                    a->children->type == XML_CDATA_SECTION_NODE))
+    return g_strdup ((const char *) a->children->content);
+  v = xmlGetNoNsProp (node, (const xmlChar *) attr);
   if (v == NULL)
     return NULL;
   copy = g_strdup ((const char *) v);
@@ -106,7 +133,18 @@ static gboolean
 has_attr (xmlNode    *node,
           const char *attr)
 {
-  return xmlHasNsProp (node, (const xmlChar *) attr, NULL) != NULL;
+  return find_attr (node, attr) != NULL;
+}
+
+/* g_strv_contains(), the first byte compared before the rest */
+static gboolean
+names_contain (const char * const *names,
+               const char         *name)
+{
+  for (; *names != NULL; names++)
+    if ((*names)[0] == name[0] && strcmp (*names, name) == 0)
+      return TRUE;
+  return FALSE;
 }
 
 /* Every attribute must be one this element knows: a misspelt attribute would otherwise be
@@ -122,7 +160,7 @@ check_attributes (Loader             *ld,
         return fail_at (ld, node_line (node), TRB_ERROR_INVALID,
                         "unknown attribute \"%s:%s\" on <%s>",
                         (const char *) a->ns->prefix, (const char *) a->name, NAME (node));
-      if (!g_strv_contains (allowed, (const char *) a->name))
+      if (!names_contain (allowed, (const char *) a->name))
         return fail_at (ld, node_line (node), TRB_ERROR_INVALID,
                         "unknown attribute \"%s\" on <%s>", (const char *) a->name, NAME (node));
     }
@@ -504,7 +542,7 @@ load_load (Loader     *ld,
       g_assert_not_reached ();
     }
   for (xmlAttr *a = node->properties; a != NULL; a = a->next)
-    if (!g_strv_contains (attrs, (const char *) a->name))
+    if (!names_contain (attrs, (const char *) a->name))
       return fail_at (ld, node_line (node), TRB_ERROR_INVALID,
                       "attribute \"%s\" does not belong on a %s load",
                       (const char *) a->name, type);
@@ -1625,8 +1663,11 @@ parse_doc (Loader     *ld,
       return NULL;
     }
   /* Never XML_PARSE_NOENT, DTDLOAD, DTDATTR, XINCLUDE or HUGE. */
+  /* XML_PARSE_COMPACT: a text shorter than 16 bytes (most attribute values: "20 ft") is kept
+   * inside its node instead of a block of its own, several MB less at 10,000 members; the tree
+   * is only read, never changed, which is all that option asks. */
   xmlCtxtUseOptions (ctxt, XML_PARSE_NONET | XML_PARSE_NOERROR | XML_PARSE_NOWARNING |
-                           XML_PARSE_BIG_LINES);
+                           XML_PARSE_BIG_LINES | XML_PARSE_COMPACT);
   ctxt->_private = &guard;
   ctxt->sax->internalSubset = on_internal_subset;
   ctxt->sax->externalSubset = NULL;
@@ -2023,7 +2064,7 @@ proved_value (const AttrRule *rule,
     case V_PLIES:
       return plain_digits (v, 2, &n) && n >= 1 && n <= 99;
     case V_CHOICE:
-      return g_strv_contains (rule->choices, v);
+      return names_contain (rule->choices, v);
     default:
       return FALSE;
     }
@@ -2047,7 +2088,7 @@ find_rule (const AttrRule *rules,
            const char     *name)
 {
   for (; rules->name != NULL; rules++)
-    if (strcmp (rules->name, name) == 0)
+    if (rules->name[0] == name[0] && strcmp (rules->name, name) == 0)
       return rules;
   return NULL;
 }
@@ -2300,11 +2341,14 @@ validate_schema (Loader   *ld,
                   message != NULL ? message : "invalid");
 }
 
+/* @release, if not NULL, holds @data and is freed as soon as the document is parsed: the
+ * file's bytes need not stay beside the tree and the model. */
 static TrbProject *
 load_data_in (const char  *data,
               gsize        length,
               const char  *display_name,
               const char  *dir,
+              GByteArray  *release,
               GError     **error)
 {
   g_autoptr(xmlDoc) doc = NULL;
@@ -2320,6 +2364,8 @@ load_data_in (const char  *data,
   g_return_val_if_fail (error == NULL || *error == NULL, NULL);
 
   doc = parse_doc (&ld, data, length);
+  if (release != NULL)
+    g_byte_array_unref (release);
   if (doc == NULL)
     return NULL;
 
@@ -2380,7 +2426,7 @@ trb_project_load_data (const char  *data,
                        const char  *display_name,
                        GError     **error)
 {
-  return load_data_in (data, length, display_name, NULL, error);
+  return load_data_in (data, length, display_name, NULL, NULL, error);
 }
 
 /**
@@ -2401,9 +2447,13 @@ trb_project_load_file (const char  *filename,
   g_autoptr(GFile) file = NULL;
   g_autoptr(GFileInputStream) in = NULL;
   g_autoptr(GByteArray) bytes = NULL;
+  g_autoptr(GFileInfo) info = NULL;
   g_autoptr(GError) local = NULL;
   g_autofree char *display = NULL;
   g_autofree char *dir = NULL;
+  const char *data;
+  gsize length;
+  goffset size = 0;
   guint8 chunk[65536];
 
   g_return_val_if_fail (filename != NULL, NULL);
@@ -2419,7 +2469,11 @@ trb_project_load_file (const char  *filename,
       return NULL;
     }
 
-  bytes = g_byte_array_new ();
+  /* sized to the file, so that its bytes are not held in a block of twice the size */
+  info = g_file_input_stream_query_info (in, G_FILE_ATTRIBUTE_STANDARD_SIZE, NULL, NULL);
+  if (info != NULL && g_file_info_has_attribute (info, G_FILE_ATTRIBUTE_STANDARD_SIZE))
+    size = g_file_info_get_size (info);
+  bytes = g_byte_array_sized_new ((guint) CLAMP (size, 0, TRB_PROJECT_MAX_FILE_SIZE));
   for (;;)
     {
       gssize n = g_input_stream_read (G_INPUT_STREAM (in), chunk, sizeof chunk, NULL, &local);
@@ -2442,7 +2496,9 @@ trb_project_load_file (const char  *filename,
     }
 
   dir = g_path_get_dirname (filename);
-  return load_data_in ((const char *) bytes->data, bytes->len, display, dir, error);
+  data = (const char *) bytes->data;
+  length = bytes->len;
+  return load_data_in (data, length, display, dir, g_steal_pointer (&bytes), error);
 }
 
 /* ---- saving -------------------------------------------------------------------------------- */
@@ -2685,9 +2741,9 @@ consider (char **best,
  * table, then SI). A function of the value alone, so that saving what was loaded from a saved
  * file gives the same bytes. */
 static char *
-format_quantity (double         value,
-                 TrbDimension   dim,
-                 TrbUnitSystem  system)
+format_quantity_plain (double         value,
+                       TrbDimension   dim,
+                       TrbUnitSystem  system)
 {
   const char * const *units = system == TRB_UNIT_SYSTEM_SI ? file_units_si[dim]
                                                            : file_units_us[dim];
@@ -2713,21 +2769,408 @@ format_quantity (double         value,
   return best;
 }
 
+/* ---- the same texts without printf ---- */
+
+/* 10^0 to 10^22: the powers of ten a double holds exactly */
+static const double exact_pow10[] = {
+  1e0, 1e1, 1e2, 1e3, 1e4, 1e5, 1e6, 1e7, 1e8, 1e9, 1e10, 1e11, 1e12, 1e13, 1e14, 1e15, 1e16,
+  1e17, 1e18, 1e19, 1e20, 1e21, 1e22,
+};
+
+/* The text format_number (n, 15) writes into buf (at least 40 bytes), and in *read_back the
+ * double g_ascii_strtod() reads from it, without printf or strtod; FALSE where this cannot be
+ * sure, and the caller takes their way.
+ *
+ * printf rounds the exact value of n to 15 significant digits: the integer nearest to
+ * |n| 10^(14-x), x the decimal exponent. That product of two exact doubles is rounded once,
+ * and fma() gives its rounding error exactly, so the exact fraction is known; the sum with the
+ * double's fraction is rounded too, so a sum of exactly a half goes the long way. (From
+ * 10^15 up it is |n| / 10^(x-14), whose error is at most 1/16 below 10^15: fractions within
+ * that of a half go the long way.) So do products within one of a power of ten,
+ * where x could be one off, and exponents beyond the exact powers. The text is read back as its digits M times 10^q, |q| <= 22: M and 10^q
+ * are exact, so the one rounding of the product or quotient is the correctly rounded value,
+ * which is what strtod gives. */
+static gboolean
+quick_number15 (double  n,
+                char   *buf,
+                double *read_back)
+{
+  double a = fabs (n), t, f, back;
+  char digits[16];
+  guint64 m;
+  int x, p, q, sig;
+  char *out = buf;
+
+#if !defined(FLT_EVAL_METHOD) || FLT_EVAL_METHOD != 0
+  /* doubles computed with more precision than their own (x87): the roundings above are not
+   * the ones this reasons about */
+  return FALSE;
+#endif
+  if (n == 0 && !signbit (n))
+    {
+      strcpy (buf, "0");
+      *read_back = 0;
+      return TRUE;
+    }
+  if (!isfinite (n) || a < DBL_MIN)
+    return FALSE;
+  x = (int) floor (log10 (a));
+  p = 14 - x;
+  if (p < -22 || p > 22)
+    return FALSE;
+  t = p >= 0 ? a * exact_pow10[p] : a / exact_pow10[-p];
+  if (!(t >= 1e14 + 1 && t < 1e15 - 1))
+    return FALSE;
+  f = t - floor (t);
+  if (p >= 0)
+    {
+      /* the product's rounding error, exactly: the fraction of the exact product is f + r */
+      f += fma (a, exact_pow10[p], -t);
+      if (f == 0.5)
+        return FALSE;
+    }
+  else if (fabs (f - 0.5) < 0.07)
+    return FALSE;
+  m = (guint64) floor (t) + (f > 0.5 ? 1 : 0);
+
+  for (int i = 14; i >= 0; i--, m /= 10)
+    digits[i] = (char) ('0' + m % 10);
+  for (sig = 15; sig > 1 && digits[sig - 1] == '0'; sig--)
+    ;
+  m = 0;
+  for (int i = 0; i < sig; i++)
+    m = 10 * m + (guint64) (digits[i] - '0');
+  q = x - (sig - 1);
+  if (q < -22 || q > 22)
+    return FALSE;
+  back = q >= 0 ? (double) m * exact_pow10[q] : (double) m / exact_pow10[-q];
+
+  if (n < 0)
+    *out++ = '-';
+  if (a >= 1e-4 && a < 1e7)
+    {
+      /* %g's plain form: x is from -4 to 6 here */
+      if (x < 0)
+        {
+          *out++ = '0';
+          *out++ = '.';
+          for (int i = 0; i < -x - 1; i++)
+            *out++ = '0';
+          memcpy (out, digits, (gsize) sig);
+          out += sig;
+        }
+      else
+        {
+          memcpy (out, digits, (gsize) x + 1);
+          out += x + 1;
+          if (sig > x + 1)
+            {
+              *out++ = '.';
+              memcpy (out, digits + x + 1, (gsize) (sig - x - 1));
+              out += sig - x - 1;
+            }
+        }
+      *out = '\0';
+    }
+  else
+    {
+      *out++ = digits[0];
+      if (sig > 1)
+        {
+          *out++ = '.';
+          memcpy (out, digits + 1, (gsize) sig - 1);
+          out += sig - 1;
+        }
+      g_snprintf (out, 16, "e%d", x);
+    }
+  *read_back = n < 0 ? -back : back;
+  return TRUE;
+}
+
+/* A candidate of the quick way: none (the long way gives NULL), a text, or one the long way
+ * would find only with 16 or 17 digits, whose numbers then take at least 17 characters (a
+ * 16-digit number below 10^7 has a point; in the exponent form the "e" and its digits). */
+typedef enum
+{
+  QUICK_NONE,
+  QUICK_TEXT,
+  QUICK_LONG,
+} QuickKind;
+
+#define QUICK_LONG_COUNT 17
+
+typedef struct
+{
+  QuickKind kind;
+  char      text[96];
+} Quick;
+
+static gboolean
+quick_unit (double      value,
+            const char *unit,
+            double      factor,
+            Quick      *c)
+{
+  double n = value / factor;
+  double back;
+  char num[48];
+
+  c->kind = QUICK_NONE;
+  if (!isfinite (n))
+    return TRUE;
+  if (!quick_number15 (n, num, &back))
+    return FALSE;
+  if (back * factor == value)
+    {
+      c->kind = QUICK_TEXT;
+      g_snprintf (c->text, sizeof c->text, "%s %s", num, unit);
+    }
+  else
+    c->kind = QUICK_LONG;
+  return TRUE;
+}
+
+static gboolean
+quick_feet_inches (double  value,
+                   double  feet,
+                   Quick  *c)
+{
+  double inches = (fabs (value) - feet * TRB_FT) / TRB_IN;
+  double back;
+  char num[48];
+
+  c->kind = QUICK_NONE;
+  if (feet < 1 || !(inches >= 0 && inches < 12))
+    return TRUE;
+  if (feet >= 1e15 || !quick_number15 (inches, num, &back))
+    return FALSE;
+  /* "%.0f" of a whole number below 2^53 is its digits */
+  g_snprintf (c->text, sizeof c->text, "%s%" G_GUINT64_FORMAT " ft %s in",
+              value < 0 ? "-" : "", (guint64) feet, num);
+  c->kind = reads_back (c->text, TRB_DIM_LENGTH, value) ? QUICK_TEXT : QUICK_LONG;
+  return TRUE;
+}
+
+/* format_quantity_plain()'s text, found with digits of our own and the parser only where
+ * that must judge (feet and inches, and the winner); NULL where the quick way cannot be sure
+ * which candidate wins. */
+static char *
+format_quantity_quick (double         value,
+                       TrbDimension   dim,
+                       TrbUnitSystem  system)
+{
+  const char * const *units = system == TRB_UNIT_SYSTEM_SI ? file_units_si[dim]
+                                                           : file_units_us[dim];
+  Quick c[5], si;
+  guint n = 0;
+  int best = -1, best_count = G_MAXINT;
+  gboolean any_long = FALSE;
+  double back;
+  char num[48];
+
+  value += 0.0;
+  for (guint u = 0; units[u] != NULL; u++)
+    if (!quick_unit (value, units[u], unit_factor (units[u], dim), &c[n++]))
+      return NULL;
+  if (dim == TRB_DIM_LENGTH && system == TRB_UNIT_SYSTEM_US && fabs (value) >= TRB_FT)
+    {
+      double feet = floor (fabs (value) / TRB_FT);
+
+      if (!quick_feet_inches (value, feet, &c[n++]) ||
+          !quick_feet_inches (value, feet - 1, &c[n++]))
+        return NULL;
+    }
+  /* the first of the fewest digits, as consider() keeps it */
+  for (guint i = 0; i < n; i++)
+    {
+      int count;
+
+      any_long |= c[i].kind == QUICK_LONG;
+      if (c[i].kind != QUICK_TEXT)
+        continue;
+      count = count_digits (c[i].text);
+      if (count < best_count)
+        {
+          best = (int) i;
+          best_count = count;
+        }
+    }
+  if (any_long && best_count >= QUICK_LONG_COUNT)
+    return NULL;
+  if (best >= 0 && !reads_back (c[best].text, dim, value))
+    {
+      best = -1;
+      best_count = G_MAXINT;
+    }
+
+  /* SI base units: format_shortest() stops at 15 digits when they read back */
+  if (!quick_number15 (value, num, &back))
+    return NULL;
+  if (back == value)
+    {
+      g_snprintf (si.text, sizeof si.text, "%s %s", num, file_units_base[dim]);
+      if (count_digits (si.text) < best_count)
+        return g_strdup (si.text);
+    }
+  else if (best < 0 || best_count >= QUICK_LONG_COUNT)
+    return NULL;
+  return g_strdup (c[best].text);
+}
+
+/* The text a quantity is saved as (format_quantity_plain()), the quick way where it can be */
+static char *
+format_quantity (double         value,
+                 TrbDimension   dim,
+                 TrbUnitSystem  system)
+{
+  char *text = format_quantity_quick (value, dim, system);
+
+  return text != NULL ? text : format_quantity_plain (value, dim, system);
+}
+
+/**
+ * trb_project_format_quantity:
+ * @value: a finite quantity, SI
+ * @dim: its dimension
+ * @system: the project's units
+ * @plain: %TRUE for the reference way (printf and the parser for every candidate)
+ *
+ * The text trb_project_save_data() writes for @value ("20 ft"). For tests, which hold the
+ * quick way to the plain one.
+ *
+ * Returns: (transfer full): the text
+ */
+char *
+trb_project_format_quantity (double         value,
+                             TrbDimension   dim,
+                             TrbUnitSystem  system,
+                             gboolean       plain)
+{
+  g_return_val_if_fail (dim < TRB_N_DIMS && isfinite (value), NULL);
+
+  return plain ? format_quantity_plain (value, dim, system)
+               : format_quantity (value, dim, system);
+}
+
+/* The texts of the quantities written so far, by value and dimension: a floor repeats a few
+ * hundred coordinates and loads tens of thousands of times, and format_quantity() tries
+ * several units with printf and the parser for each. A pure function of the key, so a memo
+ * gives the same bytes. Open addressing, at most half full; it stops taking entries at
+ * MEMO_MAX (a few MB) so that a file of distinct values costs no more memory than that. */
+#define MEMO_MAX (1u << 16)
+
+typedef struct
+{
+  guint64  bits;   /* of the value, -0 as 0 */
+  guint    dim;    /* TrbDimension + 1; 0 for an empty slot */
+  guint    len;
+  char    *text;
+} MemoSlot;
+
+typedef struct
+{
+  MemoSlot *slots;
+  guint     mask;  /* capacity - 1, a power of two less one */
+  guint     used;
+} Memo;
+
+static void
+memo_clear (Memo *memo)
+{
+  for (guint i = 0; memo->slots != NULL && i <= memo->mask; i++)
+    g_free (memo->slots[i].text);
+  g_clear_pointer (&memo->slots, g_free);
+  memo->mask = memo->used = 0;
+}
+
+static guint
+memo_index (const Memo *memo,
+            guint64     bits,
+            guint       dim)
+{
+  guint64 h = (bits ^ ((guint64) dim << 59)) * G_GUINT64_CONSTANT (0x9e3779b97f4a7c15);
+  guint i = (guint) (h >> 32) & memo->mask;
+
+  while (memo->slots[i].dim != 0 && (memo->slots[i].bits != bits || memo->slots[i].dim != dim))
+    i = (i + 1) & memo->mask;
+  return i;
+}
+
+/* The slot of (bits, dim): its text, or an empty slot to fill; NULL when the memo is full. */
+static MemoSlot *
+memo_lookup (Memo    *memo,
+             guint64  bits,
+             guint    dim)
+{
+  if (memo->slots == NULL)
+    {
+      memo->mask = 1023;
+      memo->slots = g_new0 (MemoSlot, memo->mask + 1);
+    }
+  else if (2 * (memo->used + 1) > memo->mask + 1)
+    {
+      MemoSlot *old = memo->slots;
+      guint old_mask = memo->mask;
+
+      if (memo->used >= MEMO_MAX)
+        {
+          MemoSlot *slot = &memo->slots[memo_index (memo, bits, dim)];
+
+          return slot->dim != 0 ? slot : NULL;
+        }
+      memo->mask = 2 * memo->mask + 1;
+      memo->slots = g_new0 (MemoSlot, memo->mask + 1);
+      for (guint i = 0; i <= old_mask; i++)
+        if (old[i].dim != 0)
+          memo->slots[memo_index (memo, old[i].bits, old[i].dim)] = old[i];
+      g_free (old);
+    }
+  return &memo->slots[memo_index (memo, bits, dim)];
+}
+
 typedef struct
 {
   GString       *out;
   TrbUnitSystem  units;
   GError       **error;
   gboolean       failed;
-  const char    *what;      /* the element being written, for messages */
+  /* the element being written, for messages, put together only for one: "settings",
+   * kind "name" or, with an index, kind index of floor "name" */
+  const char    *what_kind;
+  const char    *what_name;
+  guint          what_index;
+  Memo           memo;
 } Saver;
+
+static void
+set_what (Saver      *sv,
+          const char *kind,
+          const char *name,
+          guint       index)
+{
+  sv->what_kind = kind;
+  sv->what_name = name;
+  sv->what_index = index;
+}
 
 static void
 put_escaped (GString    *out,
              const char *text,
              gboolean    attribute)
 {
-  g_autofree char *valid = g_utf8_make_valid (text, -1);
+  g_autofree char *valid = NULL;
+  const char *q;
+
+  /* most texts are printable ASCII with nothing to escape: as they are */
+  for (q = text; *q >= 0x20 && *q < 0x7f && *q != '&' && *q != '<' && *q != '>' && *q != '"';
+       q++)
+    ;
+  if (*q == '\0')
+    {
+      g_string_append_len (out, text, q - text);
+      return;
+    }
+  valid = g_utf8_make_valid (text, -1);
 
   for (const char *p = valid; *p != '\0'; p++)
     {
@@ -2771,7 +3214,9 @@ put_attr (Saver      *sv,
           const char *name,
           const char *value)
 {
-  g_string_append_printf (sv->out, " %s=\"", name);
+  g_string_append_c (sv->out, ' ');
+  g_string_append (sv->out, name);
+  g_string_append_len (sv->out, "=\"", 2);
   put_escaped (sv->out, value, TRUE);
   g_string_append_c (sv->out, '"');
 }
@@ -2783,17 +3228,51 @@ put_quantity (Saver        *sv,
               TrbDimension  dim)
 {
   g_autofree char *text = NULL;
+  MemoSlot *slot;
+  guint64 bits;
 
   if (!isfinite (value))
     {
       if (!sv->failed)
-        g_set_error (sv->error, TRB_ERROR, TRB_ERROR_INVALID,
-                     "%s: \"%s\" is not a finite number", sv->what, name);
+        {
+          g_autofree char *what = NULL;
+
+          if (sv->what_name == NULL)
+            what = g_strdup (sv->what_kind);
+          else if (sv->what_index > 0)
+            what = g_strdup_printf ("%s %u of floor \"%s\"", sv->what_kind, sv->what_index,
+                                    sv->what_name);
+          else
+            what = g_strdup_printf ("%s \"%s\"", sv->what_kind, sv->what_name);
+          g_set_error (sv->error, TRB_ERROR, TRB_ERROR_INVALID,
+                       "%s: \"%s\" is not a finite number", what, name);
+        }
       sv->failed = TRUE;
       return;
     }
-  text = format_quantity (value, dim, sv->units);
-  put_attr (sv, name, text);
+  value += 0.0;   /* -0 is saved as 0 */
+  memcpy (&bits, &value, sizeof bits);
+  slot = memo_lookup (&sv->memo, bits, dim + 1);
+  if (slot == NULL)
+    {
+      text = format_quantity (value, dim, sv->units);
+      put_attr (sv, name, text);
+      return;
+    }
+  if (slot->dim == 0)
+    {
+      /* the texts are numbers and units: nothing to escape */
+      slot->text = format_quantity (value, dim, sv->units);
+      slot->len = (guint) strlen (slot->text);
+      slot->bits = bits;
+      slot->dim = dim + 1;
+      sv->memo.used++;
+    }
+  g_string_append_c (sv->out, ' ');
+  g_string_append (sv->out, name);
+  g_string_append_len (sv->out, "=\"", 2);
+  g_string_append_len (sv->out, slot->text, slot->len);
+  g_string_append_c (sv->out, '"');
 }
 
 static void
@@ -2841,7 +3320,7 @@ put_settings (Saver             *sv,
   static const char * const units[] = { "us", "si" };
   char above[16];
 
-  sv->what = "settings";
+  set_what (sv, "settings", NULL, 0);
   put_indent (sv, 1);
   g_string_append (sv->out, "<settings");
   put_attr (sv, "method", trb_method_name (s->method));
@@ -3042,10 +3521,9 @@ static void
 put_beam (Saver           *sv,
           const TrbMember *m)
 {
-  g_autofree char *what = g_strdup_printf ("beam \"%s\"", m->id);
   gboolean children = member_has_children (m);
 
-  sv->what = what;
+  set_what (sv, "beam", m->id, 0);
   put_indent (sv, 1);
   g_string_append (sv->out, "<beam");
   put_attr (sv, "id", m->id);
@@ -3060,10 +3538,9 @@ static void
 put_member (Saver           *sv,
             const TrbMember *m)
 {
-  g_autofree char *what = g_strdup_printf ("member \"%s\"", m->id);
   gboolean children = member_has_children (m);
 
-  sv->what = what;
+  set_what (sv, "member", m->id, 0);
   put_indent (sv, 2);
   g_string_append (sv->out, "<member");
   put_attr (sv, "id", m->id);
@@ -3103,12 +3580,11 @@ static void
 put_floor (Saver          *sv,
            const TrbFloor *f)
 {
-  g_autofree char *floor_what = g_strdup_printf ("floor \"%s\"", f->name);
   gboolean children = f->grids->len + f->columns->len + f->walls->len + f->members->len +
                       f->area_loads->len + f->openings->len + f->line_loads->len +
                       f->point_loads->len > 0;
 
-  sv->what = floor_what;
+  set_what (sv, "floor", f->name, 0);
   put_indent (sv, 1);
   g_string_append (sv->out, "<floor");
   put_attr (sv, "name", f->name);
@@ -3117,9 +3593,8 @@ put_floor (Saver          *sv,
   for (guint i = 0; i < f->grids->len; i++)
     {
       const TrbGridLine *g = g_ptr_array_index (f->grids, i);
-      g_autofree char *what = g_strdup_printf ("grid line \"%s\"", g->name);
 
-      sv->what = what;
+      set_what (sv, "grid line", g->name, 0);
       put_indent (sv, 2);
       g_string_append (sv->out, "<grid");
       put_attr (sv, "name", g->name);
@@ -3132,9 +3607,8 @@ put_floor (Saver          *sv,
   for (guint i = 0; i < f->columns->len; i++)
     {
       const TrbColumn *c = g_ptr_array_index (f->columns, i);
-      g_autofree char *what = g_strdup_printf ("column \"%s\"", c->id);
 
-      sv->what = what;
+      set_what (sv, "column", c->id, 0);
       put_indent (sv, 2);
       g_string_append (sv->out, "<column");
       put_attr (sv, "id", c->id);
@@ -3147,9 +3621,8 @@ put_floor (Saver          *sv,
   for (guint i = 0; i < f->walls->len; i++)
     {
       const TrbWall *w = g_ptr_array_index (f->walls, i);
-      g_autofree char *what = g_strdup_printf ("wall \"%s\"", w->id);
 
-      sv->what = what;
+      set_what (sv, "wall", w->id, 0);
       put_indent (sv, 2);
       g_string_append (sv->out, "<wall");
       put_attr (sv, "id", w->id);
@@ -3164,9 +3637,8 @@ put_floor (Saver          *sv,
   for (guint i = 0; i < f->area_loads->len; i++)
     {
       const TrbAreaLoad *a = g_ptr_array_index (f->area_loads, i);
-      g_autofree char *what = g_strdup_printf ("area load %u of floor \"%s\"", i + 1, f->name);
 
-      sv->what = what;
+      set_what (sv, "area load", f->name, i + 1);
       put_indent (sv, 2);
       g_string_append (sv->out, "<area-load");
       put_attr (sv, "case", trb_load_case_name (a->lcase));
@@ -3184,9 +3656,8 @@ put_floor (Saver          *sv,
   for (guint i = 0; i < f->openings->len; i++)
     {
       const TrbOpening *o = g_ptr_array_index (f->openings, i);
-      g_autofree char *what = g_strdup_printf ("opening %u of floor \"%s\"", i + 1, f->name);
 
-      sv->what = what;
+      set_what (sv, "opening", f->name, i + 1);
       put_indent (sv, 2);
       g_string_append (sv->out, "<opening>\n");
       put_points (sv, o->points, 3);
@@ -3195,9 +3666,8 @@ put_floor (Saver          *sv,
   for (guint i = 0; i < f->line_loads->len; i++)
     {
       const TrbLineLoad *l = g_ptr_array_index (f->line_loads, i);
-      g_autofree char *what = g_strdup_printf ("line load %u of floor \"%s\"", i + 1, f->name);
 
-      sv->what = what;
+      set_what (sv, "line load", f->name, i + 1);
       put_indent (sv, 2);
       g_string_append (sv->out, "<line-load");
       put_attr (sv, "case", trb_load_case_name (l->lcase));
@@ -3211,9 +3681,8 @@ put_floor (Saver          *sv,
   for (guint i = 0; i < f->point_loads->len; i++)
     {
       const TrbPointLoad *p = g_ptr_array_index (f->point_loads, i);
-      g_autofree char *what = g_strdup_printf ("point load %u of floor \"%s\"", i + 1, f->name);
 
-      sv->what = what;
+      set_what (sv, "point load", f->name, i + 1);
       put_indent (sv, 2);
       g_string_append (sv->out, "<point-load");
       put_attr (sv, "case", trb_load_case_name (p->lcase));
@@ -3248,7 +3717,7 @@ trb_project_save_data (const TrbProject  *project,
                        GError           **error)
 {
   g_autoptr(GString) out = g_string_sized_new (4096);
-  Saver sv = { out, TRB_UNIT_SYSTEM_US, error, FALSE, NULL };
+  Saver sv = { out, TRB_UNIT_SYSTEM_US, error, FALSE, NULL, NULL, 0, { NULL, 0, 0 } };
 
   g_return_val_if_fail (project != NULL, NULL);
   g_return_val_if_fail (error == NULL || *error == NULL, NULL);
@@ -3268,6 +3737,7 @@ trb_project_save_data (const TrbProject  *project,
   for (guint i = 0; i < project->floors->len; i++)
     put_floor (&sv, g_ptr_array_index (project->floors, i));
   g_string_append (out, "</trabeate-project>\n");
+  memo_clear (&sv.memo);
 
   if (sv.failed)
     return NULL;

@@ -48,6 +48,11 @@ gboolean    trb_project_save_file (const TrbProject  *project,
                                    const char        *filename,
                                    GError           **error);
 
+char       *trb_project_format_quantity (double         value,
+                                         TrbDimension   dim,
+                                         TrbUnitSystem  system,
+                                         gboolean       plain);
+
 gboolean    trb_project_check_schema (const char  *data,
                                       gsize        length,
                                       const char  *display_name,
