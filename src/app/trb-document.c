@@ -317,8 +317,11 @@ solve_done (GObject      *source,
     g_object_notify_by_pspec (G_OBJECT (self), properties[PROP_SOLVING]);
 }
 
-/* Copies the project and hands the copy to a worker. From an idle, so that the frame that
- * shows an edit is drawn before the copy is made, and edits in a burst share one copy. */
+/* Copies the project and hands the copy to a worker. From an idle, so that edits in a burst
+ * share one copy; of the default priority, not below the redraws: the spinner that says a
+ * solve is on its way animates every frame, and where a frame takes longer than the frame
+ * clock's interval (software rendering, as under a virtual X server) an idle of lower
+ * priority never ran, so the project was never solved. */
 static gboolean
 start_solve (gpointer user_data)
 {
@@ -348,7 +351,7 @@ request_solve (TrbDocument *self)
       return;
     }
   self->solving = TRUE;
-  self->start_id = g_idle_add_full (G_PRIORITY_DEFAULT_IDLE, start_solve, self, NULL);
+  self->start_id = g_idle_add_full (G_PRIORITY_DEFAULT, start_solve, self, NULL);
   g_object_notify_by_pspec (G_OBJECT (self), properties[PROP_SOLVING]);
 }
 
