@@ -2854,16 +2854,16 @@ key_loads (Key           *key,
     }
 }
 
-/* extra: bytes the caller adds (the floor's live load streams), or NULL */
-static GBytes *
-member_key (const TrbMember   *m,
-            const MemberInput *in,
-            guint              shortlist_max,
-            const Key         *extra)
+/* The key gathered into key (emptied first, its room kept); extra: bytes the caller adds (the
+ * floor's live load streams), or NULL. */
+static void
+member_key_gather (Key               *key,
+                   const TrbMember   *m,
+                   const MemberInput *in,
+                   guint              shortlist_max,
+                   const Key         *extra)
 {
-  Key k = { NULL, 0, 0 };
-  Key *key = &k;
-
+  key->len = 0;
   key_double (key, in->length);
   key_int (key, in->n_supports);
   for (guint i = 0; i < in->n_supports; i++)
@@ -2910,6 +2910,17 @@ member_key (const TrbMember   *m,
   key_double (key, m->bearing_length);
   if (extra != NULL)
     key_bytes (key, extra->data, extra->len);
+}
+
+static GBytes *
+member_key (const TrbMember   *m,
+            const MemberInput *in,
+            guint              shortlist_max,
+            const Key         *extra)
+{
+  Key k = { NULL, 0, 0 };
+
+  member_key_gather (&k, m, in, shortlist_max, extra);
   return g_bytes_new_take (k.data, k.len);
 }
 
@@ -3389,6 +3400,15 @@ typedef struct
   const char           **incomplete;         /* per member: a member above that passed nothing */
   double                *column_area;        /* per column: A_T, m^2 */
   gboolean              *column_cantilever;
+  /* what solve_floor_member() gathers for each member, emptied and filled again: a few
+   * small arrays a member allocated and freed were a third of an incremental solve */
+  GArray                *supports;           /* TrbSupport */
+  GArray                *which;              /* int */
+  GArray                *live_a;             /* TrbLoad */
+  GArray                *live_b;
+  GArray                *loads[TRB_N_CASES];
+  Key                    extra;
+  Key                    key;
 } FloorSolve;
 
 /* What frame f (and its takedown) carries in case slot c: which case of which stream. */
@@ -3652,13 +3672,13 @@ solve_floor_member (Solver         *sv,
   const TrbProject *project = sv->project;
   const TrbMember *m = g_ptr_array_index (fs->floor->members, idx);
   const TrbFrameMemberResult *fm = trb_frame_get_member (fs->frame[0], idx);
-  g_autoptr(GArray) supports = g_array_new (FALSE, FALSE, sizeof (TrbSupport));
-  g_autoptr(GArray) which = g_array_new (FALSE, FALSE, sizeof (int));
-  g_autoptr(GArray) live_a = g_array_new (FALSE, FALSE, sizeof (TrbLoad));
-  g_autoptr(GArray) live_b = g_array_new (FALSE, FALSE, sizeof (TrbLoad));
-  Key extra = { NULL, 0, 0 };
+  GArray *supports = fs->supports;
+  GArray *which = fs->which;
+  GArray *live_a = fs->live_a;
+  GArray *live_b = fs->live_b;
+  GArray **loads = fs->loads;
+  Key *extra = &fs->extra;
   g_autoptr(GBytes) key = NULL;
-  GArray *loads[TRB_N_CASES];
   MemberInput in = { 0 };
   TrbReductionUse use = { 0 };
   TrbMemberResult *r;
@@ -3676,8 +3696,10 @@ solve_floor_member (Solver         *sv,
   floor_count_applied (fs, fr, idx);
   merge_supports (m, fm, supports, which);
 
+  g_array_set_size (live_a, 0);
+  g_array_set_size (live_b, 0);
   for (guint c = 0; c < TRB_N_CASES; c++)
-    loads[c] = g_array_new (FALSE, FALSE, sizeof (TrbLoad));
+    g_array_set_size (loads[c], 0);
   for (guint i = 0; i < m->loads->len; i++)
     {
       const TrbMemberLoad *ml = &g_array_index (m->loads, TrbMemberLoad, i);
@@ -3737,12 +3759,14 @@ solve_floor_member (Solver         *sv,
   in.member = m;
 
   /* the streams decide what is handed down, so they are part of what makes members equal */
-  key_int (&extra, fs->reduction);
-  key_loads (&extra, (const TrbLoad *) live_a->data, live_a->len);
-  key_loads (&extra, (const TrbLoad *) live_b->data, live_b->len);
-  key = member_key (m, &in, sv->options->shortlist_max, &extra);
-  g_free (extra.data);
+  extra->len = 0;
+  key_int (extra, fs->reduction);
+  key_loads (extra, (const TrbLoad *) live_a->data, live_a->len);
+  key_loads (extra, (const TrbLoad *) live_b->data, live_b->len);
+  member_key_gather (&fs->key, m, &in, sv->options->shortlist_max, extra);
 
+  /* looked up without a copy of the key's bytes; copied only to be kept */
+  key = g_bytes_new_static (fs->key.data, fs->key.len);
   if (sv->cache != NULL)
     entry = g_hash_table_lookup (sv->cache, key);
   if (entry == NULL)
@@ -3751,7 +3775,7 @@ solve_floor_member (Solver         *sv,
                                             sv->options->bounds),
                                fs->reduction, live_a, live_b);
       if (sv->cache != NULL)
-        g_hash_table_insert (sv->cache, g_bytes_ref (key), entry);
+        g_hash_table_insert (sv->cache, g_bytes_new (fs->key.data, fs->key.len), entry);
       solver_count (sv, entry, TRUE);
     }
   else
@@ -3768,9 +3792,6 @@ solve_floor_member (Solver         *sv,
   r->plan_note = g_strdup (fm->note);
   r->reduction = use;
   g_hash_table_insert (results, (gpointer) m, r);
-  /* the loads of each case were read by the solve above, and by nothing after */
-  for (guint c = 0; c < TRB_N_CASES; c++)
-    g_array_unref (loads[c]);
 
   if (!r->analysed)
     {
@@ -4268,6 +4289,12 @@ solve_floor (Solver         *sv,
   fs.incomplete = g_new0 (const char *, n + 1);
   fs.column_area = g_new0 (double, floor->columns->len + 1);
   fs.column_cantilever = g_new0 (gboolean, floor->columns->len + 1);
+  fs.supports = g_array_new (FALSE, FALSE, sizeof (TrbSupport));
+  fs.which = g_array_new (FALSE, FALSE, sizeof (int));
+  fs.live_a = g_array_new (FALSE, FALSE, sizeof (TrbLoad));
+  fs.live_b = g_array_new (FALSE, FALSE, sizeof (TrbLoad));
+  for (guint c = 0; c < TRB_N_CASES; c++)
+    fs.loads[c] = g_array_new (FALSE, FALSE, sizeof (TrbLoad));
 
   floor_statuses (&fs);
 
@@ -4333,6 +4360,14 @@ solve_floor (Solver         *sv,
   g_free (fs.incomplete);
   g_free (fs.column_area);
   g_free (fs.column_cantilever);
+  g_array_unref (fs.supports);
+  g_array_unref (fs.which);
+  g_array_unref (fs.live_a);
+  g_array_unref (fs.live_b);
+  for (guint c = 0; c < TRB_N_CASES; c++)
+    g_array_unref (fs.loads[c]);
+  g_free (fs.extra.data);
+  g_free (fs.key.data);
   for (guint s = 0; s < 2; s++)
     {
       g_clear_pointer (&fs.takedown[s], trb_frame_takedown_free);
