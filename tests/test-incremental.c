@@ -524,6 +524,41 @@ test_one_girder (void)
   g_assert_cmpuint (solved, ==, 0);
 }
 
+/* Other options empty the cache: a cache filled with the sizing bounds and a shortlist of 10
+ * gives, without the bounds and with a shortlist of 1, what a solve from scratch with those
+ * options gives. */
+static void
+test_options (void)
+{
+  guint n = 0;
+  g_autofree char *xml = floor_gen_xml (300, &n);
+  g_autoptr(GError) error = NULL;
+  g_autoptr(TrbProject) p = trb_project_load_data (xml, strlen (xml), "generated.trabeate",
+                                                   &error);
+  g_autoptr(TrbSolveCache) cache = trb_solve_cache_new ();
+  g_autoptr(TrbProjectResult) first = NULL;
+  g_autoptr(TrbProjectResult) full = NULL;
+  g_autoptr(TrbProjectResult) inc = NULL;
+  g_autoptr(GBytes) a = NULL;
+  g_autoptr(GBytes) b = NULL;
+  TrbSolveOptions options;
+  guint solved, reused;
+
+  g_assert_no_error (error);
+  first = trb_solve_project_cached (p, NULL, cache);
+  trb_solve_options_init (&options);
+  options.bounds = FALSE;
+  options.shortlist_max = 1;
+  full = trb_solve_project_full (p, &options);
+  inc = trb_solve_project_cached (p, &options, cache);
+  a = digest (full);
+  b = digest (inc);
+  g_assert_true (g_bytes_equal (a, b));
+  trb_solve_cache_get_counts (cache, &solved, &reused, NULL);
+  g_assert_cmpuint (solved, >, 0);
+  g_assert_cmpuint (reused, ==, 0);
+}
+
 static void
 test_generated (void)
 {
@@ -562,6 +597,7 @@ main (int    argc,
 {
   g_test_init (&argc, &argv, NULL);
   g_test_add_func ("/trb/incremental/one-girder", test_one_girder);
+  g_test_add_func ("/trb/incremental/options", test_options);
   g_test_add_func ("/trb/incremental/generated", test_generated);
   g_test_add_func ("/trb/incremental/examples", test_examples);
   return g_test_run ();
