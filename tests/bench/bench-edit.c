@@ -13,6 +13,8 @@
  * and the parts of the median round's kind: the worker's solve, the main thread's work. The
  * editor's budget is 50 ms.
  *
+ * `bench-edit --members N` does the same on a floor of about N members (the BENCH lines then
+ * carry N in their names).
  * `bench-edit --write-floor N FILE` writes a generated floor of about N members, for measuring
  * the application's memory on it (build-aux/bench does this under a virtual X server). */
 
@@ -127,6 +129,8 @@ main (int argc, char **argv)
   TrbMember *girder = NULL;
   cairo_surface_t *surface;
   double times[ROUNDS], solve[ROUNDS], main_ms[ROUNDS];
+  guint target = 2000;
+  g_autofree char *suffix = NULL;
   int fd;
 
   if (argc == 4 && strcmp (argv[1], "--write-floor") == 0)
@@ -138,7 +142,10 @@ main (int argc, char **argv)
       return 0;
     }
 
-  xml = floor_gen_xml (2000, &n_members);
+  for (int i = 1; i + 1 < argc; i++)
+    if (strcmp (argv[i], "--members") == 0)
+      target = (guint) atoi (argv[i + 1]);
+  xml = floor_gen_xml (target, &n_members);
   fd = g_file_open_tmp ("bench-edit-XXXXXX.trabeate", &path, &error);
   if (fd < 0 || !g_file_set_contents (path, xml, -1, &error))
     g_error ("%s", error->message);
@@ -196,10 +203,11 @@ main (int argc, char **argv)
            "%.1f ms (%d rounds); the worker's solve median %.1f ms, the main thread's scenes "
            "and draws median %.1f ms of processor time\n", n_members, times[0],
            times[ROUNDS / 2], ROUNDS, solve[ROUNDS / 2], main_ms[ROUNDS / 2]);
-  g_print ("BENCH edit_resolve_redraw_best %.1f ms\n", times[0]);
-  g_print ("BENCH edit_resolve_redraw_median %.1f ms\n", times[ROUNDS / 2]);
-  g_print ("BENCH edit_resolve_median %.1f ms\n", solve[ROUNDS / 2]);
-  g_print ("BENCH edit_redraw_main_cpu_median %.1f ms\n", main_ms[ROUNDS / 2]);
+  suffix = target == 2000 ? g_strdup ("") : g_strdup_printf ("_%u", target);
+  g_print ("BENCH edit_resolve_redraw_best%s %.1f ms\n", suffix, times[0]);
+  g_print ("BENCH edit_resolve_redraw_median%s %.1f ms\n", suffix, times[ROUNDS / 2]);
+  g_print ("BENCH edit_resolve_median%s %.1f ms\n", suffix, solve[ROUNDS / 2]);
+  g_print ("BENCH edit_redraw_main_cpu_median%s %.1f ms\n", suffix, main_ms[ROUNDS / 2]);
 
   g_clear_pointer (&b.scene, trb_plan_scene_free);
   cairo_destroy (b.cr);
