@@ -250,16 +250,24 @@ invalidate_plan (TrbPlanCanvas *self)
   gtk_widget_queue_draw (GTK_WIDGET (self));
 }
 
+/* After every edit and every solve: the scene is cheap to make, its text is not, so the
+ * text the old scene laid out goes over to the new one. */
 static void
 rebuild_scene (TrbPlanCanvas *self)
 {
   TrbFloor *floor = current_floor (self);
+  TrbPlanScene *scene = NULL;
 
   invalidate_plan (self);
-  g_clear_pointer (&self->scene, trb_plan_scene_free);
   if (floor != NULL)
-    self->scene = trb_plan_scene_new (trb_document_get_project (self->document), floor,
-                                      trb_document_get_results (self->document));
+    {
+      scene = trb_plan_scene_new (trb_document_get_project (self->document), floor,
+                                  trb_document_get_results (self->document));
+      if (self->scene != NULL)
+        trb_plan_scene_take_texts (scene, self->scene);
+    }
+  g_clear_pointer (&self->scene, trb_plan_scene_free);
+  self->scene = scene;
 }
 
 static void

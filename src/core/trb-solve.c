@@ -83,7 +83,9 @@ combo_set_clear (TrbComboSetResult *s)
 }
 
 /* The beam and the case results of a result shared by identical members: they are not
- * reference counted themselves, so this box owns them for all the results that read them. */
+ * reference counted themselves, so this box owns them for all the results that read them.
+ * Atomic: a solve cache (TrbSolveCache) shares them from a worker thread with results that
+ * the editor frees on its own. */
 struct _TrbMemberKeep
 {
   TrbBeam       *beam;
@@ -108,7 +110,7 @@ trb_member_result_free (TrbMemberResult *result)
   g_free (result->message);
   g_clear_pointer (&result->notes, g_ptr_array_unref);
   if (result->keep != NULL)
-    g_rc_box_release_full (result->keep, keep_clear);
+    g_atomic_rc_box_release_full (result->keep, keep_clear);
   else
     {
       g_clear_pointer (&result->beam, trb_beam_free);
@@ -142,7 +144,7 @@ member_result_share (TrbMemberResult *r,
                           r->cases[TRB_CASE_L] != NULL || r->cases[TRB_CASE_LR] != NULL ||
                           r->cases[TRB_CASE_S] != NULL))
     {
-      r->keep = g_rc_box_new0 (struct _TrbMemberKeep);
+      r->keep = g_atomic_rc_box_new0 (struct _TrbMemberKeep);
       r->keep->beam = r->beam;
       memcpy (r->keep->cases, r->cases, sizeof r->cases);
     }
@@ -152,7 +154,7 @@ member_result_share (TrbMemberResult *r,
   c->message = g_strdup (r->message);
   c->notes = g_ptr_array_ref (r->notes);
   if (r->keep != NULL)
-    c->keep = g_rc_box_acquire (r->keep);
+    c->keep = g_atomic_rc_box_acquire (r->keep);
   c->regions = g_array_ref (r->regions);
   c->patterns = g_array_ref (r->patterns);
   combo_set_share (&c->strength, &r->strength);
@@ -2852,16 +2854,16 @@ key_loads (Key           *key,
     }
 }
 
-/* extra: bytes the caller adds (the floor's live load streams), or NULL */
-static GBytes *
-member_key (const TrbMember   *m,
-            const MemberInput *in,
-            guint              shortlist_max,
-            const Key         *extra)
+/* The key gathered into key (emptied first, its room kept); extra: bytes the caller adds (the
+ * floor's live load streams), or NULL. */
+static void
+member_key_gather (Key               *key,
+                   const TrbMember   *m,
+                   const MemberInput *in,
+                   guint              shortlist_max,
+                   const Key         *extra)
 {
-  Key k = { NULL, 0, 0 };
-  Key *key = &k;
-
+  key->len = 0;
   key_double (key, in->length);
   key_int (key, in->n_supports);
   for (guint i = 0; i < in->n_supports; i++)
@@ -2908,6 +2910,17 @@ member_key (const TrbMember   *m,
   key_double (key, m->bearing_length);
   if (extra != NULL)
     key_bytes (key, extra->data, extra->len);
+}
+
+static GBytes *
+member_key (const TrbMember   *m,
+            const MemberInput *in,
+            guint              shortlist_max,
+            const Key         *extra)
+{
+  Key k = { NULL, 0, 0 };
+
+  member_key_gather (&k, m, in, shortlist_max, extra);
   return g_bytes_new_take (k.data, k.len);
 }
 
@@ -2916,9 +2929,10 @@ member_key (const TrbMember   *m,
  * load (case L only). Unreduced. */
 typedef struct
 {
-  TrbMemberResult *result;       /* owned by the project result: the first such member's */
+  TrbMemberResult *result;       /* the entry's own; each member gets a share of it */
   double          *reactions[2];
   guint            n_supports;
+  guint64          used;         /* the last solve of a TrbSolveCache that read it */
 } CacheEntry;
 
 static void
@@ -2981,13 +2995,52 @@ cache_entry_new (TrbMemberResult *r,
   return e;
 }
 
+/* What a document keeps from one solve to the next (trb_solve_project_cached()): the cache
+ * of members by their complete input, and each floor's frame by its plan, read again only
+ * under the same context (the settings, the project's own sections and the options), which is
+ * not part of the members' keys. An entry not read by the last two solves goes, so that an
+ * edit and its undo both find theirs. */
+struct _TrbSolveCache
+{
+  GBytes     *context;
+  GHashTable *members;      /* GBytes -> CacheEntry */
+  GHashTable *frames;       /* GBytes (a plan) -> FrameEntry */
+  Memo       *memo;
+  guint64     generation;   /* solves made */
+  guint       n_solved;     /* of the last solve: members analysed and designed */
+  guint       n_reused;     /* members whose result came from an earlier solve */
+  guint       n_frames_new; /* frames made */
+};
+
+typedef struct
+{
+  TrbFrame *frame;
+  guint64   used;
+} FrameEntry;
+
 typedef struct
 {
   const TrbProject      *project;
   const TrbSolveOptions *options;
   GHashTable            *cache;    /* GBytes -> CacheEntry; NULL without the cache */
   Memo                  *memo;
+  TrbSolveCache         *keep;     /* NULL when solving from scratch */
 } Solver;
+
+/* A member solved here (not read from the cache of an earlier solve). */
+static void
+solver_count (Solver     *sv,
+              CacheEntry *entry,
+              gboolean    solved)
+{
+  if (sv->keep == NULL)
+    return;
+  if (solved)
+    sv->keep->n_solved++;
+  else if (entry->used != sv->keep->generation)
+    sv->keep->n_reused++;
+  entry->used = sv->keep->generation;
+}
 
 /* ---- floors ------------------------------------------------------------------------------ */
 
@@ -3337,7 +3390,7 @@ typedef struct
   const TrbFloor        *floor;
   gboolean               reduction;
   double                 Lo;                 /* the largest reducible live pressure, Pa */
-  TrbFrame              *frame[2];            /* frame[1]: stream 1 alone, when needed */
+  const TrbFrame        *frame[2];            /* frame[1]: stream 1 alone, when needed */
   TrbFrameTakedown      *takedown[2];
   int                    b_frame;             /* which frame carries stream 1; -1: none */
   TrbLoadCase            b_slot;              /* and in which case slot */
@@ -3347,6 +3400,15 @@ typedef struct
   const char           **incomplete;         /* per member: a member above that passed nothing */
   double                *column_area;        /* per column: A_T, m^2 */
   gboolean              *column_cantilever;
+  /* what solve_floor_member() gathers for each member, emptied and filled again: a few
+   * small arrays a member allocated and freed were a third of an incremental solve */
+  GArray                *supports;           /* TrbSupport */
+  GArray                *which;              /* int */
+  GArray                *live_a;             /* TrbLoad */
+  GArray                *live_b;
+  GArray                *loads[TRB_N_CASES];
+  Key                    extra;
+  Key                    key;
 } FloorSolve;
 
 /* What frame f (and its takedown) carries in case slot c: which case of which stream. */
@@ -3610,13 +3672,13 @@ solve_floor_member (Solver         *sv,
   const TrbProject *project = sv->project;
   const TrbMember *m = g_ptr_array_index (fs->floor->members, idx);
   const TrbFrameMemberResult *fm = trb_frame_get_member (fs->frame[0], idx);
-  g_autoptr(GArray) supports = g_array_new (FALSE, FALSE, sizeof (TrbSupport));
-  g_autoptr(GArray) which = g_array_new (FALSE, FALSE, sizeof (int));
-  g_autoptr(GArray) live_a = g_array_new (FALSE, FALSE, sizeof (TrbLoad));
-  g_autoptr(GArray) live_b = g_array_new (FALSE, FALSE, sizeof (TrbLoad));
-  Key extra = { NULL, 0, 0 };
+  GArray *supports = fs->supports;
+  GArray *which = fs->which;
+  GArray *live_a = fs->live_a;
+  GArray *live_b = fs->live_b;
+  GArray **loads = fs->loads;
+  Key *extra = &fs->extra;
   g_autoptr(GBytes) key = NULL;
-  GArray *loads[TRB_N_CASES];
   MemberInput in = { 0 };
   TrbReductionUse use = { 0 };
   TrbMemberResult *r;
@@ -3634,8 +3696,10 @@ solve_floor_member (Solver         *sv,
   floor_count_applied (fs, fr, idx);
   merge_supports (m, fm, supports, which);
 
+  g_array_set_size (live_a, 0);
+  g_array_set_size (live_b, 0);
   for (guint c = 0; c < TRB_N_CASES; c++)
-    loads[c] = g_array_new (FALSE, FALSE, sizeof (TrbLoad));
+    g_array_set_size (loads[c], 0);
   for (guint i = 0; i < m->loads->len; i++)
     {
       const TrbMemberLoad *ml = &g_array_index (m->loads, TrbMemberLoad, i);
@@ -3695,12 +3759,14 @@ solve_floor_member (Solver         *sv,
   in.member = m;
 
   /* the streams decide what is handed down, so they are part of what makes members equal */
-  key_int (&extra, fs->reduction);
-  key_loads (&extra, (const TrbLoad *) live_a->data, live_a->len);
-  key_loads (&extra, (const TrbLoad *) live_b->data, live_b->len);
-  key = member_key (m, &in, sv->options->shortlist_max, &extra);
-  g_free (extra.data);
+  extra->len = 0;
+  key_int (extra, fs->reduction);
+  key_loads (extra, (const TrbLoad *) live_a->data, live_a->len);
+  key_loads (extra, (const TrbLoad *) live_b->data, live_b->len);
+  member_key_gather (&fs->key, m, &in, sv->options->shortlist_max, extra);
 
+  /* looked up without a copy of the key's bytes; copied only to be kept */
+  key = g_bytes_new_static (fs->key.data, fs->key.len);
   if (sv->cache != NULL)
     entry = g_hash_table_lookup (sv->cache, key);
   if (entry == NULL)
@@ -3709,8 +3775,11 @@ solve_floor_member (Solver         *sv,
                                             sv->options->bounds),
                                fs->reduction, live_a, live_b);
       if (sv->cache != NULL)
-        g_hash_table_insert (sv->cache, g_bytes_ref (key), entry);
+        g_hash_table_insert (sv->cache, g_bytes_new (fs->key.data, fs->key.len), entry);
+      solver_count (sv, entry, TRUE);
     }
+  else
+    solver_count (sv, entry, FALSE);
   /* With the cache, the entry keeps its own result and every member gets a share of it, so
    * that what one member's place in the floor changes (its bearings, an incomplete load)
    * never reaches the others. */
@@ -3723,9 +3792,6 @@ solve_floor_member (Solver         *sv,
   r->plan_note = g_strdup (fm->note);
   r->reduction = use;
   g_hash_table_insert (results, (gpointer) m, r);
-  /* the loads of each case were read by the solve above, and by nothing after */
-  for (guint c = 0; c < TRB_N_CASES; c++)
-    g_array_unref (loads[c]);
 
   if (!r->analysed)
     {
@@ -3952,7 +4018,7 @@ compare_unassigned (gconstpointer a,
 
 static void
 floor_unassigned (const TrbFloor  *floor,
-                  TrbFrame        *frame,
+                  const TrbFrame  *frame,
                   const FloorPlan *fp,
                   GArray          *out)
 {
@@ -3981,6 +4047,120 @@ floor_unassigned (const TrbFloor  *floor,
       u.force = u.point->P;
       g_array_append_val (out, u);
     }
+}
+
+/* The exact bytes of a frame's plan, ids and all (the frame keeps them in its reasons): a
+ * plan of the same bytes gives the same frame. */
+static GBytes *
+plan_key (const TrbFramePlan *plan)
+{
+  Key k = { NULL, 0, 0 };
+  Key *key = &k;
+
+  key_int (key, plan->n_columns);
+  for (guint i = 0; i < plan->n_columns; i++)
+    {
+      key_string (key, plan->columns[i].id);
+      key_double (key, plan->columns[i].x);
+      key_double (key, plan->columns[i].y);
+    }
+  key_int (key, plan->n_walls);
+  for (guint i = 0; i < plan->n_walls; i++)
+    {
+      key_string (key, plan->walls[i].id);
+      key_int (key, plan->walls[i].n_points);
+      key_bytes (key, plan->walls[i].points, plan->walls[i].n_points * sizeof (TrbFramePoint));
+    }
+  key_int (key, plan->n_members);
+  for (guint i = 0; i < plan->n_members; i++)
+    {
+      const TrbFrameMember *fm = &plan->members[i];
+
+      key_string (key, fm->id);
+      key_double (key, fm->start.x);
+      key_double (key, fm->start.y);
+      key_double (key, fm->end.x);
+      key_double (key, fm->end.y);
+      key_int (key, fm->role);
+      key_int (key, fm->carries_deck);
+      key_int (key, fm->n_bearing_points);
+      key_bytes (key, fm->bearing_points, fm->n_bearing_points * sizeof (TrbFramePoint));
+    }
+  key_int (key, plan->n_area_loads);
+  for (guint i = 0; i < plan->n_area_loads; i++)
+    {
+      key_int (key, plan->area_loads[i].load_case);
+      key_double (key, plan->area_loads[i].pressure);
+      key_int (key, plan->area_loads[i].n_points);
+      key_bytes (key, plan->area_loads[i].points,
+                 plan->area_loads[i].n_points * sizeof (TrbFramePoint));
+    }
+  key_int (key, plan->n_openings);
+  for (guint i = 0; i < plan->n_openings; i++)
+    {
+      key_int (key, plan->openings[i].n_points);
+      key_bytes (key, plan->openings[i].points,
+                 plan->openings[i].n_points * sizeof (TrbFramePoint));
+    }
+  key_int (key, plan->n_line_loads);
+  for (guint i = 0; i < plan->n_line_loads; i++)
+    {
+      key_int (key, plan->line_loads[i].load_case);
+      key_double (key, plan->line_loads[i].w);
+      key_int (key, plan->line_loads[i].n_points);
+      key_bytes (key, plan->line_loads[i].points,
+                 plan->line_loads[i].n_points * sizeof (TrbFramePoint));
+    }
+  key_int (key, plan->n_point_loads);
+  for (guint i = 0; i < plan->n_point_loads; i++)
+    {
+      key_int (key, plan->point_loads[i].load_case);
+      key_double (key, plan->point_loads[i].P);
+      key_double (key, plan->point_loads[i].x);
+      key_double (key, plan->point_loads[i].y);
+    }
+  return g_bytes_new_take (k.data, k.len);
+}
+
+static void
+frame_entry_free (gpointer data)
+{
+  FrameEntry *fe = data;
+
+  trb_frame_free (fe->frame);
+  g_free (fe);
+}
+
+/* The frame of a plan: made here (*owned, the caller's to free) or, with a TrbSolveCache,
+ * the one an earlier solve made of the same plan (the frame is read only once made; each
+ * solve hands its loads down in a takedown of its own). */
+static const TrbFrame *
+floor_frame (Solver             *sv,
+             const TrbFramePlan *plan,
+             TrbFrame          **owned,
+             GError            **error)
+{
+  g_autoptr(GBytes) key = NULL;
+  FrameEntry *fe;
+
+  *owned = NULL;
+  if (sv->keep == NULL)
+    return *owned = trb_frame_new (plan, error);
+  key = plan_key (plan);
+  fe = g_hash_table_lookup (sv->keep->frames, key);
+  if (fe == NULL)
+    {
+      TrbFrame *frame = trb_frame_new (plan, error);
+
+      if (frame == NULL)
+        return NULL;
+      fe = g_new0 (FrameEntry, 1);
+      fe->frame = frame;
+      g_hash_table_insert (sv->keep->frames, g_steal_pointer (&key), fe);
+      sv->keep->n_frames_new++;
+    }
+  fe->used = sv->keep->generation;
+  return fe->frame;
 }
 
 /* The load takedown of one floor: frame, then every member from the top of the load path
@@ -4030,6 +4210,7 @@ solve_floor (Solver         *sv,
   TrbFloorResult *fr = floor_result_new (floor);
   FloorSolve fs = { 0 };
   FloorPlan fp[2];
+  TrbFrame *owned[2] = { NULL, NULL };   /* the frames not kept by a TrbSolveCache */
   g_autoptr(GError) error = NULL;
   guint n = floor->members->len;
   guint n_order;
@@ -4077,9 +4258,9 @@ solve_floor (Solver         *sv,
     }
   else
     floor_plan_init (&fp[0], floor, fs.reduction, 1, TRB_CASE_L);
-  fs.frame[0] = trb_frame_new (&fp[0].plan, &error);
+  fs.frame[0] = floor_frame (sv, &fp[0].plan, &owned[0], &error);
   if (fs.frame[0] != NULL && fs.b_frame == 1)
-    fs.frame[1] = trb_frame_new (&fp[1].plan, &error);
+    fs.frame[1] = floor_frame (sv, &fp[1].plan, &owned[1], &error);
   if (fs.frame[0] == NULL || (fs.b_frame == 1 && fs.frame[1] == NULL))
     {
       fr->error = g_strdup (error->message);
@@ -4093,7 +4274,7 @@ solve_floor (Solver         *sv,
           g_hash_table_insert (results, (gpointer) m,
                                not_analysed_result (sv->project, m, TRB_STATUS_ERROR, why));
         }
-      g_clear_pointer (&fs.frame[0], trb_frame_free);
+      g_clear_pointer (&owned[0], trb_frame_free);
       floor_plan_clear (&fp[0]);
       floor_plan_clear (&fp[1]);
       return fr;
@@ -4108,6 +4289,12 @@ solve_floor (Solver         *sv,
   fs.incomplete = g_new0 (const char *, n + 1);
   fs.column_area = g_new0 (double, floor->columns->len + 1);
   fs.column_cantilever = g_new0 (gboolean, floor->columns->len + 1);
+  fs.supports = g_array_new (FALSE, FALSE, sizeof (TrbSupport));
+  fs.which = g_array_new (FALSE, FALSE, sizeof (int));
+  fs.live_a = g_array_new (FALSE, FALSE, sizeof (TrbLoad));
+  fs.live_b = g_array_new (FALSE, FALSE, sizeof (TrbLoad));
+  for (guint c = 0; c < TRB_N_CASES; c++)
+    fs.loads[c] = g_array_new (FALSE, FALSE, sizeof (TrbLoad));
 
   floor_statuses (&fs);
 
@@ -4173,10 +4360,18 @@ solve_floor (Solver         *sv,
   g_free (fs.incomplete);
   g_free (fs.column_area);
   g_free (fs.column_cantilever);
+  g_array_unref (fs.supports);
+  g_array_unref (fs.which);
+  g_array_unref (fs.live_a);
+  g_array_unref (fs.live_b);
+  for (guint c = 0; c < TRB_N_CASES; c++)
+    g_array_unref (fs.loads[c]);
+  g_free (fs.extra.data);
+  g_free (fs.key.data);
   for (guint s = 0; s < 2; s++)
     {
       g_clear_pointer (&fs.takedown[s], trb_frame_takedown_free);
-      g_clear_pointer (&fs.frame[s], trb_frame_free);
+      g_clear_pointer (&owned[s], trb_frame_free);
       floor_plan_clear (&fp[s]);
     }
 
@@ -4218,7 +4413,10 @@ solve_standalone_cached (Solver          *sv,
       entry->result = solve_input (sv->project, member, &in, sv->options->shortlist_max,
                                    sv->options->bounds);
       g_hash_table_insert (sv->cache, g_bytes_ref (key), entry);
+      solver_count (sv, entry, TRUE);
     }
+  else
+    solver_count (sv, entry, FALSE);
   r = member_result_share (entry->result, member);
   for (guint c = 0; c < TRB_N_CASES; c++)
     g_array_unref (loads[c]);
@@ -4241,20 +4439,85 @@ trb_solve_options_init (TrbSolveOptions *options)
   options->bounds = TRUE;
 }
 
-/* Solves the whole project, or only one floor's members (only_floor). */
+/* What a solve depends on besides the members' and plans' own keys: the settings, the
+ * project's own sections (a catalog never changed once loaded, shared by the editor's copies
+ * of a project: its address says which) and the options. */
+static GBytes *
+context_key (const TrbProject      *project,
+             const TrbSolveOptions *options)
+{
+  const TrbSettings *st = &project->settings;
+  Key k = { NULL, 0, 0 };
+  Key *key = &k;
+
+  key_int (key, st->method);
+  key_double (key, st->fb_allow);
+  key_double (key, st->fv_allow);
+  key_string (key, st->steel_grade);
+  key_int (key, st->self_weight);
+  key_int (key, st->live_patterns);
+  key_double (key, st->deflection_live);
+  key_double (key, st->deflection_total);
+  key_int (key, st->units);
+  key_int (key, st->live_load_reduction);
+  key_int (key, st->floors_above);
+  key_int (key, (gint64) (guintptr) project->sections);
+  key_int (key, options->shortlist_max);
+  key_int (key, options->bounds);
+  return g_bytes_new_take (k.data, k.len);
+}
+
+/* Entries neither this solve nor the one before read go. */
+static gboolean
+cache_entry_stale (gpointer key,
+                   gpointer value,
+                   gpointer user_data)
+{
+  return ((CacheEntry *) value)->used + 1 < *(guint64 *) user_data;
+}
+
+static gboolean
+frame_entry_stale (gpointer key,
+                   gpointer value,
+                   gpointer user_data)
+{
+  return ((FrameEntry *) value)->used + 1 < *(guint64 *) user_data;
+}
+
+/* Solves the whole project, or only one floor's members (only_floor); with keep, reading and
+ * filling that cache of earlier solves. */
 static TrbProjectResult *
 solve_project (const TrbProject      *project,
                const TrbSolveOptions *options,
-               const TrbFloor        *only_floor)
+               const TrbFloor        *only_floor,
+               TrbSolveCache         *keep)
 {
   TrbProjectResult *pr;
   g_autoptr(GHashTable) results = g_hash_table_new (NULL, NULL);
-  Solver sv = { project, options, NULL, NULL };
+  Solver sv = { project, options, NULL, NULL, NULL };
 
-  if (options->cache)
+  if (keep != NULL && options->cache)
+    {
+      g_autoptr(GBytes) context = context_key (project, options);
+
+      if (keep->context == NULL || !g_bytes_equal (keep->context, context))
+        {
+          g_hash_table_remove_all (keep->members);
+          g_hash_table_remove_all (keep->frames);
+          g_clear_pointer (&keep->context, g_bytes_unref);
+          keep->context = g_steal_pointer (&context);
+        }
+      keep->generation++;
+      keep->n_solved = keep->n_reused = keep->n_frames_new = 0;
+      sv.keep = keep;
+      sv.cache = keep->members;
+      sv.memo = keep->memo;
+    }
+  else if (options->cache)
     sv.cache = g_hash_table_new_full (key_hash, g_bytes_equal,
                                       (GDestroyNotify) g_bytes_unref, cache_entry_free);
-  sv.memo = memo_new ();
+  if (sv.memo == NULL)
+    sv.memo = memo_new ();
 
   pr = g_new0 (TrbProjectResult, 1);
   pr->project = project;
@@ -4288,9 +4551,110 @@ solve_project (const TrbProject      *project,
       g_ptr_array_add (pr->members, r);
     }
 
-  g_clear_pointer (&sv.cache, g_hash_table_unref);
-  memo_free (sv.memo);
+  if (sv.keep != NULL)
+    {
+      g_hash_table_foreach_remove (keep->members, cache_entry_stale, &keep->generation);
+      g_hash_table_foreach_remove (keep->frames, frame_entry_stale, &keep->generation);
+    }
+  else
+    {
+      g_clear_pointer (&sv.cache, g_hash_table_unref);
+      memo_free (sv.memo);
+    }
   return pr;
+}
+
+/**
+ * trb_solve_cache_new:
+ *
+ * A cache for trb_solve_project_cached(), kept from one solve of a project to the next.
+ *
+ * Returns: (transfer full): an empty cache
+ */
+TrbSolveCache *
+trb_solve_cache_new (void)
+{
+  TrbSolveCache *cache = g_new0 (TrbSolveCache, 1);
+
+  cache->members = g_hash_table_new_full (key_hash, g_bytes_equal,
+                                          (GDestroyNotify) g_bytes_unref, cache_entry_free);
+  cache->frames = g_hash_table_new_full (key_hash, g_bytes_equal,
+                                         (GDestroyNotify) g_bytes_unref, frame_entry_free);
+  cache->memo = memo_new ();
+  return cache;
+}
+
+void
+trb_solve_cache_free (TrbSolveCache *cache)
+{
+  if (cache == NULL)
+    return;
+  g_clear_pointer (&cache->context, g_bytes_unref);
+  g_hash_table_unref (cache->members);
+  g_hash_table_unref (cache->frames);
+  memo_free (cache->memo);
+  g_free (cache);
+}
+
+/**
+ * trb_solve_cache_get_counts:
+ * @cache: a cache
+ * @solved: (out) (optional): members analysed and designed by the last solve (each distinct
+ *   input once)
+ * @reused: (out) (optional): distinct results the last solve took from earlier ones
+ * @frames: (out) (optional): floor frames the last solve made (not taken from earlier ones)
+ *
+ * What the last trb_solve_project_cached() with @cache did, to show that an edit re-solves
+ * only what it changed.
+ */
+void
+trb_solve_cache_get_counts (const TrbSolveCache *cache,
+                            guint               *solved,
+                            guint               *reused,
+                            guint               *frames)
+{
+  g_return_if_fail (cache != NULL);
+
+  if (solved != NULL)
+    *solved = cache->n_solved;
+  if (reused != NULL)
+    *reused = cache->n_reused;
+  if (frames != NULL)
+    *frames = cache->n_frames_new;
+}
+
+/**
+ * trb_solve_project_cached:
+ * @project: a project
+ * @options: (nullable): how to solve; %NULL for the defaults
+ * @cache: what earlier solves of this project (or of copies of it, as the editor makes them)
+ *   left; used by one solve at a time
+ *
+ * trb_solve_project_full(), re-solving only what changed since the solves that filled @cache:
+ * a member's result is taken from an earlier solve where its complete input is the same to
+ * the bit (its length, supports and every load, its own and those handed down from the
+ * members on it and the floor's, its live load reduction streams, its design attributes),
+ * and each floor's frame where its plan is; the members below a changed one get other loads
+ * handed down, so they are solved again too. The results are those of
+ * trb_solve_project_full(), bit for bit. With @options->cache off, @cache is not used.
+ *
+ * Returns: (transfer full): every member's results in the project's order, and each floor's.
+ */
+TrbProjectResult *
+trb_solve_project_cached (const TrbProject      *project,
+                          const TrbSolveOptions *options,
+                          TrbSolveCache         *cache)
+{
+  TrbSolveOptions defaults;
+
+  g_return_val_if_fail (project != NULL && cache != NULL, NULL);
+
+  if (options == NULL)
+    {
+      trb_solve_options_init (&defaults);
+      options = &defaults;
+    }
+  return solve_project (project, options, NULL, cache);
 }
 
 /**
@@ -4319,7 +4683,7 @@ trb_solve_project_full (const TrbProject      *project,
       trb_solve_options_init (&defaults);
       options = &defaults;
     }
-  return solve_project (project, options, NULL);
+  return solve_project (project, options, NULL, NULL);
 }
 
 /**
@@ -4366,7 +4730,7 @@ trb_solve_member_full (const TrbProject *project,
 
       trb_solve_options_init (&options);
       options.shortlist_max = shortlist_max;
-      pr = solve_project (project, &options, member->floor);
+      pr = solve_project (project, &options, member->floor, NULL);
       found = trb_project_result_find_member (pr, member);
       g_return_val_if_fail (found != NULL, NULL);
       r = member_result_share ((TrbMemberResult *) found, member);

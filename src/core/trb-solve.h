@@ -231,6 +231,9 @@ typedef struct
                             * moment) before the full check; default TRUE */
 } TrbSolveOptions;
 
+/* What a document keeps between solves to re-solve only what an edit changed. */
+typedef struct _TrbSolveCache TrbSolveCache;
+
 const char       *trb_status_name           (TrbStatus               status);
 
 TrbMemberResult  *trb_solve_member          (const TrbProject       *project,
@@ -244,11 +247,22 @@ void              trb_solve_options_init    (TrbSolveOptions        *options);
 TrbProjectResult *trb_solve_project         (const TrbProject       *project);
 TrbProjectResult *trb_solve_project_full    (const TrbProject       *project,
                                              const TrbSolveOptions  *options);
+TrbProjectResult *trb_solve_project_cached  (const TrbProject       *project,
+                                             const TrbSolveOptions  *options,
+                                             TrbSolveCache          *cache);
 void              trb_project_result_free   (TrbProjectResult       *result);
+
+TrbSolveCache    *trb_solve_cache_new       (void);
+void              trb_solve_cache_free      (TrbSolveCache          *cache);
+void              trb_solve_cache_get_counts (const TrbSolveCache   *cache,
+                                              guint                 *solved,
+                                              guint                 *reused,
+                                              guint                 *frames);
 const TrbMemberResult *trb_project_result_find_member (const TrbProjectResult *result,
                                                        const TrbMember        *member);
 
 G_DEFINE_AUTOPTR_CLEANUP_FUNC (TrbMemberResult, trb_member_result_free)
 G_DEFINE_AUTOPTR_CLEANUP_FUNC (TrbProjectResult, trb_project_result_free)
+G_DEFINE_AUTOPTR_CLEANUP_FUNC (TrbSolveCache, trb_solve_cache_free)
 
 G_END_DECLS

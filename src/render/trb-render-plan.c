@@ -316,6 +316,27 @@ trb_plan_scene_free (TrbPlanScene *scene)
   g_free (scene);
 }
 
+/**
+ * trb_plan_scene_take_texts:
+ * @scene: a new scene
+ * @from: the scene it replaces
+ *
+ * Hands the text laid out by @from's draws over to @scene, whose first draw then lays out
+ * only what is new (the text is keyed by its font, size and words, whatever the results).
+ */
+void
+trb_plan_scene_take_texts (TrbPlanScene *scene,
+                           TrbPlanScene *from)
+{
+  g_return_if_fail (scene != NULL && from != NULL);
+
+  if (scene == from)
+    return;
+  trb_render_text_cache_free (scene->texts);
+  scene->texts = from->texts;
+  from->texts = trb_render_text_cache_new ();
+}
+
 const TrbFloor *
 trb_plan_scene_get_floor (const TrbPlanScene *scene)
 {

@@ -86,6 +86,8 @@ TrbPlanScene          *trb_plan_scene_new            (const TrbProject        *p
                                                       const TrbFloor          *floor,
                                                       const TrbProjectResult  *results);
 void                   trb_plan_scene_free           (TrbPlanScene            *scene);
+void                   trb_plan_scene_take_texts     (TrbPlanScene            *scene,
+                                                      TrbPlanScene            *from);
 const TrbFloor        *trb_plan_scene_get_floor      (const TrbPlanScene      *scene);
 TrbUnitSystem          trb_plan_scene_get_units      (const TrbPlanScene      *scene);
 /* Everything drawn: grid lines, columns, walls, members and loads. */
