@@ -12,6 +12,8 @@
 #include "trb-solve.h"
 #include "trb-units.h"
 
+#include "bench/floor-gen.h"
+
 static TrbProject *
 load (const char *xml)
 {
@@ -161,9 +163,15 @@ test_project_sections (void)
     "<support at=\"0 ft\" type=\"pin\"/><support at=\"20 ft\" type=\"roller\"/>"
     "<load case=\"D\" type=\"uniform\" from=\"0 ft\" to=\"20 ft\" w=\"0.2 kip/ft\"/>"
     "</beam></trabeate-project>");
-  g_autoptr(TrbProjectResult) pr = trb_solve_project (project);
-  const TrbMemberResult *b1 = g_ptr_array_index (pr->members, 0);
-  const TrbMemberResult *b2 = g_ptr_array_index (pr->members, 1);
+  TrbSolveOptions options;
+  g_autoptr(TrbProjectResult) pr = NULL;
+  const TrbMemberResult *b1, *b2;
+
+  trb_solve_options_init (&options);
+  options.shortlist_max = TRB_SHORTLIST_DEFAULT;
+  pr = trb_solve_project_full (project, &options);
+  b1 = g_ptr_array_index (pr->members, 0);
+  b2 = g_ptr_array_index (pr->members, 1);
 
   g_assert_nonnull (project->sections);
   g_assert_cmpint (b1->status, ==, TRB_STATUS_PASS);
@@ -418,6 +426,158 @@ test_auto_shortcuts (void)
                    g_bytes_get_data (without, NULL), g_bytes_get_size (without));
 }
 
+/* ---- the shortlist on demand -------------------------------------------------------------
+ *
+ * The default solve makes no shortlist; trb_solve_member_shortlist() makes one member's from
+ * that solve's result. The check values are the shortlists a solve asked for them made (the
+ * path every solve took before), for lists of 1, 10 and every passing section: the entries
+ * on demand must be the same, bit for bit, and the default solve's results the same but for
+ * the shortlist. The members: the random ones above (standalone: catalog and "auto", steel
+ * and timber), the examples (a floor among them) and a generated floor (tests/bench/
+ * floor-gen.h: timber joists at their real spacing, steel girders under what comes down). */
+
+static void
+digest_shortlist (GByteArray   *d,
+                  const GArray *list)
+{
+  guint n = list->len;
+
+  g_byte_array_append (d, (const guint8 *) &n, sizeof n);
+  for (guint k = 0; k < list->len; k++)
+    {
+      const TrbShortlistEntry *e = &g_array_index (list, TrbShortlistEntry, k);
+
+      g_byte_array_append (d, (const guint8 *) e->section, strlen (e->section) + 1);
+      g_byte_array_append (d, (const guint8 *) &e->weight, sizeof e->weight);
+      g_byte_array_append (d, (const guint8 *) &e->ratio, sizeof e->ratio);
+      g_byte_array_append (d, (const guint8 *) e->governing, strlen (e->governing) + 1);
+    }
+}
+
+/* every result's own numbers and texts, but its shortlist */
+static void
+digest_result (GByteArray            *d,
+               const TrbMemberResult *r)
+{
+  const TrbComboSetResult *sets[] = { &r->strength, &r->live, &r->total };
+
+  g_byte_array_append (d, (const guint8 *) &r->status, sizeof r->status);
+  g_byte_array_append (d, (const guint8 *) r->section, strlen (r->section) + 1);
+  g_byte_array_append (d, (const guint8 *) &r->ratio, sizeof r->ratio);
+  g_byte_array_append (d, (const guint8 *) r->governing, strlen (r->governing) + 1);
+  g_byte_array_append (d, (const guint8 *) &r->self_weight, sizeof r->self_weight);
+  if (r->message != NULL)
+    g_byte_array_append (d, (const guint8 *) r->message, strlen (r->message) + 1);
+  for (guint k = 0; k < r->checks->len; k++)
+    digest_check (d, &g_array_index (r->checks, TrbCheck, k));
+  for (guint s = 0; s < G_N_ELEMENTS (sets); s++)
+    for (guint k = 0; sets[s]->entries != NULL && k < sets[s]->entries->len; k++)
+      {
+        const TrbComboResult *c = &g_array_index (sets[s]->entries, TrbComboResult, k);
+
+        g_byte_array_append (d, (const guint8 *) c->name, strlen (c->name) + 1);
+        g_byte_array_append (d, (const guint8 *) &c->ext, sizeof c->ext);
+      }
+}
+
+static void
+assert_same_bytes (GByteArray *a,
+                   GByteArray *b)
+{
+  g_assert_cmpmem (a->data, a->len, b->data, b->len);
+}
+
+static guint
+check_shortlist_on_demand (const TrbProject *project)
+{
+  static const guint maxes[] = { 1, TRB_SHORTLIST_DEFAULT, G_MAXUINT };
+  TrbSolveOptions options;
+  g_autoptr(TrbProjectResult) plain = NULL;
+  guint listed = 0;
+
+  trb_solve_options_init (&options);
+  g_assert_cmpuint (options.shortlist_max, ==, 0);
+  plain = trb_solve_project_full (project, &options);
+  for (guint i = 0; i < plain->members->len; i++)
+    g_assert_cmpuint (((TrbMemberResult *) g_ptr_array_index (plain->members, i))->shortlist->len,
+                      ==, 0);
+
+  for (guint k = 0; k < G_N_ELEMENTS (maxes); k++)
+    {
+      g_autoptr(TrbProjectResult) listing = NULL;
+      g_autoptr(GByteArray) old_lists = g_byte_array_new ();
+      g_autoptr(GByteArray) new_lists = g_byte_array_new ();
+      g_autoptr(GByteArray) old_results = g_byte_array_new ();
+      g_autoptr(GByteArray) new_results = g_byte_array_new ();
+
+      options.shortlist_max = maxes[k];
+      listing = trb_solve_project_full (project, &options);
+      g_assert_cmpuint (listing->members->len, ==, plain->members->len);
+      for (guint i = 0; i < plain->members->len; i++)
+        {
+          const TrbMemberResult *a = g_ptr_array_index (listing->members, i);
+          const TrbMemberResult *b = g_ptr_array_index (plain->members, i);
+          g_autoptr(GArray) list = trb_solve_member_shortlist (project, b, maxes[k]);
+
+          g_assert_true (a->member == b->member);
+          digest_shortlist (old_lists, a->shortlist);
+          digest_shortlist (new_lists, list);
+          digest_result (old_results, a);
+          digest_result (new_results, b);
+          listed += list->len;
+        }
+      assert_same_bytes (old_lists, new_lists);
+      assert_same_bytes (old_results, new_results);
+    }
+  return listed;
+}
+
+static void
+test_shortlist_on_demand_random (void)
+{
+  g_autoptr(GRand) rand = g_rand_new_with_seed (20261202);
+  g_autoptr(GString) xml = g_string_new ("<trabeate-project format=\"1\">");
+  g_autoptr(TrbProject) project = NULL;
+
+  for (guint i = 0; i < 40; i++)
+    append_random_member (xml, rand, i);
+  g_string_append (xml, "</trabeate-project>");
+  project = load (xml->str);
+  g_assert_cmpuint (check_shortlist_on_demand (project), >, 0);
+}
+
+static void
+test_shortlist_on_demand_examples (void)
+{
+  static const char *const names[] = {
+    "demo-beams.trabeate", "demo-floor.trabeate", "overhang-beam.trabeate",
+  };
+
+  for (guint i = 0; i < G_N_ELEMENTS (names); i++)
+    {
+      g_autofree char *path = g_test_build_filename (G_TEST_DIST, "..", "data", "examples",
+                                                     names[i], NULL);
+      g_autoptr(GError) error = NULL;
+      g_autoptr(TrbProject) project = trb_project_load_file (path, &error);
+
+      g_assert_no_error (error);
+      g_assert_cmpuint (check_shortlist_on_demand (project), >, 0);
+    }
+}
+
+static void
+test_shortlist_on_demand_floor (void)
+{
+  guint n;
+  g_autofree char *xml = floor_gen_xml (250, &n);
+  g_autoptr(GError) error = NULL;
+  g_autoptr(TrbProject) project = trb_project_load_data (xml, strlen (xml),
+                                                         "generated.trabeate", &error);
+
+  g_assert_no_error (error);
+  g_assert_cmpuint (check_shortlist_on_demand (project), >, 0);
+}
+
 int
 main (int argc, char **argv)
 {
@@ -430,5 +590,9 @@ main (int argc, char **argv)
   g_test_add_func ("/trb/solve/auto/nothing-passes", test_nothing_passes);
   g_test_add_func ("/trb/solve/auto/unstable", test_auto_unstable);
   g_test_add_func ("/trb/solve/auto/self-weight", test_self_weight_of_chosen);
+  g_test_add_func ("/trb/solve/shortlist/on-demand/random", test_shortlist_on_demand_random);
+  g_test_add_func ("/trb/solve/shortlist/on-demand/examples",
+                   test_shortlist_on_demand_examples);
+  g_test_add_func ("/trb/solve/shortlist/on-demand/floor", test_shortlist_on_demand_floor);
   return g_test_run ();
 }

@@ -2021,6 +2021,9 @@ cmd_run (int       argc,
     }
 
   trb_solve_options_init (&options);
+  /* the check's table and JSON show each member's shortlist; the schedule does not */
+  if (!schedule)
+    options.shortlist_max = TRB_SHORTLIST_DEFAULT;
   if (no_shortcuts)
     options.cache = options.bounds = FALSE;
   pr = trb_solve_project_full (project, &options);

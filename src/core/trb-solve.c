@@ -100,6 +100,27 @@ keep_clear (gpointer data)
     g_clear_pointer (&keep->cases[c], trb_beam_result_free);
 }
 
+/* What a catalog or "auto" member was sized on (its length, supports, loads as analysed and
+ * timber spacing), kept so that its shortlist can be made when someone shows it; shared by
+ * identical members. */
+struct _TrbMemberSizing
+{
+  double  length;
+  GArray *supports;                /* TrbSupport */
+  GArray *loads[TRB_N_CASES];      /* TrbLoad */
+  double  repetitive_spacing;
+};
+
+static void
+sizing_clear (gpointer data)
+{
+  struct _TrbMemberSizing *sz = data;
+
+  g_clear_pointer (&sz->supports, g_array_unref);
+  for (guint c = 0; c < TRB_N_CASES; c++)
+    g_clear_pointer (&sz->loads[c], g_array_unref);
+}
+
 void
 trb_member_result_free (TrbMemberResult *result)
 {
@@ -126,6 +147,8 @@ trb_member_result_free (TrbMemberResult *result)
   g_clear_pointer (&result->loads, g_array_unref);
   g_clear_pointer (&result->bearings, g_array_unref);
   g_free (result->plan_note);
+  if (result->sizing != NULL)
+    g_rc_box_release_full (result->sizing, sizing_clear);
   g_free (result);
 }
 
@@ -164,6 +187,8 @@ member_result_share (TrbMemberResult *r,
   c->loads = r->loads != NULL ? g_array_ref (r->loads) : NULL;
   c->bearings = NULL;
   c->plan_note = NULL;
+  if (r->sizing != NULL)
+    c->sizing = g_rc_box_acquire (r->sizing);
   return c;
 }
 
@@ -2501,7 +2526,9 @@ reference_candidate (Reference         *ref,
  * use_bounds, candidates other than the first analysed are judged from it (see above) and,
  * with reject, those certainly failing are not analysed; should no candidate pass, sizing
  * runs again without rejecting, since the closest one is then reported. Only the section
- * chosen (and the closest, when none passes) is analysed in full for the result. */
+ * chosen (and the closest, when none passes) is analysed in full for the result.
+ * With list_only, only the shortlist is made, into list_only, and NULL returned: the same
+ * candidates judged the same way, without the chosen section's full result. */
 static TrbMemberResult *
 size_member (const TrbProject  *project,
              const TrbMember   *m,
@@ -2509,7 +2536,8 @@ size_member (const TrbProject  *project,
              const TrbSection  *chosen,
              guint              shortlist_max,
              gboolean           use_bounds,
-             gboolean           reject)
+             gboolean           reject,
+             GArray            *list_only)
 {
   g_autoptr(GPtrArray) candidates = sizing_candidates (project, m);
   MemberInput in_plan = *in;
@@ -2521,11 +2549,16 @@ size_member (const TrbProject  *project,
   g_autoptr(GArray) shortlist = g_array_new (FALSE, TRUE, sizeof (TrbShortlistEntry));
   Reference ref = { FALSE };
   guint rejected = 0;
+  gboolean found = FALSE;                   /* the lightest passing section (best) */
 
   /* the analyses of every section share what does not depend on it */
   in_plan.plan = &plan;
   in = &in_plan;
-  for (guint i = 0; i < candidates->len && shortlist->len < shortlist_max; i++)
+  /* past the shortlist's length only for the lightest passing section, when it is chosen */
+  for (guint i = 0;
+       i < candidates->len &&
+       (shortlist->len < shortlist_max || (list_only == NULL && chosen == NULL && !found));
+       i++)
     {
       const TrbSection *section = g_ptr_array_index (candidates, i);
       TrbMemberResult *c;
@@ -2534,7 +2567,7 @@ size_member (const TrbProject  *project,
 
       if (use_bounds)
         switch (ref.ready ? judge_candidate (&ref, project, m, in, section, reject,
-                                             best == NULL && chosen == NULL, &v)
+                                             !found && chosen == NULL, &v)
                           : reference_candidate (&ref, project, m, in, section, &v))
           {
           case VERDICT_REJECTED:
@@ -2548,10 +2581,15 @@ size_member (const TrbProject  *project,
                 e.ratio = v.ratio;
                 g_strlcpy (e.governing, v.governing, sizeof e.governing);
                 g_array_append_val (shortlist, e);
-                if (best == NULL && chosen == NULL)
+                if (!found && chosen == NULL)
                   {
-                    best = solve_with_section (project, m, in, section);
-                    g_warn_if_fail (best->status == TRB_STATUS_PASS && best->ratio == v.ratio);
+                    found = TRUE;
+                    if (list_only == NULL)
+                      {
+                        best = solve_with_section (project, m, in, section);
+                        g_warn_if_fail (best->status == TRB_STATUS_PASS &&
+                                        best->ratio == v.ratio);
+                      }
                   }
               }
             else if (chosen == NULL && (closest_section == NULL || v.ratio < closest_ratio))
@@ -2575,29 +2613,49 @@ size_member (const TrbProject  *project,
           e.ratio = c->ratio;
           g_strlcpy (e.governing, c->governing, sizeof e.governing);
           g_array_append_val (shortlist, e);
-          if (best == NULL && chosen == NULL)
+          if (!found && chosen == NULL)
             {
-              best = c;
-              continue;
+              found = TRUE;
+              if (list_only == NULL)
+                {
+                  best = c;
+                  continue;
+                }
             }
         }
       else if (chosen == NULL && c->status == TRB_STATUS_FAIL &&
                (closest_section == NULL || c->ratio < closest_ratio))
         {
           g_clear_pointer (&closest, trb_member_result_free);
-          closest = c;
           closest_section = section;
           closest_ratio = c->ratio;
-          continue;
+          if (list_only == NULL)
+            {
+              closest = c;
+              continue;
+            }
         }
       else if (c->status != TRB_STATUS_FAIL && c->status != TRB_STATUS_PASS && chosen == NULL &&
-               best == NULL && closest_section == NULL)
+               !found && closest_section == NULL)
         {
           /* unstable, unsupported or an error: the same for every section */
-          best = c;
+          if (list_only == NULL)
+            best = c;
+          else
+            trb_member_result_free (c);
           break;
         }
       trb_member_result_free (c);
+    }
+
+  if (list_only != NULL)
+    {
+      /* nothing passes, or the shortlist is made: the rest is the result's */
+      g_clear_pointer (&closest, trb_member_result_free);
+      reference_clear (&ref);
+      member_plan_clear (&plan);
+      g_array_append_vals (list_only, shortlist->data, MIN (shortlist->len, shortlist_max));
+      return NULL;
     }
 
   if (chosen == NULL && best == NULL && rejected > 0)
@@ -2607,7 +2665,7 @@ size_member (const TrbProject  *project,
       reference_clear (&ref);
       member_plan_clear (&plan);
       in_plan.plan = NULL;
-      return size_member (project, m, in, chosen, shortlist_max, use_bounds, FALSE);
+      return size_member (project, m, in, chosen, shortlist_max, use_bounds, FALSE, NULL);
     }
 
   if (chosen != NULL)
@@ -2629,7 +2687,7 @@ size_member (const TrbProject  *project,
   g_clear_pointer (&closest, trb_member_result_free);
   reference_clear (&ref);
   member_plan_clear (&plan);
-  g_array_append_vals (best->shortlist, shortlist->data, shortlist->len);
+  g_array_append_vals (best->shortlist, shortlist->data, MIN (shortlist->len, shortlist_max));
   return best;
 }
 
@@ -2650,6 +2708,25 @@ record_input (TrbMemberResult   *r,
 
         g_array_append_val (r->loads, ml);
       }
+}
+
+/* Keeps what the member was sized on, for trb_solve_member_shortlist(). */
+static void
+record_sizing (TrbMemberResult   *r,
+               const MemberInput *in)
+{
+  struct _TrbMemberSizing *sz = g_rc_box_new0 (struct _TrbMemberSizing);
+
+  sz->length = in->length;
+  sz->supports = g_array_sized_new (FALSE, FALSE, sizeof (TrbSupport), in->n_supports);
+  g_array_append_vals (sz->supports, in->supports, in->n_supports);
+  for (guint c = 0; c < TRB_N_CASES; c++)
+    {
+      sz->loads[c] = g_array_sized_new (FALSE, FALSE, sizeof (TrbLoad), in->n_loads[c]);
+      g_array_append_vals (sz->loads[c], in->loads[c], in->n_loads[c]);
+    }
+  sz->repetitive_spacing = in->repetitive_spacing;
+  r->sizing = sz;
 }
 
 /* Analyses and designs one member on the given supports and loads. */
@@ -2689,8 +2766,10 @@ solve_input (const TrbProject  *project,
               return r;
             }
         }
-      r = size_member (project, member, in, chosen, shortlist_max, use_bounds, use_bounds);
+      r = size_member (project, member, in, chosen, shortlist_max, use_bounds, use_bounds,
+                       NULL);
       record_input (r, in);
+      record_sizing (r, in);
       return r;
     }
 
@@ -4229,14 +4308,15 @@ solve_standalone_cached (Solver          *sv,
  * trb_solve_options_init:
  * @options: (out caller-allocates): options to fill
  *
- * The defaults: a shortlist of %TRB_SHORTLIST_DEFAULT sections, the cache and the bounds on.
+ * The defaults: no shortlist (it is made only where it is shown), the cache and the bounds
+ * on.
  */
 void
 trb_solve_options_init (TrbSolveOptions *options)
 {
   g_return_if_fail (options != NULL);
 
-  options->shortlist_max = TRB_SHORTLIST_DEFAULT;
+  options->shortlist_max = 0;
   options->cache = TRUE;
   options->bounds = TRUE;
 }
@@ -4386,7 +4466,7 @@ trb_solve_member_full (const TrbProject *project,
  * @project: the project, for its settings
  * @member: one of its members
  *
- * trb_solve_member_full() with a shortlist of at most %TRB_SHORTLIST_DEFAULT sections.
+ * trb_solve_member_full() without a shortlist (trb_solve_member_shortlist() makes it).
  *
  * Returns: (transfer full): the member's results; they point into @member.
  */
@@ -4394,7 +4474,62 @@ TrbMemberResult *
 trb_solve_member (const TrbProject *project,
                   const TrbMember  *member)
 {
-  return trb_solve_member_full (project, member, TRB_SHORTLIST_DEFAULT);
+  return trb_solve_member_full (project, member, 0);
+}
+
+/**
+ * trb_solve_member_shortlist:
+ * @project: the project solved, for its settings and sections
+ * @result: a member's result from it (any solve: with or without a shortlist)
+ * @max: how many passing sections to list at most (G_MAXUINT for all)
+ *
+ * The shortlist of a catalog or "auto" member, for whoever shows it: its passing sections,
+ * lightest first, ties by depth, sized again on what the solve analysed it with (its supports
+ * and loads, as they came down a floor). Exactly the entries a solve with a shortlist of
+ * @max gives, bit for bit, without the chosen section's full result. Empty for a custom
+ * section and for a member that was not sized (unsupported, unstable, not framed).
+ *
+ * Returns: (transfer full) (element-type TrbShortlistEntry): the entries
+ */
+GArray *
+trb_solve_member_shortlist (const TrbProject      *project,
+                            const TrbMemberResult *result,
+                            guint                  max)
+{
+  const struct _TrbMemberSizing *sz;
+  const TrbMember *m;
+  const TrbSection *chosen = NULL;
+  MemberInput in = { 0 };
+  g_autoptr(Memo) memo = NULL;
+  GArray *list;
+
+  g_return_val_if_fail (project != NULL && result != NULL, NULL);
+
+  list = g_array_new (FALSE, TRUE, sizeof (TrbShortlistEntry));
+  sz = result->sizing;
+  m = result->member;
+  if (sz == NULL || m == NULL || max == 0 || trb_member_is_custom (m))
+    return list;
+  if (!trb_member_is_auto (m))
+    {
+      chosen = lookup_section (project, m->section);
+      if (chosen == NULL)
+        return list;
+    }
+  memo = memo_new ();
+  in.length = sz->length;
+  in.supports = (const TrbSupport *) sz->supports->data;
+  in.n_supports = sz->supports->len;
+  for (guint c = 0; c < TRB_N_CASES; c++)
+    {
+      in.loads[c] = (const TrbLoad *) sz->loads[c]->data;
+      in.n_loads[c] = sz->loads[c]->len;
+    }
+  in.repetitive_spacing = sz->repetitive_spacing;
+  in.memo = memo;
+  in.member = m;
+  size_member (project, m, &in, chosen, max, TRUE, TRUE, list);
+  return list;
 }
 
 /**
