@@ -1564,43 +1564,86 @@ compare_by_weight_ptr (gconstpointer a,
 }
 
 /* The candidates for sizing, lightest first: the allowed list when the member gives one,
- * else its family of the catalog; depth and ply limits applied. */
-static GPtrArray *
+ * else its family of the catalog; depth and ply limits applied. Taken one at a time
+ * (candidates_next()): sizing mostly stops a fifth of the way through the catalog's family,
+ * which is already lightest first and is then read in place, not copied. */
+typedef struct
+{
+  const TrbMember  *m;
+  const TrbSection *family;   /* the catalog's family in place, or NULL: list */
+  guint             n_family;
+  GPtrArray        *list;
+  guint             next;
+} Candidates;
+
+static void
 sizing_candidates (const TrbProject *project,
-                   const TrbMember  *m)
+                   const TrbMember  *m,
+                   Candidates       *cands)
 {
   const TrbCatalog *catalogs[] = { trb_catalog_get_default (), project->sections };
-  GPtrArray *out = g_ptr_array_new ();
   TrbFamily family;
 
+  memset (cands, 0, sizeof *cands);
+  cands->m = m;
   if (m->allowed != NULL)
     {
+      cands->list = g_ptr_array_new ();
       for (guint i = 0; m->allowed[i] != NULL; i++)
         {
           const TrbSection *section = lookup_section (project, m->allowed[i]);
 
           if (section != NULL && candidate_allowed (m, section))
-            g_ptr_array_add (out, (gpointer) section);
+            g_ptr_array_add (cands->list, (gpointer) section);
         }
-      g_ptr_array_sort (out, compare_by_weight_ptr);
-      return out;
+      g_ptr_array_sort (cands->list, compare_by_weight_ptr);
+      return;
     }
-  if (sizing_family (m, &family))
+  if (!sizing_family (m, &family))
     {
-      /* The project's own sections of the family take part beside the catalog's. */
-      for (guint c = 0; c < G_N_ELEMENTS (catalogs) && catalogs[c] != NULL; c++)
-        {
-          guint n;
-          const TrbSection *sections = trb_catalog_get_family (catalogs[c], family, &n);
-
-          for (guint i = 0; i < n; i++)
-            if (candidate_allowed (m, &sections[i]))
-              g_ptr_array_add (out, (gpointer) &sections[i]);
-        }
-      if (project->sections != NULL)
-        g_ptr_array_sort (out, compare_by_weight_ptr);
+      cands->list = g_ptr_array_new ();
+      return;
     }
-  return out;
+  if (project->sections == NULL)
+    {
+      cands->family = trb_catalog_get_family (catalogs[0], family, &cands->n_family);
+      return;
+    }
+  /* The project's own sections of the family take part beside the catalog's. */
+  cands->list = g_ptr_array_new ();
+  for (guint c = 0; c < G_N_ELEMENTS (catalogs) && catalogs[c] != NULL; c++)
+    {
+      guint n;
+      const TrbSection *sections = trb_catalog_get_family (catalogs[c], family, &n);
+
+      for (guint i = 0; i < n; i++)
+        if (candidate_allowed (m, &sections[i]))
+          g_ptr_array_add (cands->list, (gpointer) &sections[i]);
+    }
+  g_ptr_array_sort (cands->list, compare_by_weight_ptr);
+}
+
+/* The next candidate, or NULL when there is none left. */
+static const TrbSection *
+candidates_next (Candidates *cands)
+{
+  if (cands->list != NULL)
+    return cands->next < cands->list->len ? g_ptr_array_index (cands->list, cands->next++)
+                                          : NULL;
+  while (cands->next < cands->n_family)
+    {
+      const TrbSection *section = &cands->family[cands->next++];
+
+      if (candidate_allowed (cands->m, section))
+        return section;
+    }
+  return NULL;
+}
+
+static void
+candidates_clear (Candidates *cands)
+{
+  g_clear_pointer (&cands->list, g_ptr_array_unref);
 }
 
 /* ---- sizing: bounds and the lean evaluation of candidates ---------------------------------
@@ -1661,6 +1704,10 @@ typedef struct
   double            *fD_total;
   /* the largest of each, for margins that do not vanish at zero */
   double             M_scale, V_scale, D_scale;
+  /* the largest lower bound of the live deflection checks for a candidate of E I_ref / E I
+   * = 1 (each is that ratio times its own): most candidates that fail, fail there, and are
+   * rejected from this one number; 0 when not checked */
+  double             live_unit;
   double            *scratch;      /* room for the shares of a candidate */
   TrbBeam           *beam;         /* the member's beam (its supports; E = I = 1) */
   GPtrArray         *mem;          /* what the arrays above point into */
@@ -1949,6 +1996,26 @@ reference_init (Reference             *ref,
                isfinite (ref->M_scale + ref->V_scale + ref->D_scale);
   for (guint j = 0; ref->ready && j < ref->n_spans; j++)
     ref->ready = isfinite (ref->D_u[j]);
+
+  /* candidate_shares()'s live lower bounds with k_EI taken out: (d k - margin (d k, 0,
+   * D_scale k)) / cap = k (d (1 - BOUND_MARGIN) - 1e-9 D_scale) / cap */
+  ref->live_unit = 0;
+  {
+    double live_limit = trb_member_get_deflection_live (m, &project->settings);
+
+    for (guint i = 0; live_limit > 0 && i < ref->n_live; i++)
+      for (guint j = 0; j < ref->n_spans; j++)
+        {
+          double cap = ref->spans[j].judged / live_limit;
+          double lo = (ref->d_live[i * ref->n_spans + j] * (1 - BOUND_MARGIN) -
+                       1e-9 * ref->D_scale) / cap;
+
+          if (lo > ref->live_unit)
+            ref->live_unit = lo;
+        }
+    if (!isfinite (ref->live_unit))
+      ref->live_unit = 0;
+  }
   return ref->ready;
 }
 
@@ -2134,7 +2201,15 @@ candidate_shares (const Reference    *ref,
         (ref->V_scale + 2 * fabs (dw) * V_u) < 1e100 && ref->D_scale * (1 + k_EI) < 1e100))
     return FALSE;
 
-  /* deflection: live load deflection scales with E I_ref / E I; the total moves with w too */
+  /* deflection: live load deflection scales with E I_ref / E I; the total moves with w too.
+   * A candidate certainly failing in live deflection by the reference's one number (the
+   * bounds below, to their rounding: a millionth is far beyond it) need not be bounded
+   * further. */
+  if (reject && ref->live_unit * k_EI * (1 - 1e-12) > 1 + BOUND_MARGIN)
+    {
+      sh->max_lo = ref->live_unit * k_EI;
+      return TRUE;
+    }
   sh->live_checked = live_limit > 0 && ref->n_spans > 0;
   sh->total_checked = total_limit > 0 && ref->n_spans > 0;
   for (guint i = 0; sh->live_checked && i < ref->n_live; i++)
@@ -2539,7 +2614,8 @@ size_member (const TrbProject  *project,
              gboolean           reject,
              GArray            *list_only)
 {
-  g_autoptr(GPtrArray) candidates = sizing_candidates (project, m);
+  Candidates candidates;
+  const TrbSection *section;
   MemberInput in_plan = *in;
   MemberPlan plan = { FALSE };
   TrbMemberResult *best = NULL;
@@ -2554,20 +2630,19 @@ size_member (const TrbProject  *project,
   /* the analyses of every section share what does not depend on it */
   in_plan.plan = &plan;
   in = &in_plan;
+  sizing_candidates (project, m, &candidates);
   /* past the shortlist's length only for the lightest passing section, when it is chosen */
-  for (guint i = 0;
-       i < candidates->len &&
-       (shortlist->len < shortlist_max || (list_only == NULL && chosen == NULL && !found));
-       i++)
+  while ((shortlist->len < shortlist_max || (list_only == NULL && chosen == NULL && !found)) &&
+         (section = candidates_next (&candidates)) != NULL)
     {
-      const TrbSection *section = g_ptr_array_index (candidates, i);
       TrbMemberResult *c;
       TrbShortlistEntry e = { { 0 } };
       Verdict v;
 
       if (use_bounds)
         switch (ref.ready ? judge_candidate (&ref, project, m, in, section, reject,
-                                             !found && chosen == NULL, &v)
+                                             !found && chosen == NULL && list_only == NULL,
+                                             &v)
                           : reference_candidate (&ref, project, m, in, section, &v))
           {
           case VERDICT_REJECTED:
@@ -2648,6 +2723,7 @@ size_member (const TrbProject  *project,
       trb_member_result_free (c);
     }
 
+  candidates_clear (&candidates);
   if (list_only != NULL)
     {
       /* nothing passes, or the shortlist is made: the rest is the result's */
