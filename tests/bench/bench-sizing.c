@@ -8,7 +8,7 @@
  * result), and that with the shortlist of 10 passing sections the CLI shows, made on demand
  * (trb_solve_member_shortlist()). The members are a made-up spread of spans and loads, not a
  * design. `bench-sizing SRCDIR --once N` runs one untimed pass with a shortlist of N, for a
- * profiler. */
+ * profiler; `--xml` prints the members as a project file. */
 
 #include "config.h"
 
@@ -115,6 +115,13 @@ main (int argc, char **argv)
 
   if (project == NULL)
     g_error ("%s", error->message);
+
+  /* --xml: the members as a project file, to compare the CLI's output of two builds */
+  if (argc > 2 && strcmp (argv[2], "--xml") == 0)
+    {
+      g_print ("%s\n", xml);
+      return 0;
+    }
 
   /* --once N: one untimed pass over the members with a shortlist of N, for a profiler */
   if (argc > 3 && strcmp (argv[2], "--once") == 0)
