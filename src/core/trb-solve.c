@@ -2555,13 +2555,20 @@ judge_candidate (const Reference   *ref,
 }
 
 /* The first candidate judged: analysed with every combination (without envelopes or text),
- * its verdict, and the reference for the others. */
+ * its verdict, and the reference for the others. With reject, a section of the bundled
+ * catalog whose own bounds say it certainly fails is rejected without its checks (the
+ * lightest section mostly fails by far): its checks would say fail, since a live deflection
+ * or strength ratio above 1 makes the status fail and the bundled sections' values are far
+ * from any overflow that would make it an error; and should nothing pass, sizing runs again
+ * without rejecting, which checks it. */
 static VerdictKind
 reference_candidate (Reference         *ref,
                      const TrbProject  *project,
                      const TrbMember   *m,
                      const MemberInput *in,
                      const TrbSection  *section,
+                     gboolean           reject,
+                     gboolean           bundled,
                      Verdict           *v)
 {
   const TrbWoodGrade *wood_grade;
@@ -2577,9 +2584,24 @@ reference_candidate (Reference         *ref,
   if (analyse (project, in, E, section->Ix,
                project->settings.self_weight ? section->weight : 0, r, &sx, &lean))
     {
+      if (reject && bundled)
+        {
+          Shares sh;
+
+          if (!reference_init (ref, project, m, in, r, &sx))
+            reference_clear (ref);
+          else if (candidate_shares (ref, project, m, in, section, E, wood_grade, TRUE, &sh) &&
+                   sh.max_lo > 1 + BOUND_MARGIN)
+            {
+              span_extremes_clear (&sx);
+              trb_member_result_free (r);
+              return VERDICT_REJECTED;
+            }
+        }
       design_checks (project, m, in, section, wood_grade, &sx, TRUE, r);
+      /* the reference made above, or made now, is kept only beside a verdict */
       if ((r->status == TRB_STATUS_PASS || r->status == TRB_STATUS_FAIL) &&
-          reference_init (ref, project, m, in, r, &sx))
+          (ref->ready || reference_init (ref, project, m, in, r, &sx)))
         {
           v->status = r->status;
           v->ratio = r->ratio;
@@ -2643,7 +2665,8 @@ size_member (const TrbProject  *project,
         switch (ref.ready ? judge_candidate (&ref, project, m, in, section, reject,
                                              !found && chosen == NULL && list_only == NULL,
                                              &v)
-                          : reference_candidate (&ref, project, m, in, section, &v))
+                          : reference_candidate (&ref, project, m, in, section, reject,
+                                                 candidates.family != NULL, &v))
           {
           case VERDICT_REJECTED:
             rejected++;
