@@ -1690,6 +1690,9 @@ typedef struct
   /* the reference's strength entries: each extreme with the unit load's value where it is
    * (V on both sides, the unit load's V jumping at the supports) */
   guint              n_str;
+  guint             *str_order;    /* the strength entries, largest moment first: the order
+                                    * the flexure bounds are tried in, so that a failing
+                                    * candidate fails on the first */
   double            *factors;      /* TRB_N_CASES each */
   double            *V;            /* V_max, V_u on its left and right, its side; the same of
                                     * V_min: 8 each */
@@ -1969,6 +1972,20 @@ reference_init (Reference             *ref,
         }
       if (ref->steel)
         quarter_moments (c->result, ref->seg, ref->n_seg, ref->Mq + i * 6 * ref->n_seg);
+    }
+
+  /* largest |M| first, ties in their own order (a stable insertion sort of a few entries) */
+  ref->str_order = g_new (guint, ref->n_str + 1);
+  g_ptr_array_add (ref->mem, ref->str_order);
+  for (guint i = 0; i < ref->n_str; i++)
+    {
+      double mi = abs_max (ref->M[4 * i], ref->M[4 * i + 2]);
+      guint j = i;
+
+      for (; j > 0 && abs_max (ref->M[4 * ref->str_order[j - 1]],
+                               ref->M[4 * ref->str_order[j - 1] + 2]) < mi; j--)
+        ref->str_order[j] = ref->str_order[j - 1];
+      ref->str_order[j] = i;
     }
 
   ref->n_live = r->live.entries->len;
@@ -2311,8 +2328,9 @@ candidate_shares (const Reference    *ref,
         }
       if (reject && sh->max_lo > 1 + BOUND_MARGIN)
         return TRUE;
-      for (guint i = 0; i < ref->n_str; i++)
+      for (guint o = 0; o < ref->n_str; o++)
         {
+          guint i = ref->str_order[o];
           double c = ref->factors[i * TRB_N_CASES + TRB_CASE_D] * dw;
           double max_lo, max_hi, min_lo, min_hi;
 
