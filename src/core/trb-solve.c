@@ -1433,12 +1433,14 @@ wood_grade_for (const TrbMember   *m,
 }
 
 /* Analyses and checks the member with one catalog section: its E (steel grade, or the wood
- * grade's E adjusted for service), its I and its self-weight. */
+ * grade's E adjusted for service), its I and its self-weight. keep_sx (may be NULL) gets the
+ * analysis's extremes over the spans and segments, for a reference. */
 static TrbMemberResult *
-solve_with_section (const TrbProject  *project,
-                    const TrbMember   *m,
-                    const MemberInput *in,
-                    const TrbSection  *section)
+solve_with_section_sx (const TrbProject  *project,
+                       const TrbMember   *m,
+                       const MemberInput *in,
+                       const TrbSection  *section,
+                       SpanExtremes      *keep_sx)
 {
   const TrbSettings *s = &project->settings;
   TrbMemberResult *r = member_result_new (project, m);
@@ -1491,8 +1493,20 @@ solve_with_section (const TrbProject  *project,
 
   if (analyse (project, in, E, section->Ix, self_weight, r, &sx, NULL))
     design_checks (project, m, in, section, wood_grade, &sx, FALSE, r);
-  span_extremes_clear (&sx);
+  if (keep_sx != NULL)
+    *keep_sx = sx;
+  else
+    span_extremes_clear (&sx);
   return r;
+}
+
+static TrbMemberResult *
+solve_with_section (const TrbProject  *project,
+                    const TrbMember   *m,
+                    const MemberInput *in,
+                    const TrbSection  *section)
+{
+  return solve_with_section_sx (project, m, in, section, NULL);
 }
 
 /* The catalog family a member is sized from. */
@@ -2494,6 +2508,317 @@ keep_reaching (const double *lo,
       keep[i] = TRUE;
 }
 
+/* ---- sizing: a guess at the section chosen -------------------------------------------------
+ *
+ * Every bound comes from one analysis with every combination (the reference), and the chosen
+ * section needs its full analysis: two analyses a member, unless the reference is the chosen
+ * section's full analysis. So sizing first guesses the section it will choose, from the load
+ * cases alone (a beam of unit E I, the moments, shears and deflections at nine points of each
+ * segment, Cb from the quarter points), analyses that one in full and makes it the reference.
+ * The guess decides nothing: every candidate is still judged lightest first, the guess by its
+ * own full result, the others from the bounds; a wrong guess costs one analysis more. Only for
+ * W shapes of the bundled catalog under ASD or LRFD with dead and floor live load alone. */
+#define GUESS_DIV 4
+
+/* A demand at one point for no self-weight, and how it grows with the self-weight w: d0 +
+ * w du (the largest of a set at w = 0, taken where it is). */
+typedef struct
+{
+  double d0, du;
+} GuessDemand;
+
+static void
+guess_take (GuessDemand *g,
+            double       d0,
+            double       du)
+{
+  if (d0 > g->d0)
+    {
+      g->d0 = d0;
+      g->du = du;
+    }
+}
+
+static const TrbSection *
+guess_section (const TrbProject  *project,
+               const TrbMember   *m,
+               const MemberInput *in,
+               const Candidates  *cands)
+{
+  const TrbSettings *s = &project->settings;
+  TrbMethod method = trb_member_get_method (m, s);
+  gboolean lrfd = method == TRB_METHOD_LRFD;
+  const TrbSteelGrade *grade;
+  double live_limit = trb_member_get_deflection_live (m, s);
+  double total_limit = trb_member_get_deflection_total (m, s);
+  g_autoptr(GArray) brace_x = g_array_new (FALSE, FALSE, sizeof (double));
+  g_autoptr(GArray) regions = NULL;
+  g_autoptr(GArray) patterns = NULL;
+  TrbBeam *beam = NULL;
+  TrbBeamResult *parts[2 + TRB_PATTERN_MAX_REGIONS] = { NULL };
+  TrbDesignInput input;
+  TrbDeflectionSpan *spans = NULL;
+  double *seg = NULL, *x = NULL;
+  int *span_of = NULL;
+  gboolean *free_end = NULL;
+  TrbBeamValues *vals = NULL;   /* part i at point k: vals[i * n_pts + k] */
+  double *lp = NULL;            /* live load of pattern p at point k: M, V, v */
+  GuessDemand *hog = NULL, *total = NULL, sag = { 0, 0 }, shear = { 0, 0 };
+  double *hog_cb = NULL;          /* hogging demand and Cb of each strength entry on each
+                                   * segment: hog[e * n_seg + k] */
+  guint n_seg = 0, n_spans, n_pts, n_grid, n_regions, n_parts, n_str = 0, e_str = 0;
+  gboolean has_case[TRB_N_CASES] = { FALSE };
+  const TrbSection *guess = NULL;
+  TrbLoad unit = { TRB_LOAD_UNIFORM, 0, in->length, 1.0, 1.0 };
+  const GArray *combos[3];
+  double live_unit = 0;
+
+  if (m->material != TRB_MATERIAL_STEEL || cands->family == NULL ||
+      (method != TRB_METHOD_ASD && method != TRB_METHOD_LRFD) ||
+      in->n_loads[TRB_CASE_LR] > 0 || in->n_loads[TRB_CASE_S] > 0 ||
+      in->n_loads[TRB_CASE_L] == 0 || in->n_supports == 0)
+    return NULL;
+  grade = steel_grade_of (m, in, s);
+  if (grade == NULL)
+    return NULL;
+  beam = trb_beam_new (in->length, 1.0, 1.0, in->supports, in->n_supports, NULL);
+  if (beam == NULL)
+    return NULL;
+
+  /* the parts: dead load (without self-weight), a unit uniform load, live load by region */
+  has_case[TRB_CASE_D] = in->n_loads[TRB_CASE_D] > 0 || s->self_weight;
+  has_case[TRB_CASE_L] = TRUE;
+  {
+    guint n_bs;
+    const TrbSupport *bs = trb_beam_get_supports (beam, &n_bs);
+
+    regions = trb_regions_build (bs, n_bs, in->length);
+  }
+  n_regions = regions->len;
+  if (s->live_patterns && n_regions > 1 && n_regions <= TRB_PATTERN_MAX_REGIONS)
+    {
+      GArray **split = trb_loads_split (in->loads[TRB_CASE_L], in->n_loads[TRB_CASE_L],
+                                        (const TrbRegion *) regions->data, n_regions);
+
+      patterns = trb_patterns_build ((const TrbRegion *) regions->data, n_regions, "L");
+      for (guint reg = 0; reg < n_regions; reg++)
+        parts[2 + reg] = trb_beam_solve (beam, (const TrbLoad *) split[reg]->data,
+                                         split[reg]->len, NULL);
+      trb_loads_split_free (split, n_regions);
+    }
+  else
+    {
+      TrbPattern all = { "", 1 };
+
+      n_regions = 1;
+      patterns = g_array_new (FALSE, FALSE, sizeof (TrbPattern));
+      g_array_append_val (patterns, all);
+      parts[2] = trb_beam_solve (beam, in->loads[TRB_CASE_L], in->n_loads[TRB_CASE_L], NULL);
+    }
+  parts[0] = trb_beam_solve (beam, in->loads[TRB_CASE_D], in->n_loads[TRB_CASE_D], NULL);
+  parts[1] = trb_beam_solve (beam, &unit, 1, NULL);
+  n_parts = 2 + n_regions;
+  for (guint i = 0; i < n_parts; i++)
+    if (parts[i] == NULL)
+      goto out;
+
+  /* nine points on each flexure segment, the ends on their own side */
+  member_design_input (m, in, beam, brace_x, &input);
+  seg = g_new (double, 2 + input.n_supports + input.n_braces);
+  n_seg = trb_design_steel_segment_points (&input, seg);
+  if (n_seg < 2)
+    goto out;
+  n_seg--;
+  spans = g_new0 (TrbDeflectionSpan, input.n_supports + 1);
+  n_spans = trb_design_deflection_spans (&input, spans, input.n_supports + 1);
+  /* the grid, then the point loads, where the moment peaks between grid points */
+  n_grid = n_seg * (GUESS_DIV + 1);
+  n_pts = n_grid;
+  x = g_new (double, n_grid + in->n_loads[TRB_CASE_D] + in->n_loads[TRB_CASE_L]);
+  for (guint k = 0; k < n_seg; k++)
+    for (guint j = 0; j <= GUESS_DIV; j++)
+      x[k * (GUESS_DIV + 1) + j] = seg[k] + (seg[k + 1] - seg[k]) * j / GUESS_DIV;
+  for (guint c = TRB_CASE_D; c <= TRB_CASE_L; c++)
+    for (guint i = 0; i < in->n_loads[c]; i++)
+      if (in->loads[c][i].kind == TRB_LOAD_POINT && in->loads[c][i].a > 0 &&
+          in->loads[c][i].a < in->length)
+        x[n_pts++] = in->loads[c][i].a;
+  /* the span each point is in, for the deflection checks; -1: none */
+  span_of = g_new (int, n_pts);
+  for (guint at = 0; at < n_pts; at++)
+    {
+      span_of[at] = -1;
+      for (guint sp = 0; sp < n_spans && span_of[at] < 0; sp++)
+        if (x[at] >= spans[sp].a && x[at] <= spans[sp].b)
+          span_of[at] = sp;
+    }
+  vals = g_new (TrbBeamValues, n_parts * n_pts);
+  for (guint at = 0; at < n_pts; at++)
+    for (guint i = 0; i < n_parts; i++)
+      trb_beam_result_eval (parts[i], x[at],
+                            at < n_grid && at % (GUESS_DIV + 1) == GUESS_DIV ? TRB_SIDE_LEFT
+                                                                             : TRB_SIDE_RIGHT,
+                            &vals[i * n_pts + at]);
+  lp = g_new0 (double, 3 * patterns->len * n_pts);
+  for (guint p = 0; p < patterns->len; p++)
+    {
+      guint64 mask = g_array_index (patterns, TrbPattern, p).mask;
+
+      for (guint reg = 0; reg < n_regions; reg++)
+        if ((mask >> reg) & 1)
+          for (guint k = 0; k < n_pts; k++)
+            {
+              const TrbBeamValues *v = &vals[(2 + reg) * n_pts + k];
+              double *o = lp + 3 * (p * n_pts + k);
+
+              o[0] += v->M;
+              o[1] += v->V;
+              o[2] += v->defl;
+            }
+    }
+
+  /* the largest demands at w = 0 of every combination and pattern, where they are */
+  combos[0] = combos_for (lrfd ? TRB_COMBO_SET_LRFD : TRB_COMBO_SET_ASD, has_case);
+  combos[1] = combos_for (TRB_COMBO_SET_LIVE, has_case);
+  combos[2] = combos_for (TRB_COMBO_SET_TOTAL, has_case);
+  for (guint i = 0; i < combos[0]->len; i++)
+    n_str += g_array_index (combos[0], TrbCombo, i).factors[TRB_CASE_L] != 0 ? patterns->len : 1;
+  free_end = g_new (gboolean, n_seg);
+  for (guint k = 0; k < n_seg; k++)
+    free_end[k] = trb_design_steel_free_end (&input, seg[k], seg[k + 1]);
+  hog = g_new0 (GuessDemand, n_str * n_seg);
+  hog_cb = g_new (double, n_str * n_seg);
+  total = g_new0 (GuessDemand, n_spans);
+  for (guint set = 0; set < 3; set++)
+    for (guint i = 0; i < combos[set]->len; i++)
+      {
+        const TrbCombo *combo = &g_array_index (combos[set], TrbCombo, i);
+        double fD = combo->factors[TRB_CASE_D], fL = combo->factors[TRB_CASE_L];
+
+        for (guint p = 0; p < (fL != 0 ? patterns->len : 1); p++, e_str += set == 0)
+          for (guint k = 0; k <= n_seg; k++)
+            {
+              double neg = 0, du_neg = 0, m_abs = 0, q[3] = { 0, 0, 0 };
+
+              /* the segments' grids, then the point loads as a last "segment" */
+              for (guint j = 0; k < n_seg ? j <= GUESS_DIV : j < n_pts - n_grid; j++)
+                {
+                  guint at = k < n_seg ? k * (GUESS_DIV + 1) + j : n_grid + j;
+                  const double *l = lp + 3 * (p * n_pts + at);
+                  const TrbBeamValues *d = &vals[at], *u = &vals[n_pts + at];
+                  double M = fD * d->M + fL * l[0];
+
+                  if (set == 0)
+                    {
+                      double V = fD * d->V + fL * l[1];
+
+                      guess_take (&sag, m->bracing == TRB_BRACING_POINTS ? 0 : M, fD * u->M);
+                      guess_take (&shear, fabs (V), copysign (fD * u->V, V));
+                      if ((m->bracing == TRB_BRACING_POINTS ? fabs (M) : -M) > neg)
+                        {
+                          neg = m->bracing == TRB_BRACING_POINTS ? fabs (M) : -M;
+                          du_neg = (M < 0 ? -1 : 1) * fD * u->M *
+                                   (m->bracing == TRB_BRACING_POINTS ? 1 : -1) *
+                                   (M < 0 ? -1 : 1);
+                        }
+                      m_abs = MAX (m_abs, fabs (M));
+                      if (k < n_seg && j > 0 && j < GUESS_DIV && j % (GUESS_DIV / 4) == 0)
+                        q[j / (GUESS_DIV / 4) - 1] = M;
+                    }
+                  else
+                    {
+                      double v = fD * d->defl + fL * l[2];
+                      int sp = span_of[at];
+
+                      if (sp >= 0)
+                        {
+                          double f = (set == 1 ? live_limit : total_limit) / spans[sp].judged;
+
+                          if (set == 1)
+                            live_unit = MAX (live_unit, fabs (v) * f);
+                          else
+                            guess_take (&total[sp], fabs (v) * f, copysign (fD * u->defl, v) * f);
+                        }
+                    }
+                }
+              if (set == 0 && k < n_seg)
+                {
+                  hog[e_str * n_seg + k].d0 = neg;
+                  hog[e_str * n_seg + k].du = du_neg;
+                  hog_cb[e_str * n_seg + k] = free_end[k] ? 1.0
+                                              : trb_design_steel_cb (m_abs, q[0], q[1], q[2]);
+                }
+            }
+      }
+  if (!(live_limit > 0))
+    live_unit = 0;
+
+  /* the lightest candidate those demands pass */
+  for (guint c = 0; c < cands->n_family && guess == NULL; c++)
+    {
+      const TrbSection *section = &cands->family[c];
+      double w = s->self_weight ? section->weight : 0;
+      double EI = grade->E * section->Ix;
+      double worst;
+      TrbSteelFlexure flex;
+      TrbSteelShear sh;
+
+      if (!candidate_allowed (m, section) || section->kind != TRB_SHAPE_W ||
+          !(EI > 0) || live_unit / EI > 1)
+        continue;
+      worst = 0;
+      for (guint sp = 0; total_limit > 0 && sp < n_spans; sp++)
+        worst = MAX (worst, fabs (total[sp].d0 + w * total[sp].du) / EI);
+      if (worst > 1 || !trb_design_steel_flexure (section, grade, 0, 1, &flex) ||
+          !trb_design_steel_shear (section, grade, &sh))
+        continue;
+      worst = MAX (worst, (sag.d0 + w * sag.du) /
+                          (lrfd ? TRB_STEEL_PHI_B * flex.Mn : flex.Mn / TRB_STEEL_OMEGA_B));
+      worst = MAX (worst, fabs (shear.d0 + w * shear.du) /
+                          (lrfd ? sh.phi * sh.Vn : sh.Vn / sh.omega));
+      /* Mn grows as Cb times Mn at Cb = 1, up to the braced Mn (F2, F3) */
+      {
+        double Mn0 = flex.Mn;
+
+        for (guint k = 0; k < n_seg && worst <= 1; k++)
+          {
+            if (!trb_design_steel_flexure (section, grade, seg[k + 1] - seg[k], 1, &flex))
+              {
+                worst = INFINITY;
+                break;
+              }
+            for (guint e = 0; e < n_str; e++)
+              {
+                const GuessDemand *h = &hog[e * n_seg + k];
+                double Mn = MIN (hog_cb[e * n_seg + k] * flex.Mn, Mn0);
+
+                if (h->d0 > 0)
+                  worst = MAX (worst, (h->d0 + w * h->du) /
+                                      (lrfd ? TRB_STEEL_PHI_B * Mn : Mn / TRB_STEEL_OMEGA_B));
+              }
+          }
+      }
+      if (worst <= 1)
+        guess = section;
+    }
+
+out:
+  for (guint i = 0; i < G_N_ELEMENTS (parts); i++)
+    g_clear_pointer (&parts[i], trb_beam_result_free);
+  trb_beam_free (beam);
+  g_free (spans);
+  g_free (seg);
+  g_free (x);
+  g_free (span_of);
+  g_free (free_end);
+  g_free (vals);
+  g_free (lp);
+  g_free (hog);
+  g_free (hog_cb);
+  g_free (total);
+  return guess;
+}
+
 typedef enum
 {
   VERDICT_UNDECIDED,  /* analyse it in full (or certainly passing, as the first to pass) */
@@ -2666,11 +2991,32 @@ size_member (const TrbProject  *project,
   Reference ref = { FALSE };
   guint rejected = 0;
   gboolean found = FALSE;                   /* the lightest passing section (best) */
+  const TrbSection *guess = NULL;           /* analysed in full first: the reference */
+  TrbMemberResult *guess_result = NULL;
 
   /* the analyses of every section share what does not depend on it */
   in_plan.plan = &plan;
   in = &in_plan;
   sizing_candidates (project, m, &candidates);
+  /* the guess, analysed in full first, is the reference */
+  if (use_bounds && reject && chosen == NULL && list_only == NULL)
+    {
+      guess = guess_section (project, m, in, &candidates);
+      if (guess != NULL)
+        {
+          SpanExtremes sx = { NULL };
+
+          guess_result = solve_with_section_sx (project, m, in, guess, &sx);
+          if (!((guess_result->status == TRB_STATUS_PASS ||
+                 guess_result->status == TRB_STATUS_FAIL) &&
+                reference_init (&ref, project, m, in, guess_result, &sx)))
+            {
+              reference_clear (&ref);
+              g_clear_pointer (&guess_result, trb_member_result_free);
+            }
+          span_extremes_clear (&sx);
+        }
+    }
   /* past the shortlist's length only for the lightest passing section, when it is chosen */
   while ((shortlist->len < shortlist_max || (list_only == NULL && chosen == NULL && !found)) &&
          (section = candidates_next (&candidates)) != NULL)
@@ -2679,6 +3025,35 @@ size_member (const TrbProject  *project,
       TrbShortlistEntry e = { { 0 } };
       Verdict v;
 
+      if (section == guess && guess_result != NULL)
+        {
+          /* judged by its full result */
+          c = g_steal_pointer (&guess_result);
+          if (c->status == TRB_STATUS_PASS)
+            {
+              g_strlcpy (e.section, section->designation, sizeof e.section);
+              e.weight = section->weight;
+              e.ratio = c->ratio;
+              g_strlcpy (e.governing, c->governing, sizeof e.governing);
+              g_array_append_val (shortlist, e);
+              if (!found)
+                {
+                  found = TRUE;
+                  best = c;
+                  continue;
+                }
+            }
+          else if (closest_section == NULL || c->ratio < closest_ratio)
+            {
+              g_clear_pointer (&closest, trb_member_result_free);
+              closest = c;
+              closest_section = section;
+              closest_ratio = c->ratio;
+              continue;
+            }
+          trb_member_result_free (c);
+          continue;
+        }
       if (use_bounds)
         switch (ref.ready ? judge_candidate (&ref, project, m, in, section, reject,
                                              !found && chosen == NULL && list_only == NULL,
@@ -2765,6 +3140,7 @@ size_member (const TrbProject  *project,
     }
 
   candidates_clear (&candidates);
+  g_clear_pointer (&guess_result, trb_member_result_free);
   if (list_only != NULL)
     {
       /* nothing passes, or the shortlist is made: the rest is the result's */
