@@ -2513,12 +2513,13 @@ keep_reaching (const double *lo,
  * Every bound comes from one analysis with every combination (the reference), and the chosen
  * section needs its full analysis: two analyses a member, unless the reference is the chosen
  * section's full analysis. So sizing first guesses the section it will choose, from the load
- * cases alone (a beam of unit E I, the moments, shears and deflections at nine points of each
- * segment, Cb from the quarter points), analyses that one in full and makes it the reference.
+ * cases alone (a beam of unit E I, the moments, shears and deflections at the quarter points
+ * of each segment and at the point loads, Cb from the quarter points), analyses that one in
+ * full and makes it the reference.
  * The guess decides nothing: every candidate is still judged lightest first, the guess by its
  * own full result, the others from the bounds; a wrong guess costs one analysis more. Only for
  * W shapes of the bundled catalog under ASD or LRFD with dead and floor live load alone. */
-#define GUESS_DIV 4
+#define GUESS_DIV 4   /* points a segment is divided by: 4 gives the quarter points */
 
 /* A demand at one point for no self-weight, and how it grows with the self-weight w: d0 +
  * w du (the largest of a set at w = 0, taken where it is). */
@@ -2622,7 +2623,7 @@ guess_section (const TrbProject  *project,
     if (parts[i] == NULL)
       goto out;
 
-  /* nine points on each flexure segment, the ends on their own side */
+  /* the quarter points of each flexure segment, the ends on their own side */
   member_design_input (m, in, beam, brace_x, &input);
   seg = g_new (double, 2 + input.n_supports + input.n_braces);
   n_seg = trb_design_steel_segment_points (&input, seg);
@@ -2714,12 +2715,12 @@ guess_section (const TrbProject  *project,
 
                       guess_take (&sag, m->bracing == TRB_BRACING_POINTS ? 0 : M, fD * u->M);
                       guess_take (&shear, fabs (V), copysign (fD * u->V, V));
+                      /* braced at points: |M| meets Lb and Cb; else hogging does */
                       if ((m->bracing == TRB_BRACING_POINTS ? fabs (M) : -M) > neg)
                         {
                           neg = m->bracing == TRB_BRACING_POINTS ? fabs (M) : -M;
-                          du_neg = (M < 0 ? -1 : 1) * fD * u->M *
-                                   (m->bracing == TRB_BRACING_POINTS ? 1 : -1) *
-                                   (M < 0 ? -1 : 1);
+                          du_neg = m->bracing == TRB_BRACING_POINTS ? copysign (fD * u->M, M)
+                                                                    : -fD * u->M;
                         }
                       m_abs = MAX (m_abs, fabs (M));
                       if (k < n_seg && j > 0 && j < GUESS_DIV && j % (GUESS_DIV / 4) == 0)
