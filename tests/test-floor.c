@@ -449,6 +449,8 @@ solve_digest (const TrbProject *p,
   trb_solve_options_init (&options);
   options.cache = cache;
   options.bounds = bounds;
+  /* the default solve makes no shortlist: ask for one so the digest covers it */
+  options.shortlist_max = TRB_SHORTLIST_DEFAULT;
   pr = trb_solve_project_full (p, &options);
   return digest (pr);
 }
