@@ -94,6 +94,38 @@ static const DetailUnit detail_units[] = {
   { "MPa", "MPa", 1e6 },
 };
 
+/* Whether the number printed in @buf ("-12.30", "0.00100") is at least 10^@k in magnitude,
+ * read from its digits: what parsing it and comparing with pow (10, k) gives (the two differ
+ * by far more than a rounding), without the parse. */
+static gboolean
+reaches_power (const char *buf,
+               int         k)
+{
+  const char *p = buf;
+  const char *dot;
+  int n_int = 0;
+
+  if (*p == '-')
+    p++;
+  while (*p == '0')
+    p++;
+  dot = p;
+  while (g_ascii_isdigit (*dot))
+    dot++;
+  n_int = (int) (dot - p);
+  if (k >= 0)
+    return n_int > k;
+  if (n_int > 0)
+    return TRUE;
+  /* 10^k with k < 0: some digit among the first -k decimals is not zero */
+  if (*dot != '.')
+    return FALSE;
+  for (int i = 1; i <= -k && g_ascii_isdigit (dot[i]); i++)
+    if (dot[i] != '0')
+      return TRUE;
+  return FALSE;
+}
+
 /* Three significant figures, as the trade's tables print them: 5.83, 16.9, 379, 1060. */
 static void
 format_3sf (char   *buf,
@@ -122,7 +154,7 @@ format_3sf (char   *buf,
     }
   g_snprintf (buf, size, "%.*f", decimals, v);
   /* rounding may carry into another digit (9.996 -> "10.00"): print again with one less */
-  if (fabs (g_ascii_strtod (buf, NULL)) >= pow (10, 3 - decimals) && decimals > 0)
+  if (reaches_power (buf, 3 - decimals))
     g_snprintf (buf, size, "%.*f", decimals - 1, v);
 }
 
@@ -142,7 +174,10 @@ trb_design_format (char       *buf,
       if (g_strcmp0 (detail_units[i].name, unit) != 0)
         continue;
       format_3sf (num, sizeof num, value / detail_units[i].factor);
-      g_snprintf (buf, size, "%s %s", num, detail_units[i].text);
+      /* what "%s %s" prints, truncation and all, without the printf */
+      g_strlcpy (buf, num, size);
+      g_strlcat (buf, " ", size);
+      g_strlcat (buf, detail_units[i].text, size);
       return buf;
     }
 
