@@ -1099,6 +1099,53 @@ test_format_same (void)
       }
 }
 
+/* The deflection check's text: what its earlier implementation printed with
+ * "L/%.0f" and "%s, limit L/%.0f; %s, L = %s" (copied here as the reference), for spans and
+ * overhangs, limits whole or not, deflections from none to far beyond the span. */
+static void
+test_deflection_text_same (void)
+{
+  static const double limits[] = { 360, 240, 180, 480, 1000, 240.5, 1e16, 1e300 };
+  static const char *labels[] = { "span 1", "left overhang", "cantilever",
+                                  "span 12345678901234567890123" };
+  g_autoptr(GRand) rand = g_rand_new_with_seed (20261202);
+  TrbDesignInput input = { 0 };
+
+  for (guint i = 0; i < 40000; i++)
+    {
+      TrbDeflectionSpan span = { 0 };
+      double limit = limits[i % G_N_ELEMENTS (limits)];
+      double defl;
+      TrbCheck check, ref;
+      char actual[32], len_text[32];
+
+      input.units = i % 2 ? TRB_UNIT_SYSTEM_SI : TRB_UNIT_SYSTEM_US;
+      span.a = g_rand_double_range (rand, 0, 10);
+      span.b = span.a + g_rand_double_range (rand, 0.1, 20);
+      span.overhang = i % 3 == 0;
+      span.judged = (span.overhang ? 2 : 1) * (span.b - span.a);
+      g_strlcpy (span.label, labels[i % G_N_ELEMENTS (labels)], sizeof span.label);
+      defl = i % 97 == 0 ? 0 : span.judged * pow (10, g_rand_double_range (rand, -18, 3));
+      trb_design_deflection_check (&input, &span, limit, i % 2, defl, span.a, "D + L", &check);
+
+      /* the reference: the same check, its text printed as before */
+      trb_design_deflection_check (&input, &span, limit, i % 2, defl, span.a, "D + L", &ref);
+      if (ref.demand > 0)
+        g_snprintf (actual, sizeof actual, "L/%.0f", floor (span.judged / ref.demand));
+      else
+        g_strlcpy (actual, "no deflection", sizeof actual);
+      trb_design_format (len_text, sizeof len_text, span.b - span.a,
+                         input.units == TRB_UNIT_SYSTEM_SI ? "m" : "ft");
+      if (span.overhang)
+        g_snprintf (ref.detail, sizeof ref.detail, "%s, limit L/%.0f; %s, L = 2 × %s",
+                    actual, limit, span.label, len_text);
+      else
+        g_snprintf (ref.detail, sizeof ref.detail, "%s, limit L/%.0f; %s, L = %s",
+                    actual, limit, span.label, len_text);
+      g_assert_cmpstr (check.detail, ==, ref.detail);
+    }
+}
+
 int
 main (int   argc,
       char *argv[])
@@ -1124,6 +1171,7 @@ main (int   argc,
                    test_member_continuous_hogging);
   g_test_add_func ("/trb/design-steel/member/not-designed", test_not_designed);
   g_test_add_func ("/trb/design-steel/format-same", test_format_same);
+  g_test_add_func ("/trb/design-steel/deflection-text-same", test_deflection_text_same);
 
   return g_test_run ();
 }

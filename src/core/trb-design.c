@@ -274,6 +274,34 @@ trb_design_deflection_demand (const TrbBeamExtremes *ext,
   return ext->defl_up;
 }
 
+/* Appends what "%.0f" prints of v: a whole number below 1e15 digit by digit (exactly what
+ * printf gives it), anything else by printf. */
+static void
+append_whole (char   *buf,
+              gsize   size,
+              double  v)
+{
+  char num[352];
+
+  if (v >= 0 && v < 1e15 && v == floor (v) && !signbit (v))
+    {
+      guint64 n = (guint64) v;
+      char *p = num + sizeof num - 1;
+
+      *p = '\0';
+      do
+        {
+          *--p = (char) ('0' + n % 10);
+          n /= 10;
+        }
+      while (n > 0);
+      g_strlcat (buf, p, size);
+      return;
+    }
+  g_snprintf (num, sizeof num, "%.0f", v);
+  g_strlcat (buf, num, size);
+}
+
 /**
  * trb_design_deflection_check:
  * @input: the member (for the unit system of the text)
@@ -307,16 +335,22 @@ trb_design_deflection_check (const TrbDesignInput    *input,
   if (input->no_detail)
     return;
   if (check->demand > 0)
-    g_snprintf (actual, sizeof actual, "L/%.0f", floor (span->judged / check->demand));
+    {
+      g_strlcpy (actual, "L/", sizeof actual);
+      append_whole (actual, sizeof actual, floor (span->judged / check->demand));
+    }
   else
     g_strlcpy (actual, "no deflection", sizeof actual);
   trb_design_format (len_text, sizeof len_text, span->b - span->a, span_unit);
-  if (span->overhang)
-    g_snprintf (check->detail, sizeof check->detail, "%s, limit L/%.0f; %s, L = 2 × %s",
-                actual, limit, span->label, len_text);
-  else
-    g_snprintf (check->detail, sizeof check->detail, "%s, limit L/%.0f; %s, L = %s",
-                actual, limit, span->label, len_text);
+  /* "%s, limit L/%.0f; %s, L = %s" (2 × before the length of an overhang), joined without
+   * a printf: the same bytes, truncated alike */
+  g_strlcpy (check->detail, actual, sizeof check->detail);
+  g_strlcat (check->detail, ", limit L/", sizeof check->detail);
+  append_whole (check->detail, sizeof check->detail, limit);
+  g_strlcat (check->detail, "; ", sizeof check->detail);
+  g_strlcat (check->detail, span->label, sizeof check->detail);
+  g_strlcat (check->detail, span->overhang ? ", L = 2 × " : ", L = ", sizeof check->detail);
+  g_strlcat (check->detail, len_text, sizeof check->detail);
 }
 
 static void
