@@ -405,6 +405,7 @@ digest (const TrbProjectResult *pr)
           dig (d, &ml->lcase, sizeof ml->lcase);
           dig_load (d, &ml->load);
         }
+      trb_member_result_complete (r);
       dig_set (d, &r->strength);
       dig_set (d, &r->live);
       dig_set (d, &r->total);

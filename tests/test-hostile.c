@@ -140,6 +140,7 @@ check_member_result (const TrbMemberResult *r)
   const char *id = r->member->id;
   gboolean zero_capacity = FALSE;
 
+  trb_member_result_complete (r);
   g_assert_true (r->status <= TRB_STATUS_ERROR);
   if (r->status != TRB_STATUS_PASS)
     {

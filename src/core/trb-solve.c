@@ -111,6 +111,25 @@ struct _TrbMemberSizing
   double  repetitive_spacing;
 };
 
+/* A full analysis whose parts are proved finite leaves the strength entries' deflection
+ * extremes, which no check and no bound reads, to trb_member_result_complete(): the flexure
+ * segments the entries were cut into, to find them as evaluate_set() would have. Shared by
+ * identical members, whose entries are shared too (each completes its own envelope). */
+struct _TrbMemberPending
+{
+  double  *ab;
+  guint    n_ab;
+  gboolean entries_done;
+};
+
+static void
+pending_clear (gpointer data)
+{
+  struct _TrbMemberPending *p = data;
+
+  g_clear_pointer (&p->ab, g_free);
+}
+
 static void
 sizing_clear (gpointer data)
 {
@@ -149,7 +168,81 @@ trb_member_result_free (TrbMemberResult *result)
   g_free (result->plan_note);
   if (result->sizing != NULL)
     g_rc_box_release_full (result->sizing, sizing_clear);
+  if (result->pending != NULL)
+    g_rc_box_release_full (result->pending, pending_clear);
   g_free (result);
+}
+
+/**
+ * trb_member_result_complete:
+ * @result: a member's result
+ *
+ * Finds what the solve left to be found on first need: the deflection extremes of the
+ * strength combinations' entries and of their envelope, which no check reads. Whoever reads
+ * those (or prints every field of the entries) calls this first; the values are those the
+ * solve would have found, bit for bit. Safe from any thread, and cheap once done.
+ */
+void
+trb_member_result_complete (const TrbMemberResult *result)
+{
+  static GMutex lock;
+  TrbMemberResult *r = (TrbMemberResult *) result;
+  struct _TrbMemberPending *p;
+
+  g_return_if_fail (result != NULL);
+  if (g_atomic_pointer_get (&r->pending) == NULL)
+    return;
+  g_mutex_lock (&lock);
+  p = r->pending;
+  if (p != NULL)
+    {
+      GArray *entries = r->strength.entries;
+      TrbEnvelope *env = &r->strength.envelope;
+
+      if (!p->entries_done)
+        {
+          g_autofree TrbBeamExtremes *per = g_new (TrbBeamExtremes, MAX (p->n_ab, 1));
+
+          /* the call evaluate_set() makes, for the fields the lean one left out */
+          for (guint i = 0; i < entries->len; i++)
+            {
+              TrbComboResult *c = &g_array_index (entries, TrbComboResult, i);
+              TrbBeamExtremes e;
+
+              trb_beam_result_extremes_intervals (c->result, p->ab, p->n_ab, &e, per, NULL);
+              c->ext.defl_down = e.defl_down;
+              c->ext.defl_down_x = e.defl_down_x;
+              c->ext.defl_up = e.defl_up;
+              c->ext.defl_up_x = e.defl_up_x;
+            }
+          p->entries_done = TRUE;
+        }
+      /* the envelope's deflection as envelope_add() takes it (trb_extremes_merge(): each
+       * field on its own, the first to reach it governs) */
+      env->ext.defl_down = env->ext.defl_up = -INFINITY;
+      env->ext.defl_down_x = env->ext.defl_up_x = 0;
+      env->defl_down_by = env->defl_up_by = "";
+      for (guint i = 0; i < entries->len; i++)
+        {
+          const TrbComboResult *c = &g_array_index (entries, TrbComboResult, i);
+
+          if (c->ext.defl_down > env->ext.defl_down)
+            {
+              env->ext.defl_down = c->ext.defl_down;
+              env->ext.defl_down_x = c->ext.defl_down_x;
+              env->defl_down_by = c->name;
+            }
+          if (c->ext.defl_up > env->ext.defl_up)
+            {
+              env->ext.defl_up = c->ext.defl_up;
+              env->ext.defl_up_x = c->ext.defl_up_x;
+              env->defl_up_by = c->name;
+            }
+        }
+      g_atomic_pointer_set (&r->pending, NULL);
+      g_rc_box_release_full (p, pending_clear);
+    }
+  g_mutex_unlock (&lock);
 }
 
 /* A result for @member that reads the same analysis and design as @r (an identical member):
@@ -189,6 +282,8 @@ member_result_share (TrbMemberResult *r,
   c->plan_note = NULL;
   if (r->sizing != NULL)
     c->sizing = g_rc_box_acquire (r->sizing);
+  if (r->pending != NULL)
+    c->pending = g_rc_box_acquire (r->pending);
   return c;
 }
 
@@ -534,7 +629,8 @@ name_with_pattern (char       *dst,
  * and takes the envelope. With ab (n_ab intervals: the spans of the deflection checks), the
  * extremes over each interval go to span_ext, n_ab for each entry. With keep (sizing's lean
  * analysis), only the entries it marks, by their place among all; envelope FALSE: none;
- * moments_only: the extremes of V and M only (the deflection fields are not to be read).
+ * moments_only: the extremes of V and M only (the deflection fields are zero, not to be read
+ * until trb_member_result_complete() finds them).
  * Returns whether every entry's result is finite, as beam_result_finite() says (TRUE with
  * moments_only or without need_finite: the caller has proved it, parts_bounded()). */
 static gboolean
@@ -645,6 +741,9 @@ evaluate_set (TrbMemberResult     *r,
                                                  span_ext == NULL ? NULL
                                                  : &g_array_index (span_ext, TrbBeamExtremes,
                                                                    (e - 1 - first) * n_ab));
+              /* a finite stand-in until trb_member_result_complete() finds them */
+              cr->ext.defl_down = cr->ext.defl_up = 0;
+              cr->ext.defl_down_x = cr->ext.defl_up_x = 0;
               ok = TRUE;
             }
           else if (span_ext != NULL)
@@ -839,6 +938,7 @@ analyse (const TrbProject  *project,
   gboolean known = !isnan (E) && !isnan (I);
   gboolean sets_finite[3];
   gboolean bounded;
+  gboolean defer = FALSE;
 
   if (in->n_supports == 0)
     {
@@ -1086,9 +1186,21 @@ analyse (const TrbProject  *project,
       sx->live = g_array_new (FALSE, FALSE, sizeof (TrbBeamExtremes));
       sx->total = g_array_new (FALSE, FALSE, sizeof (TrbBeamExtremes));
       sx->strength = g_array_new (FALSE, FALSE, sizeof (TrbBeamExtremes));
+      /* the full analysis of parts proved finite leaves the strength entries' deflection
+       * extremes to trb_member_result_complete(): no check reads them */
+      defer = lean == NULL && bounded;
       sets_finite[0] = evaluate_set (r, &rr, &r->strength, seg_ab, sx->n_seg, sx->strength,
                                      lean != NULL ? lean->keep[0] : NULL, lean == NULL,
-                                     lean != NULL, !bounded);
+                                     lean != NULL || defer, !bounded);
+      if (defer && r->strength.entries->len > 0)
+        {
+          if (r->pending != NULL)
+            g_rc_box_release_full (r->pending, pending_clear);
+          r->pending = g_rc_box_new0 (struct _TrbMemberPending);
+          r->pending->n_ab = sx->n_seg;
+          r->pending->ab = sx->n_seg > 0 ? g_memdup2 (seg_ab, 2 * sx->n_seg * sizeof (double))
+                                         : NULL;
+        }
       sets_finite[1] = evaluate_set (r, &rr, &r->live, ab, sx->n_spans, sx->live,
                                      lean != NULL ? lean->keep[1] : NULL, lean == NULL, FALSE,
                                      !bounded);

@@ -168,6 +168,7 @@ typedef struct
   struct _TrbMemberKeep *keep;   /* private: owns beam and cases when they are shared */
   struct _TrbMemberSizing *sizing; /* private: what a catalog or "auto" member was sized on,
                                     * for trb_solve_member_shortlist() */
+  struct _TrbMemberPending *pending; /* private: what trb_member_result_complete() finds */
 } TrbMemberResult;
 
 /* The load on one column of a floor, from everything that rests on it. */
@@ -245,6 +246,7 @@ TrbMemberResult  *trb_solve_member_full     (const TrbProject       *project,
                                              const TrbMember        *member,
                                              guint                   shortlist_max);
 void              trb_member_result_free    (TrbMemberResult        *result);
+void              trb_member_result_complete (const TrbMemberResult *result);
 GArray           *trb_solve_member_shortlist (const TrbProject      *project,
                                               const TrbMemberResult *result,
                                               guint                  max);
