@@ -1899,6 +1899,43 @@ value_at (const TrbBeamResult *r,
   return what == 0 ? v.V : what == 1 ? v.M : v.defl;
 }
 
+/* Whether trb_beam_result_eval() gives the same at x from either side: x is inside the
+ * member and none of its breaks, so both sides read the same segment and no end zeroes V
+ * and M. */
+static gboolean
+one_sided (const TrbBeamResult *r,
+           double               x)
+{
+  guint n, lo = 0, hi;
+  const double *b = trb_beam_result_get_breaks (r, &n);
+
+  if (!(x > b[0] && x < b[n - 1]))
+    return FALSE;
+  hi = n - 1;
+  while (lo < hi)
+    {
+      guint mid = (lo + hi) / 2;
+
+      if (b[mid] < x)
+        lo = mid + 1;
+      else
+        hi = mid;
+    }
+  return b[lo] != x;
+}
+
+/* value_at() on the left and on the right of x, evaluated once where they are the same */
+static void
+values_both_sides (const TrbBeamResult *r,
+                   double               x,
+                   int                  what,
+                   double              *left,
+                   double              *right)
+{
+  *left = value_at (r, x, TRB_SIDE_LEFT, what);
+  *right = one_sided (r, x) ? *left : value_at (r, x, TRB_SIDE_RIGHT, what);
+}
+
 /* M at the quarter points of each segment, where the steel check takes it for Cb: the left
  * and right values, 6 a segment */
 static void
@@ -1913,10 +1950,7 @@ quarter_moments (const TrbBeamResult *result,
       const double x[3] = { a + 0.25 * Lb, a + 0.50 * Lb, a + 0.75 * Lb };
 
       for (guint j = 0; j < 3; j++)
-        {
-          out[6 * k + 2 * j] = value_at (result, x[j], TRB_SIDE_LEFT, 1);
-          out[6 * k + 2 * j + 1] = value_at (result, x[j], TRB_SIDE_RIGHT, 1);
-        }
+        values_both_sides (result, x[j], 1, &out[6 * k + 2 * j], &out[6 * k + 2 * j + 1]);
     }
 }
 
@@ -2066,15 +2100,14 @@ reference_init (Reference             *ref,
         {
           double v = e == 0 ? c->ext.V_max : c->ext.V_min;
           double x = e == 0 ? c->ext.V_max_x : c->ext.V_min_x;
-          gboolean on_l = value_at (c->result, x, TRB_SIDE_LEFT, 0) == v;
-          gboolean on_r = value_at (c->result, x, TRB_SIDE_RIGHT, 0) == v;
+          double vl, vr;
 
+          values_both_sides (c->result, x, 0, &vl, &vr);
           /* the unit load's V on either side of the extreme (it jumps at a support), and
            * on which side the extreme is: left 1, right 2, both 3, not told 0 */
           V[4 * e] = v;
-          V[4 * e + 1] = value_at (unit, x, TRB_SIDE_LEFT, 0);
-          V[4 * e + 2] = value_at (unit, x, TRB_SIDE_RIGHT, 0);
-          V[4 * e + 3] = (on_l ? 1 : 0) + (on_r ? 2 : 0);
+          values_both_sides (unit, x, 0, &V[4 * e + 1], &V[4 * e + 2]);
+          V[4 * e + 3] = (vl == v ? 1 : 0) + (vr == v ? 2 : 0);
         }
       M[0] = c->ext.M_max;
       M[1] = value_at (unit, c->ext.M_max_x, TRB_SIDE_RIGHT, 1);
