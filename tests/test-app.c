@@ -208,7 +208,7 @@ test_shortlist_assign (Fixture       *f,
   g_autofree char *chosen = NULL;
   TrbMember *member = NULL;
   const TrbMemberResult *r;
-  guint position;
+  guint position = 0;
 
   /* Make a member fail the way an engineer would: pick the lightest W shape for a girder
    * (W8X10 of the AISC Shapes Database v16.0, 10 lb/ft), far too light for its span. */

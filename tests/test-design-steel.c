@@ -1037,6 +1037,115 @@ test_not_designed (void)
   member_clear (&m);
 }
 
+/* The check text's numbers: trb_design_format() gives, byte for byte, what its earlier
+ * implementation gave (which printed "%s %s" and read its own digits back with
+ * g_ascii_strtod() to see a carry; copied here as the reference), over every magnitude, both
+ * signs and the values that round up a digit, into a buffer of any size. */
+static void
+old_format_3sf (char   *buf,
+                gsize   size,
+                double  v)
+{
+  int decimals;
+
+  if (!isfinite (v))
+    {
+      g_strlcpy (buf, isnan (v) ? "-" : "inf", size);
+      return;
+    }
+  if (v == 0)
+    {
+      g_strlcpy (buf, "0", size);
+      return;
+    }
+  decimals = 2 - (int) floor (log10 (fabs (v)));
+  if (decimals <= 0)
+    {
+      double step = pow (10, -decimals);
+
+      g_snprintf (buf, size, "%.0f", round (v / step) * step);
+      return;
+    }
+  g_snprintf (buf, size, "%.*f", decimals, v);
+  if (fabs (g_ascii_strtod (buf, NULL)) >= pow (10, 3 - decimals) && decimals > 0)
+    g_snprintf (buf, size, "%.*f", decimals - 1, v);
+}
+
+static void
+test_format_same (void)
+{
+  /* units whose factor is exact in either direction: m (1), kN·m (1000) */
+  static const struct { const char *name, *text; double factor; } units[] = {
+    { "m", "m", 1.0 }, { "kN-m", "kN·m", 1e3 },
+  };
+  static const double special[] = { 0.0, -0.0, NAN, INFINITY, -INFINITY, 1e-300, 1e300 };
+  g_autoptr(GRand) rand = g_rand_new_with_seed (20261202);
+
+  for (int e = -14; e <= 14; e++)
+    for (guint i = 0; i < 3000 + G_N_ELEMENTS (special); i++)
+      {
+        /* near a carry (9.995, 99.95, 0.0009995 ...) one time in two, at random else */
+        double m = i % 2 == 0 ? 9.99 + g_rand_double_range (rand, 0, 0.01)
+                              : g_rand_double_range (rand, 1, 10);
+        double v = i < 3000 ? (i % 3 == 0 ? -1 : 1) * m * pow (10, e) : special[i - 3000];
+        guint u = i % G_N_ELEMENTS (units);
+        gsize size = i % 5 == 0 ? 1 + i % 11 : 64;
+        char got[64], num[48], want[64];
+
+        trb_design_format (got, size, v, units[u].name);
+        old_format_3sf (num, sizeof num, v / units[u].factor);
+        g_snprintf (want, size, "%s %s", num, units[u].text);
+        g_assert_cmpstr (got, ==, want);
+      }
+}
+
+/* The deflection check's text: what its earlier implementation printed with
+ * "L/%.0f" and "%s, limit L/%.0f; %s, L = %s" (copied here as the reference), for spans and
+ * overhangs, limits whole or not, deflections from none to far beyond the span. */
+static void
+test_deflection_text_same (void)
+{
+  static const double limits[] = { 360, 240, 180, 480, 1000, 240.5, 1e16, 1e300 };
+  static const char *labels[] = { "span 1", "left overhang", "cantilever",
+                                  "span 12345678901234567890123" };
+  g_autoptr(GRand) rand = g_rand_new_with_seed (20261202);
+  TrbDesignInput input = { 0 };
+
+  for (guint i = 0; i < 40000; i++)
+    {
+      TrbDeflectionSpan span = { 0 };
+      double limit = limits[i % G_N_ELEMENTS (limits)];
+      double defl;
+      TrbCheck check, ref;
+      char actual[32], len_text[32];
+
+      input.units = i % 2 ? TRB_UNIT_SYSTEM_SI : TRB_UNIT_SYSTEM_US;
+      span.a = g_rand_double_range (rand, 0, 10);
+      span.b = span.a + g_rand_double_range (rand, 0.1, 20);
+      span.overhang = i % 3 == 0;
+      span.judged = (span.overhang ? 2 : 1) * (span.b - span.a);
+      g_strlcpy (span.label, labels[i % G_N_ELEMENTS (labels)], sizeof span.label);
+      defl = i % 97 == 0 ? 0 : span.judged * pow (10, g_rand_double_range (rand, -18, 3));
+      trb_design_deflection_check (&input, &span, limit, i % 2, defl, span.a, "D + L", &check);
+
+      /* the reference: the same check, its text printed as before */
+      trb_design_deflection_check (&input, &span, limit, i % 2, defl, span.a, "D + L", &ref);
+      if (ref.demand > 0)
+        g_snprintf (actual, sizeof actual, "L/%.0f", floor (span.judged / ref.demand));
+      else
+        g_strlcpy (actual, "no deflection", sizeof actual);
+      trb_design_format (len_text, sizeof len_text, span.b - span.a,
+                         input.units == TRB_UNIT_SYSTEM_SI ? "m" : "ft");
+      if (span.overhang)
+        g_snprintf (ref.detail, sizeof ref.detail, "%s, limit L/%.0f; %s, L = 2 × %s",
+                    actual, limit, span.label, len_text);
+      else
+        g_snprintf (ref.detail, sizeof ref.detail, "%s, limit L/%.0f; %s, L = %s",
+                    actual, limit, span.label, len_text);
+      g_assert_cmpstr (check.detail, ==, ref.detail);
+    }
+}
+
 int
 main (int   argc,
       char *argv[])
@@ -1061,6 +1170,8 @@ main (int   argc,
   g_test_add_func ("/trb/design-steel/member/continuous-hogging",
                    test_member_continuous_hogging);
   g_test_add_func ("/trb/design-steel/member/not-designed", test_not_designed);
+  g_test_add_func ("/trb/design-steel/format-same", test_format_same);
+  g_test_add_func ("/trb/design-steel/deflection-text-same", test_deflection_text_same);
 
   return g_test_run ();
 }

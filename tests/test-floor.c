@@ -405,6 +405,7 @@ digest (const TrbProjectResult *pr)
           dig (d, &ml->lcase, sizeof ml->lcase);
           dig_load (d, &ml->load);
         }
+      trb_member_result_complete (r);
       dig_set (d, &r->strength);
       dig_set (d, &r->live);
       dig_set (d, &r->total);
@@ -449,6 +450,8 @@ solve_digest (const TrbProject *p,
   trb_solve_options_init (&options);
   options.cache = cache;
   options.bounds = bounds;
+  /* the default solve makes no shortlist: ask for one so the digest covers it */
+  options.shortlist_max = TRB_SHORTLIST_DEFAULT;
   pr = trb_solve_project_full (p, &options);
   return digest (pr);
 }

@@ -140,6 +140,7 @@ check_member_result (const TrbMemberResult *r)
   const char *id = r->member->id;
   gboolean zero_capacity = FALSE;
 
+  trb_member_result_complete (r);
   g_assert_true (r->status <= TRB_STATUS_ERROR);
   if (r->status != TRB_STATUS_PASS)
     {
@@ -257,7 +258,13 @@ check_floor_result (const TrbFloorResult *fr)
 static void
 solve_and_check (const TrbProject *project)
 {
-  g_autoptr(TrbProjectResult) pr = trb_solve_project (project);
+  TrbSolveOptions options;
+  g_autoptr(TrbProjectResult) pr = NULL;
+
+  /* the default solve makes no shortlist: ask for one so its numbers are checked too */
+  trb_solve_options_init (&options);
+  options.shortlist_max = TRB_SHORTLIST_DEFAULT;
+  pr = trb_solve_project_full (project, &options);
 
   g_assert_cmpuint (pr->members->len, ==, project->members->len);
   for (guint i = 0; i < pr->members->len; i++)

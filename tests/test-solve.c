@@ -12,6 +12,8 @@
 #include "trb-solve.h"
 #include "trb-units.h"
 
+#include "bench/floor-gen.h"
+
 static TrbProject *
 load (const char *xml)
 {
@@ -161,9 +163,15 @@ test_project_sections (void)
     "<support at=\"0 ft\" type=\"pin\"/><support at=\"20 ft\" type=\"roller\"/>"
     "<load case=\"D\" type=\"uniform\" from=\"0 ft\" to=\"20 ft\" w=\"0.2 kip/ft\"/>"
     "</beam></trabeate-project>");
-  g_autoptr(TrbProjectResult) pr = trb_solve_project (project);
-  const TrbMemberResult *b1 = g_ptr_array_index (pr->members, 0);
-  const TrbMemberResult *b2 = g_ptr_array_index (pr->members, 1);
+  TrbSolveOptions options;
+  g_autoptr(TrbProjectResult) pr = NULL;
+  const TrbMemberResult *b1, *b2;
+
+  trb_solve_options_init (&options);
+  options.shortlist_max = TRB_SHORTLIST_DEFAULT;
+  pr = trb_solve_project_full (project, &options);
+  b1 = g_ptr_array_index (pr->members, 0);
+  b2 = g_ptr_array_index (pr->members, 1);
 
   g_assert_nonnull (project->sections);
   g_assert_cmpint (b1->status, ==, TRB_STATUS_PASS);
@@ -288,6 +296,8 @@ sizing_digest (const TrbProject *project,
     {
       const TrbMemberResult *r = g_ptr_array_index (pr->members, i);
       const TrbComboSetResult *sets[] = { &r->strength, &r->live, &r->total };
+
+      trb_member_result_complete (r);
 
       g_byte_array_append (d, (const guint8 *) &r->status, sizeof r->status);
       g_byte_array_append (d, (const guint8 *) r->section, strlen (r->section) + 1);
@@ -418,17 +428,357 @@ test_auto_shortcuts (void)
                    g_bytes_get_data (without, NULL), g_bytes_get_size (without));
 }
 
+/* Steel members of dead and floor live load alone, where sizing first guesses the section it
+ * will choose and analyses that one first (trb-solve.c, "a guess at the section chosen"): the
+ * same results, bit for bit, as sizing without any shortcut, whether the guess is right, too
+ * light or too heavy; bracing at the supports and continuous, braces, overhangs, LRFD and ASD.
+ * Made-up members, not designs. */
+static void
+test_auto_guess (void)
+{
+  g_autoptr(GRand) rand = g_rand_new_with_seed (20261203);
+  g_autoptr(GString) xml = g_string_new ("<trabeate-project format=\"1\">");
+  g_autoptr(TrbProject) project = NULL;
+  g_autoptr(GBytes) with = NULL;
+  g_autoptr(GBytes) without = NULL;
+
+  for (guint i = 0; i < 40; i++)
+    {
+      int n_spans = g_rand_int_range (rand, 1, 4);
+      double left = g_rand_int_range (rand, 0, 4) == 0 ? g_rand_double_range (rand, 2, 6) : 0;
+      double x = left, length = left;
+      double spans[3];
+
+      for (int k = 0; k < n_spans; k++)
+        length += spans[k] = g_rand_double_range (rand, 10, 30);
+      g_string_append_printf (xml, "<beam id=\"G%u\" length=\"%.4f ft\" material=\"steel\" "
+                              "section=\"auto\" method=\"%s\"%s>", i, length,
+                              g_rand_boolean (rand) ? "asd" : "lrfd",
+                              g_rand_int_range (rand, 0, 3) == 0 ? " bracing=\"supports\"" : "");
+      g_string_append_printf (xml, "<support at=\"%.4f ft\" type=\"pin\"/>", x);
+      for (int k = 0; k < n_spans; k++)
+        {
+          x += spans[k];
+          g_string_append_printf (xml, "<support at=\"%.4f ft\" type=\"roller\"/>", x);
+        }
+      if (g_rand_int_range (rand, 0, 3) == 0)
+        g_string_append_printf (xml, "<brace at=\"%.4f ft\"/>",
+                                g_rand_double_range (rand, 0, length));
+      g_string_append_printf (xml, "<load case=\"D\" type=\"uniform\" from=\"0 ft\" "
+                              "to=\"%.4f ft\" w=\"%.3f kip/ft\"/>", length,
+                              g_rand_double_range (rand, 0.2, 0.8));
+      g_string_append_printf (xml, "<load case=\"L\" type=\"uniform\" from=\"0 ft\" "
+                              "to=\"%.4f ft\" w=\"%.3f kip/ft\"/>", length,
+                              g_rand_double_range (rand, 0.3, 1.2));
+      for (int k = 0; k < 4; k++)
+        g_string_append_printf (xml, "<load case=\"%s\" type=\"point\" at=\"%.4f ft\" "
+                                "p=\"%.3f kip\"/>", k % 2 ? "L" : "D",
+                                g_rand_double_range (rand, 0, length),
+                                g_rand_double_range (rand, 1, 8));
+      g_string_append (xml, "</beam>");
+    }
+  g_string_append (xml, "</trabeate-project>");
+  project = load (xml->str);
+  with = sizing_digest (project, TRUE);
+  without = sizing_digest (project, FALSE);
+  g_assert_cmpmem (g_bytes_get_data (with, NULL), g_bytes_get_size (with),
+                   g_bytes_get_data (without, NULL), g_bytes_get_size (without));
+}
+
+/* ---- the shortlist on demand -------------------------------------------------------------
+ *
+ * The default solve makes no shortlist; trb_solve_member_shortlist() makes one member's from
+ * that solve's result. The check values are the shortlists a solve asked for them made (the
+ * path every solve took before), for lists of 1, 10 and every passing section: the entries
+ * on demand must be the same, bit for bit, and the default solve's results the same but for
+ * the shortlist. The members: the random ones above (standalone: catalog and "auto", steel
+ * and timber), the examples (a floor among them) and a generated floor (tests/bench/
+ * floor-gen.h: timber joists at their real spacing, steel girders under what comes down). */
+
+static void
+digest_shortlist (GByteArray   *d,
+                  const GArray *list)
+{
+  guint n = list->len;
+
+  g_byte_array_append (d, (const guint8 *) &n, sizeof n);
+  for (guint k = 0; k < list->len; k++)
+    {
+      const TrbShortlistEntry *e = &g_array_index (list, TrbShortlistEntry, k);
+
+      g_byte_array_append (d, (const guint8 *) e->section, strlen (e->section) + 1);
+      g_byte_array_append (d, (const guint8 *) &e->weight, sizeof e->weight);
+      g_byte_array_append (d, (const guint8 *) &e->ratio, sizeof e->ratio);
+      g_byte_array_append (d, (const guint8 *) e->governing, strlen (e->governing) + 1);
+    }
+}
+
+/* every result's own numbers and texts, but its shortlist */
+static void
+digest_result (GByteArray            *d,
+               const TrbMemberResult *r)
+{
+  const TrbComboSetResult *sets[] = { &r->strength, &r->live, &r->total };
+
+  trb_member_result_complete (r);
+
+  g_byte_array_append (d, (const guint8 *) &r->status, sizeof r->status);
+  g_byte_array_append (d, (const guint8 *) r->section, strlen (r->section) + 1);
+  g_byte_array_append (d, (const guint8 *) &r->ratio, sizeof r->ratio);
+  g_byte_array_append (d, (const guint8 *) r->governing, strlen (r->governing) + 1);
+  g_byte_array_append (d, (const guint8 *) &r->self_weight, sizeof r->self_weight);
+  if (r->message != NULL)
+    g_byte_array_append (d, (const guint8 *) r->message, strlen (r->message) + 1);
+  for (guint k = 0; k < r->checks->len; k++)
+    digest_check (d, &g_array_index (r->checks, TrbCheck, k));
+  for (guint s = 0; s < G_N_ELEMENTS (sets); s++)
+    for (guint k = 0; sets[s]->entries != NULL && k < sets[s]->entries->len; k++)
+      {
+        const TrbComboResult *c = &g_array_index (sets[s]->entries, TrbComboResult, k);
+
+        g_byte_array_append (d, (const guint8 *) c->name, strlen (c->name) + 1);
+        g_byte_array_append (d, (const guint8 *) &c->ext, sizeof c->ext);
+      }
+}
+
+static void
+assert_same_bytes (GByteArray *a,
+                   GByteArray *b)
+{
+  g_assert_cmpmem (a->data, a->len, b->data, b->len);
+}
+
+static guint
+check_shortlist_on_demand (const TrbProject *project)
+{
+  static const guint maxes[] = { 1, TRB_SHORTLIST_DEFAULT, G_MAXUINT };
+  TrbSolveOptions options;
+  g_autoptr(TrbProjectResult) plain = NULL;
+  guint listed = 0;
+
+  trb_solve_options_init (&options);
+  g_assert_cmpuint (options.shortlist_max, ==, 0);
+  plain = trb_solve_project_full (project, &options);
+  for (guint i = 0; i < plain->members->len; i++)
+    g_assert_cmpuint (((TrbMemberResult *) g_ptr_array_index (plain->members, i))->shortlist->len,
+                      ==, 0);
+
+  for (guint k = 0; k < G_N_ELEMENTS (maxes); k++)
+    {
+      g_autoptr(TrbProjectResult) listing = NULL;
+      g_autoptr(GByteArray) old_lists = g_byte_array_new ();
+      g_autoptr(GByteArray) new_lists = g_byte_array_new ();
+      g_autoptr(GByteArray) old_results = g_byte_array_new ();
+      g_autoptr(GByteArray) new_results = g_byte_array_new ();
+
+      options.shortlist_max = maxes[k];
+      listing = trb_solve_project_full (project, &options);
+      g_assert_cmpuint (listing->members->len, ==, plain->members->len);
+      for (guint i = 0; i < plain->members->len; i++)
+        {
+          const TrbMemberResult *a = g_ptr_array_index (listing->members, i);
+          const TrbMemberResult *b = g_ptr_array_index (plain->members, i);
+          g_autoptr(GArray) list = trb_solve_member_shortlist (project, b, maxes[k]);
+
+          g_assert_true (a->member == b->member);
+          digest_shortlist (old_lists, a->shortlist);
+          digest_shortlist (new_lists, list);
+          digest_result (old_results, a);
+          digest_result (new_results, b);
+          listed += list->len;
+        }
+      assert_same_bytes (old_lists, new_lists);
+      assert_same_bytes (old_results, new_results);
+    }
+  return listed;
+}
+
+static void
+test_shortlist_on_demand_random (void)
+{
+  g_autoptr(GRand) rand = g_rand_new_with_seed (20261202);
+  g_autoptr(GString) xml = g_string_new ("<trabeate-project format=\"1\">");
+  g_autoptr(TrbProject) project = NULL;
+
+  for (guint i = 0; i < 40; i++)
+    append_random_member (xml, rand, i);
+  g_string_append (xml, "</trabeate-project>");
+  project = load (xml->str);
+  g_assert_cmpuint (check_shortlist_on_demand (project), >, 0);
+}
+
+static void
+test_shortlist_on_demand_examples (void)
+{
+  static const char *const names[] = {
+    "demo-beams.trabeate", "demo-floor.trabeate", "overhang-beam.trabeate",
+  };
+
+  for (guint i = 0; i < G_N_ELEMENTS (names); i++)
+    {
+      g_autofree char *path = g_test_build_filename (G_TEST_DIST, "..", "data", "examples",
+                                                     names[i], NULL);
+      g_autoptr(GError) error = NULL;
+      g_autoptr(TrbProject) project = trb_project_load_file (path, &error);
+
+      g_assert_no_error (error);
+      g_assert_cmpuint (check_shortlist_on_demand (project), >, 0);
+    }
+}
+
+static void
+test_shortlist_on_demand_floor (void)
+{
+  guint n;
+  g_autofree char *xml = floor_gen_xml (250, &n);
+  g_autoptr(GError) error = NULL;
+  g_autoptr(TrbProject) project = trb_project_load_data (xml, strlen (xml),
+                                                         "generated.trabeate", &error);
+
+  g_assert_no_error (error);
+  g_assert_cmpuint (check_shortlist_on_demand (project), >, 0);
+}
+
+/* The strength entries' deflection extremes, found only when read
+ * (trb_member_result_complete()): from two threads at once on results shared by identical
+ * members they are the same bytes as completed one by one, each is the entry's own extreme
+ * over the member (trb_beam_result_extremes(), found another way), and the envelope takes
+ * the first entry that reaches it, as trb_extremes_merge() does. That they are what the
+ * former eager solve printed is shown by the CLI's output against the former build
+ * (docs/performance.md, Sizing). */
+static gpointer
+complete_all (gpointer data)
+{
+  const TrbProjectResult *pr = data;
+
+  for (guint i = 0; i < pr->members->len; i++)
+    trb_member_result_complete (g_ptr_array_index (pr->members, pr->members->len - 1 - i));
+  return NULL;
+}
+
+static GBytes *
+strength_digest (const TrbProjectResult *pr)
+{
+  GByteArray *d = g_byte_array_new ();
+
+  for (guint i = 0; i < pr->members->len; i++)
+    {
+      const TrbMemberResult *r = g_ptr_array_index (pr->members, i);
+      const TrbEnvelope *env = &r->strength.envelope;
+
+      for (guint k = 0; r->strength.entries != NULL && k < r->strength.entries->len; k++)
+        {
+          const TrbComboResult *c = &g_array_index (r->strength.entries, TrbComboResult, k);
+
+          g_byte_array_append (d, (const guint8 *) &c->ext, sizeof c->ext);
+        }
+      g_byte_array_append (d, (const guint8 *) &env->ext, sizeof env->ext);
+      g_byte_array_append (d, (const guint8 *) env->defl_down_by, strlen (env->defl_down_by));
+      g_byte_array_append (d, (const guint8 *) env->defl_up_by, strlen (env->defl_up_by));
+    }
+  return g_byte_array_free_to_bytes (d);
+}
+
+static void
+test_complete (void)
+{
+  g_autoptr(GRand) rand = g_rand_new_with_seed (1202);
+  g_autoptr(GString) xml = g_string_new ("<trabeate-project format=\"1\">");
+  g_autoptr(TrbProject) beams = NULL;
+  g_autofree char *floor_xml = NULL;
+  g_autoptr(GError) error = NULL;
+  g_autoptr(TrbProject) floor = NULL;
+  TrbProject *projects[2];
+  guint n, n_pending = 0;
+
+  for (guint i = 0; i < 40; i++)
+    append_random_member (xml, rand, i);
+  g_string_append (xml, "</trabeate-project>");
+  beams = load (xml->str);
+  floor_xml = floor_gen_xml (120, &n);
+  floor = trb_project_load_data (floor_xml, strlen (floor_xml), "generated.trabeate", &error);
+  g_assert_no_error (error);
+  projects[0] = beams;
+  projects[1] = floor;
+
+  for (guint p = 0; p < G_N_ELEMENTS (projects); p++)
+    {
+      g_autoptr(TrbProjectResult) a = trb_solve_project (projects[p]);
+      g_autoptr(TrbProjectResult) b = trb_solve_project (projects[p]);
+      g_autoptr(GBytes) da = NULL;
+      g_autoptr(GBytes) db = NULL;
+      GThread *t[2];
+
+      for (guint i = 0; i < a->members->len; i++)
+        n_pending += ((const TrbMemberResult *) g_ptr_array_index (a->members, i))->pending != NULL;
+      t[0] = g_thread_new ("complete", complete_all, a);
+      t[1] = g_thread_new ("complete", complete_all, a);
+      g_thread_join (t[0]);
+      g_thread_join (t[1]);
+      for (guint i = 0; i < b->members->len; i++)
+        trb_member_result_complete (g_ptr_array_index (b->members, i));
+      da = strength_digest (a);
+      db = strength_digest (b);
+      g_assert_true (g_bytes_equal (da, db));
+
+      for (guint i = 0; i < a->members->len; i++)
+        {
+          const TrbMemberResult *r = g_ptr_array_index (a->members, i);
+          const TrbEnvelope *env = &r->strength.envelope;
+          double down = -INFINITY, up = -INFINITY;
+          const char *down_by = "", *up_by = "";
+
+          g_assert_null (r->pending);
+          if (!r->analysed)
+            continue;
+          for (guint k = 0; k < r->strength.entries->len; k++)
+            {
+              const TrbComboResult *c = &g_array_index (r->strength.entries, TrbComboResult, k);
+              TrbBeamExtremes e;
+              double scale;
+
+              trb_beam_result_extremes (c->result, 0, r->member->length, &e);
+              scale = MAX (fabs (e.defl_down), fabs (e.defl_up));
+              g_assert_cmpfloat_with_epsilon (c->ext.defl_down, e.defl_down, 1e-9 * scale + 1e-300);
+              g_assert_cmpfloat_with_epsilon (c->ext.defl_up, e.defl_up, 1e-9 * scale + 1e-300);
+              if (c->ext.defl_down > down)
+                {
+                  down = c->ext.defl_down;
+                  down_by = c->name;
+                }
+              if (c->ext.defl_up > up)
+                {
+                  up = c->ext.defl_up;
+                  up_by = c->name;
+                }
+            }
+          g_assert_cmpfloat (env->ext.defl_down, ==, down);
+          g_assert_cmpfloat (env->ext.defl_up, ==, up);
+          g_assert_cmpstr (env->defl_down_by, ==, down_by);
+          g_assert_cmpstr (env->defl_up_by, ==, up_by);
+        }
+    }
+  /* the deferred path was taken */
+  g_assert_cmpuint (n_pending, >, 0);
+}
+
 int
 main (int argc, char **argv)
 {
   g_test_init (&argc, &argv, NULL);
   g_test_add_func ("/trb/solve/auto/shortcuts", test_auto_shortcuts);
   g_test_add_func ("/trb/solve/auto/brute-force", test_auto_brute_force);
+  g_test_add_func ("/trb/solve/auto/guess", test_auto_guess);
   g_test_add_func ("/trb/solve/auto/design-example-f1-1a", test_design_example_f11a);
   g_test_add_func ("/trb/solve/auto/project-sections", test_project_sections);
   g_test_add_func ("/trb/solve/sections-file-outside", test_sections_file_outside);
   g_test_add_func ("/trb/solve/auto/nothing-passes", test_nothing_passes);
   g_test_add_func ("/trb/solve/auto/unstable", test_auto_unstable);
   g_test_add_func ("/trb/solve/auto/self-weight", test_self_weight_of_chosen);
+  g_test_add_func ("/trb/solve/shortlist/on-demand/random", test_shortlist_on_demand_random);
+  g_test_add_func ("/trb/solve/shortlist/on-demand/examples",
+                   test_shortlist_on_demand_examples);
+  g_test_add_func ("/trb/solve/shortlist/on-demand/floor", test_shortlist_on_demand_floor);
+  g_test_add_func ("/trb/solve/complete", test_complete);
   return g_test_run ();
 }

@@ -42,10 +42,14 @@ print_job_new (TrbDocument  *document,
                GError      **error)
 {
   g_autoptr(PrintJob) job = g_new0 (PrintJob, 1);
+  TrbSolveOptions solve_options;
 
   job->project = trb_edit_project_copy (trb_document_get_project (document));
-  /* the same pipeline as `trabeate-cli report`, so the pages are the same */
-  job->results = trb_solve_project (job->project);
+  /* the same pipeline as `trabeate-cli report`, so the pages are the same: the member
+   * sheets show the shortlist */
+  trb_solve_options_init (&solve_options);
+  solve_options.shortlist_max = TRB_SHORTLIST_DEFAULT;
+  job->results = trb_solve_project_full (job->project, &solve_options);
   trb_report_options_init (&job->options, job->project);
   /* a project never saved has no name of its own; the window's title stands in */
   if (job->project->name == NULL)

@@ -52,6 +52,7 @@ static void
 update (TrbShortlistPanel *self)
 {
   const TrbMemberResult *r = NULL;
+  g_autoptr(GArray) shortlist = NULL;
   TrbUnitSystem units;
   GtkWidget *child;
 
@@ -70,7 +71,11 @@ update (TrbShortlistPanel *self)
       gtk_stack_set_visible_child_name (self->stack, "empty");
       return;
     }
-  if (r->shortlist == NULL || (r->shortlist->len == 0 && trb_member_is_auto (self->member)))
+  /* the solve makes no shortlist: it is sized again here for the member shown, from what
+   * the solve analysed it with (a few milliseconds) */
+  shortlist = trb_solve_member_shortlist (trb_document_get_project (self->document), r,
+                                          TRB_SHORTLIST_DEFAULT);
+  if (shortlist->len == 0 && trb_member_is_auto (self->member))
     {
       adw_status_page_set_title (self->empty_page, _("No Section Passes"));
       adw_status_page_set_description (self->empty_page,
@@ -99,9 +104,9 @@ update (TrbShortlistPanel *self)
                                      FALSE));
       g_ptr_array_add (self->choices, g_strdup ("auto"));
     }
-  for (guint i = 0; i < r->shortlist->len; i++)
+  for (guint i = 0; i < shortlist->len; i++)
     {
-      const TrbShortlistEntry *e = &g_array_index (r->shortlist, TrbShortlistEntry, i);
+      const TrbShortlistEntry *e = &g_array_index (shortlist, TrbShortlistEntry, i);
       g_autofree char *weight = trb_units_format (e->weight, TRB_DIM_WEIGHT_PER_LENGTH, units);
       g_autofree char *subtitle = g_strdup_printf (_("%s · ratio %.2f · %s governs"), weight,
                                                    e->ratio, e->governing);

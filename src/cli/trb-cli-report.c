@@ -128,6 +128,7 @@ trb_cli_report (int    argc,
   g_autoptr(TrbProjectResult) old_results = NULL;
   g_autoptr(TrbReport) report = NULL;
   TrbReportOptions options;
+  TrbSolveOptions solve_options;
 
   if (wants_help (argc, argv))
     {
@@ -187,7 +188,10 @@ trb_cli_report (int    argc,
       options.previous_name = old->name;
     }
 
-  results = trb_solve_project (project);
+  /* the member sheets show the shortlist */
+  trb_solve_options_init (&solve_options);
+  solve_options.shortlist_max = TRB_SHORTLIST_DEFAULT;
+  results = trb_solve_project_full (project, &solve_options);
   report = trb_report_new (project, results, &options, &error);
   if (report == NULL || !trb_report_write (report, output, dpi, &error))
     {

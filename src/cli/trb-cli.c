@@ -553,6 +553,8 @@ json_member (GString               *out,
   const TrbMember *m = r->member;
   gboolean first = TRUE;
 
+  /* every entry's extremes are printed */
+  trb_member_result_complete (r);
   g_string_append_c (out, '{');
   json_key_string (out, &first, "id", m->id);
   json_key_string (out, &first, "status", trb_status_name (r->status));
@@ -1349,8 +1351,10 @@ table_member (GString               *out,
   const TrbMember *m = r->member;
   TrbUnitSystem u = r->units;
   g_autofree char *len = fmt (m->length, TRB_DIM_LENGTH, u);
-
   g_autofree char *section = NULL;
+
+  /* the envelopes' extremes are printed */
+  trb_member_result_complete (r);
 
   /* A sized member shows what was chosen; a checked one shows what the engineer named. */
   if (trb_member_is_auto (m) && r->section[0] != '\0' && g_strcmp0 (r->section, "auto") != 0)
@@ -2021,6 +2025,9 @@ cmd_run (int       argc,
     }
 
   trb_solve_options_init (&options);
+  /* the check's table and JSON show each member's shortlist; the schedule does not */
+  if (!schedule)
+    options.shortlist_max = TRB_SHORTLIST_DEFAULT;
   if (no_shortcuts)
     options.cache = options.bounds = FALSE;
   pr = trb_solve_project_full (project, &options);

@@ -595,6 +595,45 @@ consider_flexure (FlexureCandidate      *best,
   best->combination = combination;
 }
 
+/* Cb (F1-1) of the segment from a, Lb long, whose largest moment is m_abs */
+static double
+segment_cb (const TrbBeamResult *result,
+            double               a,
+            double               Lb,
+            double               m_abs)
+{
+  return trb_design_steel_cb (m_abs,
+                              abs_moment_at (result, a + 0.25 * Lb),
+                              abs_moment_at (result, a + 0.50 * Lb),
+                              abs_moment_at (result, a + 0.75 * Lb));
+}
+
+/* Whether a demand over a segment of length Lb certainly cannot become the governing flexure
+ * check: its ratio at Cb = 1 is below the best one's by more than rounding. Cb is at least 1
+ * (trb_design_steel_cb(), to a few ulps) and Mn grows with Cb, so no Cb gives a larger ratio;
+ * consider_flexure() keeps the best on a tie, so the check is the same without the quarter
+ * point moments of such a segment (six evaluations of the beam). */
+static gboolean
+cannot_govern (const FlexureCandidate *best,
+               double                  demand,
+               const TrbSection       *section,
+               const TrbSteelGrade    *grade,
+               double                  Lb,
+               TrbDesignBasis          basis)
+{
+  TrbSteelFlexure flex;
+  double capacity;
+
+  if (!best->have || !(best->ratio > 0) || !isfinite (best->ratio))
+    return FALSE;
+  trb_design_steel_flexure (section, grade, Lb, 1.0, &flex);
+  capacity = basis == TRB_DESIGN_BASIS_LRFD ? TRB_STEEL_PHI_B * flex.Mn
+                                            : flex.Mn / TRB_STEEL_OMEGA_B;
+  if (!(capacity > 0) || !isfinite (capacity))
+    return FALSE;
+  return demand / capacity * (1 + 1e-9) < best->ratio;
+}
+
 static void
 check_flexure (const TrbDesignInput *input,
                const TrbSteelGrade  *grade,
@@ -652,16 +691,11 @@ check_flexure (const TrbDesignInput *input,
             m_neg = 0;
           x_abs = m_pos >= m_neg ? ext.M_max_x : ext.M_min_x;
 
-          if (free_end)
-            Cb = 1.0;
-          else
-            Cb = trb_design_steel_cb (m_abs,
-                                      abs_moment_at (combo->result, a + 0.25 * Lb),
-                                      abs_moment_at (combo->result, a + 0.50 * Lb),
-                                      abs_moment_at (combo->result, a + 0.75 * Lb));
-
           if (input->bracing == TRB_BRACING_POINTS)
             {
+              if (cannot_govern (&best, m_abs, section, grade, Lb, basis))
+                continue;
+              Cb = free_end ? 1.0 : segment_cb (combo->result, a, Lb, m_abs);
               trb_design_steel_flexure (section, grade, Lb, Cb, &flex);
               consider_flexure (&best, m_abs, x_abs, &flex, FALSE, basis, combo->name);
             }
@@ -673,8 +707,9 @@ check_flexure (const TrbDesignInput *input,
                * it meets the full segment length, with Cb of the segment's own diagram. */
               consider_flexure (&best, m_pos, ext.M_max_x, &braced_flex, TRUE, basis,
                                 combo->name);
-              if (m_neg > 0)
+              if (m_neg > 0 && !cannot_govern (&best, m_neg, section, grade, Lb, basis))
                 {
+                  Cb = free_end ? 1.0 : segment_cb (combo->result, a, Lb, m_abs);
                   trb_design_steel_flexure (section, grade, Lb, Cb, &flex);
                   consider_flexure (&best, m_neg, ext.M_min_x, &flex, FALSE, basis,
                                     combo->name);

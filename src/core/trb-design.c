@@ -94,6 +94,38 @@ static const DetailUnit detail_units[] = {
   { "MPa", "MPa", 1e6 },
 };
 
+/* Whether the number printed in @buf ("-12.30", "0.00100") is at least 10^@k in magnitude,
+ * read from its digits: what parsing it and comparing with pow (10, k) gives (the two differ
+ * by far more than a rounding), without the parse. */
+static gboolean
+reaches_power (const char *buf,
+               int         k)
+{
+  const char *p = buf;
+  const char *dot;
+  int n_int = 0;
+
+  if (*p == '-')
+    p++;
+  while (*p == '0')
+    p++;
+  dot = p;
+  while (g_ascii_isdigit (*dot))
+    dot++;
+  n_int = (int) (dot - p);
+  if (k >= 0)
+    return n_int > k;
+  if (n_int > 0)
+    return TRUE;
+  /* 10^k with k < 0: some digit among the first -k decimals is not zero */
+  if (*dot != '.')
+    return FALSE;
+  for (int i = 1; i <= -k && g_ascii_isdigit (dot[i]); i++)
+    if (dot[i] != '0')
+      return TRUE;
+  return FALSE;
+}
+
 /* Three significant figures, as the trade's tables print them: 5.83, 16.9, 379, 1060. */
 static void
 format_3sf (char   *buf,
@@ -122,7 +154,7 @@ format_3sf (char   *buf,
     }
   g_snprintf (buf, size, "%.*f", decimals, v);
   /* rounding may carry into another digit (9.996 -> "10.00"): print again with one less */
-  if (fabs (g_ascii_strtod (buf, NULL)) >= pow (10, 3 - decimals) && decimals > 0)
+  if (reaches_power (buf, 3 - decimals))
     g_snprintf (buf, size, "%.*f", decimals - 1, v);
 }
 
@@ -142,7 +174,10 @@ trb_design_format (char       *buf,
       if (g_strcmp0 (detail_units[i].name, unit) != 0)
         continue;
       format_3sf (num, sizeof num, value / detail_units[i].factor);
-      g_snprintf (buf, size, "%s %s", num, detail_units[i].text);
+      /* what "%s %s" prints, truncation and all, without the printf */
+      g_strlcpy (buf, num, size);
+      g_strlcat (buf, " ", size);
+      g_strlcat (buf, detail_units[i].text, size);
       return buf;
     }
 
@@ -239,6 +274,34 @@ trb_design_deflection_demand (const TrbBeamExtremes *ext,
   return ext->defl_up;
 }
 
+/* Appends what "%.0f" prints of v: a whole number below 1e15 digit by digit (exactly what
+ * printf gives it), anything else by printf. */
+static void
+append_whole (char   *buf,
+              gsize   size,
+              double  v)
+{
+  char num[352];
+
+  if (v >= 0 && v < 1e15 && v == floor (v) && !signbit (v))
+    {
+      guint64 n = (guint64) v;
+      char *p = num + sizeof num - 1;
+
+      *p = '\0';
+      do
+        {
+          *--p = (char) ('0' + n % 10);
+          n /= 10;
+        }
+      while (n > 0);
+      g_strlcat (buf, p, size);
+      return;
+    }
+  g_snprintf (num, sizeof num, "%.0f", v);
+  g_strlcat (buf, num, size);
+}
+
 /**
  * trb_design_deflection_check:
  * @input: the member (for the unit system of the text)
@@ -272,16 +335,22 @@ trb_design_deflection_check (const TrbDesignInput    *input,
   if (input->no_detail)
     return;
   if (check->demand > 0)
-    g_snprintf (actual, sizeof actual, "L/%.0f", floor (span->judged / check->demand));
+    {
+      g_strlcpy (actual, "L/", sizeof actual);
+      append_whole (actual, sizeof actual, floor (span->judged / check->demand));
+    }
   else
     g_strlcpy (actual, "no deflection", sizeof actual);
   trb_design_format (len_text, sizeof len_text, span->b - span->a, span_unit);
-  if (span->overhang)
-    g_snprintf (check->detail, sizeof check->detail, "%s, limit L/%.0f; %s, L = 2 × %s",
-                actual, limit, span->label, len_text);
-  else
-    g_snprintf (check->detail, sizeof check->detail, "%s, limit L/%.0f; %s, L = %s",
-                actual, limit, span->label, len_text);
+  /* "%s, limit L/%.0f; %s, L = %s" (2 × before the length of an overhang), joined without
+   * a printf: the same bytes, truncated alike */
+  g_strlcpy (check->detail, actual, sizeof check->detail);
+  g_strlcat (check->detail, ", limit L/", sizeof check->detail);
+  append_whole (check->detail, sizeof check->detail, limit);
+  g_strlcat (check->detail, "; ", sizeof check->detail);
+  g_strlcat (check->detail, span->label, sizeof check->detail);
+  g_strlcat (check->detail, span->overhang ? ", L = 2 × " : ", L = ", sizeof check->detail);
+  g_strlcat (check->detail, len_text, sizeof check->detail);
 }
 
 static void

@@ -102,6 +102,46 @@ keep_clear (gpointer data)
     g_clear_pointer (&keep->cases[c], trb_beam_result_free);
 }
 
+/* What a catalog or "auto" member was sized on (its length, supports, loads as analysed and
+ * timber spacing), kept so that its shortlist can be made when someone shows it; shared by
+ * identical members. */
+struct _TrbMemberSizing
+{
+  double  length;
+  GArray *supports;                /* TrbSupport */
+  GArray *loads[TRB_N_CASES];      /* TrbLoad */
+  double  repetitive_spacing;
+};
+
+/* A full analysis whose parts are proved finite leaves the strength entries' deflection
+ * extremes, which no check and no bound reads, to trb_member_result_complete(): the flexure
+ * segments the entries were cut into, to find them as evaluate_set() would have. Shared by
+ * identical members, whose entries are shared too (each completes its own envelope). */
+struct _TrbMemberPending
+{
+  double  *ab;
+  guint    n_ab;
+  gboolean entries_done;
+};
+
+static void
+pending_clear (gpointer data)
+{
+  struct _TrbMemberPending *p = data;
+
+  g_clear_pointer (&p->ab, g_free);
+}
+
+static void
+sizing_clear (gpointer data)
+{
+  struct _TrbMemberSizing *sz = data;
+
+  g_clear_pointer (&sz->supports, g_array_unref);
+  for (guint c = 0; c < TRB_N_CASES; c++)
+    g_clear_pointer (&sz->loads[c], g_array_unref);
+}
+
 void
 trb_member_result_free (TrbMemberResult *result)
 {
@@ -128,7 +168,83 @@ trb_member_result_free (TrbMemberResult *result)
   g_clear_pointer (&result->loads, g_array_unref);
   g_clear_pointer (&result->bearings, g_array_unref);
   g_free (result->plan_note);
+  if (result->sizing != NULL)
+    g_rc_box_release_full (result->sizing, sizing_clear);
+  if (result->pending != NULL)
+    g_rc_box_release_full (result->pending, pending_clear);
   g_free (result);
+}
+
+/**
+ * trb_member_result_complete:
+ * @result: a member's result
+ *
+ * Finds what the solve left to be found on first need: the deflection extremes of the
+ * strength combinations' entries and of their envelope, which no check reads. Whoever reads
+ * those (or prints every field of the entries) calls this first; the values are those the
+ * solve would have found, bit for bit. Safe from any thread, and cheap once done.
+ */
+void
+trb_member_result_complete (const TrbMemberResult *result)
+{
+  static GMutex lock;
+  TrbMemberResult *r = (TrbMemberResult *) result;
+  struct _TrbMemberPending *p;
+
+  g_return_if_fail (result != NULL);
+  if (g_atomic_pointer_get (&r->pending) == NULL)
+    return;
+  g_mutex_lock (&lock);
+  p = r->pending;
+  if (p != NULL)
+    {
+      GArray *entries = r->strength.entries;
+      TrbEnvelope *env = &r->strength.envelope;
+
+      if (!p->entries_done)
+        {
+          g_autofree TrbBeamExtremes *per = g_new (TrbBeamExtremes, MAX (p->n_ab, 1));
+
+          /* the call evaluate_set() makes, for the fields the lean one left out */
+          for (guint i = 0; i < entries->len; i++)
+            {
+              TrbComboResult *c = &g_array_index (entries, TrbComboResult, i);
+              TrbBeamExtremes e;
+
+              trb_beam_result_extremes_intervals (c->result, p->ab, p->n_ab, &e, per, NULL);
+              c->ext.defl_down = e.defl_down;
+              c->ext.defl_down_x = e.defl_down_x;
+              c->ext.defl_up = e.defl_up;
+              c->ext.defl_up_x = e.defl_up_x;
+            }
+          p->entries_done = TRUE;
+        }
+      /* the envelope's deflection as envelope_add() takes it (trb_extremes_merge(): each
+       * field on its own, the first to reach it governs) */
+      env->ext.defl_down = env->ext.defl_up = -INFINITY;
+      env->ext.defl_down_x = env->ext.defl_up_x = 0;
+      env->defl_down_by = env->defl_up_by = "";
+      for (guint i = 0; i < entries->len; i++)
+        {
+          const TrbComboResult *c = &g_array_index (entries, TrbComboResult, i);
+
+          if (c->ext.defl_down > env->ext.defl_down)
+            {
+              env->ext.defl_down = c->ext.defl_down;
+              env->ext.defl_down_x = c->ext.defl_down_x;
+              env->defl_down_by = c->name;
+            }
+          if (c->ext.defl_up > env->ext.defl_up)
+            {
+              env->ext.defl_up = c->ext.defl_up;
+              env->ext.defl_up_x = c->ext.defl_up_x;
+              env->defl_up_by = c->name;
+            }
+        }
+      g_atomic_pointer_set (&r->pending, NULL);
+      g_rc_box_release_full (p, pending_clear);
+    }
+  g_mutex_unlock (&lock);
 }
 
 /* A result for @member that reads the same analysis and design as @r (an identical member):
@@ -166,6 +282,10 @@ member_result_share (TrbMemberResult *r,
   c->loads = r->loads != NULL ? g_array_ref (r->loads) : NULL;
   c->bearings = NULL;
   c->plan_note = NULL;
+  if (r->sizing != NULL)
+    c->sizing = g_rc_box_acquire (r->sizing);
+  if (r->pending != NULL)
+    c->pending = g_rc_box_acquire (r->pending);
   return c;
 }
 
@@ -511,7 +631,8 @@ name_with_pattern (char       *dst,
  * and takes the envelope. With ab (n_ab intervals: the spans of the deflection checks), the
  * extremes over each interval go to span_ext, n_ab for each entry. With keep (sizing's lean
  * analysis), only the entries it marks, by their place among all; envelope FALSE: none;
- * moments_only: the extremes of V and M only (the deflection fields are not to be read).
+ * moments_only: the extremes of V and M only (the deflection fields are zero, not to be read
+ * until trb_member_result_complete() finds them).
  * Returns whether every entry's result is finite, as beam_result_finite() says (TRUE with
  * moments_only or without need_finite: the caller has proved it, parts_bounded()). */
 static gboolean
@@ -624,6 +745,9 @@ evaluate_set (TrbMemberResult     *r,
               /* the lean analysis of sizing: V and M are all the strength checks read, and
                * the parts are proved finite */
               trb_beam_result_moments_intervals (cr->result, ab, n_ab, &cr->ext, span_out);
+              /* a finite stand-in until trb_member_result_complete() finds them */
+              cr->ext.defl_down = cr->ext.defl_up = 0;
+              cr->ext.defl_down_x = cr->ext.defl_up_x = 0;
               ok = TRUE;
             }
           else if (span_ext != NULL)
@@ -816,6 +940,7 @@ analyse (const TrbProject  *project,
   gboolean known = !isnan (E) && !isnan (I);
   gboolean sets_finite[3];
   gboolean bounded;
+  gboolean defer = FALSE;
 
   if (in->n_supports == 0)
     {
@@ -1063,9 +1188,21 @@ analyse (const TrbProject  *project,
       sx->live = g_array_new (FALSE, FALSE, sizeof (TrbBeamExtremes));
       sx->total = g_array_new (FALSE, FALSE, sizeof (TrbBeamExtremes));
       sx->strength = g_array_new (FALSE, FALSE, sizeof (TrbBeamExtremes));
+      /* the full analysis of parts proved finite leaves the strength entries' deflection
+       * extremes to trb_member_result_complete(): no check reads them */
+      defer = lean == NULL && bounded;
       sets_finite[0] = evaluate_set (r, &rr, &r->strength, seg_ab, sx->n_seg, sx->strength,
                                      lean != NULL ? lean->keep[0] : NULL, lean == NULL,
-                                     lean != NULL, !bounded);
+                                     lean != NULL || defer, !bounded);
+      if (defer && r->strength.entries->len > 0)
+        {
+          if (r->pending != NULL)
+            g_rc_box_release_full (r->pending, pending_clear);
+          r->pending = g_rc_box_new0 (struct _TrbMemberPending);
+          r->pending->n_ab = sx->n_seg;
+          r->pending->ab = sx->n_seg > 0 ? g_memdup2 (seg_ab, 2 * sx->n_seg * sizeof (double))
+                                         : NULL;
+        }
       sets_finite[1] = evaluate_set (r, &rr, &r->live, ab, sx->n_spans, sx->live,
                                      lean != NULL ? lean->keep[1] : NULL, lean == NULL, FALSE,
                                      !bounded);
@@ -1410,12 +1547,14 @@ wood_grade_for (const TrbMember   *m,
 }
 
 /* Analyses and checks the member with one catalog section: its E (steel grade, or the wood
- * grade's E adjusted for service), its I and its self-weight. */
+ * grade's E adjusted for service), its I and its self-weight. keep_sx (may be NULL) gets the
+ * analysis's extremes over the spans and segments, for a reference. */
 static TrbMemberResult *
-solve_with_section (const TrbProject  *project,
-                    const TrbMember   *m,
-                    const MemberInput *in,
-                    const TrbSection  *section)
+solve_with_section_sx (const TrbProject  *project,
+                       const TrbMember   *m,
+                       const MemberInput *in,
+                       const TrbSection  *section,
+                       SpanExtremes      *keep_sx)
 {
   const TrbSettings *s = &project->settings;
   TrbMemberResult *r = member_result_new (project, m);
@@ -1468,8 +1607,20 @@ solve_with_section (const TrbProject  *project,
 
   if (analyse (project, in, E, section->Ix, self_weight, r, &sx, NULL))
     design_checks (project, m, in, section, wood_grade, &sx, FALSE, r);
-  span_extremes_clear (&sx);
+  if (keep_sx != NULL)
+    *keep_sx = sx;
+  else
+    span_extremes_clear (&sx);
   return r;
+}
+
+static TrbMemberResult *
+solve_with_section (const TrbProject  *project,
+                    const TrbMember   *m,
+                    const MemberInput *in,
+                    const TrbSection  *section)
+{
+  return solve_with_section_sx (project, m, in, section, NULL);
 }
 
 /* The catalog family a member is sized from. */
@@ -1541,43 +1692,86 @@ compare_by_weight_ptr (gconstpointer a,
 }
 
 /* The candidates for sizing, lightest first: the allowed list when the member gives one,
- * else its family of the catalog; depth and ply limits applied. */
-static GPtrArray *
+ * else its family of the catalog; depth and ply limits applied. Taken one at a time
+ * (candidates_next()): sizing mostly stops a fifth of the way through the catalog's family,
+ * which is already lightest first and is then read in place, not copied. */
+typedef struct
+{
+  const TrbMember  *m;
+  const TrbSection *family;   /* the catalog's family in place, or NULL: list */
+  guint             n_family;
+  GPtrArray        *list;
+  guint             next;
+} Candidates;
+
+static void
 sizing_candidates (const TrbProject *project,
-                   const TrbMember  *m)
+                   const TrbMember  *m,
+                   Candidates       *cands)
 {
   const TrbCatalog *catalogs[] = { trb_catalog_get_default (), project->sections };
-  GPtrArray *out = g_ptr_array_new ();
   TrbFamily family;
 
+  memset (cands, 0, sizeof *cands);
+  cands->m = m;
   if (m->allowed != NULL)
     {
+      cands->list = g_ptr_array_new ();
       for (guint i = 0; m->allowed[i] != NULL; i++)
         {
           const TrbSection *section = lookup_section (project, m->allowed[i]);
 
           if (section != NULL && candidate_allowed (m, section))
-            g_ptr_array_add (out, (gpointer) section);
+            g_ptr_array_add (cands->list, (gpointer) section);
         }
-      g_ptr_array_sort (out, compare_by_weight_ptr);
-      return out;
+      g_ptr_array_sort (cands->list, compare_by_weight_ptr);
+      return;
     }
-  if (sizing_family (m, &family))
+  if (!sizing_family (m, &family))
     {
-      /* The project's own sections of the family take part beside the catalog's. */
-      for (guint c = 0; c < G_N_ELEMENTS (catalogs) && catalogs[c] != NULL; c++)
-        {
-          guint n;
-          const TrbSection *sections = trb_catalog_get_family (catalogs[c], family, &n);
-
-          for (guint i = 0; i < n; i++)
-            if (candidate_allowed (m, &sections[i]))
-              g_ptr_array_add (out, (gpointer) &sections[i]);
-        }
-      if (project->sections != NULL)
-        g_ptr_array_sort (out, compare_by_weight_ptr);
+      cands->list = g_ptr_array_new ();
+      return;
     }
-  return out;
+  if (project->sections == NULL)
+    {
+      cands->family = trb_catalog_get_family (catalogs[0], family, &cands->n_family);
+      return;
+    }
+  /* The project's own sections of the family take part beside the catalog's. */
+  cands->list = g_ptr_array_new ();
+  for (guint c = 0; c < G_N_ELEMENTS (catalogs) && catalogs[c] != NULL; c++)
+    {
+      guint n;
+      const TrbSection *sections = trb_catalog_get_family (catalogs[c], family, &n);
+
+      for (guint i = 0; i < n; i++)
+        if (candidate_allowed (m, &sections[i]))
+          g_ptr_array_add (cands->list, (gpointer) &sections[i]);
+    }
+  g_ptr_array_sort (cands->list, compare_by_weight_ptr);
+}
+
+/* The next candidate, or NULL when there is none left. */
+static const TrbSection *
+candidates_next (Candidates *cands)
+{
+  if (cands->list != NULL)
+    return cands->next < cands->list->len ? g_ptr_array_index (cands->list, cands->next++)
+                                          : NULL;
+  while (cands->next < cands->n_family)
+    {
+      const TrbSection *section = &cands->family[cands->next++];
+
+      if (candidate_allowed (cands->m, section))
+        return section;
+    }
+  return NULL;
+}
+
+static void
+candidates_clear (Candidates *cands)
+{
+  g_clear_pointer (&cands->list, g_ptr_array_unref);
 }
 
 /* ---- sizing: bounds and the lean evaluation of candidates ---------------------------------
@@ -1624,6 +1818,9 @@ typedef struct
   /* the reference's strength entries: each extreme with the unit load's value where it is
    * (V on both sides, the unit load's V jumping at the supports) */
   guint              n_str;
+  guint             *str_order;    /* the strength entries, largest moment first: the order
+                                    * the flexure bounds are tried in, so that a failing
+                                    * candidate fails on the first */
   double            *factors;      /* TRB_N_CASES each */
   double            *V;            /* V_max, V_u on its left and right, its side; the same of
                                     * V_min: 8 each */
@@ -1638,6 +1835,10 @@ typedef struct
   double            *fD_total;
   /* the largest of each, for margins that do not vanish at zero */
   double             M_scale, V_scale, D_scale;
+  /* the largest lower bound of the live deflection checks for a candidate of E I_ref / E I
+   * = 1 (each is that ratio times its own): most candidates that fail, fail there, and are
+   * rejected from this one number; 0 when not checked */
+  double             live_unit;
   double            *scratch;      /* room for the shares of a candidate */
   TrbBeam           *beam;         /* the member's beam (its supports; E = I = 1) */
   GPtrArray         *mem;          /* what the arrays above point into */
@@ -1700,6 +1901,43 @@ value_at (const TrbBeamResult *r,
   return what == 0 ? v.V : what == 1 ? v.M : v.defl;
 }
 
+/* Whether trb_beam_result_eval() gives the same at x from either side: x is inside the
+ * member and none of its breaks, so both sides read the same segment and no end zeroes V
+ * and M. */
+static gboolean
+one_sided (const TrbBeamResult *r,
+           double               x)
+{
+  guint n, lo = 0, hi;
+  const double *b = trb_beam_result_get_breaks (r, &n);
+
+  if (!(x > b[0] && x < b[n - 1]))
+    return FALSE;
+  hi = n - 1;
+  while (lo < hi)
+    {
+      guint mid = (lo + hi) / 2;
+
+      if (b[mid] < x)
+        lo = mid + 1;
+      else
+        hi = mid;
+    }
+  return b[lo] != x;
+}
+
+/* value_at() on the left and on the right of x, evaluated once where they are the same */
+static void
+values_both_sides (const TrbBeamResult *r,
+                   double               x,
+                   int                  what,
+                   double              *left,
+                   double              *right)
+{
+  *left = value_at (r, x, TRB_SIDE_LEFT, what);
+  *right = one_sided (r, x) ? *left : value_at (r, x, TRB_SIDE_RIGHT, what);
+}
+
 /* M at the quarter points of each segment, where the steel check takes it for Cb: the left
  * and right values, 6 a segment */
 static void
@@ -1714,10 +1952,7 @@ quarter_moments (const TrbBeamResult *result,
       const double x[3] = { a + 0.25 * Lb, a + 0.50 * Lb, a + 0.75 * Lb };
 
       for (guint j = 0; j < 3; j++)
-        {
-          out[6 * k + 2 * j] = value_at (result, x[j], TRB_SIDE_LEFT, 1);
-          out[6 * k + 2 * j + 1] = value_at (result, x[j], TRB_SIDE_RIGHT, 1);
-        }
+        values_both_sides (result, x[j], 1, &out[6 * k + 2 * j], &out[6 * k + 2 * j + 1]);
     }
 }
 
@@ -1867,15 +2102,14 @@ reference_init (Reference             *ref,
         {
           double v = e == 0 ? c->ext.V_max : c->ext.V_min;
           double x = e == 0 ? c->ext.V_max_x : c->ext.V_min_x;
-          gboolean on_l = value_at (c->result, x, TRB_SIDE_LEFT, 0) == v;
-          gboolean on_r = value_at (c->result, x, TRB_SIDE_RIGHT, 0) == v;
+          double vl, vr;
 
+          values_both_sides (c->result, x, 0, &vl, &vr);
           /* the unit load's V on either side of the extreme (it jumps at a support), and
            * on which side the extreme is: left 1, right 2, both 3, not told 0 */
           V[4 * e] = v;
-          V[4 * e + 1] = value_at (unit, x, TRB_SIDE_LEFT, 0);
-          V[4 * e + 2] = value_at (unit, x, TRB_SIDE_RIGHT, 0);
-          V[4 * e + 3] = (on_l ? 1 : 0) + (on_r ? 2 : 0);
+          values_both_sides (unit, x, 0, &V[4 * e + 1], &V[4 * e + 2]);
+          V[4 * e + 3] = (vl == v ? 1 : 0) + (vr == v ? 2 : 0);
         }
       M[0] = c->ext.M_max;
       M[1] = value_at (unit, c->ext.M_max_x, TRB_SIDE_RIGHT, 1);
@@ -1899,6 +2133,20 @@ reference_init (Reference             *ref,
         }
       if (ref->steel)
         quarter_moments (c->result, ref->seg, ref->n_seg, ref->Mq + i * 6 * ref->n_seg);
+    }
+
+  /* largest |M| first, ties in their own order (a stable insertion sort of a few entries) */
+  ref->str_order = g_new (guint, ref->n_str + 1);
+  g_ptr_array_add (ref->mem, ref->str_order);
+  for (guint i = 0; i < ref->n_str; i++)
+    {
+      double mi = abs_max (ref->M[4 * i], ref->M[4 * i + 2]);
+      guint j = i;
+
+      for (; j > 0 && abs_max (ref->M[4 * ref->str_order[j - 1]],
+                               ref->M[4 * ref->str_order[j - 1] + 2]) < mi; j--)
+        ref->str_order[j] = ref->str_order[j - 1];
+      ref->str_order[j] = i;
     }
 
   ref->n_live = r->live.entries->len;
@@ -1926,6 +2174,26 @@ reference_init (Reference             *ref,
                isfinite (ref->M_scale + ref->V_scale + ref->D_scale);
   for (guint j = 0; ref->ready && j < ref->n_spans; j++)
     ref->ready = isfinite (ref->D_u[j]);
+
+  /* candidate_shares()'s live lower bounds with k_EI taken out: (d k - margin (d k, 0,
+   * D_scale k)) / cap = k (d (1 - BOUND_MARGIN) - 1e-9 D_scale) / cap */
+  ref->live_unit = 0;
+  {
+    double live_limit = trb_member_get_deflection_live (m, &project->settings);
+
+    for (guint i = 0; live_limit > 0 && i < ref->n_live; i++)
+      for (guint j = 0; j < ref->n_spans; j++)
+        {
+          double cap = ref->spans[j].judged / live_limit;
+          double lo = (ref->d_live[i * ref->n_spans + j] * (1 - BOUND_MARGIN) -
+                       1e-9 * ref->D_scale) / cap;
+
+          if (lo > ref->live_unit)
+            ref->live_unit = lo;
+        }
+    if (!isfinite (ref->live_unit))
+      ref->live_unit = 0;
+  }
   return ref->ready;
 }
 
@@ -2111,7 +2379,15 @@ candidate_shares (const Reference    *ref,
         (ref->V_scale + 2 * fabs (dw) * V_u) < 1e100 && ref->D_scale * (1 + k_EI) < 1e100))
     return FALSE;
 
-  /* deflection: live load deflection scales with E I_ref / E I; the total moves with w too */
+  /* deflection: live load deflection scales with E I_ref / E I; the total moves with w too.
+   * A candidate certainly failing in live deflection by the reference's one number (the
+   * bounds below, to their rounding: a millionth is far beyond it) need not be bounded
+   * further. */
+  if (reject && ref->live_unit * k_EI * (1 - 1e-12) > 1 + BOUND_MARGIN)
+    {
+      sh->max_lo = ref->live_unit * k_EI;
+      return TRUE;
+    }
   sh->live_checked = live_limit > 0 && ref->n_spans > 0;
   sh->total_checked = total_limit > 0 && ref->n_spans > 0;
   for (guint i = 0; sh->live_checked && i < ref->n_live; i++)
@@ -2213,8 +2489,9 @@ candidate_shares (const Reference    *ref,
         }
       if (reject && sh->max_lo > 1 + BOUND_MARGIN)
         return TRUE;
-      for (guint i = 0; i < ref->n_str; i++)
+      for (guint o = 0; o < ref->n_str; o++)
         {
+          guint i = ref->str_order[o];
           double c = ref->factors[i * TRB_N_CASES + TRB_CASE_D] * dw;
           double max_lo, max_hi, min_lo, min_hi;
 
@@ -2378,6 +2655,318 @@ keep_reaching (const double *lo,
       keep[i] = TRUE;
 }
 
+/* ---- sizing: a guess at the section chosen -------------------------------------------------
+ *
+ * Every bound comes from one analysis with every combination (the reference), and the chosen
+ * section needs its full analysis: two analyses a member, unless the reference is the chosen
+ * section's full analysis. So sizing first guesses the section it will choose, from the load
+ * cases alone (a beam of unit E I, the moments, shears and deflections at the quarter points
+ * of each segment and at the point loads, Cb from the quarter points), analyses that one in
+ * full and makes it the reference.
+ * The guess decides nothing: every candidate is still judged lightest first, the guess by its
+ * own full result, the others from the bounds; a wrong guess costs one analysis more. Only for
+ * W shapes of the bundled catalog under ASD or LRFD with dead and floor live load alone. */
+#define GUESS_DIV 4   /* points a segment is divided by: 4 gives the quarter points */
+
+/* A demand at one point for no self-weight, and how it grows with the self-weight w: d0 +
+ * w du (the largest of a set at w = 0, taken where it is). */
+typedef struct
+{
+  double d0, du;
+} GuessDemand;
+
+static void
+guess_take (GuessDemand *g,
+            double       d0,
+            double       du)
+{
+  if (d0 > g->d0)
+    {
+      g->d0 = d0;
+      g->du = du;
+    }
+}
+
+static const TrbSection *
+guess_section (const TrbProject  *project,
+               const TrbMember   *m,
+               const MemberInput *in,
+               const Candidates  *cands)
+{
+  const TrbSettings *s = &project->settings;
+  TrbMethod method = trb_member_get_method (m, s);
+  gboolean lrfd = method == TRB_METHOD_LRFD;
+  const TrbSteelGrade *grade;
+  double live_limit = trb_member_get_deflection_live (m, s);
+  double total_limit = trb_member_get_deflection_total (m, s);
+  g_autoptr(GArray) brace_x = g_array_new (FALSE, FALSE, sizeof (double));
+  g_autoptr(GArray) regions = NULL;
+  g_autoptr(GArray) patterns = NULL;
+  TrbBeam *beam = NULL;
+  TrbBeamResult *parts[2 + TRB_PATTERN_MAX_REGIONS] = { NULL };
+  TrbDesignInput input;
+  TrbDeflectionSpan *spans = NULL;
+  double *seg = NULL, *x = NULL;
+  int *span_of = NULL;
+  gboolean *free_end = NULL;
+  TrbBeamValues *vals = NULL;   /* part i at point k: vals[i * n_pts + k] */
+  double *lp = NULL;            /* live load of pattern p at point k: M, V, v */
+  GuessDemand *hog = NULL, *total = NULL, sag = { 0, 0 }, shear = { 0, 0 };
+  double *hog_cb = NULL;          /* hogging demand and Cb of each strength entry on each
+                                   * segment: hog[e * n_seg + k] */
+  guint n_seg = 0, n_spans, n_pts, n_grid, n_regions, n_parts, n_str = 0, e_str = 0;
+  gboolean has_case[TRB_N_CASES] = { FALSE };
+  const TrbSection *guess = NULL;
+  TrbLoad unit = { TRB_LOAD_UNIFORM, 0, in->length, 1.0, 1.0 };
+  const GArray *combos[3];
+  double live_unit = 0;
+
+  if (m->material != TRB_MATERIAL_STEEL || cands->family == NULL ||
+      (method != TRB_METHOD_ASD && method != TRB_METHOD_LRFD) ||
+      in->n_loads[TRB_CASE_LR] > 0 || in->n_loads[TRB_CASE_S] > 0 ||
+      in->n_loads[TRB_CASE_L] == 0 || in->n_supports == 0)
+    return NULL;
+  grade = steel_grade_of (m, in, s);
+  if (grade == NULL)
+    return NULL;
+  beam = trb_beam_new (in->length, 1.0, 1.0, in->supports, in->n_supports, NULL);
+  if (beam == NULL)
+    return NULL;
+
+  /* the parts: dead load (without self-weight), a unit uniform load, live load by region */
+  has_case[TRB_CASE_D] = in->n_loads[TRB_CASE_D] > 0 || s->self_weight;
+  has_case[TRB_CASE_L] = TRUE;
+  {
+    guint n_bs;
+    const TrbSupport *bs = trb_beam_get_supports (beam, &n_bs);
+
+    regions = trb_regions_build (bs, n_bs, in->length);
+  }
+  n_regions = regions->len;
+  if (s->live_patterns && n_regions > 1 && n_regions <= TRB_PATTERN_MAX_REGIONS)
+    {
+      GArray **split = trb_loads_split (in->loads[TRB_CASE_L], in->n_loads[TRB_CASE_L],
+                                        (const TrbRegion *) regions->data, n_regions);
+
+      patterns = trb_patterns_build ((const TrbRegion *) regions->data, n_regions, "L");
+      for (guint reg = 0; reg < n_regions; reg++)
+        parts[2 + reg] = trb_beam_solve (beam, (const TrbLoad *) split[reg]->data,
+                                         split[reg]->len, NULL);
+      trb_loads_split_free (split, n_regions);
+    }
+  else
+    {
+      TrbPattern all = { "", 1 };
+
+      n_regions = 1;
+      patterns = g_array_new (FALSE, FALSE, sizeof (TrbPattern));
+      g_array_append_val (patterns, all);
+      parts[2] = trb_beam_solve (beam, in->loads[TRB_CASE_L], in->n_loads[TRB_CASE_L], NULL);
+    }
+  parts[0] = trb_beam_solve (beam, in->loads[TRB_CASE_D], in->n_loads[TRB_CASE_D], NULL);
+  parts[1] = trb_beam_solve (beam, &unit, 1, NULL);
+  n_parts = 2 + n_regions;
+  for (guint i = 0; i < n_parts; i++)
+    if (parts[i] == NULL)
+      goto out;
+
+  /* the quarter points of each flexure segment, the ends on their own side */
+  member_design_input (m, in, beam, brace_x, &input);
+  seg = g_new (double, 2 + input.n_supports + input.n_braces);
+  n_seg = trb_design_steel_segment_points (&input, seg);
+  if (n_seg < 2)
+    goto out;
+  n_seg--;
+  spans = g_new0 (TrbDeflectionSpan, input.n_supports + 1);
+  n_spans = trb_design_deflection_spans (&input, spans, input.n_supports + 1);
+  /* the grid, then the point loads, where the moment peaks between grid points */
+  n_grid = n_seg * (GUESS_DIV + 1);
+  n_pts = n_grid;
+  x = g_new (double, n_grid + in->n_loads[TRB_CASE_D] + in->n_loads[TRB_CASE_L]);
+  for (guint k = 0; k < n_seg; k++)
+    for (guint j = 0; j <= GUESS_DIV; j++)
+      x[k * (GUESS_DIV + 1) + j] = seg[k] + (seg[k + 1] - seg[k]) * j / GUESS_DIV;
+  for (guint c = TRB_CASE_D; c <= TRB_CASE_L; c++)
+    for (guint i = 0; i < in->n_loads[c]; i++)
+      if (in->loads[c][i].kind == TRB_LOAD_POINT && in->loads[c][i].a > 0 &&
+          in->loads[c][i].a < in->length)
+        x[n_pts++] = in->loads[c][i].a;
+  /* the span each point is in, for the deflection checks; -1: none */
+  span_of = g_new (int, n_pts);
+  for (guint at = 0; at < n_pts; at++)
+    {
+      span_of[at] = -1;
+      for (guint sp = 0; sp < n_spans && span_of[at] < 0; sp++)
+        if (x[at] >= spans[sp].a && x[at] <= spans[sp].b)
+          span_of[at] = sp;
+    }
+  vals = g_new (TrbBeamValues, n_parts * n_pts);
+  for (guint at = 0; at < n_pts; at++)
+    for (guint i = 0; i < n_parts; i++)
+      trb_beam_result_eval (parts[i], x[at],
+                            at < n_grid && at % (GUESS_DIV + 1) == GUESS_DIV ? TRB_SIDE_LEFT
+                                                                             : TRB_SIDE_RIGHT,
+                            &vals[i * n_pts + at]);
+  lp = g_new0 (double, 3 * patterns->len * n_pts);
+  for (guint p = 0; p < patterns->len; p++)
+    {
+      guint64 mask = g_array_index (patterns, TrbPattern, p).mask;
+
+      for (guint reg = 0; reg < n_regions; reg++)
+        if ((mask >> reg) & 1)
+          for (guint k = 0; k < n_pts; k++)
+            {
+              const TrbBeamValues *v = &vals[(2 + reg) * n_pts + k];
+              double *o = lp + 3 * (p * n_pts + k);
+
+              o[0] += v->M;
+              o[1] += v->V;
+              o[2] += v->defl;
+            }
+    }
+
+  /* the largest demands at w = 0 of every combination and pattern, where they are */
+  combos[0] = combos_for (lrfd ? TRB_COMBO_SET_LRFD : TRB_COMBO_SET_ASD, has_case);
+  combos[1] = combos_for (TRB_COMBO_SET_LIVE, has_case);
+  combos[2] = combos_for (TRB_COMBO_SET_TOTAL, has_case);
+  for (guint i = 0; i < combos[0]->len; i++)
+    n_str += g_array_index (combos[0], TrbCombo, i).factors[TRB_CASE_L] != 0 ? patterns->len : 1;
+  free_end = g_new (gboolean, n_seg);
+  for (guint k = 0; k < n_seg; k++)
+    free_end[k] = trb_design_steel_free_end (&input, seg[k], seg[k + 1]);
+  hog = g_new0 (GuessDemand, n_str * n_seg);
+  hog_cb = g_new (double, n_str * n_seg);
+  total = g_new0 (GuessDemand, n_spans);
+  for (guint set = 0; set < 3; set++)
+    for (guint i = 0; i < combos[set]->len; i++)
+      {
+        const TrbCombo *combo = &g_array_index (combos[set], TrbCombo, i);
+        double fD = combo->factors[TRB_CASE_D], fL = combo->factors[TRB_CASE_L];
+
+        for (guint p = 0; p < (fL != 0 ? patterns->len : 1); p++, e_str += set == 0)
+          for (guint k = 0; k <= n_seg; k++)
+            {
+              double neg = 0, du_neg = 0, m_abs = 0, q[3] = { 0, 0, 0 };
+
+              /* the segments' grids, then the point loads as a last "segment" */
+              for (guint j = 0; k < n_seg ? j <= GUESS_DIV : j < n_pts - n_grid; j++)
+                {
+                  guint at = k < n_seg ? k * (GUESS_DIV + 1) + j : n_grid + j;
+                  const double *l = lp + 3 * (p * n_pts + at);
+                  const TrbBeamValues *d = &vals[at], *u = &vals[n_pts + at];
+                  double M = fD * d->M + fL * l[0];
+
+                  if (set == 0)
+                    {
+                      double V = fD * d->V + fL * l[1];
+
+                      guess_take (&sag, m->bracing == TRB_BRACING_POINTS ? 0 : M, fD * u->M);
+                      guess_take (&shear, fabs (V), copysign (fD * u->V, V));
+                      /* braced at points: |M| meets Lb and Cb; else hogging does */
+                      if ((m->bracing == TRB_BRACING_POINTS ? fabs (M) : -M) > neg)
+                        {
+                          neg = m->bracing == TRB_BRACING_POINTS ? fabs (M) : -M;
+                          du_neg = m->bracing == TRB_BRACING_POINTS ? copysign (fD * u->M, M)
+                                                                    : -fD * u->M;
+                        }
+                      m_abs = MAX (m_abs, fabs (M));
+                      if (k < n_seg && j > 0 && j < GUESS_DIV && j % (GUESS_DIV / 4) == 0)
+                        q[j / (GUESS_DIV / 4) - 1] = M;
+                    }
+                  else
+                    {
+                      double v = fD * d->defl + fL * l[2];
+                      int sp = span_of[at];
+
+                      if (sp >= 0)
+                        {
+                          double f = (set == 1 ? live_limit : total_limit) / spans[sp].judged;
+
+                          if (set == 1)
+                            live_unit = MAX (live_unit, fabs (v) * f);
+                          else
+                            guess_take (&total[sp], fabs (v) * f, copysign (fD * u->defl, v) * f);
+                        }
+                    }
+                }
+              if (set == 0 && k < n_seg)
+                {
+                  hog[e_str * n_seg + k].d0 = neg;
+                  hog[e_str * n_seg + k].du = du_neg;
+                  hog_cb[e_str * n_seg + k] = free_end[k] ? 1.0
+                                              : trb_design_steel_cb (m_abs, q[0], q[1], q[2]);
+                }
+            }
+      }
+  if (!(live_limit > 0))
+    live_unit = 0;
+
+  /* the lightest candidate those demands pass */
+  for (guint c = 0; c < cands->n_family && guess == NULL; c++)
+    {
+      const TrbSection *section = &cands->family[c];
+      double w = s->self_weight ? section->weight : 0;
+      double EI = grade->E * section->Ix;
+      double worst;
+      TrbSteelFlexure flex;
+      TrbSteelShear sh;
+
+      if (!candidate_allowed (m, section) || section->kind != TRB_SHAPE_W ||
+          !(EI > 0) || live_unit / EI > 1)
+        continue;
+      worst = 0;
+      for (guint sp = 0; total_limit > 0 && sp < n_spans; sp++)
+        worst = MAX (worst, fabs (total[sp].d0 + w * total[sp].du) / EI);
+      if (worst > 1 || !trb_design_steel_flexure (section, grade, 0, 1, &flex) ||
+          !trb_design_steel_shear (section, grade, &sh))
+        continue;
+      worst = MAX (worst, (sag.d0 + w * sag.du) /
+                          (lrfd ? TRB_STEEL_PHI_B * flex.Mn : flex.Mn / TRB_STEEL_OMEGA_B));
+      worst = MAX (worst, fabs (shear.d0 + w * shear.du) /
+                          (lrfd ? sh.phi * sh.Vn : sh.Vn / sh.omega));
+      /* Mn grows as Cb times Mn at Cb = 1, up to the braced Mn (F2, F3) */
+      {
+        double Mn0 = flex.Mn;
+
+        for (guint k = 0; k < n_seg && worst <= 1; k++)
+          {
+            if (!trb_design_steel_flexure (section, grade, seg[k + 1] - seg[k], 1, &flex))
+              {
+                worst = INFINITY;
+                break;
+              }
+            for (guint e = 0; e < n_str; e++)
+              {
+                const GuessDemand *h = &hog[e * n_seg + k];
+                double Mn = MIN (hog_cb[e * n_seg + k] * flex.Mn, Mn0);
+
+                if (h->d0 > 0)
+                  worst = MAX (worst, (h->d0 + w * h->du) /
+                                      (lrfd ? TRB_STEEL_PHI_B * Mn : Mn / TRB_STEEL_OMEGA_B));
+              }
+          }
+      }
+      if (worst <= 1)
+        guess = section;
+    }
+
+out:
+  for (guint i = 0; i < G_N_ELEMENTS (parts); i++)
+    g_clear_pointer (&parts[i], trb_beam_result_free);
+  trb_beam_free (beam);
+  g_free (spans);
+  g_free (seg);
+  g_free (x);
+  g_free (span_of);
+  g_free (free_end);
+  g_free (vals);
+  g_free (lp);
+  g_free (hog);
+  g_free (hog_cb);
+  g_free (total);
+  return guess;
+}
+
 typedef enum
 {
   VERDICT_UNDECIDED,  /* analyse it in full (or certainly passing, as the first to pass) */
@@ -2457,13 +3046,20 @@ judge_candidate (const Reference   *ref,
 }
 
 /* The first candidate judged: analysed with every combination (without envelopes or text),
- * its verdict, and the reference for the others. */
+ * its verdict, and the reference for the others. With reject, a section of the bundled
+ * catalog whose own bounds say it certainly fails is rejected without its checks (the
+ * lightest section mostly fails by far): its checks would say fail, since a live deflection
+ * or strength ratio above 1 makes the status fail and the bundled sections' values are far
+ * from any overflow that would make it an error; and should nothing pass, sizing runs again
+ * without rejecting, which checks it. */
 static VerdictKind
 reference_candidate (Reference         *ref,
                      const TrbProject  *project,
                      const TrbMember   *m,
                      const MemberInput *in,
                      const TrbSection  *section,
+                     gboolean           reject,
+                     gboolean           bundled,
                      Verdict           *v)
 {
   const TrbWoodGrade *wood_grade;
@@ -2479,9 +3075,24 @@ reference_candidate (Reference         *ref,
   if (analyse (project, in, E, section->Ix,
                project->settings.self_weight ? section->weight : 0, r, &sx, &lean))
     {
+      if (reject && bundled)
+        {
+          Shares sh;
+
+          if (!reference_init (ref, project, m, in, r, &sx))
+            reference_clear (ref);
+          else if (candidate_shares (ref, project, m, in, section, E, wood_grade, TRUE, &sh) &&
+                   sh.max_lo > 1 + BOUND_MARGIN)
+            {
+              span_extremes_clear (&sx);
+              trb_member_result_free (r);
+              return VERDICT_REJECTED;
+            }
+        }
       design_checks (project, m, in, section, wood_grade, &sx, TRUE, r);
+      /* the reference made above, or made now, is kept only beside a verdict */
       if ((r->status == TRB_STATUS_PASS || r->status == TRB_STATUS_FAIL) &&
-          reference_init (ref, project, m, in, r, &sx))
+          (ref->ready || reference_init (ref, project, m, in, r, &sx)))
         {
           v->status = r->status;
           v->ratio = r->ratio;
@@ -2503,7 +3114,9 @@ reference_candidate (Reference         *ref,
  * use_bounds, candidates other than the first analysed are judged from it (see above) and,
  * with reject, those certainly failing are not analysed; should no candidate pass, sizing
  * runs again without rejecting, since the closest one is then reported. Only the section
- * chosen (and the closest, when none passes) is analysed in full for the result. */
+ * chosen (and the closest, when none passes) is analysed in full for the result.
+ * With list_only, only the shortlist is made, into list_only, and NULL returned: the same
+ * candidates judged the same way, without the chosen section's full result. */
 static TrbMemberResult *
 size_member (const TrbProject  *project,
              const TrbMember   *m,
@@ -2511,9 +3124,11 @@ size_member (const TrbProject  *project,
              const TrbSection  *chosen,
              guint              shortlist_max,
              gboolean           use_bounds,
-             gboolean           reject)
+             gboolean           reject,
+             GArray            *list_only)
 {
-  g_autoptr(GPtrArray) candidates = sizing_candidates (project, m);
+  Candidates candidates;
+  const TrbSection *section;
   MemberInput in_plan = *in;
   MemberPlan plan = { FALSE };
   TrbMemberResult *best = NULL;
@@ -2523,21 +3138,76 @@ size_member (const TrbProject  *project,
   g_autoptr(GArray) shortlist = g_array_new (FALSE, TRUE, sizeof (TrbShortlistEntry));
   Reference ref = { FALSE };
   guint rejected = 0;
+  gboolean found = FALSE;                   /* the lightest passing section (best) */
+  const TrbSection *guess = NULL;           /* analysed in full first: the reference */
+  TrbMemberResult *guess_result = NULL;
 
   /* the analyses of every section share what does not depend on it */
   in_plan.plan = &plan;
   in = &in_plan;
-  for (guint i = 0; i < candidates->len && shortlist->len < shortlist_max; i++)
+  sizing_candidates (project, m, &candidates);
+  /* the guess, analysed in full first, is the reference */
+  if (use_bounds && reject && chosen == NULL && list_only == NULL)
     {
-      const TrbSection *section = g_ptr_array_index (candidates, i);
+      guess = guess_section (project, m, in, &candidates);
+      if (guess != NULL)
+        {
+          SpanExtremes sx = { NULL };
+
+          guess_result = solve_with_section_sx (project, m, in, guess, &sx);
+          if (!((guess_result->status == TRB_STATUS_PASS ||
+                 guess_result->status == TRB_STATUS_FAIL) &&
+                reference_init (&ref, project, m, in, guess_result, &sx)))
+            {
+              reference_clear (&ref);
+              g_clear_pointer (&guess_result, trb_member_result_free);
+            }
+          span_extremes_clear (&sx);
+        }
+    }
+  /* past the shortlist's length only for the lightest passing section, when it is chosen */
+  while ((shortlist->len < shortlist_max || (list_only == NULL && chosen == NULL && !found)) &&
+         (section = candidates_next (&candidates)) != NULL)
+    {
       TrbMemberResult *c;
       TrbShortlistEntry e = { { 0 } };
       Verdict v;
 
+      if (section == guess && guess_result != NULL)
+        {
+          /* judged by its full result */
+          c = g_steal_pointer (&guess_result);
+          if (c->status == TRB_STATUS_PASS)
+            {
+              g_strlcpy (e.section, section->designation, sizeof e.section);
+              e.weight = section->weight;
+              e.ratio = c->ratio;
+              g_strlcpy (e.governing, c->governing, sizeof e.governing);
+              g_array_append_val (shortlist, e);
+              if (!found)
+                {
+                  found = TRUE;
+                  best = c;
+                  continue;
+                }
+            }
+          else if (closest_section == NULL || c->ratio < closest_ratio)
+            {
+              g_clear_pointer (&closest, trb_member_result_free);
+              closest = c;
+              closest_section = section;
+              closest_ratio = c->ratio;
+              continue;
+            }
+          trb_member_result_free (c);
+          continue;
+        }
       if (use_bounds)
         switch (ref.ready ? judge_candidate (&ref, project, m, in, section, reject,
-                                             best == NULL && chosen == NULL, &v)
-                          : reference_candidate (&ref, project, m, in, section, &v))
+                                             !found && chosen == NULL && list_only == NULL,
+                                             &v)
+                          : reference_candidate (&ref, project, m, in, section, reject,
+                                                 candidates.family != NULL, &v))
           {
           case VERDICT_REJECTED:
             rejected++;
@@ -2550,10 +3220,15 @@ size_member (const TrbProject  *project,
                 e.ratio = v.ratio;
                 g_strlcpy (e.governing, v.governing, sizeof e.governing);
                 g_array_append_val (shortlist, e);
-                if (best == NULL && chosen == NULL)
+                if (!found && chosen == NULL)
                   {
-                    best = solve_with_section (project, m, in, section);
-                    g_warn_if_fail (best->status == TRB_STATUS_PASS && best->ratio == v.ratio);
+                    found = TRUE;
+                    if (list_only == NULL)
+                      {
+                        best = solve_with_section (project, m, in, section);
+                        g_warn_if_fail (best->status == TRB_STATUS_PASS &&
+                                        best->ratio == v.ratio);
+                      }
                   }
               }
             else if (chosen == NULL && (closest_section == NULL || v.ratio < closest_ratio))
@@ -2577,29 +3252,51 @@ size_member (const TrbProject  *project,
           e.ratio = c->ratio;
           g_strlcpy (e.governing, c->governing, sizeof e.governing);
           g_array_append_val (shortlist, e);
-          if (best == NULL && chosen == NULL)
+          if (!found && chosen == NULL)
             {
-              best = c;
-              continue;
+              found = TRUE;
+              if (list_only == NULL)
+                {
+                  best = c;
+                  continue;
+                }
             }
         }
       else if (chosen == NULL && c->status == TRB_STATUS_FAIL &&
                (closest_section == NULL || c->ratio < closest_ratio))
         {
           g_clear_pointer (&closest, trb_member_result_free);
-          closest = c;
           closest_section = section;
           closest_ratio = c->ratio;
-          continue;
+          if (list_only == NULL)
+            {
+              closest = c;
+              continue;
+            }
         }
       else if (c->status != TRB_STATUS_FAIL && c->status != TRB_STATUS_PASS && chosen == NULL &&
-               best == NULL && closest_section == NULL)
+               !found && closest_section == NULL)
         {
           /* unstable, unsupported or an error: the same for every section */
-          best = c;
+          if (list_only == NULL)
+            best = c;
+          else
+            trb_member_result_free (c);
           break;
         }
       trb_member_result_free (c);
+    }
+
+  candidates_clear (&candidates);
+  g_clear_pointer (&guess_result, trb_member_result_free);
+  if (list_only != NULL)
+    {
+      /* nothing passes, or the shortlist is made: the rest is the result's */
+      g_clear_pointer (&closest, trb_member_result_free);
+      reference_clear (&ref);
+      member_plan_clear (&plan);
+      g_array_append_vals (list_only, shortlist->data, MIN (shortlist->len, shortlist_max));
+      return NULL;
     }
 
   if (chosen == NULL && best == NULL && rejected > 0)
@@ -2609,7 +3306,7 @@ size_member (const TrbProject  *project,
       reference_clear (&ref);
       member_plan_clear (&plan);
       in_plan.plan = NULL;
-      return size_member (project, m, in, chosen, shortlist_max, use_bounds, FALSE);
+      return size_member (project, m, in, chosen, shortlist_max, use_bounds, FALSE, NULL);
     }
 
   if (chosen != NULL)
@@ -2631,7 +3328,7 @@ size_member (const TrbProject  *project,
   g_clear_pointer (&closest, trb_member_result_free);
   reference_clear (&ref);
   member_plan_clear (&plan);
-  g_array_append_vals (best->shortlist, shortlist->data, shortlist->len);
+  g_array_append_vals (best->shortlist, shortlist->data, MIN (shortlist->len, shortlist_max));
   return best;
 }
 
@@ -2652,6 +3349,25 @@ record_input (TrbMemberResult   *r,
 
         g_array_append_val (r->loads, ml);
       }
+}
+
+/* Keeps what the member was sized on, for trb_solve_member_shortlist(). */
+static void
+record_sizing (TrbMemberResult   *r,
+               const MemberInput *in)
+{
+  struct _TrbMemberSizing *sz = g_rc_box_new0 (struct _TrbMemberSizing);
+
+  sz->length = in->length;
+  sz->supports = g_array_sized_new (FALSE, FALSE, sizeof (TrbSupport), in->n_supports);
+  g_array_append_vals (sz->supports, in->supports, in->n_supports);
+  for (guint c = 0; c < TRB_N_CASES; c++)
+    {
+      sz->loads[c] = g_array_sized_new (FALSE, FALSE, sizeof (TrbLoad), in->n_loads[c]);
+      g_array_append_vals (sz->loads[c], in->loads[c], in->n_loads[c]);
+    }
+  sz->repetitive_spacing = in->repetitive_spacing;
+  r->sizing = sz;
 }
 
 /* Analyses and designs one member on the given supports and loads. */
@@ -2691,8 +3407,10 @@ solve_input (const TrbProject  *project,
               return r;
             }
         }
-      r = size_member (project, member, in, chosen, shortlist_max, use_bounds, use_bounds);
+      r = size_member (project, member, in, chosen, shortlist_max, use_bounds, use_bounds,
+                       NULL);
       record_input (r, in);
+      record_sizing (r, in);
       return r;
     }
 
@@ -4427,14 +5145,15 @@ solve_standalone_cached (Solver          *sv,
  * trb_solve_options_init:
  * @options: (out caller-allocates): options to fill
  *
- * The defaults: a shortlist of %TRB_SHORTLIST_DEFAULT sections, the cache and the bounds on.
+ * The defaults: no shortlist (it is made only where it is shown), the cache and the bounds
+ * on.
  */
 void
 trb_solve_options_init (TrbSolveOptions *options)
 {
   g_return_if_fail (options != NULL);
 
-  options->shortlist_max = TRB_SHORTLIST_DEFAULT;
+  options->shortlist_max = 0;
   options->cache = TRUE;
   options->bounds = TRUE;
 }
@@ -4750,7 +5469,7 @@ trb_solve_member_full (const TrbProject *project,
  * @project: the project, for its settings
  * @member: one of its members
  *
- * trb_solve_member_full() with a shortlist of at most %TRB_SHORTLIST_DEFAULT sections.
+ * trb_solve_member_full() without a shortlist (trb_solve_member_shortlist() makes it).
  *
  * Returns: (transfer full): the member's results; they point into @member.
  */
@@ -4758,7 +5477,62 @@ TrbMemberResult *
 trb_solve_member (const TrbProject *project,
                   const TrbMember  *member)
 {
-  return trb_solve_member_full (project, member, TRB_SHORTLIST_DEFAULT);
+  return trb_solve_member_full (project, member, 0);
+}
+
+/**
+ * trb_solve_member_shortlist:
+ * @project: the project solved, for its settings and sections
+ * @result: a member's result from it (any solve: with or without a shortlist)
+ * @max: how many passing sections to list at most (G_MAXUINT for all)
+ *
+ * The shortlist of a catalog or "auto" member, for whoever shows it: its passing sections,
+ * lightest first, ties by depth, sized again on what the solve analysed it with (its supports
+ * and loads, as they came down a floor). Exactly the entries a solve with a shortlist of
+ * @max gives, bit for bit, without the chosen section's full result. Empty for a custom
+ * section and for a member that was not sized (unsupported, unstable, not framed).
+ *
+ * Returns: (transfer full) (element-type TrbShortlistEntry): the entries
+ */
+GArray *
+trb_solve_member_shortlist (const TrbProject      *project,
+                            const TrbMemberResult *result,
+                            guint                  max)
+{
+  const struct _TrbMemberSizing *sz;
+  const TrbMember *m;
+  const TrbSection *chosen = NULL;
+  MemberInput in = { 0 };
+  g_autoptr(Memo) memo = NULL;
+  GArray *list;
+
+  g_return_val_if_fail (project != NULL && result != NULL, NULL);
+
+  list = g_array_new (FALSE, TRUE, sizeof (TrbShortlistEntry));
+  sz = result->sizing;
+  m = result->member;
+  if (sz == NULL || m == NULL || max == 0 || trb_member_is_custom (m))
+    return list;
+  if (!trb_member_is_auto (m))
+    {
+      chosen = lookup_section (project, m->section);
+      if (chosen == NULL)
+        return list;
+    }
+  memo = memo_new ();
+  in.length = sz->length;
+  in.supports = (const TrbSupport *) sz->supports->data;
+  in.n_supports = sz->supports->len;
+  for (guint c = 0; c < TRB_N_CASES; c++)
+    {
+      in.loads[c] = (const TrbLoad *) sz->loads[c]->data;
+      in.n_loads[c] = sz->loads[c]->len;
+    }
+  in.repetitive_spacing = sz->repetitive_spacing;
+  in.memo = memo;
+  in.member = m;
+  size_member (project, m, &in, chosen, max, TRUE, TRUE, list);
+  return list;
 }
 
 /**

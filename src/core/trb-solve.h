@@ -85,7 +85,7 @@ typedef struct
   char   governing[40];  /* the governing check's name */
 } TrbShortlistEntry;
 
-/* How many passing sections trb_solve_member() lists. */
+/* How many passing sections the shortlist shows (the CLI, the member sheets, the editor). */
 #define TRB_SHORTLIST_DEFAULT 10
 
 /* What one support of a floor member rests on, and the reaction it hands down there. */
@@ -146,7 +146,9 @@ typedef struct
   double            ratio;       /* the largest check ratio; NAN when nothing was checked */
   char              governing[40];  /* the name of the check with that ratio */
   GArray           *shortlist;   /* TrbShortlistEntry: passing sections, lightest first, ties
-                                  * by depth; for catalog and "auto" members */
+                                  * by depth; for catalog and "auto" members, only when the
+                                  * solve was asked for one (TrbSolveOptions.shortlist_max);
+                                  * else empty: trb_solve_member_shortlist() makes it */
 
   /* What was analysed: the supports (TrbSupport, sorted by x) and every load, case by case
    * (TrbMemberLoad with line 0 for those that are not the member's own: the floor's strip,
@@ -164,6 +166,9 @@ typedef struct
                                   * point that rests on nothing); NULL */
 
   struct _TrbMemberKeep *keep;   /* private: owns beam and cases when they are shared */
+  struct _TrbMemberSizing *sizing; /* private: what a catalog or "auto" member was sized on,
+                                    * for trb_solve_member_shortlist() */
+  struct _TrbMemberPending *pending; /* private: what trb_member_result_complete() finds */
 } TrbMemberResult;
 
 /* The load on one column of a floor, from everything that rests on it. */
@@ -224,7 +229,9 @@ typedef struct
 /* How trb_solve_project_full() works; the shortcuts never change a result, bit for bit. */
 typedef struct
 {
-  guint    shortlist_max;  /* passing sections listed per member; TRB_SHORTLIST_DEFAULT */
+  guint    shortlist_max;  /* passing sections listed per member; default 0: none (those
+                            * that show it ask for TRB_SHORTLIST_DEFAULT, or for one
+                            * member's with trb_solve_member_shortlist()) */
   gboolean cache;          /* solve identical members once (same length, supports, loads
                             * and design attributes); default TRUE */
   gboolean bounds;         /* in sizing, reject sections by exact bounds (live deflection,
@@ -242,6 +249,10 @@ TrbMemberResult  *trb_solve_member_full     (const TrbProject       *project,
                                              const TrbMember        *member,
                                              guint                   shortlist_max);
 void              trb_member_result_free    (TrbMemberResult        *result);
+void              trb_member_result_complete (const TrbMemberResult *result);
+GArray           *trb_solve_member_shortlist (const TrbProject      *project,
+                                              const TrbMemberResult *result,
+                                              guint                  max);
 
 void              trb_solve_options_init    (TrbSolveOptions        *options);
 TrbProjectResult *trb_solve_project         (const TrbProject       *project);

@@ -905,6 +905,7 @@ draw_curve (Frame                  *f,
     }
 
   /* the exact extremes, from the engine's roots rather than the samples */
+  trb_member_result_complete (r);
   if (source->kind == TRB_DIAGRAM_SOURCE_ENVELOPE)
     ext = deflection ? r->total.envelope.ext : r->strength.envelope.ext;
   else if (source->kind == TRB_DIAGRAM_SOURCE_COMBINATION)

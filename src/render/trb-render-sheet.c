@@ -834,6 +834,7 @@ member_extremes (TrbFlow               *flow,
   TrbUnitSystem u = r->units;
   const TrbEnvelope *env = &r->strength.envelope;
 
+  trb_member_result_complete (r);
   trb_flow_heading (flow, _("Extremes"));
   trb_flow_table_begin (flow, 4, titles, widths, "lrrl", -1);
   if (!env->empty)
