@@ -66,7 +66,10 @@ struct _TrbFrame
 struct _TrbFrameTakedown
 {
   const TrbFrame *frame;
-  GArray        **member_loads;   /* [member * TRB_N_CASES + case] of TrbLoad */
+  /* [member * TRB_N_CASES + case] of TrbLoad, NULL until something lands there: most
+   * members of a floor (the joists) never get a load handed down, and 10,000 members times
+   * the cases of empty arrays were 1.6 MB */
+  GArray        **member_loads;
   double         *column_loads;   /* [column * TRB_N_CASES + case] */
   GArray        **wall_loads;     /* [wall * TRB_N_CASES + case] of TrbLoad */
 };
@@ -2159,8 +2162,6 @@ trb_frame_takedown_new (const TrbFrame *frame)
   td->member_loads = g_new0 (GArray *, frame->n_members * TRB_N_CASES + 1);
   td->column_loads = g_new0 (double, frame->n_columns * TRB_N_CASES + 1);
   td->wall_loads = g_new0 (GArray *, frame->n_walls * TRB_N_CASES + 1);
-  for (guint k = 0; k < frame->n_members * TRB_N_CASES; k++)
-    td->member_loads[k] = g_array_new (FALSE, FALSE, sizeof (TrbLoad));
   for (guint k = 0; k < frame->n_walls * TRB_N_CASES; k++)
     td->wall_loads[k] = g_array_new (FALSE, FALSE, sizeof (TrbLoad));
   return td;
@@ -2173,7 +2174,7 @@ trb_frame_takedown_free (TrbFrameTakedown *takedown)
     return;
 
   for (guint k = 0; k < takedown->frame->n_members * TRB_N_CASES; k++)
-    g_array_unref (takedown->member_loads[k]);
+    g_clear_pointer (&takedown->member_loads[k], g_array_unref);
   for (guint k = 0; k < takedown->frame->n_walls * TRB_N_CASES; k++)
     g_array_unref (takedown->wall_loads[k]);
   g_free (takedown->member_loads);
@@ -2185,12 +2186,17 @@ trb_frame_takedown_free (TrbFrameTakedown *takedown)
 /* Loads landing at the same point (members from both sides) add into one; the rest are kept
  * sorted by position. */
 static void
-add_point_load (GArray *loads,
-                double  x,
-                double  P)
+add_point_load (GArray **slot,
+                double   x,
+                double   P)
 {
   TrbLoad load = { TRB_LOAD_POINT, x, x, P, 0.0 };
+  GArray *loads;
   guint k;
+
+  if (*slot == NULL)
+    *slot = g_array_new (FALSE, FALSE, sizeof (TrbLoad));
+  loads = *slot;
 
   for (k = 0; k < loads->len; k++)
     {
@@ -2245,12 +2251,12 @@ trb_frame_takedown_add (TrbFrameTakedown  *takedown,
             takedown->column_loads[h->index * TRB_N_CASES + c] += h->force[c];
             break;
           case TRB_BEARING_WALL:
-            add_point_load (takedown->wall_loads[h->index * TRB_N_CASES + c], h->position,
+            add_point_load (&takedown->wall_loads[h->index * TRB_N_CASES + c], h->position,
                             h->force[c]);
             break;
           case TRB_BEARING_MEMBER:
           default:
-            add_point_load (takedown->member_loads[h->index * TRB_N_CASES + c], h->position,
+            add_point_load (&takedown->member_loads[h->index * TRB_N_CASES + c], h->position,
                             h->force[c]);
             break;
           }
@@ -2274,8 +2280,29 @@ trb_frame_takedown_get_member_loads (const TrbFrameTakedown *takedown,
   g_return_val_if_fail (n_loads != NULL, NULL);
 
   a = takedown->member_loads[member * TRB_N_CASES + load_case];
-  *n_loads = a->len;
-  return (const TrbLoad *) a->data;
+  *n_loads = a != NULL ? a->len : 0;
+  return a != NULL ? (const TrbLoad *) a->data : NULL;
+}
+
+/**
+ * trb_frame_takedown_release_member:
+ * @takedown: a takedown
+ * @member: a member's index in the plan
+ *
+ * Frees the loads handed down onto @member so far, once they have been read for the last
+ * time (a floor's solve reads each member's once, going down the order): what reaches the
+ * girders at the bottom is then gone before the results of the whole floor are all made.
+ * Loads handed down to it later start again from none.
+ */
+void
+trb_frame_takedown_release_member (TrbFrameTakedown *takedown,
+                                   guint             member)
+{
+  g_return_if_fail (takedown != NULL);
+  g_return_if_fail (member < takedown->frame->n_members);
+
+  for (guint c = 0; c < TRB_N_CASES; c++)
+    g_clear_pointer (&takedown->member_loads[member * TRB_N_CASES + c], g_array_unref);
 }
 
 /* The total load handed down onto a column so far, N, downward +. */

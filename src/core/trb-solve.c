@@ -4340,9 +4340,14 @@ solve_floor (Solver         *sv,
           g_hash_table_insert (results, (gpointer) m, r);
           floor_count_applied (&fs, fr, idx);
           floor_strand (&fs, fr, idx);
-          continue;
         }
-      solve_floor_member (sv, &fs, fr, idx, results);
+      else
+        solve_floor_member (sv, &fs, fr, idx, results);
+      /* what was handed down to it is read once, above: freed before the floor's results
+       * pile up (2 MB of the CLI's peak on 10,000 members) */
+      for (guint s = 0; s < 2; s++)
+        if (fs.takedown[s] != NULL)
+          trb_frame_takedown_release_member (fs.takedown[s], idx);
     }
 
   floor_columns_walls (&fs, fr, MAX (settings->floors_above, 0));
