@@ -1965,14 +1965,29 @@ trb_frame_new (const TrbFramePlan  *plan,
   point_loads (&ctx, loads, unassigned_points);
   context_clear (&ctx);
 
+  /* A member's loads of every case in one block of their exact size, loads[0] at its start:
+   * the frame is kept from one solve to the next, and four arrays grown by doubling each were
+   * some 0.9 MB more on 10,000 members. */
   for (guint m = 0; m < n; m++)
-    for (int c = 0; c < TRB_N_CASES; c++)
-      {
-        GArray *a = loads[m * TRB_N_CASES + c];
+    {
+      GArray **a = &loads[m * TRB_N_CASES];
+      TrbLoad *block;
+      guint total = 0;
 
-        frame->members[m].n_loads[c] = a->len;
-        frame->members[m].loads[c] = (const TrbLoad *) g_array_free (a, FALSE);
-      }
+      for (int c = 0; c < TRB_N_CASES; c++)
+        total += a[c]->len;
+      block = total > 0 ? g_new (TrbLoad, total) : NULL;
+      total = 0;
+      for (int c = 0; c < TRB_N_CASES; c++)
+        {
+          if (a[c]->len > 0)
+            memcpy (block + total, a[c]->data, a[c]->len * sizeof (TrbLoad));
+          frame->members[m].n_loads[c] = a[c]->len;
+          frame->members[m].loads[c] = block != NULL ? block + total : NULL;
+          total += a[c]->len;
+          g_array_unref (a[c]);
+        }
+    }
   g_free (loads);
 
   frame->n_unassigned_lines = unassigned_lines->len;
@@ -1999,8 +2014,7 @@ trb_frame_free (TrbFrame *frame)
       g_free ((TrbSupport *) r->supports);
       g_free ((TrbBearing *) r->bearings);
       g_free ((TrbFrameStrip *) r->strips);
-      for (int c = 0; c < TRB_N_CASES; c++)
-        g_free ((TrbLoad *) r->loads[c]);
+      g_free ((TrbLoad *) r->loads[0]);   /* the block of every case */
     }
   g_free (frame->members);
   g_clear_pointer (&frame->member_index, g_hash_table_unref);
