@@ -1550,6 +1550,16 @@ typedef struct
   double a, b, wa, wb;
 } Piece;
 
+/* A member's loads of one case as the frame gathers them: made on the first (most of the
+ * members' cases get none, and 40,000 empty arrays were 2 MB at the editor's peak). */
+static GArray *
+loads_slot (GArray **slot)
+{
+  if (*slot == NULL)
+    *slot = g_array_new (FALSE, FALSE, sizeof (TrbLoad));
+  return *slot;
+}
+
 static void
 area_loads (const TrbFramePlan   *plan,
             const Axis           *axis,
@@ -1654,7 +1664,7 @@ area_loads (const TrbFramePlan   *plan,
       /* join pieces that continue one another; drop the empty ones */
       {
         double eps = 1e-9 * scale;
-        GArray *dest = loads[c];
+        GArray *dest = pieces->len > 0 ? loads_slot (&loads[c]) : NULL;
         gboolean open = FALSE;
 
         for (guint k = 0; k < pieces->len; k++)
@@ -1809,7 +1819,7 @@ line_loads (Context  *ctx,
                     load.b = CLAMP (MAX (a, b), 0.0, axis->length);
                     /* the same force on a member a hair out of line with the load */
                     load.w1 = load.w2 = line->w / fabs (cosine);
-                    g_array_append_val (loads[m * TRB_N_CASES + line->load_case], load);
+                    g_array_append_val (loads_slot (&loads[m * TRB_N_CASES + line->load_case]), load);
                     on += fp->hi - fp->lo;
                   }
                 {
@@ -1868,7 +1878,7 @@ point_loads (Context  *ctx,
           TrbLoad load = { TRB_LOAD_POINT, axis_position (&axes[best], &p), 0.0, pl->P, 0.0 };
 
           load.b = load.a;
-          g_array_append_val (loads[best * TRB_N_CASES + pl->load_case], load);
+          g_array_append_val (loads_slot (&loads[best * TRB_N_CASES + pl->load_case]), load);
         }
     }
 }
@@ -1948,9 +1958,8 @@ trb_frame_new (const TrbFramePlan  *plan,
     find_supports (&ctx, m, frame, &frame->members[m]);
   order_members (frame);
 
+  /* each member's array of each case made when its first load comes (loads_slot()) */
   loads = g_new0 (GArray *, MAX (n, 1) * TRB_N_CASES);
-  for (guint k = 0; k < n * TRB_N_CASES; k++)
-    loads[k] = g_array_new (FALSE, FALSE, sizeof (TrbLoad));
 
   for (guint m = 0; m < n; m++)
     if (plan->members[m].carries_deck)
@@ -1975,17 +1984,19 @@ trb_frame_new (const TrbFramePlan  *plan,
       guint total = 0;
 
       for (int c = 0; c < TRB_N_CASES; c++)
-        total += a[c]->len;
+        total += a[c] != NULL ? a[c]->len : 0;
       block = total > 0 ? g_new (TrbLoad, total) : NULL;
       total = 0;
       for (int c = 0; c < TRB_N_CASES; c++)
         {
-          if (a[c]->len > 0)
-            memcpy (block + total, a[c]->data, a[c]->len * sizeof (TrbLoad));
-          frame->members[m].n_loads[c] = a[c]->len;
+          guint len = a[c] != NULL ? a[c]->len : 0;
+
+          if (len > 0)
+            memcpy (block + total, a[c]->data, len * sizeof (TrbLoad));
+          frame->members[m].n_loads[c] = len;
           frame->members[m].loads[c] = block != NULL ? block + total : NULL;
-          total += a[c]->len;
-          g_array_unref (a[c]);
+          total += len;
+          g_clear_pointer (&a[c], g_array_unref);
         }
     }
   g_free (loads);
