@@ -1550,21 +1550,34 @@ typedef struct
   double a, b, wa, wb;
 } Piece;
 
-/* A member's loads of one case as the frame gathers them: made on the first (most of the
- * members' cases get none, and 40,000 empty arrays were 2 MB at the editor's peak). */
-static GArray *
-loads_slot (GArray **slot)
+/* A member's loads of one case as the frame gathers them. Not a GArray: the editor solves
+ * on a worker thread, and GLib 2.74 takes a GArray's header from that thread's slice
+ * magazines, which keep freed memory for headers only (1.5 MB held after the frame of
+ * 10,000 members was made); a plain block goes back to malloc. */
+typedef struct
 {
-  if (*slot == NULL)
-    *slot = g_array_new (FALSE, FALSE, sizeof (TrbLoad));
-  return *slot;
+  TrbLoad *data;
+  guint    len;
+  guint    room;
+} LoadList;
+
+static void
+load_list_append (LoadList      *list,
+                  const TrbLoad *load)
+{
+  if (list->len == list->room)
+    {
+      list->room = MAX (4, 2 * list->room);
+      list->data = g_renew (TrbLoad, list->data, list->room);
+    }
+  list->data[list->len++] = *load;
 }
 
 static void
 area_loads (const TrbFramePlan   *plan,
             const Axis           *axis,
             TrbFrameMemberResult *out,
-            GArray              **loads)   /* [TRB_N_CASES] of TrbLoad */
+            LoadList             *loads)   /* [TRB_N_CASES] */
 {
   guint n_loads = plan->n_area_loads;
   guint n_open = plan->n_openings;
@@ -1664,13 +1677,13 @@ area_loads (const TrbFramePlan   *plan,
       /* join pieces that continue one another; drop the empty ones */
       {
         double eps = 1e-9 * scale;
-        GArray *dest = pieces->len > 0 ? loads_slot (&loads[c]) : NULL;
+        LoadList *dest = &loads[c];
         gboolean open = FALSE;
 
         for (guint k = 0; k < pieces->len; k++)
           {
             Piece *p = &g_array_index (pieces, Piece, k);
-            TrbLoad *last = open ? &g_array_index (dest, TrbLoad, dest->len - 1) : NULL;
+            TrbLoad *last = open ? &dest->data[dest->len - 1] : NULL;
             TrbLoad load;
 
             /* rounding leaves crumbs such as -0 or 1e-13 where the width ends at zero */
@@ -1708,7 +1721,7 @@ area_loads (const TrbFramePlan   *plan,
             load.b = p->b;
             load.w1 = p->wa;
             load.w2 = p->wb;
-            g_array_append_val (dest, load);
+            load_list_append (dest, &load);
             open = TRUE;
           }
       }
@@ -1755,7 +1768,7 @@ interval_subtract (GArray   *covered,
 
 static void
 line_loads (Context  *ctx,
-            GArray  **loads,       /* [member * TRB_N_CASES + case] */
+            LoadList *loads,       /* [member * TRB_N_CASES + case] */
             GArray   *unassigned)
 {
   const TrbFramePlan *plan = ctx->plan;
@@ -1819,7 +1832,7 @@ line_loads (Context  *ctx,
                     load.b = CLAMP (MAX (a, b), 0.0, axis->length);
                     /* the same force on a member a hair out of line with the load */
                     load.w1 = load.w2 = line->w / fabs (cosine);
-                    g_array_append_val (loads_slot (&loads[m * TRB_N_CASES + line->load_case]), load);
+                    load_list_append (&loads[m * TRB_N_CASES + line->load_case], &load);
                     on += fp->hi - fp->lo;
                   }
                 {
@@ -1843,7 +1856,7 @@ line_loads (Context  *ctx,
 
 static void
 point_loads (Context  *ctx,
-             GArray  **loads,
+             LoadList *loads,
              GArray   *unassigned)
 {
   const TrbFramePlan *plan = ctx->plan;
@@ -1878,7 +1891,7 @@ point_loads (Context  *ctx,
           TrbLoad load = { TRB_LOAD_POINT, axis_position (&axes[best], &p), 0.0, pl->P, 0.0 };
 
           load.b = load.a;
-          g_array_append_val (loads_slot (&loads[best * TRB_N_CASES + pl->load_case]), load);
+          load_list_append (&loads[best * TRB_N_CASES + pl->load_case], &load);
         }
     }
 }
@@ -1919,7 +1932,7 @@ trb_frame_new (const TrbFramePlan  *plan,
   g_autoptr(TrbFrame) frame = NULL;
   g_autofree Axis *axes = NULL;
   Context ctx;
-  GArray **loads;
+  LoadList *loads;
   g_autoptr(GArray) unassigned_lines = NULL;
   g_autoptr(GArray) unassigned_points = NULL;
   guint n;
@@ -1958,8 +1971,7 @@ trb_frame_new (const TrbFramePlan  *plan,
     find_supports (&ctx, m, frame, &frame->members[m]);
   order_members (frame);
 
-  /* each member's array of each case made when its first load comes (loads_slot()) */
-  loads = g_new0 (GArray *, MAX (n, 1) * TRB_N_CASES);
+  loads = g_new0 (LoadList, MAX (n, 1) * TRB_N_CASES);
 
   for (guint m = 0; m < n; m++)
     if (plan->members[m].carries_deck)
@@ -1979,24 +1991,24 @@ trb_frame_new (const TrbFramePlan  *plan,
    * some 0.9 MB more on 10,000 members. */
   for (guint m = 0; m < n; m++)
     {
-      GArray **a = &loads[m * TRB_N_CASES];
+      LoadList *a = &loads[m * TRB_N_CASES];
       TrbLoad *block;
       guint total = 0;
 
       for (int c = 0; c < TRB_N_CASES; c++)
-        total += a[c] != NULL ? a[c]->len : 0;
+        total += a[c].len;
       block = total > 0 ? g_new (TrbLoad, total) : NULL;
       total = 0;
       for (int c = 0; c < TRB_N_CASES; c++)
         {
-          guint len = a[c] != NULL ? a[c]->len : 0;
+          guint len = a[c].len;
 
           if (len > 0)
-            memcpy (block + total, a[c]->data, len * sizeof (TrbLoad));
+            memcpy (block + total, a[c].data, len * sizeof (TrbLoad));
           frame->members[m].n_loads[c] = len;
           frame->members[m].loads[c] = block != NULL ? block + total : NULL;
           total += len;
-          g_clear_pointer (&a[c], g_array_unref);
+          g_free (a[c].data);
         }
     }
   g_free (loads);
