@@ -884,6 +884,18 @@ test_hand_down (void)
   g_assert_cmpuint (n, ==, 1);
   assert_load (&loads[0], TRB_LOAD_POINT, 5, 5, 300, 0);
 
+  /* nothing handed down onto a joist: no loads, whatever the case */
+  loads = trb_frame_takedown_get_member_loads (td, 1, TRB_CASE_S, &n);
+  g_assert_cmpuint (n, ==, 0);
+  /* G1's loads released once read (as a floor's solve does); what comes after starts anew */
+  trb_frame_takedown_release_member (td, 0);
+  loads = trb_frame_takedown_get_member_loads (td, 0, TRB_CASE_D, &n);
+  g_assert_cmpuint (n, ==, 0);
+  g_assert_true (trb_frame_takedown_add (td, 1, &reactions[0][0], 2, &error));
+  loads = trb_frame_takedown_get_member_loads (td, 0, TRB_CASE_D, &n);
+  g_assert_cmpuint (n, ==, 1);
+  assert_load (&loads[0], TRB_LOAD_POINT, 2, 2, 100, 0);
+
   /* as many reactions as supports, no fewer */
   g_assert_false (trb_frame_hand_down (frame, 1, &reactions[0][0], 1, out, &error));
   g_assert_error (error, TRB_ERROR, TRB_ERROR_INVALID);

@@ -9,6 +9,9 @@
 #include <math.h>
 #include <stdio.h>
 #include <string.h>
+#ifdef __GLIBC__
+#include <malloc.h>
+#endif
 
 #include "trb-cautions.h"
 #include "trb-cli-report.h"
@@ -2024,6 +2027,12 @@ cmd_run (int       argc,
       return EXIT_USAGE;
     }
 
+#ifdef __GLIBC__
+  /* The parser's tree is gone; glibc keeps the pages it freed (holes the solve's small
+   * blocks fill unevenly): handing them back lowers the peak by some 0.7 MB on 10,000
+   * members. */
+  malloc_trim (0);
+#endif
   trb_solve_options_init (&options);
   /* the check's table and JSON show each member's shortlist; the schedule does not */
   if (!schedule)

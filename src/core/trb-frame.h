@@ -232,6 +232,8 @@ const TrbLoad              *trb_frame_takedown_get_member_loads (const TrbFrameT
                                                                  guint                   member,
                                                                  TrbLoadCase             load_case,
                                                                  guint                  *n_loads);
+void                        trb_frame_takedown_release_member   (TrbFrameTakedown       *takedown,
+                                                                 guint                   member);
 double                      trb_frame_takedown_get_column_load  (const TrbFrameTakedown *takedown,
                                                                  guint                   column,
                                                                  TrbLoadCase             load_case);

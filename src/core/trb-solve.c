@@ -3844,6 +3844,22 @@ floor_plan_clear (FloorPlan *fp)
   g_clear_pointer (&fp->point_map, g_array_unref);
 }
 
+/* Once the frame is made, only the maps are read again (floor_unassigned()): the rest goes
+ * before the members are solved (1 MB on 10,000 members, at the solve's peak). The frame
+ * keeps nothing of the plan. */
+static void
+floor_plan_trim (FloorPlan *fp)
+{
+  g_clear_pointer (&fp->columns, g_array_unref);
+  g_clear_pointer (&fp->walls, g_array_unref);
+  g_clear_pointer (&fp->members, g_array_unref);
+  g_clear_pointer (&fp->area_loads, g_array_unref);
+  g_clear_pointer (&fp->openings, g_array_unref);
+  g_clear_pointer (&fp->line_loads, g_array_unref);
+  g_clear_pointer (&fp->point_loads, g_array_unref);
+  memset (&fp->plan, 0, sizeof fp->plan);
+}
+
 static guint
 load_stream (gboolean    reduction,
              TrbLoadCase lcase,
@@ -4999,8 +5015,11 @@ solve_floor (Solver         *sv,
     }
 
   for (guint s = 0; s < 2; s++)
-    if (fs.frame[s] != NULL)
-      fs.takedown[s] = trb_frame_takedown_new (fs.frame[s]);
+    {
+      floor_plan_trim (&fp[s]);
+      if (fs.frame[s] != NULL)
+        fs.takedown[s] = trb_frame_takedown_new (fs.frame[s]);
+    }
   fs.ok = g_new0 (gboolean, n + 1);
   fs.reason = g_new0 (char *, n + 1);
   fs.area_in = g_new0 (double, n + 1);
@@ -5058,9 +5077,14 @@ solve_floor (Solver         *sv,
           g_hash_table_insert (results, (gpointer) m, r);
           floor_count_applied (&fs, fr, idx);
           floor_strand (&fs, fr, idx);
-          continue;
         }
-      solve_floor_member (sv, &fs, fr, idx, results);
+      else
+        solve_floor_member (sv, &fs, fr, idx, results);
+      /* what was handed down to it is read once, above: freed before the floor's results
+       * pile up (2 MB of the CLI's peak on 10,000 members) */
+      for (guint s = 0; s < 2; s++)
+        if (fs.takedown[s] != NULL)
+          trb_frame_takedown_release_member (fs.takedown[s], idx);
     }
 
   floor_columns_walls (&fs, fr, MAX (settings->floors_above, 0));
