@@ -3497,6 +3497,8 @@ key_bytes (Key          *key,
            gconstpointer data,
            gsize         size)
 {
+  if (size == 0)
+    return;   /* an empty array's data may be NULL, which memcpy may not be given */
   if (G_UNLIKELY (key->len + size > key->room))
     {
       key->room = MAX (2 * key->room, key->len + size + 512);
