@@ -625,6 +625,107 @@ test_draw_stacked_loads (void)
   cairo_surface_destroy (s);
 }
 
+/* Load labels keep clear of the members' own labels (common practice: a marked-up plan must
+ * stay readable). In a tight run of joists no place is clear of the joists' lines, so the
+ * area load's label used to stay at its outline's centroid, on top of the marks, sections and
+ * ratios drawn at the joists' middles; now it leaves the middle band of the run, and so does
+ * the label of a line load along the last joist. The labels are found by their ink: the case's
+ * hue at 0.6 (draw_area_loads) and at 0.75 (draw_line_loads). */
+static int
+ink_rows_in_band (cairo_surface_t *s,
+                  const TrbRgba   *ink,
+                  double           y_lo,
+                  double           y_hi,
+                  int             *found)
+{
+  int w = cairo_image_surface_get_width (s), h = cairo_image_surface_get_height (s);
+  int in_band = 0;
+
+  *found = 0;
+  for (int y = 0; y < h; y++)
+    for (int x = 0; x < w; x++)
+      {
+        int r, g, b;
+
+        pixel (s, x, y, &r, &g, &b);
+        if (ABS (r - (int) round (255 * ink->r)) <= 6 && ABS (g - (int) round (255 * ink->g)) <= 6
+            && ABS (b - (int) round (255 * ink->b)) <= 6)
+          {
+            (*found)++;
+            in_band += y > y_lo && y < y_hi;
+          }
+      }
+  return in_band;
+}
+
+static void
+test_draw_load_labels_clear (void)
+{
+  g_autoptr(TrbProject) p = trb_project_new ();
+  TrbFloor *f = trb_floor_new ("Run");
+  g_autoptr(TrbPlanScene) scene = NULL;
+  cairo_surface_t *s = cairo_image_surface_create (CAIRO_FORMAT_RGB24, 520, 560);
+  cairo_t *cr = cairo_create (s);
+  TrbPlanDrawOptions options;
+  TrbPlanView view;
+  TrbPlanBounds bounds = { -0.5, -0.5, 6.5, 8.5 };
+  TrbAreaLoad *a;
+  TrbLineLoad *l;
+  TrbRgba area_ink, line_ink;
+  double x0, y_mid, x1, y_top, fs;
+  int found, in_band;
+
+  trb_project_add_floor (p, f);
+  for (int k = 0; k <= 15; k++)
+    {
+      g_autofree char *id = g_strdup_printf ("J%d", k + 1);
+
+      add_member (p, f, id, 0.4 * k, 0, 0.4 * k, 8, TRB_FRAME_ROLE_JOIST);
+    }
+  a = trb_area_load_new (TRB_CASE_D, TRB_AREA_LOAD_ORDINARY, 2000, "deck", NULL);
+  trb_points_append (a->points, 0, 0);
+  trb_points_append (a->points, 6, 0);
+  trb_points_append (a->points, 6, 8);
+  trb_points_append (a->points, 0, 8);
+  g_ptr_array_add (f->area_loads, a);
+  l = trb_line_load_new (TRB_CASE_L, 700, "rail");
+  trb_points_append (l->points, 6, 0);
+  trb_points_append (l->points, 6, 8);
+  g_ptr_array_add (f->line_loads, l);
+
+  scene = trb_plan_scene_new (p, f, NULL);
+  trb_plan_draw_options_init (&options, 520, 560);
+  trb_plan_view_fit (&view, &bounds, 0, 0, 520, 560, 20);
+  cairo_set_source_rgb (cr, 1, 1, 1);
+  cairo_paint (cr);
+  trb_plan_draw (cr, scene, &view, &options);
+  cairo_surface_flush (s);
+
+  /* the joists' labels sit at their middles, over about seven text heights (3.5 each way) */
+  fs = options.style.font_size;
+  trb_plan_view_to_device (&view, 0, 4, &x0, &y_mid);
+  trb_plan_view_to_device (&view, 6, 8, &x1, &y_top);
+  g_assert_cmpfloat (fabs (y_mid - y_top), >, 6 * fs);  /* room to leave the band */
+
+  trb_render_case_color (&options.style, TRB_CASE_D, &area_ink);
+  area_ink.r *= 0.6;
+  area_ink.g *= 0.6;
+  area_ink.b *= 0.6;
+  in_band = ink_rows_in_band (s, &area_ink, y_mid - 3.5 * fs, y_mid + 3.5 * fs, &found);
+  g_assert_cmpint (found, >, 10);      /* the area load's label is drawn */
+  g_assert_cmpint (in_band, ==, 0);    /* and not over the joists' labels */
+
+  trb_render_case_color (&options.style, TRB_CASE_L, &line_ink);
+  line_ink.r *= 0.75;
+  line_ink.g *= 0.75;
+  line_ink.b *= 0.75;
+  in_band = ink_rows_in_band (s, &line_ink, y_mid - 3.5 * fs, y_mid + 3.5 * fs, &found);
+  g_assert_cmpint (found, >, 10);      /* the line load is drawn, arrows and label */
+
+  cairo_destroy (cr);
+  cairo_surface_destroy (s);
+}
+
 /* ---- text laid out once ------------------------------------------------------------------ */
 
 static void
@@ -993,6 +1094,7 @@ main (int    argc,
   g_test_add_func ("/trb/render/draw/failures", test_draw_failures);
   g_test_add_func ("/trb/render/draw/wall-hatch", test_draw_wall_hatch);
   g_test_add_func ("/trb/render/draw/stacked-loads", test_draw_stacked_loads);
+  g_test_add_func ("/trb/render/draw/load-labels-clear", test_draw_load_labels_clear);
   g_test_add_func ("/trb/render/text-cache", test_text_cache);
   g_test_add_func ("/trb/render/scale/parse", test_scale_parse);
   g_test_add_func ("/trb/render/scale/fit", test_scale_fit);

@@ -1052,6 +1052,68 @@ box_hits_member (DrawContext         *dc,
   return FALSE;
 }
 
+/* Does a device rectangle meet the middle of a member's line (device coordinates, line[4]),
+ * where its mark, section and ratio are drawn (a stretch of about seven text heights)? */
+static gboolean
+label_zone_touches_box (DrawContext         *dc,
+                        const double         line[4],
+                        const TrbPlanBounds *box)
+{
+  double half = 3.5 * dc->fs;
+  double len = hypot (line[2] - line[0], line[3] - line[1]);
+  double mx = (line[0] + line[2]) / 2, my = (line[1] + line[3]) / 2, zone[4];
+
+  if (len <= 2 * half)
+    return line_touches_box (line, box);
+  zone[0] = mx - (line[2] - line[0]) / len * half;
+  zone[1] = my - (line[3] - line[1]) / len * half;
+  zone[2] = mx + (line[2] - line[0]) / len * half;
+  zone[3] = my + (line[3] - line[1]) / len * half;
+  return line_touches_box (zone, box);
+}
+
+/* box_hits_member() for the members' labels only: does the rectangle meet the middle of a
+ * member's line? */
+static gboolean
+box_hits_member_label (DrawContext         *dc,
+                       const TrbPlanBounds *box)
+{
+  const TrbFloor *floor = dc->scene->floor;
+
+  if (dc->near_first == NULL)
+    near_grid_build (dc);
+
+  if (box->min_x >= dc->near_box.min_x && box->max_x <= dc->near_box.max_x &&
+      box->min_y >= dc->near_box.min_y && box->max_y <= dc->near_box.max_y)
+    {
+      int c[4];
+
+      near_cells (dc, box->min_x, box->min_y, box->max_x, box->max_y, c);
+      for (int cy = c[1]; cy <= c[3]; cy++)
+        for (int cx = c[0]; cx <= c[2]; cx++)
+          {
+            guint cell = cy * dc->near_nx + cx;
+
+            for (guint k = dc->near_first[cell]; k < dc->near_first[cell + 1]; k++)
+              if (label_zone_touches_box (dc, dc->line + 4 * dc->near_index[k], box))
+                return TRUE;
+          }
+      return FALSE;
+    }
+
+  for (guint i = 0; i < floor->members->len; i++)
+    {
+      const TrbMember *m = g_ptr_array_index (floor->members, i);
+      double line[4];
+
+      trb_plan_view_to_device (dc->view, m->start.x, m->start.y, &line[0], &line[1]);
+      trb_plan_view_to_device (dc->view, m->end.x, m->end.y, &line[2], &line[3]);
+      if (label_zone_touches_box (dc, line, box))
+        return TRUE;
+    }
+  return FALSE;
+}
+
 static gboolean
 boxes_overlap (const TrbPlanBounds *a,
                const TrbPlanBounds *b)
@@ -1077,7 +1139,7 @@ label_clear_of_members (DrawContext  *dc,
   double h = size * 1.3;
   double band = 1.6 * dc->fs;
   TrbPlanBounds mine = { *x - w / 2, *y - h / 2, *x + w / 2, *y + h / 2 };
-  gboolean have_fallback = FALSE;
+  gboolean have_fallback = FALSE, fallback_clear_of_labels = FALSE;
   double fx = *x, fy = *y;
 
   for (int k = 0; k < 25; k++)
@@ -1097,13 +1159,20 @@ label_clear_of_members (DrawContext  *dc,
         continue;
       for (guint i = 0; clear && i < taken->len; i++)
         clear = !boxes_overlap (&box, &g_array_index (taken, TrbPlanBounds, i));
-      if (clear && !have_fallback)
+      if (clear && !fallback_clear_of_labels)
         {
           /* in a tight run of joists no place is clear of them: then the nearest place clear
-           * of the other load labels, on its own background */
-          have_fallback = TRUE;
-          fx = cx;
-          fy = cy;
+           * of the other load labels and of the members' own labels (at their middles), or
+           * failing that of the load labels alone, on its own background */
+          gboolean off_labels = !box_hits_member_label (dc, &wide);
+
+          if (!have_fallback || off_labels)
+            {
+              have_fallback = TRUE;
+              fallback_clear_of_labels = off_labels;
+              fx = cx;
+              fy = cy;
+            }
         }
       if (clear && !box_hits_member (dc, &wide))
         {
@@ -1118,6 +1187,76 @@ label_clear_of_members (DrawContext  *dc,
   *y = fy;
   mine = (TrbPlanBounds) { fx - w / 2, fy - h / 2, fx + w / 2, fy + h / 2 };
   g_array_append_val (taken, mine);
+}
+
+/* A line load's label: its text, where it sits (device, the middle of the text's edge nearest
+ * the load line) and its angle: a quarter along the first segment (clear of the middles, where
+ * the labels of the member under it and of its neighbours are; nearer the middle where the
+ * line is short), on the far side of the load line from the member. FALSE when no segment has
+ * a length. */
+static gboolean
+line_load_label (DrawContext       *dc,
+                 const TrbLineLoad *l,
+                 char             **text,
+                 double            *lx,
+                 double            *ly,
+                 double            *angle)
+{
+  double alen = 1.6 * dc->fs;
+  g_autofree char *w = trb_units_format (l->w, TRB_DIM_LINE_LOAD, dc->scene->units);
+
+  *text = NULL;
+  for (guint k = 0; k + 1 < l->points->len; k++)
+    {
+      const TrbFramePoint *a = &g_array_index (l->points, TrbFramePoint, k);
+      const TrbFramePoint *b = &g_array_index (l->points, TrbFramePoint, k + 1);
+      double ax, ay, bx, by, len, ux, uy, at;
+
+      trb_plan_view_to_device (dc->view, a->x, a->y, &ax, &ay);
+      trb_plan_view_to_device (dc->view, b->x, b->y, &bx, &by);
+      len = hypot (bx - ax, by - ay);
+      if (len < 1e-9)
+        continue;
+      ux = (bx - ax) / len;
+      uy = (by - ay) / len;
+      *text = g_strdup_printf ("%s %s%s%s", trb_load_case_name (l->lcase), w,
+                               l->label != NULL ? " " : "", l->label != NULL ? l->label : "");
+      at = MIN (0.5 * len, MAX (0.25 * len, 0.5 * text_width (dc, *text, dc->fs * 0.9, FALSE)
+                                            + dc->fs));
+      *lx = ax + ux * at + uy * alen;
+      *ly = ay + uy * at - ux * alen;
+      *angle = atan2 (uy, ux);
+      return TRUE;
+    }
+  return FALSE;
+}
+
+/* The device box around a line load's label, for the area loads' labels to keep clear of. */
+static void
+line_load_label_box (DrawContext       *dc,
+                     const TrbLineLoad *l,
+                     GArray            *taken)
+{
+  g_autofree char *text = NULL;
+  double lx, ly, angle, w, h, c, s;
+  TrbPlanBounds box;
+
+  if (!line_load_label (dc, l, &text, &lx, &ly, &angle))
+    return;
+  w = text_width (dc, text, dc->fs * 0.9, FALSE);
+  h = dc->fs * 0.9 * 1.3;
+  /* the text runs along the line, w long, and h away from it on the far side (flipped to
+   * read upright or not, it lies on the same side): bound the rotated rectangle around its
+   * centre */
+  c = fabs (cos (angle));
+  s = fabs (sin (angle));
+  lx += sin (angle) * h / 2;
+  ly -= cos (angle) * h / 2;
+  box.min_x = lx - (c * w + s * h) / 2;
+  box.max_x = lx + (c * w + s * h) / 2;
+  box.min_y = ly - (s * w + c * h) / 2;
+  box.max_y = ly + (s * w + c * h) / 2;
+  g_array_append_val (taken, box);
 }
 
 static gboolean
@@ -1193,6 +1332,13 @@ draw_area_loads (DrawContext *dc)
     g_autoptr(GHashTable) placed = g_hash_table_new_full (g_str_hash, g_str_equal, g_free, NULL);
     g_autoptr(GArray) taken = g_array_new (FALSE, FALSE, sizeof (TrbPlanBounds));
 
+    for (guint i = 0; i < floor->line_loads->len; i++)
+      {
+        const TrbLineLoad *l = g_ptr_array_index (floor->line_loads, i);
+
+        if (points_visible (dc, l->points))
+          line_load_label_box (dc, l, taken);
+      }
     for (guint i = 0; i < floor->area_loads->len; i++)
       {
         const TrbAreaLoad *a = g_ptr_array_index (floor->area_loads, i);
@@ -2141,7 +2287,7 @@ draw_line_loads (DrawContext *dc)
       const TrbLineLoad *l = g_ptr_array_index (floor->line_loads, i);
       TrbRgba c;
       double lx = 0, ly = 0, lang = 0;
-      gboolean have_label = FALSE;
+      g_autofree char *t = NULL;
 
       if (!points_visible (dc, l->points))
         continue;
@@ -2183,20 +2329,9 @@ draw_line_loads (DrawContext *dc)
               cairo_stroke (cr);
               arrow_head (cr, px, py, nx, ny, 0.65 * alen);
             }
-          if (!have_label)
-            {
-              have_label = TRUE;
-              lx = (ax + bx) / 2 - nx * alen;
-              ly = (ay + by) / 2 - ny * alen;
-              lang = atan2 (uy, ux);
-            }
         }
-      if (have_label)
+      if (line_load_label (dc, l, &t, &lx, &ly, &lang))
         {
-          g_autofree char *w = trb_units_format (l->w, TRB_DIM_LINE_LOAD, dc->scene->units);
-          g_autofree char *t = g_strdup_printf ("%s %s%s%s", trb_load_case_name (l->lcase), w,
-                                                l->label != NULL ? " " : "",
-                                                l->label != NULL ? l->label : "");
           gboolean flip = lang > G_PI / 2 + 1e-9 || lang <= -G_PI / 2 + 1e-9;
 
           cairo_save (cr);
