@@ -907,11 +907,6 @@ span_extremes_clear (SpanExtremes *sx)
   g_clear_pointer (&sx->strength, g_array_unref);
 }
 
-/* The analysis with a given stiffness and self-weight (N/m, added to D); with E or I NAN only
- * the stability is checked. Returns FALSE, with the status set when something is wrong, when
- * there is nothing more to do. The design step runs this for each section it tries, with that
- * section's E, I and weight, on a fresh result. Reads only its arguments; sx (may be NULL)
- * gets the deflection sets' extremes over the spans. */
 /* Sizing's lean analysis of a section: only the entries of each set that keep marks (by
  * their place among all; NULL: every one), without envelopes; whether the entries left out
  * and the cases are finite is proved from the size of what they are made of, and unproved
@@ -922,6 +917,11 @@ typedef struct
   gboolean        unproved;
 } Lean;
 
+/* The analysis with a given stiffness and self-weight (N/m, added to D); with E or I NAN only
+ * the stability is checked. Returns FALSE, with the status set when something is wrong, when
+ * there is nothing more to do. The design step runs this for each section it tries, with that
+ * section's E, I and weight, on a fresh result. Reads only its arguments; sx (may be NULL)
+ * gets the deflection sets' extremes over the spans. */
 static gboolean
 analyse (const TrbProject  *project,
          const MemberInput *in,
@@ -3832,20 +3832,6 @@ typedef struct
   guint              n_loads;      /* loads of any kind in this stream */
 } FloorPlan;
 
-static void
-floor_plan_clear (FloorPlan *fp)
-{
-  g_clear_pointer (&fp->columns, g_array_unref);
-  g_clear_pointer (&fp->walls, g_array_unref);
-  g_clear_pointer (&fp->members, g_array_unref);
-  g_clear_pointer (&fp->area_loads, g_array_unref);
-  g_clear_pointer (&fp->openings, g_array_unref);
-  g_clear_pointer (&fp->line_loads, g_array_unref);
-  g_clear_pointer (&fp->point_loads, g_array_unref);
-  g_clear_pointer (&fp->line_map, g_array_unref);
-  g_clear_pointer (&fp->point_map, g_array_unref);
-}
-
 /* Once the frame is made, only the maps are read again (floor_unassigned()): the rest goes
  * before the members are solved (1 MB on 10,000 members, at the solve's peak). The frame
  * keeps nothing of the plan. */
@@ -3860,6 +3846,14 @@ floor_plan_trim (FloorPlan *fp)
   g_clear_pointer (&fp->line_loads, g_array_unref);
   g_clear_pointer (&fp->point_loads, g_array_unref);
   memset (&fp->plan, 0, sizeof fp->plan);
+}
+
+static void
+floor_plan_clear (FloorPlan *fp)
+{
+  floor_plan_trim (fp);
+  g_clear_pointer (&fp->line_map, g_array_unref);
+  g_clear_pointer (&fp->point_map, g_array_unref);
 }
 
 static guint

@@ -1010,48 +1010,6 @@ near_grid_build (DrawContext *dc)
     }
 }
 
-/* Does a device rectangle cross a member's line? A box inside the drawing rectangle padded for
- * labels can only meet the members drawn: those in the cells of the near grid it covers. */
-static gboolean
-box_hits_member (DrawContext         *dc,
-                 const TrbPlanBounds *box)
-{
-  const TrbFloor *floor = dc->scene->floor;
-
-  if (dc->near_first == NULL)
-    near_grid_build (dc);
-
-  if (box->min_x >= dc->near_box.min_x && box->max_x <= dc->near_box.max_x &&
-      box->min_y >= dc->near_box.min_y && box->max_y <= dc->near_box.max_y)
-    {
-      int c[4];
-
-      near_cells (dc, box->min_x, box->min_y, box->max_x, box->max_y, c);
-      for (int cy = c[1]; cy <= c[3]; cy++)
-        for (int cx = c[0]; cx <= c[2]; cx++)
-          {
-            guint cell = cy * dc->near_nx + cx;
-
-            for (guint k = dc->near_first[cell]; k < dc->near_first[cell + 1]; k++)
-              if (line_touches_box (dc->line + 4 * dc->near_index[k], box))
-                return TRUE;
-          }
-      return FALSE;
-    }
-
-  for (guint i = 0; i < floor->members->len; i++)
-    {
-      const TrbMember *m = g_ptr_array_index (floor->members, i);
-      double line[4];
-
-      trb_plan_view_to_device (dc->view, m->start.x, m->start.y, &line[0], &line[1]);
-      trb_plan_view_to_device (dc->view, m->end.x, m->end.y, &line[2], &line[3]);
-      if (line_touches_box (line, box))
-        return TRUE;
-    }
-  return FALSE;
-}
-
 /* Does a device rectangle meet the middle of a member's line (device coordinates, line[4]),
  * where its mark, section and ratio are drawn (a stretch of about seven text heights)? */
 static gboolean
@@ -1072,11 +1030,13 @@ label_zone_touches_box (DrawContext         *dc,
   return line_touches_box (zone, box);
 }
 
-/* box_hits_member() for the members' labels only: does the rectangle meet the middle of a
- * member's line? */
+/* Does a device rectangle cross a member's line (labels_only: the middle of it, where the
+ * member's labels are)? A box inside the drawing rectangle padded for labels can only meet
+ * the members drawn: those in the cells of the near grid it covers. */
 static gboolean
-box_hits_member_label (DrawContext         *dc,
-                       const TrbPlanBounds *box)
+box_meets_members (DrawContext         *dc,
+                   const TrbPlanBounds *box,
+                   gboolean             labels_only)
 {
   const TrbFloor *floor = dc->scene->floor;
 
@@ -1095,8 +1055,13 @@ box_hits_member_label (DrawContext         *dc,
             guint cell = cy * dc->near_nx + cx;
 
             for (guint k = dc->near_first[cell]; k < dc->near_first[cell + 1]; k++)
-              if (label_zone_touches_box (dc, dc->line + 4 * dc->near_index[k], box))
-                return TRUE;
+              {
+                const double *line = dc->line + 4 * dc->near_index[k];
+
+                if (labels_only ? label_zone_touches_box (dc, line, box)
+                                : line_touches_box (line, box))
+                  return TRUE;
+              }
           }
       return FALSE;
     }
@@ -1108,10 +1073,24 @@ box_hits_member_label (DrawContext         *dc,
 
       trb_plan_view_to_device (dc->view, m->start.x, m->start.y, &line[0], &line[1]);
       trb_plan_view_to_device (dc->view, m->end.x, m->end.y, &line[2], &line[3]);
-      if (label_zone_touches_box (dc, line, box))
+      if (labels_only ? label_zone_touches_box (dc, line, box) : line_touches_box (line, box))
         return TRUE;
     }
   return FALSE;
+}
+
+static gboolean
+box_hits_member (DrawContext         *dc,
+                 const TrbPlanBounds *box)
+{
+  return box_meets_members (dc, box, FALSE);
+}
+
+static gboolean
+box_hits_member_label (DrawContext         *dc,
+                       const TrbPlanBounds *box)
+{
+  return box_meets_members (dc, box, TRUE);
 }
 
 static gboolean
