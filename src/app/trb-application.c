@@ -10,6 +10,7 @@
 #include "trb-cautions.h"
 #include "trb-help.h"
 #include "trb-preferences-window.h"
+#include "trb-renderer.h"
 #include "trb-window.h"
 
 struct _TrbApplication
@@ -322,6 +323,9 @@ trb_application_startup (GApplication *app)
   };
 
   G_APPLICATION_CLASS (trb_application_parent_class)->startup (app);
+
+  /* before any window is realized: software GL gets the cairo renderer (trb-renderer.c) */
+  trb_renderer_choose (gdk_display_get_default ());
 
   self->settings = g_settings_new (APP_ID);
   g_settings_bind_with_mapping (self->settings, "style", adw_style_manager_get_default (),
