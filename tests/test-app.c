@@ -129,8 +129,11 @@ test_open_demo (Fixture       *f,
   GListModel *rows = trb_member_list_get_model (list);
   g_autofree char *expected_count = NULL;
 
-  /* the demo floor: one floor, and a row for every member of the file */
+  /* the demo floor: one floor (no list of floors, no Floor column), and a row for every
+   * member of the file */
   g_assert_cmpuint (project->floors->len, ==, 1);
+  g_assert_false (gtk_widget_get_visible (trb_window_get_floor_dropdown (f->window)));
+  g_assert_false (trb_member_list_get_shows_floors (list));
   g_assert_cmpuint (project->members->len, >, 0);
   g_assert_cmpuint (g_list_model_get_n_items (rows), ==, project->members->len);
   for (guint i = 0; i < project->members->len; i++)
@@ -620,6 +623,95 @@ test_save_round_trip (Fixture       *f,
   g_rmdir (dir);
 }
 
+/* A project of several floors: the header bar lists them, the plan shows one at a time, the
+ * keys and the list move between them, and tools draw on the floor shown. */
+static void
+test_floors (void)
+{
+  g_autofree char *path = g_test_build_filename (G_TEST_DIST, "data",
+                                                 "floor-two-levels.trabeate", NULL);
+  g_autoptr(GFile) file = g_file_new_for_path (path);
+  g_autoptr(GError) error = NULL;
+  g_autoptr(TrbDocument) document = trb_document_new_for_file (file, &error);
+  TrbWindow *window = trb_window_new (app);
+  TrbPlanCanvas *canvas = TRB_PLAN_CANVAS (trb_window_get_canvas (window));
+  TrbMemberList *list = TRB_MEMBER_LIST (trb_window_get_member_list (window));
+  GtkDropDown *floors;
+  TrbProject *project;
+  TrbFloor *level1, *roof, *empty;
+  TrbMember *r3;
+  guint position;
+
+  g_assert_no_error (error);
+  project = trb_document_get_project (document);
+  g_assert_cmpuint (project->floors->len, ==, 3);
+  level1 = g_ptr_array_index (project->floors, 0);
+  roof = g_ptr_array_index (project->floors, 1);
+  empty = g_ptr_array_index (project->floors, 2);
+  trb_window_set_document (window, document);
+  gtk_window_set_default_size (GTK_WINDOW (window), 1400, 900);
+  gtk_window_present (GTK_WINDOW (window));
+  wait_solved (document);
+  wait_for_frames (GTK_WIDGET (window), 2);
+
+  /* the header bar's list: the three floors by name, the first shown */
+  floors = GTK_DROP_DOWN (trb_window_get_floor_dropdown (window));
+  g_assert_true (gtk_widget_get_visible (GTK_WIDGET (floors)));
+  g_assert_cmpuint (g_list_model_get_n_items (gtk_drop_down_get_model (floors)), ==, 3);
+  g_assert_cmpstr (gtk_string_list_get_string (GTK_STRING_LIST (gtk_drop_down_get_model (floors)),
+                                               1), ==, "Roof");
+  g_assert_cmpuint (gtk_drop_down_get_selected (floors), ==, 0);
+  g_assert_true (trb_document_get_floor (document) == level1);
+  gtk_widget_activate_action (GTK_WIDGET (window), "win.previous-floor", NULL);
+  g_assert_cmpuint (trb_document_get_floor_index (document), ==, 0);
+
+  /* the list holds every floor's members; a roof member picked there brings the roof up */
+  g_assert_cmpuint (g_list_model_get_n_items (trb_member_list_get_model (list)), ==,
+                    project->members->len);
+  g_assert_cmpuint (level1->members->len + roof->members->len, ==, project->members->len);
+  r3 = trb_project_find_member (project, "R3");
+  g_assert_nonnull (r3);
+  g_assert_true (trb_member_list_get_shows_floors (list));
+  {
+    TrbMemberItem *row = find_row (trb_member_list_get_model (list), r3, &position);
+
+    g_assert_nonnull (row);
+    g_assert_cmpstr (trb_member_item_get_floor (row), ==, "Roof");
+  }
+  trb_member_list_activate_row (list, position);
+  g_assert_true (trb_document_get_floor (document) == roof);
+  g_assert_cmpuint (gtk_drop_down_get_selected (floors), ==, 1);
+  g_assert_true (trb_plan_canvas_get_selected_member (canvas) == r3);
+
+  /* the next floor (Ctrl Page Down): the empty one; the roof's selection goes with it */
+  g_assert_true (gtk_widget_activate_action (GTK_WIDGET (window), "win.next-floor", NULL));
+  g_assert_true (trb_document_get_floor (document) == empty);
+  g_assert_null (trb_plan_canvas_get_selected_member (canvas));
+  g_assert_cmpuint (gtk_drop_down_get_selected (floors), ==, 2);
+  gtk_widget_activate_action (GTK_WIDGET (window), "win.next-floor", NULL);
+  g_assert_cmpuint (trb_document_get_floor_index (document), ==, 2);
+
+  /* a girder drawn now goes on the empty floor, and nowhere else */
+  trb_plan_canvas_set_tool (canvas, TRB_TOOL_GIRDER);
+  trb_plan_canvas_click_plan (canvas, 0, 0, 0);
+  trb_plan_canvas_click_plan (canvas, 6, 0, 0);
+  g_assert_cmpuint (empty->members->len, ==, 1);
+  g_assert_true (((TrbMember *) g_ptr_array_index (empty->members, 0))->floor == empty);
+  g_assert_cmpuint (roof->members->len, ==, 3);
+
+  /* the header bar's list shows a floor too; showing a floor is not an edit */
+  gtk_drop_down_set_selected (floors, 0);
+  g_assert_true (trb_document_get_floor (document) == level1);
+  g_assert_true (gtk_widget_activate_action (GTK_WIDGET (window), "win.undo", NULL));
+  g_assert_cmpuint (empty->members->len, ==, 0);
+  g_assert_false (trb_document_get_modified (document));
+  g_assert_true (trb_document_get_floor (document) == level1);
+
+  gtk_window_destroy (GTK_WINDOW (window));
+  while (g_main_context_iteration (NULL, FALSE))
+    ;
+}
+
 static void
 test_bad_file (Fixture       *f,
                gconstpointer  data)
@@ -796,6 +888,7 @@ main (int   argc,
               test_edits_while_solving, fixture_tear_down);
   g_test_add ("/trb/app/save-round-trip", Fixture, NULL, fixture_set_up, test_save_round_trip,
               fixture_tear_down);
+  g_test_add_func ("/trb/app/floors", test_floors);
   g_test_add ("/trb/app/bad-file", Fixture, NULL, fixture_set_up, test_bad_file,
               fixture_tear_down);
   g_test_add ("/trb/app/dialogs", Fixture, NULL, fixture_set_up, test_dialogs,

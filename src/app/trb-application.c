@@ -317,6 +317,8 @@ trb_application_startup (GApplication *app)
     { "win.zoom-in", { "<Control>plus", "<Control>equal", NULL } },
     { "win.zoom-out", { "<Control>minus", NULL } },
     { "win.zoom-fit", { "<Control>0", NULL } },
+    { "win.next-floor", { "<Control>Page_Down", NULL } },
+    { "win.previous-floor", { "<Control>Page_Up", NULL } },
     { "win.show-failing", { "<Control><Shift>f", NULL } },
     { "win.show-panel", { "F9", NULL } },
     { "win.show-help-overlay", { "<Control>question", NULL } },

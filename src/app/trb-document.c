@@ -39,6 +39,7 @@ struct _TrbDocument
 
   guint64           generation;     /* counts the changes to the project */
   gboolean          solving;        /* a worker is solving, or is about to start */
+  guint             floor_index;    /* the floor shown */
   gboolean          pending;        /* the project changed while it was */
   guint             start_id;       /* idle that copies the project and starts the worker */
 
@@ -74,6 +75,7 @@ enum {
   PROP_CAN_UNDO,
   PROP_CAN_REDO,
   PROP_SOLVING,
+  PROP_FLOOR_INDEX,
   N_PROPS
 };
 
@@ -153,6 +155,9 @@ trb_document_get_property (GObject    *object,
     case PROP_SOLVING:
       g_value_set_boolean (value, self->solving);
       break;
+    case PROP_FLOOR_INDEX:
+      g_value_set_uint (value, trb_document_get_floor_index (self));
+      break;
     default:
       G_OBJECT_WARN_INVALID_PROPERTY_ID (object, prop_id, pspec);
     }
@@ -184,6 +189,10 @@ trb_document_class_init (TrbDocumentClass *klass)
   properties[PROP_SOLVING] =
     g_param_spec_boolean ("solving", NULL, NULL, FALSE,
                           G_PARAM_READABLE | G_PARAM_STATIC_STRINGS);
+  /* which of the project's floors the editor shows: trb_document_set_floor_index() */
+  properties[PROP_FLOOR_INDEX] =
+    g_param_spec_uint ("floor-index", NULL, NULL, 0, G_MAXUINT, 0,
+                       G_PARAM_READABLE | G_PARAM_EXPLICIT_NOTIFY | G_PARAM_STATIC_STRINGS);
   g_object_class_install_properties (object_class, N_PROPS, properties);
 
   /**
@@ -579,8 +588,8 @@ trb_document_get_project (TrbDocument *self)
  * trb_document_get_floor:
  * @self: a document
  *
- * Returns: (transfer none) (nullable): the floor the editor shows (the first), or %NULL for a
- *   project of standalone beams only.
+ * Returns: (transfer none) (nullable): the floor the editor shows, or %NULL for a project of
+ *   standalone beams only.
  */
 TrbFloor *
 trb_document_get_floor (TrbDocument *self)
@@ -589,7 +598,64 @@ trb_document_get_floor (TrbDocument *self)
 
   if (self->project->floors->len == 0)
     return NULL;
-  return g_ptr_array_index (self->project->floors, 0);
+  return g_ptr_array_index (self->project->floors, trb_document_get_floor_index (self));
+}
+
+/**
+ * trb_document_get_floor_index:
+ * @self: a document
+ *
+ * Returns: the index in the project's floors of the floor the editor shows (0 when there are
+ *   none).
+ */
+guint
+trb_document_get_floor_index (TrbDocument *self)
+{
+  g_return_val_if_fail (TRB_IS_DOCUMENT (self), 0);
+
+  /* no edit adds or removes a floor; clamped all the same */
+  return MIN (self->floor_index, MAX (self->project->floors->len, 1) - 1);
+}
+
+/**
+ * trb_document_set_floor_index:
+ * @self: a document
+ * @index: a floor's index in the project's floors
+ *
+ * Shows another floor. Not an edit: the project, its results and the history are untouched;
+ * the views follow ::notify::floor-index. An index past the last floor is refused.
+ */
+void
+trb_document_set_floor_index (TrbDocument *self,
+                              guint        index)
+{
+  g_return_if_fail (TRB_IS_DOCUMENT (self));
+  g_return_if_fail (index < MAX (self->project->floors->len, 1));
+
+  if (index == trb_document_get_floor_index (self))
+    return;
+  self->floor_index = index;
+  g_object_notify_by_pspec (G_OBJECT (self), properties[PROP_FLOOR_INDEX]);
+}
+
+/**
+ * trb_document_find_floor:
+ * @self: a document
+ * @floor: (nullable): a floor of the document's project
+ *
+ * Returns: @floor's index in the project's floors, or -1 when it is none of them.
+ */
+int
+trb_document_find_floor (TrbDocument    *self,
+                         const TrbFloor *floor)
+{
+  guint index;
+
+  g_return_val_if_fail (TRB_IS_DOCUMENT (self), -1);
+
+  if (floor == NULL || !g_ptr_array_find (self->project->floors, floor, &index))
+    return -1;
+  return (int) index;
 }
 
 const TrbProjectResult *

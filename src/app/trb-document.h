@@ -35,6 +35,11 @@ gboolean                trb_document_is_untouched        (TrbDocument           
 
 TrbProject             *trb_document_get_project         (TrbDocument           *self);
 TrbFloor               *trb_document_get_floor           (TrbDocument           *self);
+guint                   trb_document_get_floor_index     (TrbDocument           *self);
+void                    trb_document_set_floor_index     (TrbDocument           *self,
+                                                          guint                  index);
+int                     trb_document_find_floor          (TrbDocument           *self,
+                                                          const TrbFloor        *floor);
 const TrbProjectResult *trb_document_get_results         (TrbDocument           *self);
 const TrbMemberResult  *trb_document_lookup_result       (TrbDocument           *self,
                                                           const TrbMember       *member);

@@ -41,6 +41,7 @@ enum {
   PROP_STATUS,
   PROP_RATIO,
   PROP_GOVERNING,
+  PROP_FLOOR,
   N_PROPS
 };
 
@@ -259,6 +260,16 @@ trb_member_item_get_ratio (TrbMemberItem *self)
   return self->ratio;
 }
 
+/* The floor's name, read from the member: no edit renames a floor. Empty for a standalone
+ * beam. */
+const char *
+trb_member_item_get_floor (TrbMemberItem *self)
+{
+  g_return_val_if_fail (TRB_IS_MEMBER_ITEM (self), NULL);
+  return self->member->floor != NULL && self->member->floor->name != NULL
+           ? self->member->floor->name : "";
+}
+
 const char *
 trb_member_item_get_governing (TrbMemberItem *self)
 {
@@ -350,6 +361,9 @@ trb_member_item_get_property (GObject    *object,
     case PROP_GOVERNING:
       g_value_set_string (value, trb_member_item_get_governing (self));
       break;
+    case PROP_FLOOR:
+      g_value_set_string (value, trb_member_item_get_floor (self));
+      break;
     default:
       G_OBJECT_WARN_INVALID_PROPERTY_ID (object, prop_id, pspec);
     }
@@ -378,6 +392,9 @@ trb_member_item_class_init (TrbMemberItemClass *klass)
                          G_PARAM_READABLE | G_PARAM_STATIC_STRINGS);
   properties[PROP_GOVERNING] =
     g_param_spec_string ("governing", NULL, NULL, NULL,
+                         G_PARAM_READABLE | G_PARAM_STATIC_STRINGS);
+  properties[PROP_FLOOR] =
+    g_param_spec_string ("floor", NULL, NULL, NULL,
                          G_PARAM_READABLE | G_PARAM_STATIC_STRINGS);
   g_object_class_install_properties (object_class, N_PROPS, properties);
 

@@ -31,6 +31,7 @@ const char    *trb_member_item_get_status       (TrbMemberItem         *self);
 const char    *trb_member_item_get_status_class (TrbMemberItem         *self);
 double         trb_member_item_get_ratio        (TrbMemberItem         *self);
 const char    *trb_member_item_get_governing    (TrbMemberItem         *self);
+const char    *trb_member_item_get_floor        (TrbMemberItem         *self);
 gboolean       trb_member_item_get_failing      (TrbMemberItem         *self);
 char          *trb_member_item_describe         (TrbMemberItem         *self);
 

@@ -29,6 +29,7 @@ struct _TrbMemberList
   char               *summary;
 
   GtkColumnView      *view;
+  GtkColumnViewColumn *floor_column; /* owned by the view */
   GtkLabel           *summary_label;
   GtkLabel           *title_label;
 };
@@ -148,6 +149,19 @@ update_summary (TrbMemberList *self)
   }
   self->summary = g_string_free (s, FALSE);
   gtk_label_set_text (self->summary_label, self->summary);
+}
+
+/**
+ * trb_member_list_get_shows_floors:
+ * @self: the list
+ *
+ * Returns: whether the list has its Floor column: the project has several floors.
+ */
+gboolean
+trb_member_list_get_shows_floors (TrbMemberList *self)
+{
+  g_return_val_if_fail (TRB_IS_MEMBER_LIST (self), FALSE);
+  return gtk_column_view_column_get_visible (self->floor_column);
 }
 
 const char *
@@ -319,6 +333,9 @@ trb_member_list_set_document (TrbMemberList *self,
       g_signal_connect_object (document, "solved", G_CALLBACK (on_document_solved), self,
                                G_CONNECT_SWAPPED);
     }
+  gtk_column_view_column_set_visible (self->floor_column,
+                                      document != NULL
+                                      && trb_document_get_project (document)->floors->len > 1);
   rebuild (self, TRUE);
 }
 
@@ -392,6 +409,7 @@ typedef enum
   COLUMN_STATUS,
   COLUMN_RATIO,
   COLUMN_GOVERNING,
+  COLUMN_FLOOR,
 } Column;
 
 static void
@@ -466,6 +484,9 @@ show_cell (GtkListItem *list_item)
     case COLUMN_GOVERNING:
       text = g_strdup (trb_member_item_get_governing (item));
       break;
+    case COLUMN_FLOOR:
+      text = g_strdup (trb_member_item_get_floor (item));
+      break;
     default:
       break;
     }
@@ -507,7 +528,7 @@ compare_marks (gconstpointer a,
   return strcmp (ka, kb);
 }
 
-static void
+static GtkColumnViewColumn *
 add_column (TrbMemberList *self,
             const char    *title,
             Column         column,
@@ -530,6 +551,7 @@ add_column (TrbMemberList *self,
   gtk_column_view_append_column (self->view, col);
   g_object_unref (col);
   g_clear_object (&sorter);
+  return col;
 }
 
 static GtkSorter *
@@ -684,6 +706,9 @@ trb_member_list_init (TrbMemberList *self)
   add_column (self, _("Mark"), COLUMN_MARK,
               GTK_SORTER (gtk_custom_sorter_new (compare_marks, NULL, NULL)), FALSE, 80);
   add_column (self, _("Role"), COLUMN_ROLE, string_sorter ("role"), FALSE, 80);
+  /* shown when the project has several floors: the list holds every floor's members */
+  self->floor_column = add_column (self, _("Floor"), COLUMN_FLOOR, string_sorter ("floor"),
+                                   FALSE, 100);
   add_column (self, _("Section"), COLUMN_SECTION, string_sorter ("section"), FALSE, 150);
   add_column (self, _("Status"), COLUMN_STATUS, string_sorter ("status"), FALSE, 130);
   add_column (self, _("Ratio"), COLUMN_RATIO, ratio_sorter, FALSE, 70);

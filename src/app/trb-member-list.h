@@ -21,6 +21,7 @@ void         trb_member_list_set_document (TrbMemberList *self,
 void         trb_member_list_set_member   (TrbMemberList *self,
                                            TrbMember     *member);
 GListModel  *trb_member_list_get_model    (TrbMemberList *self);
+gboolean     trb_member_list_get_shows_floors (TrbMemberList *self);
 const char  *trb_member_list_get_summary  (TrbMemberList *self);
 void         trb_member_list_activate_row (TrbMemberList *self,
                                            guint          position);

@@ -85,8 +85,12 @@ on_document (TrbWindow *window)
   TrbDocument *document = trb_window_get_document (window);
 
   if (document != NULL)
-    g_signal_connect_object (document, "solved", G_CALLBACK (update), window,
-                             G_CONNECT_SWAPPED);
+    {
+      g_signal_connect_object (document, "solved", G_CALLBACK (update), window,
+                               G_CONNECT_SWAPPED);
+      g_signal_connect_object (document, "notify::floor-index", G_CALLBACK (update), window,
+                               G_CONNECT_SWAPPED);
+    }
   update (window);
 }
 
@@ -94,8 +98,8 @@ on_document (TrbWindow *window)
  * trb_plan_a11y_attach:
  * @window: a window
  *
- * Keeps the plan's accessible label and description current: after each solve and each change
- * of selection.
+ * Keeps the plan's accessible label and description current: after each solve, each change
+ * of selection and of the floor shown.
  */
 void
 trb_plan_a11y_attach (TrbWindow *window)

@@ -352,6 +352,21 @@ on_document_changed (TrbPlanCanvas *self,
   on_document_solved (self, document);
 }
 
+/* Another floor shown: what was picked or being drawn on the last one goes, and the new
+ * floor is fitted to the window. */
+static void
+on_document_floor (TrbPlanCanvas *self,
+                   GParamSpec    *pspec,
+                   TrbDocument   *document)
+{
+  trb_plan_canvas_cancel (self);
+  self->hover.kind = TRB_PLAN_HIT_NONE;
+  on_document_solved (self, document);
+  self->needs_fit = TRUE;
+  self->auto_fit = TRUE;
+  trb_plan_canvas_zoom_to_fit (self);
+}
+
 static void
 select_only (TrbPlanCanvas *self,
              gpointer       object,
@@ -1932,6 +1947,8 @@ trb_plan_canvas_set_document (TrbPlanCanvas *self,
                                G_CONNECT_SWAPPED);
       g_signal_connect_object (document, "solved", G_CALLBACK (on_document_solved), self,
                                G_CONNECT_SWAPPED);
+      g_signal_connect_object (document, "notify::floor-index", G_CALLBACK (on_document_floor),
+                               self, G_CONNECT_SWAPPED);
       rebuild_scene (self);
     }
   self->needs_fit = TRUE;

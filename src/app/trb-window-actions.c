@@ -235,12 +235,20 @@ zoom_action (GtkWidget  *widget,
     trb_plan_canvas_zoom_to_fit (self->canvas);
 }
 
+static void
+floor_action (GtkWidget  *widget,
+              const char *name,
+              GVariant   *param)
+{
+  trb_window_show_floor (TRB_WINDOW (widget), g_str_equal (name, "win.next-floor") ? 1 : -1);
+}
+
 /**
  * trb_window_update_actions:
  * @self: a window
  *
  * Undo and redo are available when the history has something to undo or redo; their
- * tooltips say what.
+ * tooltips say what. The next and previous floor when there is one.
  */
 void
 trb_window_update_actions (TrbWindow *self)
@@ -254,6 +262,14 @@ trb_window_update_actions (TrbWindow *self)
     }
   gtk_widget_action_set_enabled (GTK_WIDGET (self), "win.undo", can_undo);
   gtk_widget_action_set_enabled (GTK_WIDGET (self), "win.redo", can_redo);
+
+  {
+    guint n = self->document != NULL ? trb_document_get_project (self->document)->floors->len : 0;
+    guint at = self->document != NULL ? trb_document_get_floor_index (self->document) : 0;
+
+    gtk_widget_action_set_enabled (GTK_WIDGET (self), "win.next-floor", at + 1 < n);
+    gtk_widget_action_set_enabled (GTK_WIDGET (self), "win.previous-floor", at > 0);
+  }
 }
 
 void
@@ -270,6 +286,8 @@ trb_window_class_add_actions (GtkWidgetClass *widget_class)
   gtk_widget_class_install_action (widget_class, "win.zoom-in", NULL, zoom_action);
   gtk_widget_class_install_action (widget_class, "win.zoom-out", NULL, zoom_action);
   gtk_widget_class_install_action (widget_class, "win.zoom-fit", NULL, zoom_action);
+  gtk_widget_class_install_action (widget_class, "win.next-floor", NULL, floor_action);
+  gtk_widget_class_install_action (widget_class, "win.previous-floor", NULL, floor_action);
   gtk_widget_class_install_property_action (widget_class, "win.tool", "tool");
   gtk_widget_class_install_property_action (widget_class, "win.show-failing", "show-failing");
   gtk_widget_class_install_property_action (widget_class, "win.show-panel", "show-panel");

@@ -28,6 +28,8 @@ struct _TrbWindow
   AdwWindowTitle       *window_title;
   AdwSplitButton       *open_button;
   GtkSpinner           *solving_spinner;
+  GtkDropDown          *floor_dropdown;   /* shown when the project has several floors */
+  GtkStringList        *floor_names;
   GtkRevealer          *banner;
   GtkLabel             *banner_label;
   GtkPaned             *main_paned;
@@ -59,6 +61,8 @@ struct _TrbWindow
 
 void  trb_window_class_add_actions  (GtkWidgetClass *widget_class);
 void  trb_window_update_actions     (TrbWindow      *self);
+void  trb_window_show_floor         (TrbWindow      *self,
+                                     int             step);
 void  trb_window_save               (TrbWindow      *self,
                                      gboolean        save_as,
                                      gboolean        close_after);

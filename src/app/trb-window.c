@@ -103,7 +103,80 @@ on_member_activated (TrbWindow     *self,
                      TrbMember     *member,
                      TrbMemberList *list)
 {
+  /* the list holds every floor's members: one on another floor brings its floor up */
+  int floor = member != NULL ? trb_document_find_floor (self->document, member->floor) : -1;
+
+  if (floor >= 0)
+    trb_document_set_floor_index (self->document, (guint) floor);
   trb_plan_canvas_select_member (self->canvas, member, TRUE);
+}
+
+/* ---- the floor shown ------------------------------------------------------------------------- */
+
+static void
+on_floor_selected (TrbWindow *self)
+{
+  guint selected = gtk_drop_down_get_selected (self->floor_dropdown);
+
+  if (self->document != NULL && selected != GTK_INVALID_LIST_POSITION
+      && selected < trb_document_get_project (self->document)->floors->len)
+    trb_document_set_floor_index (self->document, selected);
+}
+
+/* The floors' names in the header bar's list, shown when there are several. */
+static void
+update_floors (TrbWindow *self)
+{
+  GPtrArray *floors = trb_document_get_project (self->document)->floors;
+  g_autoptr(GPtrArray) names = g_ptr_array_new_with_free_func (g_free);
+
+  for (guint i = 0; i < floors->len; i++)
+    {
+      const TrbFloor *floor = g_ptr_array_index (floors, i);
+
+      g_ptr_array_add (names, g_strdup (floor->name != NULL && floor->name[0] != '\0'
+                                          ? floor->name : _("(unnamed floor)")));
+    }
+  g_ptr_array_add (names, NULL);
+  g_clear_object (&self->floor_names);
+  self->floor_names = gtk_string_list_new ((const char *const *) names->pdata);
+  /* a new model selects its first item: not a choice of the user's */
+  g_signal_handlers_block_by_func (self->floor_dropdown, on_floor_selected, self);
+  gtk_drop_down_set_model (self->floor_dropdown, G_LIST_MODEL (self->floor_names));
+  gtk_drop_down_set_selected (self->floor_dropdown, trb_document_get_floor_index (self->document));
+  g_signal_handlers_unblock_by_func (self->floor_dropdown, on_floor_selected, self);
+  gtk_widget_set_visible (GTK_WIDGET (self->floor_dropdown), floors->len > 1);
+}
+
+static void
+on_document_floor (TrbWindow *self)
+{
+  gtk_drop_down_set_selected (self->floor_dropdown, trb_document_get_floor_index (self->document));
+  trb_window_update_actions (self);
+}
+
+/**
+ * trb_window_show_floor:
+ * @self: a window
+ * @step: 1 for the next floor, -1 for the one before
+ *
+ * Shows a neighbouring floor of the project, when there is one.
+ */
+void
+trb_window_show_floor (TrbWindow *self,
+                       int        step)
+{
+  guint n, at;
+
+  g_return_if_fail (TRB_IS_WINDOW (self));
+
+  if (self->document == NULL)
+    return;
+  n = trb_document_get_project (self->document)->floors->len;
+  at = trb_document_get_floor_index (self->document);
+  if ((step < 0 && at == 0) || (step > 0 && at + 1 >= n))
+    return;
+  trb_document_set_floor_index (self->document, step < 0 ? at - 1 : at + 1);
 }
 
 /* Enter on the plan: the panels show the selection already; the member page comes forward,
@@ -193,6 +266,9 @@ trb_window_set_document (TrbWindow   *self,
                            G_CONNECT_SWAPPED);
   g_signal_connect_object (document, "solved", G_CALLBACK (on_document_solved), self,
                            G_CONNECT_SWAPPED);
+  g_signal_connect_object (document, "notify::floor-index", G_CALLBACK (on_document_floor), self,
+                           G_CONNECT_SWAPPED);
+  update_floors (self);
 
   trb_member_list_set_document (self->member_list, document);
   trb_member_panel_set_document (self->member_panel, document);
@@ -597,6 +673,7 @@ trb_window_dispose (GObject *object)
     g_signal_handlers_disconnect_by_data (self->document, self);
   gtk_widget_dispose_template (GTK_WIDGET (self), TRB_TYPE_WINDOW);
   g_clear_object (&self->document);
+  g_clear_object (&self->floor_names);
   g_clear_object (&self->settings);
 
   G_OBJECT_CLASS (trb_window_parent_class)->dispose (object);
@@ -728,6 +805,7 @@ trb_window_class_init (TrbWindowClass *klass)
   gtk_widget_class_bind_template_child (widget_class, TrbWindow, window_title);
   gtk_widget_class_bind_template_child (widget_class, TrbWindow, open_button);
   gtk_widget_class_bind_template_child (widget_class, TrbWindow, solving_spinner);
+  gtk_widget_class_bind_template_child (widget_class, TrbWindow, floor_dropdown);
   gtk_widget_class_bind_template_child (widget_class, TrbWindow, banner);
   gtk_widget_class_bind_template_child (widget_class, TrbWindow, banner_label);
   gtk_widget_class_bind_template_child (widget_class, TrbWindow, main_paned);
@@ -804,6 +882,9 @@ trb_window_init (TrbWindow *self)
   g_signal_connect_swapped (target, "drop", G_CALLBACK (on_drop), self);
   gtk_widget_add_controller (GTK_WIDGET (self), GTK_EVENT_CONTROLLER (target));
 
+  g_signal_connect_swapped (self->floor_dropdown, "notify::selected",
+                            G_CALLBACK (on_floor_selected), self);
+
   g_signal_connect_object (gtk_recent_manager_get_default (), "changed",
                            G_CALLBACK (update_recent), self, G_CONNECT_SWAPPED);
   g_signal_connect (self, "notify::application", G_CALLBACK (on_application_notify), NULL);
@@ -814,6 +895,19 @@ trb_window_get_canvas (TrbWindow *self)
 {
   g_return_val_if_fail (TRB_IS_WINDOW (self), NULL);
   return GTK_WIDGET (self->canvas);
+}
+
+/**
+ * trb_window_get_floor_dropdown:
+ * @self: a window
+ *
+ * Returns: (transfer none): the header bar's list of the project's floors.
+ */
+GtkWidget *
+trb_window_get_floor_dropdown (TrbWindow *self)
+{
+  g_return_val_if_fail (TRB_IS_WINDOW (self), NULL);
+  return GTK_WIDGET (self->floor_dropdown);
 }
 
 GtkWidget *

@@ -29,6 +29,7 @@ void           trb_window_show_toast        (TrbWindow       *self,
 /* The window's parts, for the GUI tests. */
 GtkWidget     *trb_window_get_canvas        (TrbWindow       *self);
 GtkWidget     *trb_window_get_member_list   (TrbWindow       *self);
+GtkWidget     *trb_window_get_floor_dropdown (TrbWindow      *self);
 GtkWidget     *trb_window_get_member_panel  (TrbWindow       *self);
 GtkWidget     *trb_window_get_diagram_view  (TrbWindow       *self);
 GtkWidget     *trb_window_get_shortlist     (TrbWindow       *self);
