@@ -699,13 +699,19 @@ test_floors (void)
   g_assert_true (((TrbMember *) g_ptr_array_index (empty->members, 0))->floor == empty);
   g_assert_cmpuint (roof->members->len, ==, 3);
 
-  /* the header bar's list shows a floor too; showing a floor is not an edit */
+  /* the header bar's list shows a floor too; showing a floor is not an edit, and undo and
+   * redo bring up the floor their step was made on */
   gtk_drop_down_set_selected (floors, 0);
   g_assert_true (trb_document_get_floor (document) == level1);
   g_assert_true (gtk_widget_activate_action (GTK_WIDGET (window), "win.undo", NULL));
   g_assert_cmpuint (empty->members->len, ==, 0);
   g_assert_false (trb_document_get_modified (document));
-  g_assert_true (trb_document_get_floor (document) == level1);
+  g_assert_true (trb_document_get_floor (document) == empty);
+  g_assert_cmpuint (gtk_drop_down_get_selected (floors), ==, 2);
+  trb_document_set_floor_index (document, 1);
+  g_assert_true (gtk_widget_activate_action (GTK_WIDGET (window), "win.redo", NULL));
+  g_assert_cmpuint (empty->members->len, ==, 1);
+  g_assert_true (trb_document_get_floor (document) == empty);
 
   gtk_window_destroy (GTK_WINDOW (window));
   while (g_main_context_iteration (NULL, FALSE))

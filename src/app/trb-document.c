@@ -40,6 +40,8 @@ struct _TrbDocument
   guint64           generation;     /* counts the changes to the project */
   gboolean          solving;        /* a worker is solving, or is about to start */
   guint             floor_index;    /* the floor shown */
+  GArray           *step_floors;    /* guint: the floor shown at each undo step, oldest first,
+                                     * then the redo steps: undo and redo bring it back */
   gboolean          pending;        /* the project changed while it was */
   guint             start_id;       /* idle that copies the project and starts the worker */
 
@@ -118,6 +120,7 @@ trb_document_dispose (GObject *object)
     clear_results (self);
   g_clear_pointer (&self->result_index, g_hash_table_unref);
   g_clear_pointer (&self->copy_members, g_ptr_array_unref);
+  g_clear_pointer (&self->step_floors, g_array_unref);
   /* the history holds members taken out of the project: free it while the project lives */
   g_clear_pointer (&self->history, trb_edit_history_free);
   g_clear_pointer (&self->cache, trb_solve_cache_free);
@@ -217,6 +220,7 @@ trb_document_class_init (TrbDocumentClass *klass)
 static void
 trb_document_init (TrbDocument *self)
 {
+  self->step_floors = g_array_new (FALSE, FALSE, sizeof (guint));
   self->result_index = g_hash_table_new (NULL, NULL);
   self->copy_members = g_ptr_array_new ();
   self->cache = trb_solve_cache_new ();
@@ -732,6 +736,28 @@ trb_document_get_solve_time (TrbDocument *self)
   return self->solve_time;
 }
 
+/* A step was pushed (or a group closed): the redo steps are gone, and the last undo step was
+ * made on the floor shown. */
+static void
+record_step_floor (TrbDocument *self)
+{
+  guint n = trb_edit_history_get_n_undo (self->history);
+
+  g_array_set_size (self->step_floors, n);
+  if (n > 0)
+    g_array_index (self->step_floors, guint, n - 1) = self->floor_index;
+}
+
+/* Before undoing or redoing step @index: show the floor it was made on. */
+static void
+show_step_floor (TrbDocument *self,
+                 guint        index)
+{
+  if (index < self->step_floors->len
+      && g_array_index (self->step_floors, guint, index) < self->project->floors->len)
+    trb_document_set_floor_index (self, g_array_index (self->step_floors, guint, index));
+}
+
 static void
 changed (TrbDocument *self)
 {
@@ -765,7 +791,10 @@ trb_document_push (TrbDocument    *self,
     return FALSE;
   trb_edit_history_push (self->history, command);
   if (!self->in_group)
-    changed (self);
+    {
+      record_step_floor (self);
+      changed (self);
+    }
   return TRUE;
 }
 
@@ -797,6 +826,7 @@ trb_document_end_group (TrbDocument *self)
 
   self->in_group = FALSE;
   trb_edit_history_end_group (self->history);
+  record_step_floor (self);
   changed (self);
 }
 
@@ -823,6 +853,9 @@ trb_document_undo (TrbDocument *self)
 {
   g_return_val_if_fail (TRB_IS_DOCUMENT (self), FALSE);
 
+  if (!trb_edit_history_can_undo (self->history))
+    return FALSE;
+  show_step_floor (self, trb_edit_history_get_n_undo (self->history) - 1);
   if (!trb_edit_history_undo (self->history))
     return FALSE;
   changed (self);
@@ -834,6 +867,9 @@ trb_document_redo (TrbDocument *self)
 {
   g_return_val_if_fail (TRB_IS_DOCUMENT (self), FALSE);
 
+  if (!trb_edit_history_can_redo (self->history))
+    return FALSE;
+  show_step_floor (self, trb_edit_history_get_n_undo (self->history));
   if (!trb_edit_history_redo (self->history))
     return FALSE;
   changed (self);
