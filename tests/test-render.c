@@ -726,6 +726,100 @@ test_draw_load_labels_clear (void)
   cairo_surface_destroy (s);
 }
 
+/* Line loads along the edges of a floor (a rail, a wall on the edge joist) are drawn outside
+ * the framing, load line, arrows and label, whichever way their points run: inside they lay
+ * over the members and their labels. Found by their ink: the case's hue at 0.75. */
+static int
+ink_between (cairo_surface_t *s,
+             const TrbRgba   *ink,
+             double           x_lo,
+             double           x_hi,
+             int             *found)
+{
+  int w = cairo_image_surface_get_width (s), h = cairo_image_surface_get_height (s);
+  int between = 0;
+
+  *found = 0;
+  for (int y = 0; y < h; y++)
+    for (int x = 0; x < w; x++)
+      {
+        int r, g, b;
+
+        pixel (s, x, y, &r, &g, &b);
+        if (ABS (r - (int) round (255 * ink->r)) <= 6 && ABS (g - (int) round (255 * ink->g)) <= 6
+            && ABS (b - (int) round (255 * ink->b)) <= 6)
+          {
+            (*found)++;
+            between += x > x_lo && x < x_hi;
+          }
+      }
+  return between;
+}
+
+static void
+test_draw_line_loads_outside (void)
+{
+  for (int run = 0; run < 2; run++)
+    {
+      g_autoptr(TrbProject) p = trb_project_new ();
+      TrbFloor *f = trb_floor_new ("Edges");
+      g_autoptr(TrbPlanScene) scene = NULL;
+      cairo_surface_t *s = cairo_image_surface_create (CAIRO_FORMAT_RGB24, 600, 400);
+      cairo_t *cr = cairo_create (s);
+      TrbPlanDrawOptions options;
+      TrbPlanView view;
+      TrbPlanBounds bounds = { -1, -1, 7, 5 };
+      TrbLineLoad *right, *left;
+      TrbRgba ink;
+      double x0, x1, y;
+      int found;
+
+      trb_project_add_floor (p, f);
+      for (int k = 0; k <= 6; k++)
+        {
+          g_autofree char *id = g_strdup_printf ("J%d", k + 1);
+
+          add_member (p, f, id, k, 0, k, 4, TRB_FRAME_ROLE_JOIST);
+        }
+      /* the first run's points go up the right edge and down the left; the second's the
+       * other way */
+      right = trb_line_load_new (TRB_CASE_L, 700, "rail");
+      trb_points_append (right->points, 6, run == 0 ? 0 : 4);
+      trb_points_append (right->points, 6, run == 0 ? 4 : 0);
+      g_ptr_array_add (f->line_loads, right);
+      left = trb_line_load_new (TRB_CASE_S, 900, "parapet");
+      trb_points_append (left->points, 0, run == 0 ? 4 : 0);
+      trb_points_append (left->points, 0, run == 0 ? 0 : 4);
+      g_ptr_array_add (f->line_loads, left);
+
+      scene = trb_plan_scene_new (p, f, NULL);
+      trb_plan_draw_options_init (&options, 600, 400);
+      trb_plan_view_fit (&view, &bounds, 0, 0, 600, 400, 20);
+      cairo_set_source_rgb (cr, 1, 1, 1);
+      cairo_paint (cr);
+      trb_plan_draw (cr, scene, &view, &options);
+      cairo_surface_flush (s);
+      trb_plan_view_to_device (&view, 0, 2, &x0, &y);
+      trb_plan_view_to_device (&view, 6, 2, &x1, &y);
+
+      trb_render_case_color (&options.style, TRB_CASE_L, &ink);
+      ink.r *= 0.75;
+      ink.g *= 0.75;
+      ink.b *= 0.75;
+      g_assert_cmpint (ink_between (s, &ink, -1, x1 - 2, &found), ==, 0);
+      g_assert_cmpint (found, >, 50);      /* drawn, right of the right edge */
+      trb_render_case_color (&options.style, TRB_CASE_S, &ink);
+      ink.r *= 0.75;
+      ink.g *= 0.75;
+      ink.b *= 0.75;
+      g_assert_cmpint (ink_between (s, &ink, x0 + 2, 601, &found), ==, 0);
+      g_assert_cmpint (found, >, 50);      /* drawn, left of the left edge */
+
+      cairo_destroy (cr);
+      cairo_surface_destroy (s);
+    }
+}
+
 /* ---- text laid out once ------------------------------------------------------------------ */
 
 static void
@@ -1095,6 +1189,7 @@ main (int    argc,
   g_test_add_func ("/trb/render/draw/wall-hatch", test_draw_wall_hatch);
   g_test_add_func ("/trb/render/draw/stacked-loads", test_draw_stacked_loads);
   g_test_add_func ("/trb/render/draw/load-labels-clear", test_draw_load_labels_clear);
+  g_test_add_func ("/trb/render/draw/line-loads-outside", test_draw_line_loads_outside);
   g_test_add_func ("/trb/render/text-cache", test_text_cache);
   g_test_add_func ("/trb/render/scale/parse", test_scale_parse);
   g_test_add_func ("/trb/render/scale/fit", test_scale_fit);

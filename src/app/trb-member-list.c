@@ -29,7 +29,7 @@ struct _TrbMemberList
   char               *summary;
 
   GtkColumnView      *view;
-  GtkColumnViewColumn *floor_column; /* owned by the view */
+  GtkColumnViewColumn *floor_column; /* in the view when the project has several floors */
   GtkLabel           *summary_label;
   GtkLabel           *title_label;
 };
@@ -161,7 +161,7 @@ gboolean
 trb_member_list_get_shows_floors (TrbMemberList *self)
 {
   g_return_val_if_fail (TRB_IS_MEMBER_LIST (self), FALSE);
-  return gtk_column_view_column_get_visible (self->floor_column);
+  return gtk_column_view_column_get_column_view (self->floor_column) == self->view;
 }
 
 const char *
@@ -315,6 +315,27 @@ on_document_solved (TrbMemberList *self)
   rebuild (self, TRUE);
 }
 
+/* The Floor column is in the view only when there are floors to tell apart: GTK 4.8's column
+ * view leaves a hidden column's fixed width empty at the rows' end. */
+static void
+show_floor_column (TrbMemberList *self,
+                   gboolean       show)
+{
+  GListModel *columns = gtk_column_view_get_columns (self->view);
+  gboolean shown = FALSE;
+
+  for (guint i = 0; i < g_list_model_get_n_items (columns); i++)
+    {
+      g_autoptr(GtkColumnViewColumn) column = g_list_model_get_item (columns, i);
+
+      shown |= column == self->floor_column;
+    }
+  if (show && !shown)
+    gtk_column_view_insert_column (self->view, 2, self->floor_column);
+  else if (!show && shown)
+    gtk_column_view_remove_column (self->view, self->floor_column);
+}
+
 void
 trb_member_list_set_document (TrbMemberList *self,
                               TrbDocument   *document)
@@ -333,9 +354,8 @@ trb_member_list_set_document (TrbMemberList *self,
       g_signal_connect_object (document, "solved", G_CALLBACK (on_document_solved), self,
                                G_CONNECT_SWAPPED);
     }
-  gtk_column_view_column_set_visible (self->floor_column,
-                                      document != NULL
-                                      && trb_document_get_project (document)->floors->len > 1);
+  show_floor_column (self, document != NULL
+                           && trb_document_get_project (document)->floors->len > 1);
   rebuild (self, TRUE);
 }
 
@@ -584,6 +604,7 @@ trb_member_list_dispose (GObject *object)
   if (self->selection != NULL)
     g_signal_handlers_disconnect_by_data (self->selection, self);
   gtk_widget_dispose_template (GTK_WIDGET (self), TRB_TYPE_MEMBER_LIST);
+  g_clear_object (&self->floor_column);
   g_clear_object (&self->document);
   g_clear_object (&self->selection);
   g_clear_pointer (&self->rows, g_ptr_array_unref);
@@ -707,8 +728,9 @@ trb_member_list_init (TrbMemberList *self)
               GTK_SORTER (gtk_custom_sorter_new (compare_marks, NULL, NULL)), FALSE, 80);
   add_column (self, _("Role"), COLUMN_ROLE, string_sorter ("role"), FALSE, 80);
   /* shown when the project has several floors: the list holds every floor's members */
-  self->floor_column = add_column (self, _("Floor"), COLUMN_FLOOR, string_sorter ("floor"),
-                                   FALSE, 100);
+  self->floor_column = g_object_ref (add_column (self, _("Floor"), COLUMN_FLOOR,
+                                                 string_sorter ("floor"), FALSE, 100));
+  show_floor_column (self, FALSE);
   add_column (self, _("Section"), COLUMN_SECTION, string_sorter ("section"), FALSE, 150);
   add_column (self, _("Status"), COLUMN_STATUS, string_sorter ("status"), FALSE, 130);
   add_column (self, _("Ratio"), COLUMN_RATIO, ratio_sorter, FALSE, 70);

@@ -1168,23 +1168,53 @@ label_clear_of_members (DrawContext  *dc,
   g_array_append_val (taken, mine);
 }
 
+/* The side of a line load its load line, arrows and label are drawn on: 1 for the right of
+ * the direction its points run on the device (the left in plan, whose y runs up), -1 for the
+ * other. The side away from the middle of the floor, so that a load along an edge (a rail, a
+ * wall on the edge joist) is drawn outside the framing, clear of the members and their
+ * labels; the same side along the whole line. */
+static double
+line_load_side (DrawContext       *dc,
+                const TrbLineLoad *l)
+{
+  const TrbPlanBounds *b = &dc->scene->bounds;
+  double cx, cy, sum = 0;
+
+  trb_plan_view_to_device (dc->view, (b->min_x + b->max_x) / 2, (b->min_y + b->max_y) / 2,
+                           &cx, &cy);
+  for (guint k = 0; k + 1 < l->points->len; k++)
+    {
+      const TrbFramePoint *a = &g_array_index (l->points, TrbFramePoint, k);
+      const TrbFramePoint *p = &g_array_index (l->points, TrbFramePoint, k + 1);
+      double ax, ay, bx, by;
+
+      trb_plan_view_to_device (dc->view, a->x, a->y, &ax, &ay);
+      trb_plan_view_to_device (dc->view, p->x, p->y, &bx, &by);
+      /* the offset (by - ay, ax - bx), a segment's length long, against the way out */
+      sum += (by - ay) * ((ax + bx) / 2 - cx) + (ax - bx) * ((ay + by) / 2 - cy);
+    }
+  return sum < 0 ? -1.0 : 1.0;
+}
+
 /* A line load's label: its text, where it sits (device, the middle of the text's edge nearest
- * the load line) and its angle: a quarter along the first segment (clear of the middles, where
- * the labels of the member under it and of its neighbours are; nearer the middle where the
- * line is short), on the far side of the load line from the member. FALSE when no segment has
- * a length. */
+ * the load line), its angle and the side of the line it is on (line_load_side()): a quarter
+ * along the first segment (clear of the middles, where the labels of the member under it and
+ * of its neighbours are; nearer the middle where the line is short), beyond the load line.
+ * FALSE when no segment has a length. */
 static gboolean
 line_load_label (DrawContext       *dc,
                  const TrbLineLoad *l,
                  char             **text,
                  double            *lx,
                  double            *ly,
-                 double            *angle)
+                 double            *angle,
+                 double            *side)
 {
   double alen = 1.6 * dc->fs;
   g_autofree char *w = trb_units_format (l->w, TRB_DIM_LINE_LOAD, dc->scene->units);
 
   *text = NULL;
+  *side = line_load_side (dc, l);
   for (guint k = 0; k + 1 < l->points->len; k++)
     {
       const TrbFramePoint *a = &g_array_index (l->points, TrbFramePoint, k);
@@ -1202,8 +1232,8 @@ line_load_label (DrawContext       *dc,
                                l->label != NULL ? " " : "", l->label != NULL ? l->label : "");
       at = MIN (0.5 * len, MAX (0.25 * len, 0.5 * text_width (dc, *text, dc->fs * 0.9, FALSE)
                                             + dc->fs));
-      *lx = ax + ux * at + uy * alen;
-      *ly = ay + uy * at - ux * alen;
+      *lx = ax + ux * at + *side * uy * alen;
+      *ly = ay + uy * at - *side * ux * alen;
       *angle = atan2 (uy, ux);
       return TRUE;
     }
@@ -1217,10 +1247,10 @@ line_load_label_box (DrawContext       *dc,
                      GArray            *taken)
 {
   g_autofree char *text = NULL;
-  double lx, ly, angle, w, h, c, s;
+  double lx, ly, angle, side, w, h, c, s;
   TrbPlanBounds box;
 
-  if (!line_load_label (dc, l, &text, &lx, &ly, &angle))
+  if (!line_load_label (dc, l, &text, &lx, &ly, &angle, &side))
     return;
   w = text_width (dc, text, dc->fs * 0.9, FALSE);
   h = dc->fs * 0.9 * 1.3;
@@ -1229,8 +1259,8 @@ line_load_label_box (DrawContext       *dc,
    * centre */
   c = fabs (cos (angle));
   s = fabs (sin (angle));
-  lx += sin (angle) * h / 2;
-  ly -= cos (angle) * h / 2;
+  lx += side * sin (angle) * h / 2;
+  ly -= side * cos (angle) * h / 2;
   box.min_x = lx - (c * w + s * h) / 2;
   box.max_x = lx + (c * w + s * h) / 2;
   box.min_y = ly - (s * w + c * h) / 2;
@@ -2265,11 +2295,12 @@ draw_line_loads (DrawContext *dc)
     {
       const TrbLineLoad *l = g_ptr_array_index (floor->line_loads, i);
       TrbRgba c;
-      double lx = 0, ly = 0, lang = 0;
+      double lx = 0, ly = 0, lang = 0, side;
       g_autofree char *t = NULL;
 
       if (!points_visible (dc, l->points))
         continue;
+      side = line_load_side (dc, l);
       trb_render_case_color (dc->style, l->lcase, &c);
       c.r *= 0.75;
       c.g *= 0.75;
@@ -2291,8 +2322,8 @@ draw_line_loads (DrawContext *dc)
             continue;
           ux = (bx - ax) / len;
           uy = (by - ay) / len;
-          nx = -uy;
-          ny = ux;
+          nx = -side * uy;
+          ny = side * ux;
           /* a load line offset to one side, with arrows onto the line it loads */
           cairo_move_to (cr, ax - nx * alen, ay - ny * alen);
           cairo_line_to (cr, bx - nx * alen, by - ny * alen);
@@ -2309,15 +2340,18 @@ draw_line_loads (DrawContext *dc)
               arrow_head (cr, px, py, nx, ny, 0.65 * alen);
             }
         }
-      if (line_load_label (dc, l, &t, &lx, &ly, &lang))
+      if (line_load_label (dc, l, &t, &lx, &ly, &lang, &side))
         {
           gboolean flip = lang > G_PI / 2 + 1e-9 || lang <= -G_PI / 2 + 1e-9;
+          /* the text reaches away from the line: below its baseline once turned upright, on
+           * the other side, or flipped */
+          gboolean below = flip != (side < 0);
 
           cairo_save (cr);
           cairo_translate (cr, lx, ly);
           cairo_rotate (cr, flip ? lang + G_PI : lang);
           /* on the far side of the load line from the member */
-          draw_text (dc, t, dc->fs * 0.9, FALSE, 0, flip ? 1.0 : -1.0, 0.5, flip ? 0.0 : 1.0,
+          draw_text (dc, t, dc->fs * 0.9, FALSE, 0, below ? 1.0 : -1.0, 0.5, below ? 0.0 : 1.0,
                      NULL);
           cairo_restore (cr);
         }
