@@ -16,6 +16,7 @@ struct _TrbShortlistPanel
   TrbDocument         *document;
   TrbMember           *member;
   GPtrArray           *choices;     /* char *: the designation of each row, "auto" for sizing */
+  gboolean             stale;       /* the rows wait for the panel to be shown */
 
   GtkStack            *stack;
   AdwStatusPage       *empty_page;
@@ -48,6 +49,33 @@ make_row (const char *title,
   return row;
 }
 
+static void update (TrbShortlistPanel *self);
+
+/* The list is sized again for each member shown (a few milliseconds): not while the panel is
+ * out of sight, behind another page of the side panel or with the panel closed, where every
+ * selection and every solve would redo it for nobody. */
+static void
+request_update (TrbShortlistPanel *self)
+{
+  self->stale = TRUE;
+  if (gtk_widget_get_mapped (GTK_WIDGET (self)))
+    update (self);
+}
+
+static void
+ensure_current (TrbShortlistPanel *self)
+{
+  if (self->stale)
+    update (self);
+}
+
+static void
+trb_shortlist_panel_map (GtkWidget *widget)
+{
+  GTK_WIDGET_CLASS (trb_shortlist_panel_parent_class)->map (widget);
+  ensure_current (TRB_SHORTLIST_PANEL (widget));
+}
+
 static void
 update (TrbShortlistPanel *self)
 {
@@ -56,6 +84,7 @@ update (TrbShortlistPanel *self)
   TrbUnitSystem units;
   GtkWidget *child;
 
+  self->stale = FALSE;
   while ((child = gtk_widget_get_first_child (GTK_WIDGET (self->list))) != NULL)
     gtk_list_box_remove (self->list, child);
   g_ptr_array_set_size (self->choices, 0);
@@ -145,6 +174,7 @@ trb_shortlist_panel_choose (TrbShortlistPanel *self,
 
   g_return_val_if_fail (TRB_IS_SHORTLIST_PANEL (self), FALSE);
 
+  ensure_current (self);
   if (self->member == NULL || index >= self->choices->len)
     return FALSE;
   c = trb_edit_assign_section (trb_document_get_project (self->document), self->member,
@@ -161,6 +191,7 @@ guint
 trb_shortlist_panel_get_n_rows (TrbShortlistPanel *self)
 {
   g_return_val_if_fail (TRB_IS_SHORTLIST_PANEL (self), 0);
+  ensure_current (self);
   return self->choices->len;
 }
 
@@ -169,6 +200,7 @@ trb_shortlist_panel_get_row_section (TrbShortlistPanel *self,
                                      guint              index)
 {
   g_return_val_if_fail (TRB_IS_SHORTLIST_PANEL (self), NULL);
+  ensure_current (self);
   g_return_val_if_fail (index < self->choices->len, NULL);
   return g_ptr_array_index (self->choices, index);
 }
@@ -190,7 +222,7 @@ on_document_changed (TrbShortlistPanel *self)
                             NULL))
     {
       self->member = NULL;
-      update (self);
+      request_update (self);
     }
 }
 
@@ -201,7 +233,7 @@ on_document_solved (TrbShortlistPanel *self)
       && !g_ptr_array_find (trb_document_get_project (self->document)->members, self->member,
                             NULL))
     self->member = NULL;
-  update (self);
+  request_update (self);
 }
 
 void
@@ -221,7 +253,7 @@ trb_shortlist_panel_set_document (TrbShortlistPanel *self,
       g_signal_connect_object (document, "solved", G_CALLBACK (on_document_solved), self,
                                G_CONNECT_SWAPPED);
     }
-  update (self);
+  request_update (self);
 }
 
 void
@@ -231,7 +263,7 @@ trb_shortlist_panel_set_member (TrbShortlistPanel *self,
   g_return_if_fail (TRB_IS_SHORTLIST_PANEL (self));
 
   self->member = member;
-  update (self);
+  request_update (self);
 }
 
 static void
@@ -255,6 +287,7 @@ trb_shortlist_panel_class_init (TrbShortlistPanelClass *klass)
   GtkWidgetClass *widget_class = GTK_WIDGET_CLASS (klass);
 
   object_class->dispose = trb_shortlist_panel_dispose;
+  widget_class->map = trb_shortlist_panel_map;
 
   gtk_widget_class_set_template_from_resource (widget_class,
                                                "/org/trabeate/Trabeate/ui/"
