@@ -461,12 +461,11 @@ static double
 abs_moment_at (const TrbBeamResult *result,
                double               x)
 {
-  TrbBeamValues left, right;
+  double left, right;
 
   /* An applied moment makes M jump; take the side that gives the smaller, safer Cb. */
-  trb_beam_result_eval (result, x, TRB_SIDE_LEFT, &left);
-  trb_beam_result_eval (result, x, TRB_SIDE_RIGHT, &right);
-  return MAX (fabs (left.M), fabs (right.M));
+  trb_beam_result_value (result, x, TRB_BEAM_M, &left, &right);
+  return MAX (fabs (left), fabs (right));
 }
 
 static int

@@ -1895,38 +1895,15 @@ value_at (const TrbBeamResult *r,
           TrbSide              side,
           int                  what)  /* 0 V, 1 M, 2 defl */
 {
-  TrbBeamValues v;
+  TrbBeamQuantity q = what == 0 ? TRB_BEAM_V : what == 1 ? TRB_BEAM_M : TRB_BEAM_DEFL;
+  double v;
 
-  trb_beam_result_eval (r, x, side, &v);
-  return what == 0 ? v.V : what == 1 ? v.M : v.defl;
+  trb_beam_result_value (r, x, q, side == TRB_SIDE_LEFT ? &v : NULL,
+                         side == TRB_SIDE_LEFT ? NULL : &v);
+  return v;
 }
 
-/* Whether trb_beam_result_eval() gives the same at x from either side: x is inside the
- * member and none of its breaks, so both sides read the same segment and no end zeroes V
- * and M. */
-static gboolean
-one_sided (const TrbBeamResult *r,
-           double               x)
-{
-  guint n, lo = 0, hi;
-  const double *b = trb_beam_result_get_breaks (r, &n);
-
-  if (!(x > b[0] && x < b[n - 1]))
-    return FALSE;
-  hi = n - 1;
-  while (lo < hi)
-    {
-      guint mid = (lo + hi) / 2;
-
-      if (b[mid] < x)
-        lo = mid + 1;
-      else
-        hi = mid;
-    }
-  return b[lo] != x;
-}
-
-/* value_at() on the left and on the right of x, evaluated once where they are the same */
+/* value_at() on the left and on the right of x */
 static void
 values_both_sides (const TrbBeamResult *r,
                    double               x,
@@ -1934,8 +1911,8 @@ values_both_sides (const TrbBeamResult *r,
                    double              *left,
                    double              *right)
 {
-  *left = value_at (r, x, TRB_SIDE_LEFT, what);
-  *right = one_sided (r, x) ? *left : value_at (r, x, TRB_SIDE_RIGHT, what);
+  trb_beam_result_value (r, x, what == 0 ? TRB_BEAM_V : what == 1 ? TRB_BEAM_M : TRB_BEAM_DEFL,
+                         left, right);
 }
 
 /* M at the quarter points of each segment, where the steel check takes it for Cb: the left
