@@ -53,7 +53,8 @@ combo_set_init (TrbComboSetResult *s,
                 TrbComboSet        set)
 {
   s->set = set;
-  s->entries = g_array_new (FALSE, TRUE, sizeof (TrbComboResult));
+  /* not cleared: evaluate_set() writes every field of each entry (half a kilobyte each) */
+  s->entries = g_array_new (FALSE, FALSE, sizeof (TrbComboResult));
   g_array_set_clear_func (s->entries, combo_result_clear);
   s->envelope.empty = TRUE;
   trb_extremes_init (&s->envelope.ext);
@@ -726,7 +727,10 @@ evaluate_set (TrbMemberResult     *r,
               name_with_pattern (cr->name, sizeof cr->name, combo->name, pat->name);
             }
           else
-            g_strlcpy (cr->name, combo->name, sizeof cr->name);
+            {
+              cr->pattern[0] = '\0';
+              g_strlcpy (cr->name, combo->name, sizeof cr->name);
+            }
 
           if (n == 0)
             {
