@@ -2430,7 +2430,12 @@ trb_beam_result_value (const TrbBeamResult *result,
     }
   if (left != NULL)
     {
-      kl = find_segment (result, x, TRB_SIDE_LEFT);
+      /* the left side's segment is the right side's, or the one before where x is its break
+       * (the breaks are distinct; at 0 both are the first) */
+      if (right != NULL)
+        kl = kr > 0 && result->breaks[kr] == x ? kr - 1 : kr;
+      else
+        kl = find_segment (result, x, TRB_SIDE_LEFT);
       if (right != NULL && kl == kr)
         *left = *right;
       else
