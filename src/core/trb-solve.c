@@ -628,6 +628,51 @@ name_with_pattern (char       *dst,
   dst[n] = '\0';
 }
 
+/* A strength entry and a total deflection entry of the same case factors under the same
+ * pattern (ASD's D + L and its twin in the total set) are the same sum of the same parts, the
+ * same bits: within one analysis whose strength entries are searched over the deflection
+ * spans (no brace cuts the member between its supports), the strength set finds such an
+ * entry's extremes with the deflection, and the total set takes its result and extremes
+ * instead of combining and searching again. */
+typedef struct
+{
+  double                 factors[TRB_N_CASES];
+  guint                  pattern;
+  const TrbBeamResult   *result;
+  TrbBeamExtremes        whole;  /* with the deflection */
+  const TrbBeamExtremes *per;    /* over each interval, in the strength set's extremes */
+} Twin;
+
+typedef struct
+{
+  const GArray *total;   /* the total set's combinations */
+  Twin         *twins;
+  guint         n_twins;
+} Twins;
+
+static gboolean
+has_twin (const GArray   *combos,
+          const TrbCombo *combo)
+{
+  for (guint i = 0; i < combos->len; i++)
+    if (memcmp (g_array_index (combos, TrbCombo, i).factors, combo->factors,
+                sizeof combo->factors) == 0)
+      return TRUE;
+  return FALSE;
+}
+
+static const Twin *
+find_twin (const Twins    *twins,
+           const TrbCombo *combo,
+           guint           pattern)
+{
+  for (guint i = 0; i < twins->n_twins; i++)
+    if (twins->twins[i].pattern == pattern &&
+        memcmp (twins->twins[i].factors, combo->factors, sizeof combo->factors) == 0)
+      return &twins->twins[i];
+  return NULL;
+}
+
 /* Evaluates every combination of set, under every pattern where it carries a patterned case,
  * and takes the envelope. With ab (n_ab intervals: the spans of the deflection checks), the
  * extremes over each interval go to span_ext, n_ab for each entry. With keep (sizing's lean
@@ -646,7 +691,8 @@ evaluate_set (TrbMemberResult     *r,
               const gboolean      *keep,
               gboolean             envelope,
               gboolean             moments_only,
-              gboolean             need_finite)
+              gboolean             need_finite,
+              Twins               *twins)
 {
   const GArray *combos = combos_for (out->set, r->has_case);
   gboolean patterns_on = r->patterns->len > 0;
@@ -673,6 +719,8 @@ evaluate_set (TrbMemberResult     *r,
   g_array_set_size (out->entries, e + n_entries);
   if (span_ext != NULL)
     g_array_set_size (span_ext, n_entries * n_ab);
+  if (twins != NULL && moments_only && twins->twins == NULL)
+    twins->twins = g_new (Twin, n_entries + 1);
 
   for (guint i = 0; i < combos->len; i++)
     {
@@ -739,11 +787,42 @@ evaluate_set (TrbMemberResult     *r,
               index[n] = rr->zero_part;
               factors[n++] = 0;
             }
-          cr->result = trb_beam_combiner_combine (rr->combiner, index, factors, n);
           /* NULL when there is nothing per interval: no offset on an empty array's data */
           span_out = span_ext != NULL && n_ab > 0
                      ? &g_array_index (span_ext, TrbBeamExtremes, (e - 1 - first) * n_ab)
                      : NULL;
+          if (twins != NULL && !moments_only)
+            {
+              const Twin *twin = find_twin (twins, combo, p);
+
+              if (twin != NULL)
+                {
+                  /* the strength set's twin: the same sum, searched over the same intervals */
+                  cr->result = trb_beam_result_copy (twin->result);
+                  cr->ext = twin->whole;
+                  if (span_out != NULL)
+                    memcpy (span_out, twin->per, n_ab * sizeof (TrbBeamExtremes));
+                  continue;
+                }
+            }
+          cr->result = trb_beam_combiner_combine (rr->combiner, index, factors, n);
+          if (twins != NULL && moments_only && has_twin (twins->total, combo))
+            {
+              /* V and M as trb_beam_result_moments_intervals() finds them (the same sweep),
+               * and the deflection for the twin */
+              Twin *twin = &twins->twins[twins->n_twins++];
+
+              trb_beam_result_extremes_intervals (cr->result, ab, n_ab, &cr->ext, span_out,
+                                                  NULL);
+              memcpy (twin->factors, combo->factors, sizeof twin->factors);
+              twin->pattern = p;
+              twin->result = cr->result;
+              twin->whole = cr->ext;
+              twin->per = span_out;
+              cr->ext.defl_down = cr->ext.defl_up = 0;
+              cr->ext.defl_down_x = cr->ext.defl_up_x = 0;
+              continue;
+            }
           if (moments_only)
             {
               /* the lean analysis of sizing: V and M are all the strength checks read, and
@@ -1127,6 +1206,8 @@ analyse (const TrbProject  *project,
       g_autofree double *ab = NULL;
       g_autofree double *seg_ab = NULL;
       g_autoptr(GArray) brace_x = g_array_new (FALSE, FALSE, sizeof (double));
+      Twins twins = { NULL };
+      Twins *use_twins = NULL;
       guint n_pts;
 
       di.length = in->length;
@@ -1195,9 +1276,17 @@ analyse (const TrbProject  *project,
       /* the full analysis of parts proved finite leaves the strength entries' deflection
        * extremes to trb_member_result_complete(): no check reads them */
       defer = lean == NULL && bounded;
+      /* the strength entries searched over the deflection spans: their total twins are
+       * found with them */
+      if (bounded && sx->n_seg > 0 && sx->n_seg == sx->n_spans &&
+          memcmp (seg_ab, ab, 2 * sx->n_seg * sizeof (double)) == 0)
+        {
+          twins.total = combos_for (TRB_COMBO_SET_TOTAL, r->has_case);
+          use_twins = &twins;
+        }
       sets_finite[0] = evaluate_set (r, &rr, &r->strength, seg_ab, sx->n_seg, sx->strength,
                                      lean != NULL ? lean->keep[0] : NULL, lean == NULL,
-                                     lean != NULL || defer, !bounded);
+                                     lean != NULL || defer, !bounded, use_twins);
       if (defer && r->strength.entries->len > 0)
         {
           if (r->pending != NULL)
@@ -1209,19 +1298,20 @@ analyse (const TrbProject  *project,
         }
       sets_finite[1] = evaluate_set (r, &rr, &r->live, ab, sx->n_spans, sx->live,
                                      lean != NULL ? lean->keep[1] : NULL, lean == NULL, FALSE,
-                                     !bounded);
+                                     !bounded, NULL);
       sets_finite[2] = evaluate_set (r, &rr, &r->total, ab, sx->n_spans, sx->total,
                                      lean != NULL ? lean->keep[2] : NULL, lean == NULL, FALSE,
-                                     !bounded);
+                                     !bounded, use_twins);
+      g_free (twins.twins);
     }
   else
     {
       sets_finite[0] = evaluate_set (r, &rr, &r->strength, NULL, 0, NULL, NULL, TRUE, FALSE,
-                                     !bounded);
+                                     !bounded, NULL);
       sets_finite[1] = evaluate_set (r, &rr, &r->live, NULL, 0, NULL, NULL, TRUE, FALSE,
-                                     !bounded);
+                                     !bounded, NULL);
       sets_finite[2] = evaluate_set (r, &rr, &r->total, NULL, 0, NULL, NULL, TRUE, FALSE,
-                                     !bounded);
+                                     !bounded, NULL);
     }
   region_results_clear (&rr, r->regions->len);
 
