@@ -1146,6 +1146,36 @@ test_deflection_text_same (void)
     }
 }
 
+/* The spans' labels, written without printf, are those g_snprintf ("span %u") writes, past
+ * ten spans too; the overhangs keep their names (the check values are the printf's own). */
+static void
+test_span_labels (void)
+{
+  TrbSupport sup[14];
+  TrbDeflectionSpan spans[16];
+  TrbDesignInput input = { 0 };
+  guint n;
+
+  for (guint i = 0; i < G_N_ELEMENTS (sup); i++)
+    {
+      sup[i].x = 1.0 + 2.0 * i;
+      sup[i].type = i == 0 ? TRB_SUPPORT_PIN : TRB_SUPPORT_ROLLER;
+    }
+  input.length = sup[G_N_ELEMENTS (sup) - 1].x + 1.0;
+  input.supports = sup;
+  input.n_supports = G_N_ELEMENTS (sup);
+  n = trb_design_deflection_spans (&input, spans, G_N_ELEMENTS (spans));
+  g_assert_cmpuint (n, ==, G_N_ELEMENTS (sup) + 1);
+  g_assert_cmpstr (spans[0].label, ==, "left overhang");
+  g_assert_cmpstr (spans[n - 1].label, ==, "right overhang");
+  for (guint i = 1; i + 1 < n; i++)
+    {
+      g_autofree char *expect = g_strdup_printf ("span %u", i);
+
+      g_assert_cmpstr (spans[i].label, ==, expect);
+    }
+}
+
 int
 main (int   argc,
       char *argv[])
@@ -1172,6 +1202,7 @@ main (int   argc,
   g_test_add_func ("/trb/design-steel/member/not-designed", test_not_designed);
   g_test_add_func ("/trb/design-steel/format-same", test_format_same);
   g_test_add_func ("/trb/design-steel/deflection-text-same", test_deflection_text_same);
+  g_test_add_func ("/trb/design-steel/span-labels", test_span_labels);
 
   return g_test_run ();
 }

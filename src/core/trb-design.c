@@ -187,6 +187,30 @@ trb_design_format (char       *buf,
   return buf;
 }
 
+/* g_snprintf (label, size, "span %u", n), without the formatting machinery: sizing cuts the
+ * spans of a member several times */
+static void
+span_label (char  *label,
+            gsize  size,
+            guint  n)
+{
+  char digits[16];
+  guint nd = 0;
+  gsize k = 0;
+
+  do
+    {
+      digits[nd++] = (char) ('0' + n % 10);
+      n /= 10;
+    }
+  while (n > 0);
+  for (const char *p = "span "; *p != '\0' && k + 1 < size; p++)
+    label[k++] = *p;
+  while (nd > 0 && k + 1 < size)
+    label[k++] = digits[--nd];
+  label[k] = '\0';
+}
+
 /**
  * trb_design_deflection_spans:
  * @input: the member (its length and supports)
@@ -233,7 +257,7 @@ trb_design_deflection_spans (const TrbDesignInput *input,
       s->b = input->supports[i + 1].x;
       s->judged = s->b - s->a;
       s->overhang = FALSE;
-      g_snprintf (s->label, sizeof s->label, "span %u", i + 1);
+      span_label (s->label, sizeof s->label, i + 1);
     }
 
   if (input->length - input->supports[n_sup - 1].x > tol && n < max_spans)
