@@ -907,6 +907,14 @@ typedef struct _MemberPlan
   GArray         *patterns;
   TrbBeamResult **by_region[TRB_N_CASES];
   guint           n_regions;
+  /* from the guess, solved on a beam of unit E I, for the first analysis to restiffen
+   * instead of solving (NULL when none): the regions, the live-load patterns and L on each
+   * region, and a uniform unit load (the reference's) */
+  GArray            *seed_regions;
+  GArray            *seed_patterns;
+  TrbBeamResult    **seed_live;
+  guint              n_seed_live;
+  TrbBeamResult     *seed_unit;
   /* the deflection checks' spans and the flexure segments (SpanExtremes) */
   gboolean           have_cuts;
   TrbDeflectionSpan *spans;
@@ -927,6 +935,13 @@ member_plan_clear (MemberPlan *plan)
     }
   g_clear_pointer (&plan->regions, g_array_unref);
   g_clear_pointer (&plan->patterns, g_array_unref);
+  g_clear_pointer (&plan->seed_regions, g_array_unref);
+  g_clear_pointer (&plan->seed_patterns, g_array_unref);
+  for (guint reg = 0; plan->seed_live != NULL && reg < plan->n_seed_live; reg++)
+    trb_beam_result_free (plan->seed_live[reg]);
+  g_clear_pointer (&plan->seed_live, g_free);
+  plan->n_seed_live = 0;
+  g_clear_pointer (&plan->seed_unit, trb_beam_result_free);
   g_clear_pointer (&plan->spans, g_free);
   g_clear_pointer (&plan->seg, g_free);
   plan->have_cuts = FALSE;
@@ -1099,6 +1114,8 @@ analyse (const TrbProject  *project,
   g_array_unref (r->regions);
   if (in->plan != NULL && in->plan->ready)
     r->regions = g_array_ref (in->plan->regions);
+  else if (in->plan != NULL && in->plan->seed_regions != NULL)
+    r->regions = g_array_ref (in->plan->seed_regions);   /* built from the same supports */
   else
     r->regions = trb_regions_build (beam_supports, n_beam_supports, in->length);
 
@@ -1122,6 +1139,9 @@ analyse (const TrbProject  *project,
       g_array_unref (r->patterns);
       if (in->plan != NULL && in->plan->ready)
         r->patterns = g_array_ref (in->plan->patterns);
+      else if (in->plan != NULL && in->plan->seed_patterns != NULL &&
+               strcmp (live_label (r), "L") == 0)
+        r->patterns = g_array_ref (in->plan->seed_patterns);   /* the same regions, "L" */
       else
         r->patterns = trb_patterns_build (regions, n_regions, live_label (r));
 
@@ -1140,6 +1160,25 @@ analyse (const TrbProject  *project,
                 {
                   rr.by_region[c][reg] = plan_result (in->plan, r->beam,
                                                       in->plan->by_region[c][reg]);
+                  all = all && rr.by_region[c][reg] != NULL;
+                }
+              if (all)
+                continue;
+              for (guint reg = 0; reg < n_regions; reg++)
+                g_clear_pointer (&rr.by_region[c][reg], trb_beam_result_free);
+              g_clear_pointer (&rr.by_region[c], g_free);
+            }
+          else if (c == TRB_CASE_L && in->plan != NULL && !in->plan->ready &&
+                   in->plan->seed_live != NULL && in->plan->n_seed_live == n_regions)
+            {
+              /* the guess's, solved for the same loads on the same regions */
+              gboolean all = TRUE;
+
+              rr.by_region[c] = g_new0 (TrbBeamResult *, n_regions);
+              for (guint reg = 0; reg < n_regions; reg++)
+                {
+                  rr.by_region[c][reg] = trb_beam_result_restiffen (in->plan->seed_live[reg],
+                                                                    r->beam);
                   all = all && rr.by_region[c][reg] != NULL;
                 }
               if (all)
@@ -2128,7 +2167,11 @@ reference_init (Reference             *ref,
         memcmp (sx->seg, ref->seg, (ref->n_seg + 1) * sizeof (double)) == 0))
     sx = NULL;
 
-  unit = trb_beam_solve (r->beam, &load, 1, NULL);
+  /* the guess's, where it solved one */
+  if (in->plan != NULL && in->plan->seed_unit != NULL)
+    unit = trb_beam_result_restiffen (in->plan->seed_unit, r->beam);
+  if (unit == NULL)
+    unit = trb_beam_solve (r->beam, &load, 1, NULL);
   if (unit == NULL)
     return FALSE;
   trb_beam_result_extremes_intervals (unit, seg_ab, ref->n_seg, &whole, ext, NULL);
@@ -2791,6 +2834,7 @@ guess_section (const TrbProject  *project,
   TrbLoad unit = { TRB_LOAD_UNIFORM, 0, in->length, 1.0, 1.0 };
   const GArray *combos[3];
   double live_unit = 0;
+  gboolean patterns_built = FALSE;
 
   if (m->material != TRB_MATERIAL_STEEL || cands->family == NULL ||
       (method != TRB_METHOD_ASD && method != TRB_METHOD_LRFD) ||
@@ -2820,6 +2864,7 @@ guess_section (const TrbProject  *project,
                                         (const TrbRegion *) regions->data, n_regions);
 
       patterns = trb_patterns_build ((const TrbRegion *) regions->data, n_regions, "L");
+      patterns_built = TRUE;
       for (guint reg = 0; reg < n_regions; reg++)
         parts[2 + reg] = trb_beam_solve (beam, (const TrbLoad *) split[reg]->data,
                                          split[reg]->len, NULL);
@@ -3022,6 +3067,28 @@ guess_section (const TrbProject  *project,
     }
 
 out:
+  /* what the first analysis would solve again, to restiffen: the regions, the patterns and
+   * live load on each region (where patterns are formed: built as analyse() builds them),
+   * the unit load */
+  if (in->plan != NULL && !in->plan->ready && in->plan->seed_regions == NULL &&
+      regions != NULL && parts[1] != NULL)
+    {
+      MemberPlan *plan = in->plan;
+      gboolean live = patterns_built;
+
+      for (guint reg = 0; live && reg < n_regions; reg++)
+        live = parts[2 + reg] != NULL;
+      plan->seed_regions = g_array_ref (regions);
+      plan->seed_unit = g_steal_pointer (&parts[1]);
+      if (live)
+        {
+          plan->seed_patterns = g_array_ref (patterns);
+          plan->seed_live = g_new (TrbBeamResult *, n_regions);
+          for (guint reg = 0; reg < n_regions; reg++)
+            plan->seed_live[reg] = g_steal_pointer (&parts[2 + reg]);
+          plan->n_seed_live = n_regions;
+        }
+    }
   for (guint i = 0; i < G_N_ELEMENTS (parts); i++)
     g_clear_pointer (&parts[i], trb_beam_result_free);
   trb_beam_free (beam);
