@@ -3509,6 +3509,22 @@ record_sizing (TrbMemberResult   *r,
 }
 
 /* Analyses and designs one member on the given supports and loads. */
+/* Whether analyse() without E and I finds nothing wrong: the member is supported and its
+ * beam can be made (it is no mechanism and its supports are valid) */
+static gboolean
+beam_possible (const MemberInput *in)
+{
+  TrbBeam *beam;
+
+  if (in->n_supports == 0)
+    return FALSE;
+  beam = trb_beam_new (in->length, 1.0, 1.0, in->supports, in->n_supports, NULL);
+  if (beam == NULL)
+    return FALSE;
+  trb_beam_free (beam);
+  return TRUE;
+}
+
 static TrbMemberResult *
 solve_input (const TrbProject  *project,
              const TrbMember   *member,
@@ -3525,13 +3541,17 @@ solve_input (const TrbProject  *project,
     {
       const TrbSection *chosen = NULL;
 
-      /* Stability and support do not depend on the section: say so once, not per section. */
-      r = member_result_new (project, member);
-      g_strlcpy (r->section, member->section, sizeof r->section);
-      if (!analyse (project, in, NAN, NAN, 0, r, NULL, NULL) &&
-          r->status != TRB_STATUS_NOT_DESIGNED)
-        return r;
-      trb_member_result_free (r);
+      /* Stability and support do not depend on the section: say so once, not per section
+       * (analyse() without E and I; a beam that can be made is all it would find) */
+      if (!beam_possible (in))
+        {
+          r = member_result_new (project, member);
+          g_strlcpy (r->section, member->section, sizeof r->section);
+          if (!analyse (project, in, NAN, NAN, 0, r, NULL, NULL) &&
+              r->status != TRB_STATUS_NOT_DESIGNED)
+            return r;
+          trb_member_result_free (r);
+        }
 
       if (!trb_member_is_auto (member))
         {
