@@ -1078,7 +1078,10 @@ test_format_same (void)
   static const struct { const char *name, *text; double factor; } units[] = {
     { "m", "m", 1.0 }, { "kN-m", "kN·m", 1e3 },
   };
-  static const double special[] = { 0.0, -0.0, NAN, INFINITY, -INFINITY, 1e-300, 1e300 };
+  /* and exact ties of the last digit printed (printf rounds them to even), both signs */
+  static const double special[] = { 0.0, -0.0, NAN, INFINITY, -INFINITY, 1e-300, 1e300,
+                                    1.125, 1.375, -1.125, 10.25, 10.75, -10.25, 0.5625,
+                                    0.0078125, 9.9951171875, 99.9375, 999.5, 1e22, 1.5e-9 };
   g_autoptr(GRand) rand = g_rand_new_with_seed (20261202);
 
   for (int e = -14; e <= 14; e++)
