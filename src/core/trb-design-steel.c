@@ -301,15 +301,41 @@ trb_design_steel_flexure (const TrbSection    *section,
                           double               Cb,
                           TrbSteelFlexure     *out)
 {
-  IProps p;
-  double E, Fy, Mp, Mn, lam_pf, lam_rf, My70;
-  const char *eq;
+  TrbSteelFlexurePrep prep;
 
   g_return_val_if_fail (section != NULL, FALSE);
   g_return_val_if_fail (grade != NULL, FALSE);
   g_return_val_if_fail (out != NULL, FALSE);
 
-  memset (out, 0, sizeof *out);
+  trb_design_steel_flexure_prepare (section, grade, &prep);
+  return trb_design_steel_flexure_at (&prep, Lb, Cb, out);
+}
+
+/**
+ * trb_design_steel_flexure_prepare:
+ * @section: an I shape
+ * @grade: its steel
+ * @prep: (out): what trb_design_steel_flexure() computes of them whatever Lb and Cb
+ *
+ * For trb_design_steel_flexure_at(), which gives what trb_design_steel_flexure() gives, bit
+ * for bit (the same operations): the member check and sizing ask for many Lb and Cb of one
+ * section.
+ *
+ * Returns: whether F2 or F3 covers the section
+ */
+gboolean
+trb_design_steel_flexure_prepare (const TrbSection      *section,
+                                  const TrbSteelGrade   *grade,
+                                  TrbSteelFlexurePrep   *prep)
+{
+  IProps p;
+  double E, Fy, lam_pf, lam_rf;
+
+  g_return_val_if_fail (section != NULL, FALSE);
+  g_return_val_if_fail (grade != NULL, FALSE);
+  g_return_val_if_fail (prep != NULL, FALSE);
+
+  memset (prep, 0, sizeof *prep);
   if (!get_i_props (section, &p))
     return FALSE;
 
@@ -318,18 +344,80 @@ trb_design_steel_flexure (const TrbSection    *section,
   if (p.h_tw > 3.76 * sqrt (E / Fy))
     return FALSE;
 
+  prep->ok = TRUE;
+  prep->E = E;
+  prep->Sx = p.Sx;
+  prep->rts = p.rts;
+  prep->jc = p.J / (p.Sx * p.ho);
+  prep->lambda_f = p.lambda_f;
+  prep->Mp = Fy * p.Zx;
+  prep->My70 = 0.7 * Fy * p.Sx;
+  prep->Lp = lp_of (&p, grade);
+  prep->Lr = lr_of (&p, grade);
+
+  /* Flange local buckling, F3.2: rolled shapes with noncompact or slender flanges. It does
+   * not depend on Lb or Cb. */
+  lam_pf = 0.38 * sqrt (E / Fy);
+  lam_rf = 1.0 * sqrt (E / Fy);
+  if (p.lambda_f > lam_pf)
+    {
+      prep->flb = TRUE;
+      if (p.lambda_f <= lam_rf)
+        {
+          prep->Mflb = prep->Mp - (prep->Mp - prep->My70) * (p.lambda_f - lam_pf) /
+                                  (lam_rf - lam_pf);
+          prep->eq_flb = "F3-1";
+        }
+      else
+        {
+          double kc = CLAMP (4 / sqrt (p.h_tw), 0.35, 0.76);
+
+          prep->Mflb = 0.9 * E * kc * p.Sx / (p.lambda_f * p.lambda_f);
+          prep->eq_flb = "F3-2";
+        }
+    }
+  return TRUE;
+}
+
+/**
+ * trb_design_steel_flexure_at:
+ * @prep: from trb_design_steel_flexure_prepare()
+ * @Lb: the unbraced length of the compression flange, m (0: braced throughout)
+ * @Cb: the moment gradient factor (F1-1; 1 is conservative)
+ * @out: (out): the nominal strength and what governs it
+ *
+ * trb_design_steel_flexure() of the prepared section and grade.
+ *
+ * Returns: %FALSE (and @out zeroed) when the section is not one F2 or F3 covers
+ */
+gboolean
+trb_design_steel_flexure_at (const TrbSteelFlexurePrep *prep,
+                             double                     Lb,
+                             double                     Cb,
+                             TrbSteelFlexure           *out)
+{
+  double Mp, Mn, My70;
+  const char *eq;
+
+  g_return_val_if_fail (prep != NULL, FALSE);
+  g_return_val_if_fail (out != NULL, FALSE);
+
+  memset (out, 0, sizeof *out);
+  if (!prep->ok)
+    return FALSE;
+
   Lb = MAX (Lb, 0);
   if (!(Cb > 0))
     Cb = 1.0;
 
-  Mp = Fy * p.Zx;
-  My70 = 0.7 * Fy * p.Sx;
+  Mp = prep->Mp;
+  My70 = prep->My70;
   out->Mp = Mp;
-  out->Lp = lp_of (&p, grade);
-  out->Lr = lr_of (&p, grade);
+  out->Lp = prep->Lp;
+  out->Lr = prep->Lr;
   out->Lb = Lb;
   out->Cb = Cb;
-  out->lambda_f = p.lambda_f;
+  out->lambda_f = prep->lambda_f;
 
   /* Lateral-torsional buckling, F2.2; where Cb lifts the buckling strength past Mp,
    * yielding (F2-1) is what governs. */
@@ -345,11 +433,11 @@ trb_design_steel_flexure (const TrbSection    *section,
     }
   else
     {
-      double jc = p.J / (p.Sx * p.ho);
-      double s = Lb / p.rts;
-      double Fcr = Cb * G_PI * G_PI * E / (s * s) * sqrt (1 + 0.078 * jc * s * s);
+      double jc = prep->jc;
+      double s = Lb / prep->rts;
+      double Fcr = Cb * G_PI * G_PI * prep->E / (s * s) * sqrt (1 + 0.078 * jc * s * s);
 
-      Mn = Fcr * p.Sx;
+      Mn = Fcr * prep->Sx;
       eq = "F2-3";
     }
   if (Mn >= Mp)
@@ -358,31 +446,10 @@ trb_design_steel_flexure (const TrbSection    *section,
       eq = "F2-1";
     }
 
-  /* Flange local buckling, F3.2: rolled shapes with noncompact or slender flanges. */
-  lam_pf = 0.38 * sqrt (E / Fy);
-  lam_rf = 1.0 * sqrt (E / Fy);
-  if (p.lambda_f > lam_pf)
+  if (prep->flb && prep->Mflb < Mn)
     {
-      double Mflb;
-      const char *eq_flb;
-
-      if (p.lambda_f <= lam_rf)
-        {
-          Mflb = Mp - (Mp - My70) * (p.lambda_f - lam_pf) / (lam_rf - lam_pf);
-          eq_flb = "F3-1";
-        }
-      else
-        {
-          double kc = CLAMP (4 / sqrt (p.h_tw), 0.35, 0.76);
-
-          Mflb = 0.9 * E * kc * p.Sx / (p.lambda_f * p.lambda_f);
-          eq_flb = "F3-2";
-        }
-      if (Mflb < Mn)
-        {
-          Mn = Mflb;
-          eq = eq_flb;
-        }
+      Mn = prep->Mflb;
+      eq = prep->eq_flb;
     }
 
   out->Mn = Mn;
@@ -613,19 +680,18 @@ segment_cb (const TrbBeamResult *result,
  * consider_flexure() keeps the best on a tie, so the check is the same without the quarter
  * point moments of such a segment (six evaluations of the beam). */
 static gboolean
-cannot_govern (const FlexureCandidate *best,
-               double                  demand,
-               const TrbSection       *section,
-               const TrbSteelGrade    *grade,
-               double                  Lb,
-               TrbDesignBasis          basis)
+cannot_govern (const FlexureCandidate    *best,
+               double                     demand,
+               const TrbSteelFlexurePrep *prep,
+               double                     Lb,
+               TrbDesignBasis             basis)
 {
   TrbSteelFlexure flex;
   double capacity;
 
   if (!best->have || !(best->ratio > 0) || !isfinite (best->ratio))
     return FALSE;
-  trb_design_steel_flexure (section, grade, Lb, 1.0, &flex);
+  trb_design_steel_flexure_at (prep, Lb, 1.0, &flex);
   capacity = basis == TRB_DESIGN_BASIS_LRFD ? TRB_STEEL_PHI_B * flex.Mn
                                             : flex.Mn / TRB_STEEL_OMEGA_B;
   if (!(capacity > 0) || !isfinite (capacity))
@@ -646,11 +712,14 @@ check_flexure (const TrbDesignInput *input,
   g_autoptr(GArray) pts = NULL;
   FlexureCandidate best = { 0, };
   TrbSteelFlexure braced_flex;
+  TrbSteelFlexurePrep prep;
   TrbCheck check;
   char clause[48];
   char lb[24], lp[24], lr[24], mn[24];
 
-  if (!trb_design_steel_flexure (section, grade, 0, 1, &braced_flex))
+  /* the section's own values once, for every segment and combination */
+  trb_design_steel_flexure_prepare (section, grade, &prep);
+  if (!trb_design_steel_flexure_at (&prep, 0, 1, &braced_flex))
     {
       trb_check_append_not_checked (checks, "AISC 360-16 F4, F5",
                                     "Flexure: web not compact for flexure (F4, F5 not "
@@ -692,10 +761,10 @@ check_flexure (const TrbDesignInput *input,
 
           if (input->bracing == TRB_BRACING_POINTS)
             {
-              if (cannot_govern (&best, m_abs, section, grade, Lb, basis))
+              if (cannot_govern (&best, m_abs, &prep, Lb, basis))
                 continue;
               Cb = free_end ? 1.0 : segment_cb (combo->result, a, Lb, m_abs);
-              trb_design_steel_flexure (section, grade, Lb, Cb, &flex);
+              trb_design_steel_flexure_at (&prep, Lb, Cb, &flex);
               consider_flexure (&best, m_abs, x_abs, &flex, FALSE, basis, combo->name);
             }
           else
@@ -706,10 +775,10 @@ check_flexure (const TrbDesignInput *input,
                * it meets the full segment length, with Cb of the segment's own diagram. */
               consider_flexure (&best, m_pos, ext.M_max_x, &braced_flex, TRUE, basis,
                                 combo->name);
-              if (m_neg > 0 && !cannot_govern (&best, m_neg, section, grade, Lb, basis))
+              if (m_neg > 0 && !cannot_govern (&best, m_neg, &prep, Lb, basis))
                 {
                   Cb = free_end ? 1.0 : segment_cb (combo->result, a, Lb, m_abs);
-                  trb_design_steel_flexure (section, grade, Lb, Cb, &flex);
+                  trb_design_steel_flexure_at (&prep, Lb, Cb, &flex);
                   consider_flexure (&best, m_neg, ext.M_min_x, &flex, FALSE, basis,
                                     combo->name);
                 }

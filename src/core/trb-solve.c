@@ -2576,10 +2576,12 @@ candidate_shares (const Reference    *ref,
       const TrbSteelGrade *grade = steel_grade_of (m, in, s);
       gboolean lrfd = ref->method == TRB_METHOD_LRFD;
       TrbSteelFlexure flex;
+      TrbSteelFlexurePrep prep;
       TrbSteelShear shear;
       double cap_b, cap_v;
 
-      if (grade == NULL || !trb_design_steel_flexure (section, grade, 0, 1, &flex) ||
+      if (grade == NULL || !trb_design_steel_flexure_prepare (section, grade, &prep) ||
+          !trb_design_steel_flexure_at (&prep, 0, 1, &flex) ||
           !trb_design_steel_shear (section, grade, &shear))
         return FALSE;
       cap_b = lrfd ? TRB_STEEL_PHI_B * flex.Mn : flex.Mn / TRB_STEEL_OMEGA_B;
@@ -2655,11 +2657,9 @@ candidate_shares (const Reference    *ref,
                   if (!(Cb_lo >= 1 && Cb_hi >= Cb_lo && isfinite (Cb_hi)))
                     return FALSE;
                 }
-              trb_design_steel_flexure (section, grade, ref->seg[k + 1] - ref->seg[k], Cb_lo,
-                                        &flex);
+              trb_design_steel_flexure_at (&prep, ref->seg[k + 1] - ref->seg[k], Cb_lo, &flex);
               cap_lo = lrfd ? TRB_STEEL_PHI_B * flex.Mn : flex.Mn / TRB_STEEL_OMEGA_B;
-              trb_design_steel_flexure (section, grade, ref->seg[k + 1] - ref->seg[k], Cb_hi,
-                                        &flex);
+              trb_design_steel_flexure_at (&prep, ref->seg[k + 1] - ref->seg[k], Cb_hi, &flex);
               cap_hi = lrfd ? TRB_STEEL_PHI_B * flex.Mn : flex.Mn / TRB_STEEL_OMEGA_B;
               if (!(cap_lo > 0 && cap_hi >= cap_lo))
                 return FALSE;
@@ -3025,6 +3025,7 @@ guess_section (const TrbProject  *project,
       double EI = grade->E * section->Ix;
       double worst;
       TrbSteelFlexure flex;
+      TrbSteelFlexurePrep prep;
       TrbSteelShear sh;
 
       if (!candidate_allowed (m, section) || section->kind != TRB_SHAPE_W ||
@@ -3033,7 +3034,8 @@ guess_section (const TrbProject  *project,
       worst = 0;
       for (guint sp = 0; total_limit > 0 && sp < n_spans; sp++)
         worst = MAX (worst, fabs (total[sp].d0 + w * total[sp].du) / EI);
-      if (worst > 1 || !trb_design_steel_flexure (section, grade, 0, 1, &flex) ||
+      if (worst > 1 || !trb_design_steel_flexure_prepare (section, grade, &prep) ||
+          !trb_design_steel_flexure_at (&prep, 0, 1, &flex) ||
           !trb_design_steel_shear (section, grade, &sh))
         continue;
       worst = MAX (worst, (sag.d0 + w * sag.du) /
@@ -3046,7 +3048,7 @@ guess_section (const TrbProject  *project,
 
         for (guint k = 0; k < n_seg && worst <= 1; k++)
           {
-            if (!trb_design_steel_flexure (section, grade, seg[k + 1] - seg[k], 1, &flex))
+            if (!trb_design_steel_flexure_at (&prep, seg[k + 1] - seg[k], 1, &flex))
               {
                 worst = INFINITY;
                 break;
