@@ -1975,6 +1975,8 @@ typedef struct
   double            *scratch;      /* room for the shares of a candidate */
   TrbBeam           *beam;         /* the member's beam (its supports; E = I = 1) */
   GPtrArray         *mem;          /* what the arrays above point into */
+  double            *block;        /* ref_alloc()'s room left in the last of them */
+  gsize              block_left;
 } Reference;
 
 static void
@@ -1983,16 +1985,32 @@ reference_clear (Reference *ref)
   g_clear_pointer (&ref->mem, g_ptr_array_unref);
   g_clear_pointer (&ref->spans, g_free);
   g_clear_pointer (&ref->beam, trb_beam_free);
+  ref->block = NULL;
+  ref->block_left = 0;
   ref->ready = FALSE;
 }
+
+/* n + 1 doubles, all 0, from blocks the reference keeps (a few allocations a member, not
+ * one an array) */
+#define REF_BLOCK 1024
 
 static double *
 ref_alloc (Reference *ref,
            gsize      n)
 {
-  double *p = g_new0 (double, n + 1);
+  double *p;
 
-  g_ptr_array_add (ref->mem, p);
+  if (n + 1 > ref->block_left)
+    {
+      gsize size = MAX (n + 1, REF_BLOCK);
+
+      ref->block = g_new0 (double, size);
+      ref->block_left = size;
+      g_ptr_array_add (ref->mem, ref->block);
+    }
+  p = ref->block;
+  ref->block += n + 1;
+  ref->block_left -= n + 1;
   return p;
 }
 
@@ -2192,7 +2210,11 @@ reference_init (Reference             *ref,
   for (guint k = 0; k < ref->n_seg; k++)
     ref->free_end[k] = trb_design_steel_free_end (&input, ref->seg[k], ref->seg[k + 1]);
   ref->D_u = ref_alloc (ref, ref->n_spans);
-  trb_beam_result_extremes_intervals (unit, span_ab, ref->n_spans, NULL, ext, NULL);
+  /* over the spans: found above already where they are the segments (the same search of
+   * the same intervals) */
+  if (!(ref->n_spans == ref->n_seg && ref->n_seg > 0 &&
+        memcmp (span_ab, seg_ab, 2 * ref->n_seg * sizeof (double)) == 0))
+    trb_beam_result_extremes_intervals (unit, span_ab, ref->n_spans, NULL, ext, NULL);
   for (guint j = 0; j < ref->n_spans; j++)
     {
       double x;
