@@ -622,9 +622,14 @@ name_with_pattern (char       *dst,
   const char *pieces[] = { a, " (", b, ")" };
   gsize n = 0;
 
+  /* each piece as far as it fits, a block at a time */
   for (guint i = 0; i < G_N_ELEMENTS (pieces); i++)
-    for (const char *p = pieces[i]; *p != '\0' && n + 1 < size; p++)
-      dst[n++] = *p;
+    {
+      gsize len = MIN (strlen (pieces[i]), size - 1 - n);
+
+      memcpy (dst + n, pieces[i], len);
+      n += len;
+    }
   dst[n] = '\0';
 }
 
@@ -2847,6 +2852,7 @@ guess_section (const TrbProject  *project,
   gboolean *free_end = NULL;
   TrbBeamValues *vals = NULL;   /* part i at point k: vals[i * n_pts + k] */
   double *lp = NULL;            /* live load of pattern p at point k: M, V, v */
+  double *f_span = NULL;
   GuessDemand *hog = NULL, *total = NULL, sag = { 0, 0 }, shear = { 0, 0 };
   double *hog_cb = NULL;          /* hogging demand and Cb of each strength entry on each
                                    * segment: hog[e * n_seg + k] */
@@ -2972,6 +2978,13 @@ guess_section (const TrbProject  *project,
   free_end = g_new (gboolean, n_seg);
   for (guint k = 0; k < n_seg; k++)
     free_end[k] = trb_design_steel_free_end (&input, seg[k], seg[k + 1]);
+  /* each span's limits over its judged length: live, total */
+  f_span = g_new (double, 2 * n_spans + 1);
+  for (guint sp = 0; sp < n_spans; sp++)
+    {
+      f_span[2 * sp] = live_limit / spans[sp].judged;
+      f_span[2 * sp + 1] = total_limit / spans[sp].judged;
+    }
   hog = g_new0 (GuessDemand, n_str * n_seg);
   hog_cb = g_new (double, n_str * n_seg);
   total = g_new0 (GuessDemand, n_spans);
@@ -3018,7 +3031,7 @@ guess_section (const TrbProject  *project,
 
                       if (sp >= 0)
                         {
-                          double f = (set == 1 ? live_limit : total_limit) / spans[sp].judged;
+                          double f = f_span[2 * sp + set - 1];
 
                           if (set == 1)
                             live_unit = MAX (live_unit, fabs (v) * f);
@@ -3125,6 +3138,7 @@ out:
   g_free (lp);
   g_free (hog);
   g_free (hog_cb);
+  g_free (f_span);
   g_free (total);
   return guess;
 }
