@@ -1405,6 +1405,47 @@ test_flexure_prepared_same (void)
   g_assert_cmpuint (n_checked, >, 10000);
 }
 
+/* trb_design_print_fixed() prints what g_snprintf ("%.*f") prints, byte for byte: every
+ * magnitude from 1e-12 to 1e24, both signs, 0 to 20 decimals, exact ties of the last digit
+ * (printf rounds them to even), values that are whole numbers, and truncated buffers (the
+ * check values are printf's own). */
+static void
+test_print_fixed_same (void)
+{
+  g_autoptr(GRand) rand = g_rand_new_with_seed (20261202);
+  static const double special[] = { 0.0, -0.0, 0.5, 1.5, 2.5, -2.5, 0.125, 0.375, 1.005,
+                                    2.675, 1e15, 123456789.125, 9.995, 99.95, 0.05, NAN,
+                                    INFINITY, -INFINITY, 1e300, 5e-324, 4503599627370497.0 };
+
+  for (guint i = 0; i < 200000 + G_N_ELEMENTS (special); i++)
+    {
+      double v;
+      int d = i % 21 < 7 ? (int) (i % 7) : g_rand_int_range (rand, 0, 21);
+      gsize size = i % 13 == 0 ? 1 + i % 9 : 64;
+      char got[64], want[64];
+
+      if (i < 200000)
+        {
+          /* a decimal tie one time in four: k + 1/2 in units of the last digit, exact where
+           * the power of two allows */
+          v = i % 4 == 0 ? ldexp ((double) g_rand_int_range (rand, 0, 1 << 20) + 0.5,
+                                  -g_rand_int_range (rand, 0, 8))
+                         : g_rand_double_range (rand, 1, 10) * pow (10, g_rand_int_range (rand,
+                                                                                          -12,
+                                                                                          25));
+          if (i % 3 == 0)
+            v = -v;
+          if (i % 17 == 0)
+            v = round (v);
+        }
+      else
+        v = special[i - 200000];
+      trb_design_print_fixed (got, size, v, d);
+      g_snprintf (want, size, "%.*f", d, v);
+      g_assert_cmpstr (got, ==, want);
+    }
+}
+
 int
 main (int   argc,
       char *argv[])
@@ -1433,6 +1474,7 @@ main (int   argc,
   g_test_add_func ("/trb/design-steel/deflection-text-same", test_deflection_text_same);
   g_test_add_func ("/trb/design-steel/span-labels", test_span_labels);
   g_test_add_func ("/trb/design-steel/flexure-prepared-same", test_flexure_prepared_same);
+  g_test_add_func ("/trb/design-steel/print-fixed-same", test_print_fixed_same);
 
   return g_test_run ();
 }

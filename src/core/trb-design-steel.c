@@ -793,7 +793,9 @@ check_flexure (const TrbDesignInput *input,
       return;
     }
 
-  g_snprintf (clause, sizeof clause, "AISC 360-16 Eq. %s", best.flex.equation);
+  /* the texts joined without a printf: the same bytes, truncated alike */
+  g_strlcpy (clause, "AISC 360-16 Eq. ", sizeof clause);
+  g_strlcat (clause, best.flex.equation, sizeof clause);
   trb_check_set (&check, "Flexure", clause, TRB_DIM_MOMENT, best.demand, best.capacity,
                  best.combination, best.x);
   if (input->no_detail)
@@ -806,18 +808,33 @@ check_flexure (const TrbDesignInput *input,
   trb_design_format (lr, sizeof lr, best.flex.Lr, len_unit);
   trb_design_format (mn, sizeof mn, best.flex.Mn, si ? "kN-m" : "kip-ft");
   if (best.braced)
-    g_snprintf (check.detail, sizeof check.detail,
-                "Lb = 0 (braced), Lp = %s, Lr = %s, Mn = %s", lp, lr, mn);
+    g_strlcpy (check.detail, "Lb = 0 (braced), Lp = ", sizeof check.detail);
   else
-    g_snprintf (check.detail, sizeof check.detail,
-                "Lb = %s, Cb = %.2f, Lp = %s, Lr = %s, Mn = %s",
-                trb_design_format (lb, sizeof lb, best.flex.Lb, len_unit), best.flex.Cb,
-                lp, lr, mn);
+    {
+      char cb[48];
+
+      /* "Lb = %s, Cb = %.2f, Lp = %s ..." */
+      g_strlcpy (check.detail, "Lb = ", sizeof check.detail);
+      g_strlcat (check.detail, trb_design_format (lb, sizeof lb, best.flex.Lb, len_unit),
+                 sizeof check.detail);
+      g_strlcat (check.detail, ", Cb = ", sizeof check.detail);
+      g_strlcat (check.detail, trb_design_print_fixed (cb, sizeof cb, best.flex.Cb, 2),
+                 sizeof check.detail);
+      g_strlcat (check.detail, ", Lp = ", sizeof check.detail);
+    }
+  g_strlcat (check.detail, lp, sizeof check.detail);
+  g_strlcat (check.detail, ", Lr = ", sizeof check.detail);
+  g_strlcat (check.detail, lr, sizeof check.detail);
+  g_strlcat (check.detail, ", Mn = ", sizeof check.detail);
+  g_strlcat (check.detail, mn, sizeof check.detail);
   if (g_str_has_prefix (best.flex.equation, "F3"))
     {
-      char flange[24];
+      char flange[24], lf[48];
 
-      g_snprintf (flange, sizeof flange, ", bf/2tf = %.2f", best.flex.lambda_f);
+      /* ", bf/2tf = %.2f" */
+      g_strlcpy (flange, ", bf/2tf = ", sizeof flange);
+      g_strlcat (flange, trb_design_print_fixed (lf, sizeof lf, best.flex.lambda_f, 2),
+                 sizeof flange);
       g_strlcat (check.detail, flange, sizeof check.detail);
     }
 
@@ -883,15 +900,28 @@ check_shear (const TrbDesignInput *input,
       return;
     }
 
-  g_snprintf (clause, sizeof clause, "AISC 360-16 Eq. G2-1, %s", shear.provision);
+  g_strlcpy (clause, "AISC 360-16 Eq. G2-1, ", sizeof clause);
+  g_strlcat (clause, shear.provision, sizeof clause);
   trb_check_set (&check, "Shear", clause, TRB_DIM_FORCE, best_v, capacity, best_combo,
                  best_x);
   if (!input->no_detail)
-    g_snprintf (check.detail, sizeof check.detail,
-                "Vn = %s, Aw = d tw = %s, h/tw = %.1f, Cv1 = %.2f",
-                trb_design_format (vn, sizeof vn, shear.Vn, si ? "kN" : "kip"),
-                trb_design_format (aw, sizeof aw, shear.Aw, si ? "mm2" : "in2"),
-                shear.h_tw, shear.Cv1);
+    {
+      char num[48];
+
+      /* "Vn = %s, Aw = d tw = %s, h/tw = %.1f, Cv1 = %.2f", joined without a printf */
+      g_strlcpy (check.detail, "Vn = ", sizeof check.detail);
+      g_strlcat (check.detail, trb_design_format (vn, sizeof vn, shear.Vn, si ? "kN" : "kip"),
+                 sizeof check.detail);
+      g_strlcat (check.detail, ", Aw = d tw = ", sizeof check.detail);
+      g_strlcat (check.detail, trb_design_format (aw, sizeof aw, shear.Aw, si ? "mm2" : "in2"),
+                 sizeof check.detail);
+      g_strlcat (check.detail, ", h/tw = ", sizeof check.detail);
+      g_strlcat (check.detail, trb_design_print_fixed (num, sizeof num, shear.h_tw, 1),
+                 sizeof check.detail);
+      g_strlcat (check.detail, ", Cv1 = ", sizeof check.detail);
+      g_strlcat (check.detail, trb_design_print_fixed (num, sizeof num, shear.Cv1, 2),
+                 sizeof check.detail);
+    }
   g_array_append_val (checks, check);
 }
 

@@ -126,7 +126,7 @@ reaches_power (const char *buf,
   return FALSE;
 }
 
-/* g_snprintf (buf, size, "%.*f", decimals, v) for a finite v, in integers where they hold it
+/* g_snprintf (buf, size, "%.*f", decimals, v), in integers where they hold it
  * exactly: v = m 2^e with m < 2^53, so v 10^d = m 5^d 2^(e + d), rounded to an integer as
  * printf rounds the exact value (to nearest, a tie to even); printf itself where the
  * integers would not hold it. The details of every check print many numbers this way. */
@@ -196,6 +196,30 @@ print_fixed (char   *buf,
 printf:
 #endif
   g_snprintf (buf, size, "%.*f", decimals, v);
+}
+
+/**
+ * trb_design_print_fixed:
+ * @buf: (out caller-allocates): where the text goes
+ * @size: its room
+ * @value: the value
+ * @decimals: the decimals, 0 to 20
+ *
+ * What g_snprintf (buf, size, "%.*f", decimals, value) prints, the same bytes, mostly
+ * without printf.
+ *
+ * Returns: buf
+ */
+const char *
+trb_design_print_fixed (char   *buf,
+                        gsize   size,
+                        double  value,
+                        int     decimals)
+{
+  g_return_val_if_fail (buf != NULL && size > 0, buf);
+
+  print_fixed (buf, size, value, decimals);
+  return buf;
 }
 
 /* Three significant figures, as the trade's tables print them: 5.83, 16.9, 379, 1060. */
