@@ -1077,17 +1077,23 @@ analyse (const TrbProject  *project,
 
   for (guint c = 0; c < TRB_N_CASES; c++)
     {
-      g_autoptr(GArray) loads = g_array_new (FALSE, TRUE, sizeof (TrbLoad));
       gboolean own = c == TRB_CASE_D && r->self_weight > 0;
+      const TrbLoad *loads = in->loads[c];
+      guint n_loads = in->n_loads[c] + (own ? 1 : 0);
+      g_autofree TrbLoad *with_own = NULL;
 
-      g_array_append_vals (loads, in->loads[c], in->n_loads[c]);
+      /* the case's loads, and the self-weight with D: a copy only where it is added */
       if (own)
         {
           TrbLoad sw = { TRB_LOAD_UNIFORM, 0, in->length, r->self_weight, r->self_weight };
 
-          g_array_append_val (loads, sw);
+          with_own = g_new (TrbLoad, n_loads);
+          if (in->n_loads[c] > 0)
+            memcpy (with_own, in->loads[c], in->n_loads[c] * sizeof (TrbLoad));
+          with_own[n_loads - 1] = sw;
+          loads = with_own;
         }
-      if (loads->len == 0)
+      if (n_loads == 0)
         continue;
 
       r->has_case[c] = TRUE;
@@ -1095,8 +1101,7 @@ analyse (const TrbProject  *project,
           (r->self_weight > 0) == in->plan->self_weight)
         r->cases[c] = plan_result (in->plan, r->beam, in->plan->cases[c]);
       if (r->cases[c] == NULL)
-        r->cases[c] = trb_beam_solve (r->beam, (const TrbLoad *) loads->data, loads->len,
-                                      &error);
+        r->cases[c] = trb_beam_solve (r->beam, loads, n_loads, &error);
       if (r->cases[c] == NULL)
         {
           set_status (r, TRB_STATUS_ERROR, "case %s: %s", trb_load_case_name (c),
@@ -2851,7 +2856,9 @@ guess_section (const TrbProject  *project,
   int *span_of = NULL;
   gboolean *free_end = NULL;
   TrbBeamValues *vals = NULL;   /* part i at point k: vals[i * n_pts + k] */
+  TrbBeamValues vals_stack[192], *vals_heap = NULL;
   double *lp = NULL;            /* live load of pattern p at point k: M, V, v */
+  double lp_stack[768], *lp_heap = NULL;
   double *f_span = NULL;
   GuessDemand *hog = NULL, *total = NULL, sag = { 0, 0 }, shear = { 0, 0 };
   double *hog_cb = NULL;          /* hogging demand and Cb of each strength entry on each
@@ -2944,14 +2951,24 @@ guess_section (const TrbProject  *project,
         if (x[at] >= spans[sp].a && x[at] <= spans[sp].b)
           span_of[at] = sp;
     }
-  vals = g_new (TrbBeamValues, n_parts * n_pts);
+  if (n_parts * n_pts <= G_N_ELEMENTS (vals_stack))
+    vals = vals_stack;
+  else
+    vals = vals_heap = g_new (TrbBeamValues, n_parts * n_pts);
   for (guint at = 0; at < n_pts; at++)
     for (guint i = 0; i < n_parts; i++)
       trb_beam_result_eval (parts[i], x[at],
                             at < n_grid && at % (GUESS_DIV + 1) == GUESS_DIV ? TRB_SIDE_LEFT
                                                                              : TRB_SIDE_RIGHT,
                             &vals[i * n_pts + at]);
-  lp = g_new0 (double, 3 * patterns->len * n_pts);
+  /* on the stack where it fits (a 3-span member: 441 values) */
+  if (3 * patterns->len * n_pts <= G_N_ELEMENTS (lp_stack))
+    {
+      lp = lp_stack;
+      memset (lp, 0, 3 * patterns->len * n_pts * sizeof (double));
+    }
+  else
+    lp = lp_heap = g_new0 (double, 3 * patterns->len * n_pts);
   for (guint p = 0; p < patterns->len; p++)
     {
       guint64 mask = g_array_index (patterns, TrbPattern, p).mask;
@@ -3134,8 +3151,8 @@ out:
   g_free (x);
   g_free (span_of);
   g_free (free_end);
-  g_free (vals);
-  g_free (lp);
+  g_free (vals_heap);
+  g_free (lp_heap);
   g_free (hog);
   g_free (hog_cb);
   g_free (f_span);
