@@ -2355,7 +2355,7 @@ margin (double a,
 /* The candidate's largest value of a combination where the reference has its largest, v, and
  * the unit load has u there (u_lo, u_hi: the unit load's least and largest where the
  * candidate's largest may be), moving by c times the unit load: [lo, hi]. */
-static inline void
+static inline G_ALWAYS_INLINE void
 bound_max (double  v,
            double  u,
            double  u_lo,
@@ -2393,7 +2393,7 @@ unit_at_extreme (const double *u,
 }
 
 /* and its least */
-static inline void
+static inline G_ALWAYS_INLINE void
 bound_min (double  v,
            double  u,
            double  u_lo,
@@ -2443,7 +2443,7 @@ shares_init (Shares          *sh,
   sh->total_hi = sh->total_lo + ref->n_total;
 }
 
-static void
+static inline G_ALWAYS_INLINE void
 share_max (double *lo,
            double *hi,
            double  l,
