@@ -167,14 +167,27 @@ print_fixed (char   *buf,
         goto printf;
       q = p << -s;
     }
-  do
+  /* the digits: in 64 bits where they fit (a division by 10 there is a multiplication, in
+   * 128 bits a call) */
+  while (q >> 64 != 0 && nd < 40)
     {
       digits[nd++] = (char) ('0' + (int) (q % 10));
       q /= 10;
     }
-  while (q > 0 && nd < 40);
-  if (q > 0)
+  if (q >> 64 != 0)
     goto printf;
+  {
+    guint64 q64 = (guint64) q;
+
+    do
+      {
+        digits[nd++] = (char) ('0' + (int) (q64 % 10));
+        q64 /= 10;
+      }
+    while (q64 > 0 && nd < 40);
+    if (q64 > 0)
+      goto printf;
+  }
   while (nd < (guint) decimals + 1)
     digits[nd++] = '0';
 
