@@ -2509,6 +2509,7 @@ candidate_shares (const Reference    *ref,
   double k_EI, dw, M_u, V_u;
   double live_limit = trb_member_get_deflection_live (m, s);
   double total_limit = trb_member_get_deflection_total (m, s);
+  gboolean bounded = FALSE;   /* strength bounded */
 
   shares_init (sh, ref);
   if (!ref->ready || (self_weight > 0) != (ref->self_weight > 0) || !(EI > 0) ||
@@ -2534,39 +2535,6 @@ candidate_shares (const Reference    *ref,
       sh->max_lo = ref->live_unit * k_EI;
       return TRUE;
     }
-  sh->live_checked = live_limit > 0 && ref->n_spans > 0;
-  sh->total_checked = total_limit > 0 && ref->n_spans > 0;
-  for (guint i = 0; sh->live_checked && i < ref->n_live; i++)
-    for (guint j = 0; j < ref->n_spans; j++)
-      {
-        double cap = ref->spans[j].judged / live_limit;
-        double d = ref->d_live[i * ref->n_spans + j] * k_EI;
-        double tol = margin (d, 0, ref->D_scale * k_EI);
-
-        share_max (&sh->live_lo[i], &sh->live_hi[i], MAX (d - tol, 0) / cap, (d + tol) / cap);
-      }
-  for (guint i = 0; sh->total_checked && i < ref->n_total; i++)
-    for (guint j = 0; j < ref->n_spans; j++)
-      {
-        const double *d = ref->d_total + 3 * (i * ref->n_spans + j);
-        double c = ref->fD_total[i] * dw;
-        double cap = ref->spans[j].judged / total_limit;
-        double at = fabs (d[1] + c * d[2]);
-        double hi = d[0] * ref->EI + fabs (c) * ref->D_u[j];
-        double tol = margin (hi, at, ref->D_scale * ref->EI);
-
-        share_max (&sh->total_lo[i], &sh->total_hi[i], MAX (at - tol, 0) / EI / cap,
-                   (hi + tol) / EI / cap);
-      }
-
-  for (guint i = 0; i < ref->n_live; i++)
-    sh->max_lo = MAX (sh->max_lo, sh->live_lo[i]);
-  for (guint i = 0; i < ref->n_total; i++)
-    sh->max_lo = MAX (sh->max_lo, sh->total_lo[i]);
-  /* a candidate failing here need not be bounded further */
-  if (reject && sh->max_lo > 1 + BOUND_MARGIN)
-    return TRUE;
-
 
   if (ref->method == TRB_METHOD_ALLOWABLE)
     {
@@ -2577,7 +2545,7 @@ candidate_shares (const Reference    *ref,
       if (!(isfinite (Fb) && Fb > 0 && isfinite (section->Sx) && section->Sx > 0 &&
             isfinite (Fv) && Fv > 0) ||
           isnan (trb_design_allowable_shear_stress (section, 1.0, &formula)))
-        return FALSE;
+        goto unbounded;
       for (guint i = 0; i < ref->n_str; i++)
         {
           double c = ref->factors[i * TRB_N_CASES + TRB_CASE_D] * dw;
@@ -2615,11 +2583,11 @@ candidate_shares (const Reference    *ref,
       if (grade == NULL || !trb_design_steel_flexure_prepare (section, grade, &prep) ||
           !trb_design_steel_flexure_at (&prep, 0, 1, &flex) ||
           !trb_design_steel_shear (section, grade, &shear))
-        return FALSE;
+        goto unbounded;
       cap_b = lrfd ? TRB_STEEL_PHI_B * flex.Mn : flex.Mn / TRB_STEEL_OMEGA_B;
       cap_v = lrfd ? shear.phi * shear.Vn : shear.Vn / shear.omega;
       if (!(cap_b > 0 && cap_v > 0))
-        return FALSE;
+        goto unbounded;
       for (guint i = 0; i < ref->n_str; i++)
         {
           double c = ref->factors[i * TRB_N_CASES + TRB_CASE_D] * dw;
@@ -2687,14 +2655,14 @@ candidate_shares (const Reference    *ref,
                     Cb_hi = MAX (1.0, 12.5 * x_hi / (2.5 * x_hi + 3 * q_lo[0] + 4 * q_lo[1] +
                                                      3 * q_lo[2]) * (1 + BOUND_MARGIN));
                   if (!(Cb_lo >= 1 && Cb_hi >= Cb_lo && isfinite (Cb_hi)))
-                    return FALSE;
+                    goto unbounded;
                 }
               trb_design_steel_flexure_at (&prep, ref->seg[k + 1] - ref->seg[k], Cb_lo, &flex);
               cap_lo = lrfd ? TRB_STEEL_PHI_B * flex.Mn : flex.Mn / TRB_STEEL_OMEGA_B;
               trb_design_steel_flexure_at (&prep, ref->seg[k + 1] - ref->seg[k], Cb_hi, &flex);
               cap_hi = lrfd ? TRB_STEEL_PHI_B * flex.Mn : flex.Mn / TRB_STEEL_OMEGA_B;
               if (!(cap_lo > 0 && cap_hi >= cap_lo))
-                return FALSE;
+                goto unbounded;
               if (m->bracing == TRB_BRACING_POINTS)
                 share_max (&sh->str_lo[0][i], &sh->str_hi[0][i], abs_lo / cap_hi,
                            abs_hi / cap_lo);
@@ -2718,7 +2686,7 @@ candidate_shares (const Reference    *ref,
                                                              section->d / 6;
 
       if (!(section->b > 0 && section->d > 0))
-        return FALSE;
+        goto unbounded;
       member_design_input (m, in, ref->beam, brace_x, &input);
       input.section = section;
       wood_options_for (m, in, &options);
@@ -2759,6 +2727,47 @@ candidate_shares (const Reference    *ref,
         }
     }
   else
+    goto unbounded;
+  bounded = TRUE;
+
+unbounded:
+  /* deflection after strength: of the candidates past the live load's one number most fail
+   * in strength. The verdict is the same in either order: a candidate is rejected when some
+   * check's lower bound is above 1 (even where strength cannot be bounded), left to its
+   * analysis when strength cannot be bounded and nothing rejects it, and bounded in full
+   * otherwise */
+  sh->live_checked = live_limit > 0 && ref->n_spans > 0;
+  sh->total_checked = total_limit > 0 && ref->n_spans > 0;
+  for (guint i = 0; sh->live_checked && i < ref->n_live; i++)
+    for (guint j = 0; j < ref->n_spans; j++)
+      {
+        double cap = ref->spans[j].judged / live_limit;
+        double d = ref->d_live[i * ref->n_spans + j] * k_EI;
+        double tol = margin (d, 0, ref->D_scale * k_EI);
+
+        share_max (&sh->live_lo[i], &sh->live_hi[i], MAX (d - tol, 0) / cap, (d + tol) / cap);
+      }
+  for (guint i = 0; sh->total_checked && i < ref->n_total; i++)
+    for (guint j = 0; j < ref->n_spans; j++)
+      {
+        const double *d = ref->d_total + 3 * (i * ref->n_spans + j);
+        double c = ref->fD_total[i] * dw;
+        double cap = ref->spans[j].judged / total_limit;
+        double at = fabs (d[1] + c * d[2]);
+        double hi = d[0] * ref->EI + fabs (c) * ref->D_u[j];
+        double tol = margin (hi, at, ref->D_scale * ref->EI);
+
+        share_max (&sh->total_lo[i], &sh->total_hi[i], MAX (at - tol, 0) / EI / cap,
+                   (hi + tol) / EI / cap);
+      }
+
+  for (guint i = 0; i < ref->n_live; i++)
+    sh->max_lo = MAX (sh->max_lo, sh->live_lo[i]);
+  for (guint i = 0; i < ref->n_total; i++)
+    sh->max_lo = MAX (sh->max_lo, sh->total_lo[i]);
+  if (reject && sh->max_lo > 1 + BOUND_MARGIN)
+    return TRUE;
+  if (!bounded)
     return FALSE;
 
   for (guint i = 0; i < ref->n_str; i++)
