@@ -507,8 +507,49 @@ region_results_prepare (RegionResults         *rr,
           }
       }
   rr->zero_part = parts->len;
-  g_ptr_array_add (parts, rr->zero);
+  if (rr->zero != NULL)
+    g_ptr_array_add (parts, rr->zero);
   rr->combiner = trb_beam_combiner_new ((TrbBeamResult **) parts->pdata, parts->len);
+}
+
+/* Whether some entry of the member's sets is a combination of absent cases, which reads as
+ * the result of no load: a combination without a present case of nonzero factor, or a
+ * pattern that loads no region (none is built so, but it is not assumed) */
+static const GArray *combos_for (TrbComboSet     set,
+                                 const gboolean *has_case);
+
+static gboolean
+zero_needed (const TrbMemberResult *r,
+             const RegionResults   *rr)
+{
+  const TrbComboSet sets[] = { r->strength.set, r->live.set, r->total.set };
+
+  for (guint p = 0; p < r->patterns->len; p++)
+    {
+      guint64 mask = g_array_index (r->patterns, TrbPattern, p).mask;
+      gboolean any = FALSE;
+
+      for (guint reg = 0; reg < r->regions->len && reg < 64; reg++)
+        any = any || ((mask >> reg) & 1);
+      if (!any)
+        return TRUE;
+    }
+  for (guint k = 0; k < G_N_ELEMENTS (sets); k++)
+    {
+      const GArray *combos = combos_for (sets[k], r->has_case);
+
+      for (guint i = 0; i < combos->len; i++)
+        {
+          const TrbCombo *combo = &g_array_index (combos, TrbCombo, i);
+          gboolean present = FALSE;
+
+          for (guint c = 0; c < TRB_N_CASES; c++)
+            present = present || (combo->factors[c] != 0 && r->cases[c] != NULL);
+          if (!present)
+            return TRUE;
+        }
+    }
+  return FALSE;
 }
 
 /* Whether every entry the parts can make is certainly finite everywhere, as the lean analysis
@@ -520,7 +561,7 @@ static gboolean
 parts_bounded (const RegionResults   *rr,
                const TrbMemberResult *r)
 {
-  double sum = trb_beam_result_bound (rr->zero);
+  double sum = rr->zero != NULL ? trb_beam_result_bound (rr->zero) : 0;   /* 0 for no load */
 
   for (guint c = 0; c < TRB_N_CASES; c++)
     {
@@ -789,6 +830,7 @@ evaluate_set (TrbMemberResult     *r,
             {
               /* A combination of absent cases (1.4D on a member without dead load) still
                * reads as a combination, with zero effects. */
+              g_assert (rr->zero != NULL);   /* zero_needed() */
               index[n] = rr->zero_part;
               factors[n++] = 0;
             }
@@ -1113,13 +1155,6 @@ analyse (const TrbProject  *project,
         trb_beam_result_extremes (r->cases[c], 0, in->length, &r->case_ext[c]);
     }
 
-  rr.zero = trb_beam_solve (r->beam, NULL, 0, &error);
-  if (rr.zero == NULL)
-    {
-      set_status (r, TRB_STATUS_ERROR, "%s", error->message);
-      return FALSE;
-    }
-
   beam_supports = trb_beam_get_supports (r->beam, &n_beam_supports);
   g_array_unref (r->regions);
   if (in->plan != NULL && in->plan->ready)
@@ -1239,6 +1274,18 @@ analyse (const TrbProject  *project,
       plan->ready = TRUE;
     }
 
+  /* the result of no load, for a combination of absent cases only (1.4D on a member
+   * without dead load) */
+  if (zero_needed (r, &rr))
+    {
+      rr.zero = trb_beam_solve (r->beam, NULL, 0, &error);
+      if (rr.zero == NULL)
+        {
+          set_status (r, TRB_STATUS_ERROR, "%s", error->message);
+          region_results_clear (&rr, r->regions->len);
+          return FALSE;
+        }
+    }
   region_results_prepare (&rr, r);
   /* bounded parts make every entry finite: nothing is left to check break by break */
   bounded = parts_bounded (&rr, r);
