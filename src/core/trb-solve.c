@@ -3590,7 +3590,14 @@ record_input (TrbMemberResult   *r,
     return;
   r->supports = g_array_sized_new (FALSE, FALSE, sizeof (TrbSupport), in->n_supports);
   g_array_append_vals (r->supports, in->supports, in->n_supports);
-  r->loads = g_array_new (FALSE, TRUE, sizeof (TrbMemberLoad));
+  {
+    guint n = 0;
+
+    /* room for all at once: the array does not grow load by load */
+    for (guint c = 0; c < TRB_N_CASES; c++)
+      n += in->n_loads[c];
+    r->loads = g_array_sized_new (FALSE, TRUE, sizeof (TrbMemberLoad), n);
+  }
   for (guint c = 0; c < TRB_N_CASES; c++)
     for (guint i = 0; i < in->n_loads[c]; i++)
       {
@@ -3704,20 +3711,31 @@ standalone_input (const TrbMember *member,
                   GArray          *supports,
                   GArray         **loads)
 {
+  guint n[TRB_N_CASES] = { 0 };
+
   memset (in, 0, sizeof *in);
   in->member = member;
   in->length = member->length;
   in->repetitive_spacing = NAN;
+  /* each array sized once and filled in place, in the member's order */
+  g_array_set_size (supports, member->supports->len);
   for (guint i = 0; i < member->supports->len; i++)
-    g_array_append_val (supports,
-                        g_array_index (member->supports, TrbMemberSupport, i).support);
+    g_array_index (supports, TrbSupport, i) =
+      g_array_index (member->supports, TrbMemberSupport, i).support;
   in->supports = (const TrbSupport *) supports->data;
   in->n_supports = supports->len;
+  for (guint i = 0; i < member->loads->len; i++)
+    n[g_array_index (member->loads, TrbMemberLoad, i).lcase]++;
+  for (guint c = 0; c < TRB_N_CASES; c++)
+    {
+      g_array_set_size (loads[c], n[c]);
+      n[c] = 0;
+    }
   for (guint i = 0; i < member->loads->len; i++)
     {
       const TrbMemberLoad *ml = &g_array_index (member->loads, TrbMemberLoad, i);
 
-      g_array_append_val (loads[ml->lcase], ml->load);
+      g_array_index (loads[ml->lcase], TrbLoad, n[ml->lcase]++) = ml->load;
     }
   for (guint c = 0; c < TRB_N_CASES; c++)
     {
