@@ -2926,6 +2926,7 @@ guess_section (const TrbProject  *project,
   const GArray *combos[3];
   double live_unit = 0;
   gboolean patterns_built = FALSE;
+  gboolean points_braced = m->bracing == TRB_BRACING_POINTS;
 
   if (m->material != TRB_MATERIAL_STEEL || cands->family == NULL ||
       (method != TRB_METHOD_ASD && method != TRB_METHOD_LRFD) ||
@@ -3068,59 +3069,67 @@ guess_section (const TrbProject  *project,
         double fD = combo->factors[TRB_CASE_D], fL = combo->factors[TRB_CASE_L];
 
         for (guint p = 0; p < (fL != 0 ? patterns->len : 1); p++, e_str += set == 0)
-          for (guint k = 0; k <= n_seg; k++)
-            {
-              double neg = 0, du_neg = 0, m_abs = 0, q[3] = { 0, 0, 0 };
+          {
+            const double *lpp = lp + 3 * p * n_pts;
 
-              /* the segments' grids, then the point loads as a last "segment" */
-              for (guint j = 0; k < n_seg ? j <= GUESS_DIV : j < n_pts - n_grid; j++)
-                {
-                  guint at = k < n_seg ? k * (GUESS_DIV + 1) + j : n_grid + j;
-                  const double *l = lp + 3 * (p * n_pts + at);
-                  const TrbBeamValues *d = &vals[at], *u = &vals[n_pts + at];
-                  double M = fD * d->M + fL * l[0];
+            if (set != 0)
+              {
+                /* the deflections: at every point in a span, in order */
+                for (guint at = 0; at < n_pts; at++)
+                  {
+                    int sp = span_of[at];
+                    double v, f;
 
-                  if (set == 0)
-                    {
-                      double V = fD * d->V + fL * l[1];
+                    if (sp < 0)
+                      continue;
+                    v = fD * vals[at].defl + fL * lpp[3 * at + 2];
+                    f = f_span[2 * sp + set - 1];
+                    if (set == 1)
+                      live_unit = MAX (live_unit, fabs (v) * f);
+                    else
+                      guess_take (&total[sp], fabs (v) * f,
+                                  copysign (fD * vals[n_pts + at].defl, v) * f);
+                  }
+                continue;
+              }
 
-                      guess_take (&sag, m->bracing == TRB_BRACING_POINTS ? 0 : M, fD * u->M);
-                      guess_take (&shear, fabs (V), copysign (fD * u->V, V));
-                      /* braced at points: |M| meets Lb and Cb; else hogging does */
-                      if ((m->bracing == TRB_BRACING_POINTS ? fabs (M) : -M) > neg)
-                        {
-                          neg = m->bracing == TRB_BRACING_POINTS ? fabs (M) : -M;
-                          du_neg = m->bracing == TRB_BRACING_POINTS ? copysign (fD * u->M, M)
-                                                                    : -fD * u->M;
-                        }
-                      m_abs = MAX (m_abs, fabs (M));
-                      if (k < n_seg && j > 0 && j < GUESS_DIV && j % (GUESS_DIV / 4) == 0)
-                        q[j / (GUESS_DIV / 4) - 1] = M;
-                    }
-                  else
-                    {
-                      double v = fD * d->defl + fL * l[2];
-                      int sp = span_of[at];
+            /* the segments' grids, then the point loads as a last "segment" */
+            for (guint k = 0; k <= n_seg; k++)
+              {
+                guint first = k < n_seg ? k * (GUESS_DIV + 1) : n_grid;
+                guint end = k < n_seg ? first + GUESS_DIV + 1 : n_pts;
+                double neg = 0, du_neg = 0, m_abs = 0, q[3] = { 0, 0, 0 };
 
-                      if (sp >= 0)
-                        {
-                          double f = f_span[2 * sp + set - 1];
+                for (guint at = first; at < end; at++)
+                  {
+                    guint j = at - first;
+                    const double *l = lpp + 3 * at;
+                    const TrbBeamValues *d = &vals[at], *u = &vals[n_pts + at];
+                    double M = fD * d->M + fL * l[0];
+                    double V = fD * d->V + fL * l[1];
+                    /* braced at points: |M| meets Lb and Cb; else hogging does */
+                    double h = points_braced ? fabs (M) : -M;
 
-                          if (set == 1)
-                            live_unit = MAX (live_unit, fabs (v) * f);
-                          else
-                            guess_take (&total[sp], fabs (v) * f, copysign (fD * u->defl, v) * f);
-                        }
-                    }
-                }
-              if (set == 0 && k < n_seg)
-                {
-                  hog[e_str * n_seg + k].d0 = neg;
-                  hog[e_str * n_seg + k].du = du_neg;
-                  hog_cb[e_str * n_seg + k] = free_end[k] ? 1.0
-                                              : trb_design_steel_cb (m_abs, q[0], q[1], q[2]);
-                }
-            }
+                    guess_take (&sag, points_braced ? 0 : M, fD * u->M);
+                    guess_take (&shear, fabs (V), copysign (fD * u->V, V));
+                    if (h > neg)
+                      {
+                        neg = h;
+                        du_neg = points_braced ? copysign (fD * u->M, M) : -fD * u->M;
+                      }
+                    m_abs = MAX (m_abs, fabs (M));
+                    if (k < n_seg && j > 0 && j < GUESS_DIV && j % (GUESS_DIV / 4) == 0)
+                      q[j / (GUESS_DIV / 4) - 1] = M;
+                  }
+                if (k < n_seg)
+                  {
+                    hog[e_str * n_seg + k].d0 = neg;
+                    hog[e_str * n_seg + k].du = du_neg;
+                    hog_cb[e_str * n_seg + k] = free_end[k] ? 1.0
+                                                : trb_design_steel_cb (m_abs, q[0], q[1], q[2]);
+                  }
+              }
+          }
       }
   if (!(live_limit > 0))
     live_unit = 0;
