@@ -2558,7 +2558,9 @@ candidate_shares (const Reference    *ref,
   double total_limit = trb_member_get_deflection_total (m, s);
   gboolean bounded = FALSE;   /* strength bounded */
 
-  shares_init (sh, ref);
+  /* the shares' arrays are cleared only once the candidate is bounded (most fail in live
+   * deflection by one number first) */
+  memset (sh, 0, sizeof *sh);
   if (!ref->ready || (self_weight > 0) != (ref->self_weight > 0) || !(EI > 0) ||
       !isfinite (EI))
     return FALSE;
@@ -2582,6 +2584,7 @@ candidate_shares (const Reference    *ref,
       sh->max_lo = ref->live_unit * k_EI;
       return TRUE;
     }
+  shares_init (sh, ref);
 
   if (ref->method == TRB_METHOD_ALLOWABLE)
     {
