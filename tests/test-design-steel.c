@@ -163,6 +163,21 @@ test_grades (void)
   g_assert_cmpfloat_with_epsilon (g->Fu / TRB_KSI, 65, 1e-9);
 
   g_assert_null (trb_design_steel_lookup_grade ("A514"));
+
+  /* each grade by its own name and by another spelling of it is itself: no two names of the
+   * table are the same once normalized, so the lookup by the exact name finds what the
+   * normalized comparison finds */
+  {
+    const TrbSteelGrade *all = trb_design_steel_get_grades (&n);
+
+    for (guint i = 0; i < n; i++)
+      {
+        g_autofree char *other = g_strdelimit (g_ascii_strdown (all[i].name, -1), " ", '-');
+
+        g_assert_true (trb_design_steel_lookup_grade (all[i].name) == &all[i]);
+        g_assert_true (trb_design_steel_lookup_grade (other) == &all[i]);
+      }
+  }
 }
 
 /* ---- Table 3-2 ---- */

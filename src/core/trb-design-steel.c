@@ -62,6 +62,12 @@ trb_design_steel_lookup_grade (const char *name)
 
   g_return_val_if_fail (name != NULL, NULL);
 
+  /* a grade's own name, as the settings mostly give it: the same grade as normalized (no two
+   * names of the table are the same once normalized), without the copies */
+  for (guint i = 0; i < G_N_ELEMENTS (steel_grades); i++)
+    if (strcmp (name, steel_grades[i].name) == 0)
+      return &steel_grades[i];
+
   want = normalize_grade_name (name);
   for (guint i = 0; i < G_N_ELEMENTS (steel_grades); i++)
     {
