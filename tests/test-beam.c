@@ -1130,6 +1130,66 @@ test_sample_breaks_copy (void)
   }
 }
 
+/* trb_beam_result_value() gives each field of trb_beam_result_eval() bit for bit, on both
+ * sides: at the ends, outside them, at every break (the jumps) and between them. The check
+ * values are the engine's own (a speed-up of the same operations). */
+static void
+test_value_same (void)
+{
+  const double L = 11.0;
+  TrbSupport sup[] = { { 1.5, TRB_SUPPORT_PIN }, { 6.0, TRB_SUPPORT_ROLLER },
+                       { 9.5, TRB_SUPPORT_ROLLER } };
+  TrbLoad ld[] = {
+    { TRB_LOAD_POINT, 3.0, 0, 2000, 0 },
+    { TRB_LOAD_LINEAR, 0.0, 4.5, 500, 1500 },
+    { TRB_LOAD_UNIFORM, 2.0, L, 700, 700 },
+    { TRB_LOAD_MOMENT, 7.25, 0, 800, 0 },
+    { TRB_LOAD_POINT, L, 0, 900, 0 },
+  };
+  g_autoptr(TrbBeam) beam = make_beam (L, sup, 3);
+  g_autoptr(TrbBeamResult) r = solve (beam, ld, G_N_ELEMENTS (ld));
+  g_autoptr(GRand) rand = g_rand_new_with_seed (20261202);
+  g_autoptr(GArray) xs = g_array_new (FALSE, FALSE, sizeof (double));
+  const double *brk;
+  guint nb;
+
+  brk = trb_beam_result_get_breaks (r, &nb);
+  g_array_append_vals (xs, brk, nb);
+  for (guint i = 0; i < 400; i++)
+    {
+      double x = g_rand_double_range (rand, 0, L);
+
+      g_array_append_val (xs, x);
+    }
+  {
+    const double odd[] = { -1.0, L + 1.0, NAN, 1e-300, L * (1 - 1e-16) };
+
+    g_array_append_vals (xs, odd, G_N_ELEMENTS (odd));
+  }
+  for (guint i = 0; i < xs->len; i++)
+    {
+      double x = g_array_index (xs, double, i);
+      TrbBeamValues left = at (r, x, TRB_SIDE_LEFT), right = at (r, x, TRB_SIDE_RIGHT);
+
+      for (TrbBeamQuantity q = TRB_BEAM_V; q <= TRB_BEAM_DEFL; q++)
+        {
+          const double *el = q == TRB_BEAM_V ? &left.V : q == TRB_BEAM_M ? &left.M
+                             : q == TRB_BEAM_THETA ? &left.theta : &left.defl;
+          const double *er = q == TRB_BEAM_V ? &right.V : q == TRB_BEAM_M ? &right.M
+                             : q == TRB_BEAM_THETA ? &right.theta : &right.defl;
+          double vl = 1, vr = 1, only;
+
+          trb_beam_result_value (r, x, q, &vl, &vr);
+          g_assert_cmpmem (&vl, sizeof vl, el, sizeof *el);
+          g_assert_cmpmem (&vr, sizeof vr, er, sizeof *er);
+          trb_beam_result_value (r, x, q, &only, NULL);
+          g_assert_cmpmem (&only, sizeof only, el, sizeof *el);
+          trb_beam_result_value (r, x, q, NULL, &only);
+          g_assert_cmpmem (&only, sizeof only, er, sizeof *er);
+        }
+    }
+}
+
 static void
 test_many_loads (void)
 {
@@ -1269,6 +1329,7 @@ main (int    argc,
   g_test_add_func ("/trb/beam/equilibrium", test_equilibrium);
   g_test_add_func ("/trb/beam/combine", test_combine);
   g_test_add_func ("/trb/beam/sample-breaks-copy", test_sample_breaks_copy);
+  g_test_add_func ("/trb/beam/value-same", test_value_same);
   g_test_add_func ("/trb/beam/many-loads", test_many_loads);
   g_test_add_func ("/trb/beam/empty", test_empty);
   g_test_add_func ("/trb/beam/numerical-edges", test_numerical_edges);

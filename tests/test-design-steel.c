@@ -4,9 +4,11 @@
 #include "config.h"
 
 #include <math.h>
+#include <stddef.h>
 #include <string.h>
 
 #include "trb-beam.h"
+#include "trb-catalog.h"
 #include "trb-design-steel.h"
 #include "trb-design.h"
 #include "trb-units.h"
@@ -161,6 +163,21 @@ test_grades (void)
   g_assert_cmpfloat_with_epsilon (g->Fu / TRB_KSI, 65, 1e-9);
 
   g_assert_null (trb_design_steel_lookup_grade ("A514"));
+
+  /* each grade by its own name and by another spelling of it is itself: no two names of the
+   * table are the same once normalized, so the lookup by the exact name finds what the
+   * normalized comparison finds */
+  {
+    const TrbSteelGrade *all = trb_design_steel_get_grades (&n);
+
+    for (guint i = 0; i < n; i++)
+      {
+        g_autofree char *other = g_strdelimit (g_ascii_strdown (all[i].name, -1), " ", '-');
+
+        g_assert_true (trb_design_steel_lookup_grade (all[i].name) == &all[i]);
+        g_assert_true (trb_design_steel_lookup_grade (other) == &all[i]);
+      }
+  }
 }
 
 /* ---- Table 3-2 ---- */
@@ -1078,7 +1095,10 @@ test_format_same (void)
   static const struct { const char *name, *text; double factor; } units[] = {
     { "m", "m", 1.0 }, { "kN-m", "kN·m", 1e3 },
   };
-  static const double special[] = { 0.0, -0.0, NAN, INFINITY, -INFINITY, 1e-300, 1e300 };
+  /* and exact ties of the last digit printed (printf rounds them to even), both signs */
+  static const double special[] = { 0.0, -0.0, NAN, INFINITY, -INFINITY, 1e-300, 1e300,
+                                    1.125, 1.375, -1.125, 10.25, 10.75, -10.25, 0.5625,
+                                    0.0078125, 9.9951171875, 99.9375, 999.5, 1e22, 1.5e-9 };
   g_autoptr(GRand) rand = g_rand_new_with_seed (20261202);
 
   for (int e = -14; e <= 14; e++)
@@ -1146,6 +1166,301 @@ test_deflection_text_same (void)
     }
 }
 
+/* The spans' labels, written without printf, are those g_snprintf ("span %u") writes, past
+ * ten spans too; the overhangs keep their names (the check values are the printf's own). */
+static void
+test_span_labels (void)
+{
+  TrbSupport sup[14];
+  TrbDeflectionSpan spans[16];
+  TrbDesignInput input = { 0 };
+  guint n;
+
+  for (guint i = 0; i < G_N_ELEMENTS (sup); i++)
+    {
+      sup[i].x = 1.0 + 2.0 * i;
+      sup[i].type = i == 0 ? TRB_SUPPORT_PIN : TRB_SUPPORT_ROLLER;
+    }
+  input.length = sup[G_N_ELEMENTS (sup) - 1].x + 1.0;
+  input.supports = sup;
+  input.n_supports = G_N_ELEMENTS (sup);
+  n = trb_design_deflection_spans (&input, spans, G_N_ELEMENTS (spans));
+  g_assert_cmpuint (n, ==, G_N_ELEMENTS (sup) + 1);
+  g_assert_cmpstr (spans[0].label, ==, "left overhang");
+  g_assert_cmpstr (spans[n - 1].label, ==, "right overhang");
+  for (guint i = 1; i + 1 < n; i++)
+    {
+      g_autofree char *expect = g_strdup_printf ("span %u", i);
+
+      g_assert_cmpstr (spans[i].label, ==, expect);
+    }
+}
+
+/* trb_design_steel_flexure() as it was before trb_design_steel_flexure_prepare() took the
+ * section's own values out of it, to show that the two give the same bits */
+typedef struct
+{
+  double d, tw, Zx, Sx, ry, J, ho, rts, lambda_f, h_tw;
+} OldIProps;
+
+static gboolean
+old_positive (double v)
+{
+  return isfinite (v) && v > 0;
+}
+
+static gboolean
+old_get_i_props (const TrbSection *s,
+                 OldIProps        *p)
+{
+  if (s->kind != TRB_SHAPE_W && s->kind != TRB_SHAPE_S && s->kind != TRB_SHAPE_CUSTOM)
+    return FALSE;
+
+  p->d = s->d;
+  p->tw = s->tw;
+  p->Zx = s->Zx;
+  p->Sx = s->Sx;
+  p->ry = s->ry;
+  p->J = s->J;
+
+  p->ho = s->ho;
+  if (!old_positive (p->ho) && old_positive (s->d) && old_positive (s->tf))
+    p->ho = s->d - s->tf;
+
+  /* rts^2 = sqrt(Iy Cw) / Sx (F2-7) */
+  p->rts = s->rts;
+  if (!old_positive (p->rts) && old_positive (s->Iy) && old_positive (s->Cw) &&
+      old_positive (s->Sx))
+    p->rts = sqrt (sqrt (s->Iy * s->Cw) / s->Sx);
+
+  p->lambda_f = s->bf_2tf;
+  if (!old_positive (p->lambda_f) && old_positive (s->bf) && old_positive (s->tf))
+    p->lambda_f = s->bf / (2 * s->tf);
+
+  /* h is the clear distance between flanges less the fillets: d - 2 kdes for rolled shapes */
+  p->h_tw = s->h_tw;
+  if (!old_positive (p->h_tw) && old_positive (s->d) && old_positive (s->kdes) &&
+      old_positive (s->tw))
+    p->h_tw = (s->d - 2 * s->kdes) / s->tw;
+
+  /* A custom section is taken as an I shape only when it has flanges and a warping constant:
+   * a rectangle or a tube with the same moduli would otherwise be checked by the wrong
+   * chapter. */
+  if (s->kind == TRB_SHAPE_CUSTOM
+      && !(old_positive (s->bf) && old_positive (s->tf) && old_positive (s->Cw)))
+    return FALSE;
+
+  return old_positive (p->d) && old_positive (p->tw) && old_positive (p->Zx) &&
+         old_positive (p->Sx) && old_positive (p->ry) && old_positive (p->J) &&
+         old_positive (p->ho) && old_positive (p->rts) && old_positive (p->lambda_f) &&
+         old_positive (p->h_tw);
+}
+
+static double
+old_lp_of (const OldIProps     *p,
+           const TrbSteelGrade *g)
+{
+  /* F2-5 */
+  return 1.76 * p->ry * sqrt (g->E / g->Fy);
+}
+
+static double
+old_lr_of (const OldIProps     *p,
+           const TrbSteelGrade *g)
+{
+  /* F2-6, with c = 1 for doubly symmetric I shapes (F2-8a) */
+  double jc = p->J / (p->Sx * p->ho);
+  double r = 0.7 * g->Fy / g->E;
+
+  return 1.95 * p->rts * (g->E / (0.7 * g->Fy)) * sqrt (jc + sqrt (jc * jc + 6.76 * r * r));
+}
+
+static gboolean
+old_flexure (const TrbSection    *section,
+             const TrbSteelGrade *grade,
+             double               Lb,
+             double               Cb,
+             TrbSteelFlexure     *out)
+{
+  OldIProps p;
+  double E, Fy, Mp, Mn, lam_pf, lam_rf, My70;
+  const char *eq;
+
+  g_return_val_if_fail (section != NULL, FALSE);
+  g_return_val_if_fail (grade != NULL, FALSE);
+  g_return_val_if_fail (out != NULL, FALSE);
+
+  memset (out, 0, sizeof *out);
+  if (!old_get_i_props (section, &p))
+    return FALSE;
+
+  E = grade->E;
+  Fy = grade->Fy;
+  if (p.h_tw > 3.76 * sqrt (E / Fy))
+    return FALSE;
+
+  Lb = MAX (Lb, 0);
+  if (!(Cb > 0))
+    Cb = 1.0;
+
+  Mp = Fy * p.Zx;
+  My70 = 0.7 * Fy * p.Sx;
+  out->Mp = Mp;
+  out->Lp = old_lp_of (&p, grade);
+  out->Lr = old_lr_of (&p, grade);
+  out->Lb = Lb;
+  out->Cb = Cb;
+  out->lambda_f = p.lambda_f;
+
+  /* Lateral-torsional buckling, F2.2; where Cb lifts the buckling strength past Mp,
+   * yielding (F2-1) is what governs. */
+  if (Lb <= out->Lp)
+    {
+      Mn = Mp;
+      eq = "F2-1";
+    }
+  else if (Lb <= out->Lr)
+    {
+      Mn = Cb * (Mp - (Mp - My70) * (Lb - out->Lp) / (out->Lr - out->Lp));
+      eq = "F2-2";
+    }
+  else
+    {
+      double jc = p.J / (p.Sx * p.ho);
+      double s = Lb / p.rts;
+      double Fcr = Cb * G_PI * G_PI * E / (s * s) * sqrt (1 + 0.078 * jc * s * s);
+
+      Mn = Fcr * p.Sx;
+      eq = "F2-3";
+    }
+  if (Mn >= Mp)
+    {
+      Mn = Mp;
+      eq = "F2-1";
+    }
+
+  /* Flange local buckling, F3.2: rolled shapes with noncompact or slender flanges. */
+  lam_pf = 0.38 * sqrt (E / Fy);
+  lam_rf = 1.0 * sqrt (E / Fy);
+  if (p.lambda_f > lam_pf)
+    {
+      double Mflb;
+      const char *eq_flb;
+
+      if (p.lambda_f <= lam_rf)
+        {
+          Mflb = Mp - (Mp - My70) * (p.lambda_f - lam_pf) / (lam_rf - lam_pf);
+          eq_flb = "F3-1";
+        }
+      else
+        {
+          double kc = CLAMP (4 / sqrt (p.h_tw), 0.35, 0.76);
+
+          Mflb = 0.9 * E * kc * p.Sx / (p.lambda_f * p.lambda_f);
+          eq_flb = "F3-2";
+        }
+      if (Mflb < Mn)
+        {
+          Mn = Mflb;
+          eq = eq_flb;
+        }
+    }
+
+  out->Mn = Mn;
+  out->equation = eq;
+  return TRUE;
+}
+
+/* The prepared flexure (trb_design_steel_flexure_prepare() and _at(), which
+ * trb_design_steel_flexure() now is) against the former code, bit for bit: every W and S
+ * shape of the bundled catalog, each grade, Lb from 0 past Lr, Cb from none to 3. The check
+ * values are the former code's own (a speed-up of the same operations). */
+static void
+test_flexure_prepared_same (void)
+{
+  const TrbCatalog *catalog = trb_catalog_get_default ();
+  g_autoptr(GRand) rand = g_rand_new_with_seed (20261202);
+  const TrbFamily families[] = { TRB_FAMILY_W, TRB_FAMILY_S };
+  const TrbSteelGrade *grades;
+  guint n_grades, n_checked = 0;
+
+  grades = trb_design_steel_get_grades (&n_grades);
+  for (guint f = 0; f < G_N_ELEMENTS (families); f++)
+    {
+      guint n;
+      const TrbSection *sections = trb_catalog_get_family (catalog, families[f], &n);
+
+      for (guint i = 0; i < n; i++)
+        for (guint g = 0; g < n_grades; g++)
+          {
+            TrbSteelFlexurePrep prep;
+
+            trb_design_steel_flexure_prepare (&sections[i], &grades[g], &prep);
+            for (guint k = 0; k < 40; k++)
+              {
+                double Lb = k == 0 ? 0 : k == 1 ? -1 : g_rand_double_range (rand, 0, 25);
+                double Cb = k % 7 == 0 ? 0 : k % 5 == 0 ? 1 : g_rand_double_range (rand, 1, 3);
+                TrbSteelFlexure a = { 0 }, b = { 0 }, c = { 0 };
+                gboolean oa = old_flexure (&sections[i], &grades[g], Lb, Cb, &a);
+                gboolean ob = trb_design_steel_flexure (&sections[i], &grades[g], Lb, Cb, &b);
+                gboolean oc = trb_design_steel_flexure_at (&prep, Lb, Cb, &c);
+
+                g_assert_cmpint (oa, ==, ob);
+                g_assert_cmpint (oa, ==, oc);
+                g_assert_cmpmem (&a, offsetof (TrbSteelFlexure, equation), &b,
+                                 offsetof (TrbSteelFlexure, equation));
+                g_assert_cmpmem (&a, offsetof (TrbSteelFlexure, equation), &c,
+                                 offsetof (TrbSteelFlexure, equation));
+                g_assert_cmpstr (a.equation, ==, b.equation);
+                g_assert_cmpstr (a.equation, ==, c.equation);
+                n_checked += oa;
+              }
+          }
+    }
+  g_assert_cmpuint (n_checked, >, 10000);
+}
+
+/* trb_design_print_fixed() prints what g_snprintf ("%.*f") prints, byte for byte: every
+ * magnitude from 1e-12 to 1e24, both signs, 0 to 20 decimals, exact ties of the last digit
+ * (printf rounds them to even), values that are whole numbers, and truncated buffers (the
+ * check values are printf's own). */
+static void
+test_print_fixed_same (void)
+{
+  g_autoptr(GRand) rand = g_rand_new_with_seed (20261202);
+  static const double special[] = { 0.0, -0.0, 0.5, 1.5, 2.5, -2.5, 0.125, 0.375, 1.005,
+                                    2.675, 1e15, 123456789.125, 9.995, 99.95, 0.05, NAN,
+                                    INFINITY, -INFINITY, 1e300, 5e-324, 4503599627370497.0 };
+
+  for (guint i = 0; i < 200000 + G_N_ELEMENTS (special); i++)
+    {
+      double v;
+      int d = i % 21 < 7 ? (int) (i % 7) : g_rand_int_range (rand, 0, 21);
+      gsize size = i % 13 == 0 ? 1 + i % 9 : 64;
+      char got[64], want[64];
+
+      if (i < 200000)
+        {
+          /* a decimal tie one time in four: k + 1/2 in units of the last digit, exact where
+           * the power of two allows */
+          v = i % 4 == 0 ? ldexp ((double) g_rand_int_range (rand, 0, 1 << 20) + 0.5,
+                                  -g_rand_int_range (rand, 0, 8))
+                         : g_rand_double_range (rand, 1, 10) * pow (10, g_rand_int_range (rand,
+                                                                                          -12,
+                                                                                          25));
+          if (i % 3 == 0)
+            v = -v;
+          if (i % 17 == 0)
+            v = round (v);
+        }
+      else
+        v = special[i - 200000];
+      trb_design_print_fixed (got, size, v, d);
+      g_snprintf (want, size, "%.*f", d, v);
+      g_assert_cmpstr (got, ==, want);
+    }
+}
+
 int
 main (int   argc,
       char *argv[])
@@ -1172,6 +1487,9 @@ main (int   argc,
   g_test_add_func ("/trb/design-steel/member/not-designed", test_not_designed);
   g_test_add_func ("/trb/design-steel/format-same", test_format_same);
   g_test_add_func ("/trb/design-steel/deflection-text-same", test_deflection_text_same);
+  g_test_add_func ("/trb/design-steel/span-labels", test_span_labels);
+  g_test_add_func ("/trb/design-steel/flexure-prepared-same", test_flexure_prepared_same);
+  g_test_add_func ("/trb/design-steel/print-fixed-same", test_print_fixed_same);
 
   return g_test_run ();
 }

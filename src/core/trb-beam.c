@@ -1551,6 +1551,88 @@ coeffs_eval (const SegCoeffs *c,
   out->defl = coeffs_defl (c, t);
 }
 
+static inline double
+coeffs_value (const SegCoeffs *c,
+              double           t,
+              TrbBeamQuantity  what)
+{
+  switch (what)
+    {
+    case TRB_BEAM_V:
+      return coeffs_V (c, t);
+    case TRB_BEAM_M:
+      return coeffs_M (c, t);
+    case TRB_BEAM_THETA:
+      return coeffs_theta (c, t);
+    case TRB_BEAM_DEFL:
+    default:
+      return coeffs_defl (c, t);
+    }
+}
+
+/**
+ * trb_beam_result_value:
+ * @result: a result
+ * @x: the position (clamped to [0, L] as trb_beam_result_eval() does)
+ * @what: the field
+ * @left: (out) (optional): the field of trb_beam_result_eval() at @x from the left
+ * @right: (out) (optional): and from the right
+ *
+ * The same operations as trb_beam_result_eval() on the one field asked for (the compiler
+ * drops the coefficients it does not read), so the same bits; where both sides fall in one
+ * segment it is evaluated once. The sizing bounds and the Cb of every segment read one field
+ * at many points.
+ */
+void
+trb_beam_result_value (const TrbBeamResult *result,
+                       double               x,
+                       TrbBeamQuantity      what,
+                       double              *left,
+                       double              *right)
+{
+  SegCoeffs c;
+  guint kl = 0, kr = 0;
+
+  g_return_if_fail (result != NULL);
+
+  if (!(x > 0))
+    x = 0;
+  if (x > result->length)
+    x = result->length;
+
+  if (right != NULL)
+    {
+      kr = find_segment (result, x, TRB_SIDE_RIGHT);
+      segment_coeffs (&result->segments[kr], result->inv_EI, &c);
+      *right = coeffs_value (&c, x - result->breaks[kr], what);
+    }
+  if (left != NULL)
+    {
+      /* the left side's segment is the right side's, or the one before where x is its break
+       * (the breaks are distinct; at 0 both are the first) */
+      if (right != NULL)
+        kl = kr > 0 && result->breaks[kr] == x ? kr - 1 : kr;
+      else
+        kl = find_segment (result, x, TRB_SIDE_LEFT);
+      if (right != NULL && kl == kr)
+        *left = *right;
+      else
+        {
+          segment_coeffs (&result->segments[kl], result->inv_EI, &c);
+          *left = coeffs_value (&c, x - result->breaks[kl], what);
+        }
+    }
+
+  /* beyond the ends no force passes, as trb_beam_result_eval() says */
+  if (what == TRB_BEAM_V || what == TRB_BEAM_M)
+    {
+      if (left != NULL && x == 0)
+        *left = 0;
+      if (right != NULL && x == result->length)
+        *right = 0;
+    }
+}
+
 void
 trb_beam_result_eval (const TrbBeamResult *result,
                       double               x,

@@ -138,6 +138,23 @@ void              trb_beam_result_eval       (const TrbBeamResult *result,
                                               TrbSide              side,
                                               TrbBeamValues       *out);
 
+/* One field of trb_beam_result_eval(). */
+typedef enum
+{
+  TRB_BEAM_V,
+  TRB_BEAM_M,
+  TRB_BEAM_THETA,
+  TRB_BEAM_DEFL,
+} TrbBeamQuantity;
+
+/* That field of trb_beam_result_eval() at x from the left and from the right (either may be
+ * NULL), bit for bit, without the other fields. */
+void              trb_beam_result_value      (const TrbBeamResult *result,
+                                              double               x,
+                                              TrbBeamQuantity      what,
+                                              double              *left,
+                                              double              *right);
+
 /* Extremes over [a, b] (a <= b, clamped to the member), counting the left and right values at
  * every jump inside the interval, and at its ends the values inside it (the right value at a,
  * the left one at b; both where a == b, except beyond the member's ends). Interior extremes

@@ -62,6 +62,12 @@ trb_design_steel_lookup_grade (const char *name)
 
   g_return_val_if_fail (name != NULL, NULL);
 
+  /* a grade's own name, as the settings mostly give it: the same grade as normalized (no two
+   * names of the table are the same once normalized), without the copies */
+  for (guint i = 0; i < G_N_ELEMENTS (steel_grades); i++)
+    if (strcmp (name, steel_grades[i].name) == 0)
+      return &steel_grades[i];
+
   want = normalize_grade_name (name);
   for (guint i = 0; i < G_N_ELEMENTS (steel_grades); i++)
     {
@@ -301,15 +307,41 @@ trb_design_steel_flexure (const TrbSection    *section,
                           double               Cb,
                           TrbSteelFlexure     *out)
 {
-  IProps p;
-  double E, Fy, Mp, Mn, lam_pf, lam_rf, My70;
-  const char *eq;
+  TrbSteelFlexurePrep prep;
 
   g_return_val_if_fail (section != NULL, FALSE);
   g_return_val_if_fail (grade != NULL, FALSE);
   g_return_val_if_fail (out != NULL, FALSE);
 
-  memset (out, 0, sizeof *out);
+  trb_design_steel_flexure_prepare (section, grade, &prep);
+  return trb_design_steel_flexure_at (&prep, Lb, Cb, out);
+}
+
+/**
+ * trb_design_steel_flexure_prepare:
+ * @section: an I shape
+ * @grade: its steel
+ * @prep: (out): what trb_design_steel_flexure() computes of them whatever Lb and Cb
+ *
+ * For trb_design_steel_flexure_at(), which gives what trb_design_steel_flexure() gives, bit
+ * for bit (the same operations): the member check and sizing ask for many Lb and Cb of one
+ * section.
+ *
+ * Returns: whether F2 or F3 covers the section
+ */
+gboolean
+trb_design_steel_flexure_prepare (const TrbSection      *section,
+                                  const TrbSteelGrade   *grade,
+                                  TrbSteelFlexurePrep   *prep)
+{
+  IProps p;
+  double E, Fy, lam_pf, lam_rf;
+
+  g_return_val_if_fail (section != NULL, FALSE);
+  g_return_val_if_fail (grade != NULL, FALSE);
+  g_return_val_if_fail (prep != NULL, FALSE);
+
+  memset (prep, 0, sizeof *prep);
   if (!get_i_props (section, &p))
     return FALSE;
 
@@ -318,18 +350,80 @@ trb_design_steel_flexure (const TrbSection    *section,
   if (p.h_tw > 3.76 * sqrt (E / Fy))
     return FALSE;
 
+  prep->ok = TRUE;
+  prep->E = E;
+  prep->Sx = p.Sx;
+  prep->rts = p.rts;
+  prep->jc = p.J / (p.Sx * p.ho);
+  prep->lambda_f = p.lambda_f;
+  prep->Mp = Fy * p.Zx;
+  prep->My70 = 0.7 * Fy * p.Sx;
+  prep->Lp = lp_of (&p, grade);
+  prep->Lr = lr_of (&p, grade);
+
+  /* Flange local buckling, F3.2: rolled shapes with noncompact or slender flanges. It does
+   * not depend on Lb or Cb. */
+  lam_pf = 0.38 * sqrt (E / Fy);
+  lam_rf = 1.0 * sqrt (E / Fy);
+  if (p.lambda_f > lam_pf)
+    {
+      prep->flb = TRUE;
+      if (p.lambda_f <= lam_rf)
+        {
+          prep->Mflb = prep->Mp - (prep->Mp - prep->My70) * (p.lambda_f - lam_pf) /
+                                  (lam_rf - lam_pf);
+          prep->eq_flb = "F3-1";
+        }
+      else
+        {
+          double kc = CLAMP (4 / sqrt (p.h_tw), 0.35, 0.76);
+
+          prep->Mflb = 0.9 * E * kc * p.Sx / (p.lambda_f * p.lambda_f);
+          prep->eq_flb = "F3-2";
+        }
+    }
+  return TRUE;
+}
+
+/**
+ * trb_design_steel_flexure_at:
+ * @prep: from trb_design_steel_flexure_prepare()
+ * @Lb: the unbraced length of the compression flange, m (0: braced throughout)
+ * @Cb: the moment gradient factor (F1-1; 1 is conservative)
+ * @out: (out): the nominal strength and what governs it
+ *
+ * trb_design_steel_flexure() of the prepared section and grade.
+ *
+ * Returns: %FALSE (and @out zeroed) when the section is not one F2 or F3 covers
+ */
+gboolean
+trb_design_steel_flexure_at (const TrbSteelFlexurePrep *prep,
+                             double                     Lb,
+                             double                     Cb,
+                             TrbSteelFlexure           *out)
+{
+  double Mp, Mn, My70;
+  const char *eq;
+
+  g_return_val_if_fail (prep != NULL, FALSE);
+  g_return_val_if_fail (out != NULL, FALSE);
+
+  memset (out, 0, sizeof *out);
+  if (!prep->ok)
+    return FALSE;
+
   Lb = MAX (Lb, 0);
   if (!(Cb > 0))
     Cb = 1.0;
 
-  Mp = Fy * p.Zx;
-  My70 = 0.7 * Fy * p.Sx;
+  Mp = prep->Mp;
+  My70 = prep->My70;
   out->Mp = Mp;
-  out->Lp = lp_of (&p, grade);
-  out->Lr = lr_of (&p, grade);
+  out->Lp = prep->Lp;
+  out->Lr = prep->Lr;
   out->Lb = Lb;
   out->Cb = Cb;
-  out->lambda_f = p.lambda_f;
+  out->lambda_f = prep->lambda_f;
 
   /* Lateral-torsional buckling, F2.2; where Cb lifts the buckling strength past Mp,
    * yielding (F2-1) is what governs. */
@@ -345,11 +439,11 @@ trb_design_steel_flexure (const TrbSection    *section,
     }
   else
     {
-      double jc = p.J / (p.Sx * p.ho);
-      double s = Lb / p.rts;
-      double Fcr = Cb * G_PI * G_PI * E / (s * s) * sqrt (1 + 0.078 * jc * s * s);
+      double jc = prep->jc;
+      double s = Lb / prep->rts;
+      double Fcr = Cb * G_PI * G_PI * prep->E / (s * s) * sqrt (1 + 0.078 * jc * s * s);
 
-      Mn = Fcr * p.Sx;
+      Mn = Fcr * prep->Sx;
       eq = "F2-3";
     }
   if (Mn >= Mp)
@@ -358,31 +452,10 @@ trb_design_steel_flexure (const TrbSection    *section,
       eq = "F2-1";
     }
 
-  /* Flange local buckling, F3.2: rolled shapes with noncompact or slender flanges. */
-  lam_pf = 0.38 * sqrt (E / Fy);
-  lam_rf = 1.0 * sqrt (E / Fy);
-  if (p.lambda_f > lam_pf)
+  if (prep->flb && prep->Mflb < Mn)
     {
-      double Mflb;
-      const char *eq_flb;
-
-      if (p.lambda_f <= lam_rf)
-        {
-          Mflb = Mp - (Mp - My70) * (p.lambda_f - lam_pf) / (lam_rf - lam_pf);
-          eq_flb = "F3-1";
-        }
-      else
-        {
-          double kc = CLAMP (4 / sqrt (p.h_tw), 0.35, 0.76);
-
-          Mflb = 0.9 * E * kc * p.Sx / (p.lambda_f * p.lambda_f);
-          eq_flb = "F3-2";
-        }
-      if (Mflb < Mn)
-        {
-          Mn = Mflb;
-          eq = eq_flb;
-        }
+      Mn = prep->Mflb;
+      eq = prep->eq_flb;
     }
 
   out->Mn = Mn;
@@ -461,12 +534,11 @@ static double
 abs_moment_at (const TrbBeamResult *result,
                double               x)
 {
-  TrbBeamValues left, right;
+  double left, right;
 
   /* An applied moment makes M jump; take the side that gives the smaller, safer Cb. */
-  trb_beam_result_eval (result, x, TRB_SIDE_LEFT, &left);
-  trb_beam_result_eval (result, x, TRB_SIDE_RIGHT, &right);
-  return MAX (fabs (left.M), fabs (right.M));
+  trb_beam_result_value (result, x, TRB_BEAM_M, &left, &right);
+  return MAX (fabs (left), fabs (right));
 }
 
 static int
@@ -614,19 +686,18 @@ segment_cb (const TrbBeamResult *result,
  * consider_flexure() keeps the best on a tie, so the check is the same without the quarter
  * point moments of such a segment (six evaluations of the beam). */
 static gboolean
-cannot_govern (const FlexureCandidate *best,
-               double                  demand,
-               const TrbSection       *section,
-               const TrbSteelGrade    *grade,
-               double                  Lb,
-               TrbDesignBasis          basis)
+cannot_govern (const FlexureCandidate    *best,
+               double                     demand,
+               const TrbSteelFlexurePrep *prep,
+               double                     Lb,
+               TrbDesignBasis             basis)
 {
   TrbSteelFlexure flex;
   double capacity;
 
   if (!best->have || !(best->ratio > 0) || !isfinite (best->ratio))
     return FALSE;
-  trb_design_steel_flexure (section, grade, Lb, 1.0, &flex);
+  trb_design_steel_flexure_at (prep, Lb, 1.0, &flex);
   capacity = basis == TRB_DESIGN_BASIS_LRFD ? TRB_STEEL_PHI_B * flex.Mn
                                             : flex.Mn / TRB_STEEL_OMEGA_B;
   if (!(capacity > 0) || !isfinite (capacity))
@@ -647,11 +718,14 @@ check_flexure (const TrbDesignInput *input,
   g_autoptr(GArray) pts = NULL;
   FlexureCandidate best = { 0, };
   TrbSteelFlexure braced_flex;
+  TrbSteelFlexurePrep prep;
   TrbCheck check;
   char clause[48];
   char lb[24], lp[24], lr[24], mn[24];
 
-  if (!trb_design_steel_flexure (section, grade, 0, 1, &braced_flex))
+  /* the section's own values once, for every segment and combination */
+  trb_design_steel_flexure_prepare (section, grade, &prep);
+  if (!trb_design_steel_flexure_at (&prep, 0, 1, &braced_flex))
     {
       trb_check_append_not_checked (checks, "AISC 360-16 F4, F5",
                                     "Flexure: web not compact for flexure (F4, F5 not "
@@ -693,10 +767,10 @@ check_flexure (const TrbDesignInput *input,
 
           if (input->bracing == TRB_BRACING_POINTS)
             {
-              if (cannot_govern (&best, m_abs, section, grade, Lb, basis))
+              if (cannot_govern (&best, m_abs, &prep, Lb, basis))
                 continue;
               Cb = free_end ? 1.0 : segment_cb (combo->result, a, Lb, m_abs);
-              trb_design_steel_flexure (section, grade, Lb, Cb, &flex);
+              trb_design_steel_flexure_at (&prep, Lb, Cb, &flex);
               consider_flexure (&best, m_abs, x_abs, &flex, FALSE, basis, combo->name);
             }
           else
@@ -707,10 +781,10 @@ check_flexure (const TrbDesignInput *input,
                * it meets the full segment length, with Cb of the segment's own diagram. */
               consider_flexure (&best, m_pos, ext.M_max_x, &braced_flex, TRUE, basis,
                                 combo->name);
-              if (m_neg > 0 && !cannot_govern (&best, m_neg, section, grade, Lb, basis))
+              if (m_neg > 0 && !cannot_govern (&best, m_neg, &prep, Lb, basis))
                 {
                   Cb = free_end ? 1.0 : segment_cb (combo->result, a, Lb, m_abs);
-                  trb_design_steel_flexure (section, grade, Lb, Cb, &flex);
+                  trb_design_steel_flexure_at (&prep, Lb, Cb, &flex);
                   consider_flexure (&best, m_neg, ext.M_min_x, &flex, FALSE, basis,
                                     combo->name);
                 }
@@ -725,7 +799,9 @@ check_flexure (const TrbDesignInput *input,
       return;
     }
 
-  g_snprintf (clause, sizeof clause, "AISC 360-16 Eq. %s", best.flex.equation);
+  /* the texts joined without a printf: the same bytes, truncated alike */
+  g_strlcpy (clause, "AISC 360-16 Eq. ", sizeof clause);
+  g_strlcat (clause, best.flex.equation, sizeof clause);
   trb_check_set (&check, "Flexure", clause, TRB_DIM_MOMENT, best.demand, best.capacity,
                  best.combination, best.x);
   if (input->no_detail)
@@ -738,18 +814,33 @@ check_flexure (const TrbDesignInput *input,
   trb_design_format (lr, sizeof lr, best.flex.Lr, len_unit);
   trb_design_format (mn, sizeof mn, best.flex.Mn, si ? "kN-m" : "kip-ft");
   if (best.braced)
-    g_snprintf (check.detail, sizeof check.detail,
-                "Lb = 0 (braced), Lp = %s, Lr = %s, Mn = %s", lp, lr, mn);
+    g_strlcpy (check.detail, "Lb = 0 (braced), Lp = ", sizeof check.detail);
   else
-    g_snprintf (check.detail, sizeof check.detail,
-                "Lb = %s, Cb = %.2f, Lp = %s, Lr = %s, Mn = %s",
-                trb_design_format (lb, sizeof lb, best.flex.Lb, len_unit), best.flex.Cb,
-                lp, lr, mn);
+    {
+      char cb[48];
+
+      /* "Lb = %s, Cb = %.2f, Lp = %s ..." */
+      g_strlcpy (check.detail, "Lb = ", sizeof check.detail);
+      g_strlcat (check.detail, trb_design_format (lb, sizeof lb, best.flex.Lb, len_unit),
+                 sizeof check.detail);
+      g_strlcat (check.detail, ", Cb = ", sizeof check.detail);
+      g_strlcat (check.detail, trb_design_print_fixed (cb, sizeof cb, best.flex.Cb, 2),
+                 sizeof check.detail);
+      g_strlcat (check.detail, ", Lp = ", sizeof check.detail);
+    }
+  g_strlcat (check.detail, lp, sizeof check.detail);
+  g_strlcat (check.detail, ", Lr = ", sizeof check.detail);
+  g_strlcat (check.detail, lr, sizeof check.detail);
+  g_strlcat (check.detail, ", Mn = ", sizeof check.detail);
+  g_strlcat (check.detail, mn, sizeof check.detail);
   if (g_str_has_prefix (best.flex.equation, "F3"))
     {
-      char flange[24];
+      char flange[24], lf[48];
 
-      g_snprintf (flange, sizeof flange, ", bf/2tf = %.2f", best.flex.lambda_f);
+      /* ", bf/2tf = %.2f" */
+      g_strlcpy (flange, ", bf/2tf = ", sizeof flange);
+      g_strlcat (flange, trb_design_print_fixed (lf, sizeof lf, best.flex.lambda_f, 2),
+                 sizeof flange);
       g_strlcat (check.detail, flange, sizeof check.detail);
     }
 
@@ -815,15 +906,28 @@ check_shear (const TrbDesignInput *input,
       return;
     }
 
-  g_snprintf (clause, sizeof clause, "AISC 360-16 Eq. G2-1, %s", shear.provision);
+  g_strlcpy (clause, "AISC 360-16 Eq. G2-1, ", sizeof clause);
+  g_strlcat (clause, shear.provision, sizeof clause);
   trb_check_set (&check, "Shear", clause, TRB_DIM_FORCE, best_v, capacity, best_combo,
                  best_x);
   if (!input->no_detail)
-    g_snprintf (check.detail, sizeof check.detail,
-                "Vn = %s, Aw = d tw = %s, h/tw = %.1f, Cv1 = %.2f",
-                trb_design_format (vn, sizeof vn, shear.Vn, si ? "kN" : "kip"),
-                trb_design_format (aw, sizeof aw, shear.Aw, si ? "mm2" : "in2"),
-                shear.h_tw, shear.Cv1);
+    {
+      char num[48];
+
+      /* "Vn = %s, Aw = d tw = %s, h/tw = %.1f, Cv1 = %.2f", joined without a printf */
+      g_strlcpy (check.detail, "Vn = ", sizeof check.detail);
+      g_strlcat (check.detail, trb_design_format (vn, sizeof vn, shear.Vn, si ? "kN" : "kip"),
+                 sizeof check.detail);
+      g_strlcat (check.detail, ", Aw = d tw = ", sizeof check.detail);
+      g_strlcat (check.detail, trb_design_format (aw, sizeof aw, shear.Aw, si ? "mm2" : "in2"),
+                 sizeof check.detail);
+      g_strlcat (check.detail, ", h/tw = ", sizeof check.detail);
+      g_strlcat (check.detail, trb_design_print_fixed (num, sizeof num, shear.h_tw, 1),
+                 sizeof check.detail);
+      g_strlcat (check.detail, ", Cv1 = ", sizeof check.detail);
+      g_strlcat (check.detail, trb_design_print_fixed (num, sizeof num, shear.Cv1, 2),
+                 sizeof check.detail);
+    }
   g_array_append_val (checks, check);
 }
 

@@ -75,6 +75,24 @@ gboolean             trb_design_steel_flexure      (const TrbSection      *secti
                                                     double                 Lb,
                                                     double                 Cb,
                                                     TrbSteelFlexure       *out);
+/* What trb_design_steel_flexure() computes of a section and grade whatever Lb and Cb. */
+typedef struct
+{
+  gboolean    ok;        /* F2 or F3 covers the section */
+  double      E, Sx, rts, jc, lambda_f;
+  double      Mp, My70, Lp, Lr;
+  gboolean    flb;       /* flanges not compact: F3 */
+  double      Mflb;
+  const char *eq_flb;
+} TrbSteelFlexurePrep;
+
+gboolean             trb_design_steel_flexure_prepare (const TrbSection    *section,
+                                                       const TrbSteelGrade *grade,
+                                                       TrbSteelFlexurePrep *prep);
+gboolean             trb_design_steel_flexure_at   (const TrbSteelFlexurePrep *prep,
+                                                    double                 Lb,
+                                                    double                 Cb,
+                                                    TrbSteelFlexure       *out);
 gboolean             trb_design_steel_shear        (const TrbSection      *section,
                                                     const TrbSteelGrade   *grade,
                                                     TrbSteelShear         *out);

@@ -126,6 +126,115 @@ reaches_power (const char *buf,
   return FALSE;
 }
 
+/* g_snprintf (buf, size, "%.*f", decimals, v), in integers where they hold it
+ * exactly: v = m 2^e with m < 2^53, so v 10^d = m 5^d 2^(e + d), rounded to an integer as
+ * printf rounds the exact value (to nearest, a tie to even); printf itself where the
+ * integers would not hold it. The details of every check print many numbers this way. */
+static void
+print_fixed (char   *buf,
+             gsize   size,
+             double  v,
+             int     decimals)
+{
+#ifdef __SIZEOF_INT128__
+  unsigned __int128 p, q;
+  char digits[48];
+  guint nd = 0;
+  gsize k = 0;
+  int e, s;
+
+  if (decimals < 0 || decimals > 20 || !isfinite (v) || size == 0)
+    goto printf;
+  p = (guint64) ldexp (frexp (fabs (v), &e), 53);   /* |v| = p 2^(e - 53), exactly */
+  for (int i = 0; i < decimals; i++)
+    p *= 5;                                          /* below 2^53 5^20 < 2^100 */
+  s = 53 - e - decimals;                             /* |v| 10^d = p 2^-s */
+  if (s > 0)
+    {
+      unsigned __int128 half, rem;
+
+      if (s > 120)
+        goto printf;
+      half = (unsigned __int128) 1 << (s - 1);
+      rem = p & ((half << 1) - 1);
+      q = p >> s;
+      if (rem > half || (rem == half && (q & 1) != 0))
+        q++;
+    }
+  else
+    {
+      if (-s > 26)
+        goto printf;
+      q = p << -s;
+    }
+  /* the digits: in 64 bits where they fit (a division by 10 there is a multiplication, in
+   * 128 bits a call) */
+  while (q >> 64 != 0 && nd < 40)
+    {
+      digits[nd++] = (char) ('0' + (int) (q % 10));
+      q /= 10;
+    }
+  if (q >> 64 != 0)
+    goto printf;
+  {
+    guint64 q64 = (guint64) q;
+
+    do
+      {
+        digits[nd++] = (char) ('0' + (int) (q64 % 10));
+        q64 /= 10;
+      }
+    while (q64 > 0 && nd < 40);
+    if (q64 > 0)
+      goto printf;
+  }
+  while (nd < (guint) decimals + 1)
+    digits[nd++] = '0';
+
+  /* as snprintf: what fits of the text, always terminated */
+#define PUT(ch) G_STMT_START { if (k + 1 < size) buf[k] = (ch); k++; } G_STMT_END
+  if (signbit (v))
+    PUT ('-');
+  while (nd > 0)
+    {
+      if (nd == (guint) decimals && decimals > 0)
+        PUT ('.');
+      nd--;
+      PUT (digits[nd]);
+    }
+#undef PUT
+  buf[MIN (k, size - 1)] = '\0';
+  return;
+
+printf:
+#endif
+  g_snprintf (buf, size, "%.*f", decimals, v);
+}
+
+/**
+ * trb_design_print_fixed:
+ * @buf: (out caller-allocates): where the text goes
+ * @size: its room
+ * @value: the value
+ * @decimals: the decimals, 0 to 20
+ *
+ * What g_snprintf (buf, size, "%.*f", decimals, value) prints, the same bytes, mostly
+ * without printf.
+ *
+ * Returns: buf
+ */
+const char *
+trb_design_print_fixed (char   *buf,
+                        gsize   size,
+                        double  value,
+                        int     decimals)
+{
+  g_return_val_if_fail (buf != NULL && size > 0, buf);
+
+  print_fixed (buf, size, value, decimals);
+  return buf;
+}
+
 /* Three significant figures, as the trade's tables print them: 5.83, 16.9, 379, 1060. */
 static void
 format_3sf (char   *buf,
@@ -149,13 +258,13 @@ format_3sf (char   *buf,
     {
       double step = pow (10, -decimals);
 
-      g_snprintf (buf, size, "%.0f", round (v / step) * step);
+      print_fixed (buf, size, round (v / step) * step, 0);
       return;
     }
-  g_snprintf (buf, size, "%.*f", decimals, v);
+  print_fixed (buf, size, v, decimals);
   /* rounding may carry into another digit (9.996 -> "10.00"): print again with one less */
   if (reaches_power (buf, 3 - decimals))
-    g_snprintf (buf, size, "%.*f", decimals - 1, v);
+    print_fixed (buf, size, v, decimals - 1);
 }
 
 const char *
@@ -185,6 +294,30 @@ trb_design_format (char       *buf,
   format_3sf (num, sizeof num, value);
   g_strlcpy (buf, num, size);
   return buf;
+}
+
+/* g_snprintf (label, size, "span %u", n), without the formatting machinery: sizing cuts the
+ * spans of a member several times */
+static void
+span_label (char  *label,
+            gsize  size,
+            guint  n)
+{
+  char digits[16];
+  guint nd = 0;
+  gsize k = 0;
+
+  do
+    {
+      digits[nd++] = (char) ('0' + n % 10);
+      n /= 10;
+    }
+  while (n > 0);
+  for (const char *p = "span "; *p != '\0' && k + 1 < size; p++)
+    label[k++] = *p;
+  while (nd > 0 && k + 1 < size)
+    label[k++] = digits[--nd];
+  label[k] = '\0';
 }
 
 /**
@@ -233,7 +366,7 @@ trb_design_deflection_spans (const TrbDesignInput *input,
       s->b = input->supports[i + 1].x;
       s->judged = s->b - s->a;
       s->overhang = FALSE;
-      g_snprintf (s->label, sizeof s->label, "span %u", i + 1);
+      span_label (s->label, sizeof s->label, i + 1);
     }
 
   if (input->length - input->supports[n_sup - 1].x > tol && n < max_spans)

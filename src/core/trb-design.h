@@ -167,5 +167,10 @@ const char *trb_design_format           (char                 *buf,
                                          gsize                 size,
                                          double                value,
                                          const char           *unit);
+/* What g_snprintf (buf, size, "%.*f", decimals, value) prints. Returns buf. */
+const char *trb_design_print_fixed      (char                 *buf,
+                                         gsize                 size,
+                                         double                value,
+                                         int                   decimals);
 
 G_END_DECLS

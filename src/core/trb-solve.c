@@ -53,7 +53,8 @@ combo_set_init (TrbComboSetResult *s,
                 TrbComboSet        set)
 {
   s->set = set;
-  s->entries = g_array_new (FALSE, TRUE, sizeof (TrbComboResult));
+  /* not cleared: evaluate_set() writes every field of each entry (half a kilobyte each) */
+  s->entries = g_array_new (FALSE, FALSE, sizeof (TrbComboResult));
   g_array_set_clear_func (s->entries, combo_result_clear);
   s->envelope.empty = TRUE;
   trb_extremes_init (&s->envelope.ext);
@@ -506,8 +507,49 @@ region_results_prepare (RegionResults         *rr,
           }
       }
   rr->zero_part = parts->len;
-  g_ptr_array_add (parts, rr->zero);
+  if (rr->zero != NULL)
+    g_ptr_array_add (parts, rr->zero);
   rr->combiner = trb_beam_combiner_new ((TrbBeamResult **) parts->pdata, parts->len);
+}
+
+/* Whether some entry of the member's sets is a combination of absent cases, which reads as
+ * the result of no load: a combination without a present case of nonzero factor, or a
+ * pattern that loads no region (none is built so, but it is not assumed) */
+static const GArray *combos_for (TrbComboSet     set,
+                                 const gboolean *has_case);
+
+static gboolean
+zero_needed (const TrbMemberResult *r,
+             const RegionResults   *rr)
+{
+  const TrbComboSet sets[] = { r->strength.set, r->live.set, r->total.set };
+
+  for (guint p = 0; p < r->patterns->len; p++)
+    {
+      guint64 mask = g_array_index (r->patterns, TrbPattern, p).mask;
+      gboolean any = FALSE;
+
+      for (guint reg = 0; reg < r->regions->len && reg < 64; reg++)
+        any = any || ((mask >> reg) & 1);
+      if (!any)
+        return TRUE;
+    }
+  for (guint k = 0; k < G_N_ELEMENTS (sets); k++)
+    {
+      const GArray *combos = combos_for (sets[k], r->has_case);
+
+      for (guint i = 0; i < combos->len; i++)
+        {
+          const TrbCombo *combo = &g_array_index (combos, TrbCombo, i);
+          gboolean present = FALSE;
+
+          for (guint c = 0; c < TRB_N_CASES; c++)
+            present = present || (combo->factors[c] != 0 && r->cases[c] != NULL);
+          if (!present)
+            return TRUE;
+        }
+    }
+  return FALSE;
 }
 
 /* Whether every entry the parts can make is certainly finite everywhere, as the lean analysis
@@ -519,7 +561,7 @@ static gboolean
 parts_bounded (const RegionResults   *rr,
                const TrbMemberResult *r)
 {
-  double sum = trb_beam_result_bound (rr->zero);
+  double sum = rr->zero != NULL ? trb_beam_result_bound (rr->zero) : 0;   /* 0 for no load */
 
   for (guint c = 0; c < TRB_N_CASES; c++)
     {
@@ -621,10 +663,60 @@ name_with_pattern (char       *dst,
   const char *pieces[] = { a, " (", b, ")" };
   gsize n = 0;
 
+  /* each piece as far as it fits, a block at a time */
   for (guint i = 0; i < G_N_ELEMENTS (pieces); i++)
-    for (const char *p = pieces[i]; *p != '\0' && n + 1 < size; p++)
-      dst[n++] = *p;
+    {
+      gsize len = MIN (strlen (pieces[i]), size - 1 - n);
+
+      memcpy (dst + n, pieces[i], len);
+      n += len;
+    }
   dst[n] = '\0';
+}
+
+/* A strength entry and a total deflection entry of the same case factors under the same
+ * pattern (ASD's D + L and its twin in the total set) are the same sum of the same parts, the
+ * same bits: within one analysis whose strength entries are searched over the deflection
+ * spans (no brace cuts the member between its supports), the strength set finds such an
+ * entry's extremes with the deflection, and the total set takes its result and extremes
+ * instead of combining and searching again. */
+typedef struct
+{
+  double                 factors[TRB_N_CASES];
+  guint                  pattern;
+  const TrbBeamResult   *result;
+  TrbBeamExtremes        whole;  /* with the deflection */
+  const TrbBeamExtremes *per;    /* over each interval, in the strength set's extremes */
+} Twin;
+
+typedef struct
+{
+  const GArray *total;   /* the total set's combinations */
+  Twin         *twins;
+  guint         n_twins;
+} Twins;
+
+static gboolean
+has_twin (const GArray   *combos,
+          const TrbCombo *combo)
+{
+  for (guint i = 0; i < combos->len; i++)
+    if (memcmp (g_array_index (combos, TrbCombo, i).factors, combo->factors,
+                sizeof combo->factors) == 0)
+      return TRUE;
+  return FALSE;
+}
+
+static const Twin *
+find_twin (const Twins    *twins,
+           const TrbCombo *combo,
+           guint           pattern)
+{
+  for (guint i = 0; i < twins->n_twins; i++)
+    if (twins->twins[i].pattern == pattern &&
+        memcmp (twins->twins[i].factors, combo->factors, sizeof combo->factors) == 0)
+      return &twins->twins[i];
+  return NULL;
 }
 
 /* Evaluates every combination of set, under every pattern where it carries a patterned case,
@@ -645,7 +737,8 @@ evaluate_set (TrbMemberResult     *r,
               const gboolean      *keep,
               gboolean             envelope,
               gboolean             moments_only,
-              gboolean             need_finite)
+              gboolean             need_finite,
+              Twins               *twins)
 {
   const GArray *combos = combos_for (out->set, r->has_case);
   gboolean patterns_on = r->patterns->len > 0;
@@ -672,6 +765,8 @@ evaluate_set (TrbMemberResult     *r,
   g_array_set_size (out->entries, e + n_entries);
   if (span_ext != NULL)
     g_array_set_size (span_ext, n_entries * n_ab);
+  if (twins != NULL && moments_only && twins->twins == NULL)
+    twins->twins = g_new (Twin, n_entries + 1);
 
   for (guint i = 0; i < combos->len; i++)
     {
@@ -726,20 +821,55 @@ evaluate_set (TrbMemberResult     *r,
               name_with_pattern (cr->name, sizeof cr->name, combo->name, pat->name);
             }
           else
-            g_strlcpy (cr->name, combo->name, sizeof cr->name);
+            {
+              cr->pattern[0] = '\0';
+              g_strlcpy (cr->name, combo->name, sizeof cr->name);
+            }
 
           if (n == 0)
             {
               /* A combination of absent cases (1.4D on a member without dead load) still
                * reads as a combination, with zero effects. */
+              g_assert (rr->zero != NULL);   /* zero_needed() */
               index[n] = rr->zero_part;
               factors[n++] = 0;
             }
-          cr->result = trb_beam_combiner_combine (rr->combiner, index, factors, n);
           /* NULL when there is nothing per interval: no offset on an empty array's data */
           span_out = span_ext != NULL && n_ab > 0
                      ? &g_array_index (span_ext, TrbBeamExtremes, (e - 1 - first) * n_ab)
                      : NULL;
+          if (twins != NULL && !moments_only)
+            {
+              const Twin *twin = find_twin (twins, combo, p);
+
+              if (twin != NULL)
+                {
+                  /* the strength set's twin: the same sum, searched over the same intervals */
+                  cr->result = trb_beam_result_copy (twin->result);
+                  cr->ext = twin->whole;
+                  if (span_out != NULL)
+                    memcpy (span_out, twin->per, n_ab * sizeof (TrbBeamExtremes));
+                  continue;
+                }
+            }
+          cr->result = trb_beam_combiner_combine (rr->combiner, index, factors, n);
+          if (twins != NULL && moments_only && has_twin (twins->total, combo))
+            {
+              /* V and M as trb_beam_result_moments_intervals() finds them (the same sweep),
+               * and the deflection for the twin */
+              Twin *twin = &twins->twins[twins->n_twins++];
+
+              trb_beam_result_extremes_intervals (cr->result, ab, n_ab, &cr->ext, span_out,
+                                                  NULL);
+              memcpy (twin->factors, combo->factors, sizeof twin->factors);
+              twin->pattern = p;
+              twin->result = cr->result;
+              twin->whole = cr->ext;
+              twin->per = span_out;
+              cr->ext.defl_down = cr->ext.defl_up = 0;
+              cr->ext.defl_down_x = cr->ext.defl_up_x = 0;
+              continue;
+            }
           if (moments_only)
             {
               /* the lean analysis of sizing: V and M are all the strength checks read, and
@@ -824,6 +954,14 @@ typedef struct _MemberPlan
   GArray         *patterns;
   TrbBeamResult **by_region[TRB_N_CASES];
   guint           n_regions;
+  /* from the guess, solved on a beam of unit E I, for the first analysis to restiffen
+   * instead of solving (NULL when none): the regions, the live-load patterns and L on each
+   * region, and a uniform unit load (the reference's) */
+  GArray            *seed_regions;
+  GArray            *seed_patterns;
+  TrbBeamResult    **seed_live;
+  guint              n_seed_live;
+  TrbBeamResult     *seed_unit;
   /* the deflection checks' spans and the flexure segments (SpanExtremes) */
   gboolean           have_cuts;
   TrbDeflectionSpan *spans;
@@ -844,6 +982,13 @@ member_plan_clear (MemberPlan *plan)
     }
   g_clear_pointer (&plan->regions, g_array_unref);
   g_clear_pointer (&plan->patterns, g_array_unref);
+  g_clear_pointer (&plan->seed_regions, g_array_unref);
+  g_clear_pointer (&plan->seed_patterns, g_array_unref);
+  for (guint reg = 0; plan->seed_live != NULL && reg < plan->n_seed_live; reg++)
+    trb_beam_result_free (plan->seed_live[reg]);
+  g_clear_pointer (&plan->seed_live, g_free);
+  plan->n_seed_live = 0;
+  g_clear_pointer (&plan->seed_unit, trb_beam_result_free);
   g_clear_pointer (&plan->spans, g_free);
   g_clear_pointer (&plan->seg, g_free);
   plan->have_cuts = FALSE;
@@ -974,17 +1119,23 @@ analyse (const TrbProject  *project,
 
   for (guint c = 0; c < TRB_N_CASES; c++)
     {
-      g_autoptr(GArray) loads = g_array_new (FALSE, TRUE, sizeof (TrbLoad));
       gboolean own = c == TRB_CASE_D && r->self_weight > 0;
+      const TrbLoad *loads = in->loads[c];
+      guint n_loads = in->n_loads[c] + (own ? 1 : 0);
+      g_autofree TrbLoad *with_own = NULL;
 
-      g_array_append_vals (loads, in->loads[c], in->n_loads[c]);
+      /* the case's loads, and the self-weight with D: a copy only where it is added */
       if (own)
         {
           TrbLoad sw = { TRB_LOAD_UNIFORM, 0, in->length, r->self_weight, r->self_weight };
 
-          g_array_append_val (loads, sw);
+          with_own = g_new (TrbLoad, n_loads);
+          if (in->n_loads[c] > 0)
+            memcpy (with_own, in->loads[c], in->n_loads[c] * sizeof (TrbLoad));
+          with_own[n_loads - 1] = sw;
+          loads = with_own;
         }
-      if (loads->len == 0)
+      if (n_loads == 0)
         continue;
 
       r->has_case[c] = TRUE;
@@ -992,8 +1143,7 @@ analyse (const TrbProject  *project,
           (r->self_weight > 0) == in->plan->self_weight)
         r->cases[c] = plan_result (in->plan, r->beam, in->plan->cases[c]);
       if (r->cases[c] == NULL)
-        r->cases[c] = trb_beam_solve (r->beam, (const TrbLoad *) loads->data, loads->len,
-                                      &error);
+        r->cases[c] = trb_beam_solve (r->beam, loads, n_loads, &error);
       if (r->cases[c] == NULL)
         {
           set_status (r, TRB_STATUS_ERROR, "case %s: %s", trb_load_case_name (c),
@@ -1005,17 +1155,12 @@ analyse (const TrbProject  *project,
         trb_beam_result_extremes (r->cases[c], 0, in->length, &r->case_ext[c]);
     }
 
-  rr.zero = trb_beam_solve (r->beam, NULL, 0, &error);
-  if (rr.zero == NULL)
-    {
-      set_status (r, TRB_STATUS_ERROR, "%s", error->message);
-      return FALSE;
-    }
-
   beam_supports = trb_beam_get_supports (r->beam, &n_beam_supports);
   g_array_unref (r->regions);
   if (in->plan != NULL && in->plan->ready)
     r->regions = g_array_ref (in->plan->regions);
+  else if (in->plan != NULL && in->plan->seed_regions != NULL)
+    r->regions = g_array_ref (in->plan->seed_regions);   /* built from the same supports */
   else
     r->regions = trb_regions_build (beam_supports, n_beam_supports, in->length);
 
@@ -1039,6 +1184,9 @@ analyse (const TrbProject  *project,
       g_array_unref (r->patterns);
       if (in->plan != NULL && in->plan->ready)
         r->patterns = g_array_ref (in->plan->patterns);
+      else if (in->plan != NULL && in->plan->seed_patterns != NULL &&
+               strcmp (live_label (r), "L") == 0)
+        r->patterns = g_array_ref (in->plan->seed_patterns);   /* the same regions, "L" */
       else
         r->patterns = trb_patterns_build (regions, n_regions, live_label (r));
 
@@ -1057,6 +1205,25 @@ analyse (const TrbProject  *project,
                 {
                   rr.by_region[c][reg] = plan_result (in->plan, r->beam,
                                                       in->plan->by_region[c][reg]);
+                  all = all && rr.by_region[c][reg] != NULL;
+                }
+              if (all)
+                continue;
+              for (guint reg = 0; reg < n_regions; reg++)
+                g_clear_pointer (&rr.by_region[c][reg], trb_beam_result_free);
+              g_clear_pointer (&rr.by_region[c], g_free);
+            }
+          else if (c == TRB_CASE_L && in->plan != NULL && !in->plan->ready &&
+                   in->plan->seed_live != NULL && in->plan->n_seed_live == n_regions)
+            {
+              /* the guess's, solved for the same loads on the same regions */
+              gboolean all = TRUE;
+
+              rr.by_region[c] = g_new0 (TrbBeamResult *, n_regions);
+              for (guint reg = 0; reg < n_regions; reg++)
+                {
+                  rr.by_region[c][reg] = trb_beam_result_restiffen (in->plan->seed_live[reg],
+                                                                    r->beam);
                   all = all && rr.by_region[c][reg] != NULL;
                 }
               if (all)
@@ -1107,6 +1274,18 @@ analyse (const TrbProject  *project,
       plan->ready = TRUE;
     }
 
+  /* the result of no load, for a combination of absent cases only (1.4D on a member
+   * without dead load) */
+  if (zero_needed (r, &rr))
+    {
+      rr.zero = trb_beam_solve (r->beam, NULL, 0, &error);
+      if (rr.zero == NULL)
+        {
+          set_status (r, TRB_STATUS_ERROR, "%s", error->message);
+          region_results_clear (&rr, r->regions->len);
+          return FALSE;
+        }
+    }
   region_results_prepare (&rr, r);
   /* bounded parts make every entry finite: nothing is left to check break by break */
   bounded = parts_bounded (&rr, r);
@@ -1123,6 +1302,8 @@ analyse (const TrbProject  *project,
       g_autofree double *ab = NULL;
       g_autofree double *seg_ab = NULL;
       g_autoptr(GArray) brace_x = g_array_new (FALSE, FALSE, sizeof (double));
+      Twins twins = { NULL };
+      Twins *use_twins = NULL;
       guint n_pts;
 
       di.length = in->length;
@@ -1191,9 +1372,17 @@ analyse (const TrbProject  *project,
       /* the full analysis of parts proved finite leaves the strength entries' deflection
        * extremes to trb_member_result_complete(): no check reads them */
       defer = lean == NULL && bounded;
+      /* the strength entries searched over the deflection spans: their total twins are
+       * found with them */
+      if (bounded && sx->n_seg > 0 && sx->n_seg == sx->n_spans &&
+          memcmp (seg_ab, ab, 2 * sx->n_seg * sizeof (double)) == 0)
+        {
+          twins.total = combos_for (TRB_COMBO_SET_TOTAL, r->has_case);
+          use_twins = &twins;
+        }
       sets_finite[0] = evaluate_set (r, &rr, &r->strength, seg_ab, sx->n_seg, sx->strength,
                                      lean != NULL ? lean->keep[0] : NULL, lean == NULL,
-                                     lean != NULL || defer, !bounded);
+                                     lean != NULL || defer, !bounded, use_twins);
       if (defer && r->strength.entries->len > 0)
         {
           if (r->pending != NULL)
@@ -1205,19 +1394,20 @@ analyse (const TrbProject  *project,
         }
       sets_finite[1] = evaluate_set (r, &rr, &r->live, ab, sx->n_spans, sx->live,
                                      lean != NULL ? lean->keep[1] : NULL, lean == NULL, FALSE,
-                                     !bounded);
+                                     !bounded, NULL);
       sets_finite[2] = evaluate_set (r, &rr, &r->total, ab, sx->n_spans, sx->total,
                                      lean != NULL ? lean->keep[2] : NULL, lean == NULL, FALSE,
-                                     !bounded);
+                                     !bounded, use_twins);
+      g_free (twins.twins);
     }
   else
     {
       sets_finite[0] = evaluate_set (r, &rr, &r->strength, NULL, 0, NULL, NULL, TRUE, FALSE,
-                                     !bounded);
+                                     !bounded, NULL);
       sets_finite[1] = evaluate_set (r, &rr, &r->live, NULL, 0, NULL, NULL, TRUE, FALSE,
-                                     !bounded);
+                                     !bounded, NULL);
       sets_finite[2] = evaluate_set (r, &rr, &r->total, NULL, 0, NULL, NULL, TRUE, FALSE,
-                                     !bounded);
+                                     !bounded, NULL);
     }
   region_results_clear (&rr, r->regions->len);
 
@@ -1842,6 +2032,8 @@ typedef struct
   double            *scratch;      /* room for the shares of a candidate */
   TrbBeam           *beam;         /* the member's beam (its supports; E = I = 1) */
   GPtrArray         *mem;          /* what the arrays above point into */
+  double            *block;        /* ref_alloc()'s room left in the last of them */
+  gsize              block_left;
 } Reference;
 
 static void
@@ -1850,16 +2042,32 @@ reference_clear (Reference *ref)
   g_clear_pointer (&ref->mem, g_ptr_array_unref);
   g_clear_pointer (&ref->spans, g_free);
   g_clear_pointer (&ref->beam, trb_beam_free);
+  ref->block = NULL;
+  ref->block_left = 0;
   ref->ready = FALSE;
 }
+
+/* n + 1 doubles, all 0, from blocks the reference keeps (a few allocations a member, not
+ * one an array) */
+#define REF_BLOCK 1024
 
 static double *
 ref_alloc (Reference *ref,
            gsize      n)
 {
-  double *p = g_new0 (double, n + 1);
+  double *p;
 
-  g_ptr_array_add (ref->mem, p);
+  if (n + 1 > ref->block_left)
+    {
+      gsize size = MAX (n + 1, REF_BLOCK);
+
+      ref->block = g_new0 (double, size);
+      ref->block_left = size;
+      g_ptr_array_add (ref->mem, ref->block);
+    }
+  p = ref->block;
+  ref->block += n + 1;
+  ref->block_left -= n + 1;
   return p;
 }
 
@@ -1895,38 +2103,15 @@ value_at (const TrbBeamResult *r,
           TrbSide              side,
           int                  what)  /* 0 V, 1 M, 2 defl */
 {
-  TrbBeamValues v;
+  TrbBeamQuantity q = what == 0 ? TRB_BEAM_V : what == 1 ? TRB_BEAM_M : TRB_BEAM_DEFL;
+  double v;
 
-  trb_beam_result_eval (r, x, side, &v);
-  return what == 0 ? v.V : what == 1 ? v.M : v.defl;
+  trb_beam_result_value (r, x, q, side == TRB_SIDE_LEFT ? &v : NULL,
+                         side == TRB_SIDE_LEFT ? NULL : &v);
+  return v;
 }
 
-/* Whether trb_beam_result_eval() gives the same at x from either side: x is inside the
- * member and none of its breaks, so both sides read the same segment and no end zeroes V
- * and M. */
-static gboolean
-one_sided (const TrbBeamResult *r,
-           double               x)
-{
-  guint n, lo = 0, hi;
-  const double *b = trb_beam_result_get_breaks (r, &n);
-
-  if (!(x > b[0] && x < b[n - 1]))
-    return FALSE;
-  hi = n - 1;
-  while (lo < hi)
-    {
-      guint mid = (lo + hi) / 2;
-
-      if (b[mid] < x)
-        lo = mid + 1;
-      else
-        hi = mid;
-    }
-  return b[lo] != x;
-}
-
-/* value_at() on the left and on the right of x, evaluated once where they are the same */
+/* value_at() on the left and on the right of x */
 static void
 values_both_sides (const TrbBeamResult *r,
                    double               x,
@@ -1934,8 +2119,8 @@ values_both_sides (const TrbBeamResult *r,
                    double              *left,
                    double              *right)
 {
-  *left = value_at (r, x, TRB_SIDE_LEFT, what);
-  *right = one_sided (r, x) ? *left : value_at (r, x, TRB_SIDE_RIGHT, what);
+  trb_beam_result_value (r, x, what == 0 ? TRB_BEAM_V : what == 1 ? TRB_BEAM_M : TRB_BEAM_DEFL,
+                         left, right);
 }
 
 /* M at the quarter points of each segment, where the steel check takes it for Cb: the left
@@ -2057,7 +2242,11 @@ reference_init (Reference             *ref,
         memcmp (sx->seg, ref->seg, (ref->n_seg + 1) * sizeof (double)) == 0))
     sx = NULL;
 
-  unit = trb_beam_solve (r->beam, &load, 1, NULL);
+  /* the guess's, where it solved one */
+  if (in->plan != NULL && in->plan->seed_unit != NULL)
+    unit = trb_beam_result_restiffen (in->plan->seed_unit, r->beam);
+  if (unit == NULL)
+    unit = trb_beam_solve (r->beam, &load, 1, NULL);
   if (unit == NULL)
     return FALSE;
   trb_beam_result_extremes_intervals (unit, seg_ab, ref->n_seg, &whole, ext, NULL);
@@ -2078,7 +2267,11 @@ reference_init (Reference             *ref,
   for (guint k = 0; k < ref->n_seg; k++)
     ref->free_end[k] = trb_design_steel_free_end (&input, ref->seg[k], ref->seg[k + 1]);
   ref->D_u = ref_alloc (ref, ref->n_spans);
-  trb_beam_result_extremes_intervals (unit, span_ab, ref->n_spans, NULL, ext, NULL);
+  /* over the spans: found above already where they are the segments (the same search of
+   * the same intervals) */
+  if (!(ref->n_spans == ref->n_seg && ref->n_seg > 0 &&
+        memcmp (span_ab, seg_ab, 2 * ref->n_seg * sizeof (double)) == 0))
+    trb_beam_result_extremes_intervals (unit, span_ab, ref->n_spans, NULL, ext, NULL);
   for (guint j = 0; j < ref->n_spans; j++)
     {
       double x;
@@ -2209,7 +2402,7 @@ margin (double a,
 /* The candidate's largest value of a combination where the reference has its largest, v, and
  * the unit load has u there (u_lo, u_hi: the unit load's least and largest where the
  * candidate's largest may be), moving by c times the unit load: [lo, hi]. */
-static inline void
+static inline G_ALWAYS_INLINE void
 bound_max (double  v,
            double  u,
            double  u_lo,
@@ -2247,7 +2440,7 @@ unit_at_extreme (const double *u,
 }
 
 /* and its least */
-static inline void
+static inline G_ALWAYS_INLINE void
 bound_min (double  v,
            double  u,
            double  u_lo,
@@ -2297,7 +2490,7 @@ shares_init (Shares          *sh,
   sh->total_hi = sh->total_lo + ref->n_total;
 }
 
-static void
+static inline G_ALWAYS_INLINE void
 share_max (double *lo,
            double *hi,
            double  l,
@@ -2363,8 +2556,11 @@ candidate_shares (const Reference    *ref,
   double k_EI, dw, M_u, V_u;
   double live_limit = trb_member_get_deflection_live (m, s);
   double total_limit = trb_member_get_deflection_total (m, s);
+  gboolean bounded = FALSE;   /* strength bounded */
 
-  shares_init (sh, ref);
+  /* the shares' arrays are cleared only once the candidate is bounded (most fail in live
+   * deflection by one number first) */
+  memset (sh, 0, sizeof *sh);
   if (!ref->ready || (self_weight > 0) != (ref->self_weight > 0) || !(EI > 0) ||
       !isfinite (EI))
     return FALSE;
@@ -2388,39 +2584,7 @@ candidate_shares (const Reference    *ref,
       sh->max_lo = ref->live_unit * k_EI;
       return TRUE;
     }
-  sh->live_checked = live_limit > 0 && ref->n_spans > 0;
-  sh->total_checked = total_limit > 0 && ref->n_spans > 0;
-  for (guint i = 0; sh->live_checked && i < ref->n_live; i++)
-    for (guint j = 0; j < ref->n_spans; j++)
-      {
-        double cap = ref->spans[j].judged / live_limit;
-        double d = ref->d_live[i * ref->n_spans + j] * k_EI;
-        double tol = margin (d, 0, ref->D_scale * k_EI);
-
-        share_max (&sh->live_lo[i], &sh->live_hi[i], MAX (d - tol, 0) / cap, (d + tol) / cap);
-      }
-  for (guint i = 0; sh->total_checked && i < ref->n_total; i++)
-    for (guint j = 0; j < ref->n_spans; j++)
-      {
-        const double *d = ref->d_total + 3 * (i * ref->n_spans + j);
-        double c = ref->fD_total[i] * dw;
-        double cap = ref->spans[j].judged / total_limit;
-        double at = fabs (d[1] + c * d[2]);
-        double hi = d[0] * ref->EI + fabs (c) * ref->D_u[j];
-        double tol = margin (hi, at, ref->D_scale * ref->EI);
-
-        share_max (&sh->total_lo[i], &sh->total_hi[i], MAX (at - tol, 0) / EI / cap,
-                   (hi + tol) / EI / cap);
-      }
-
-  for (guint i = 0; i < ref->n_live; i++)
-    sh->max_lo = MAX (sh->max_lo, sh->live_lo[i]);
-  for (guint i = 0; i < ref->n_total; i++)
-    sh->max_lo = MAX (sh->max_lo, sh->total_lo[i]);
-  /* a candidate failing here need not be bounded further */
-  if (reject && sh->max_lo > 1 + BOUND_MARGIN)
-    return TRUE;
-
+  shares_init (sh, ref);
 
   if (ref->method == TRB_METHOD_ALLOWABLE)
     {
@@ -2431,7 +2595,7 @@ candidate_shares (const Reference    *ref,
       if (!(isfinite (Fb) && Fb > 0 && isfinite (section->Sx) && section->Sx > 0 &&
             isfinite (Fv) && Fv > 0) ||
           isnan (trb_design_allowable_shear_stress (section, 1.0, &formula)))
-        return FALSE;
+        goto unbounded;
       for (guint i = 0; i < ref->n_str; i++)
         {
           double c = ref->factors[i * TRB_N_CASES + TRB_CASE_D] * dw;
@@ -2462,16 +2626,18 @@ candidate_shares (const Reference    *ref,
       const TrbSteelGrade *grade = steel_grade_of (m, in, s);
       gboolean lrfd = ref->method == TRB_METHOD_LRFD;
       TrbSteelFlexure flex;
+      TrbSteelFlexurePrep prep;
       TrbSteelShear shear;
       double cap_b, cap_v;
 
-      if (grade == NULL || !trb_design_steel_flexure (section, grade, 0, 1, &flex) ||
+      if (grade == NULL || !trb_design_steel_flexure_prepare (section, grade, &prep) ||
+          !trb_design_steel_flexure_at (&prep, 0, 1, &flex) ||
           !trb_design_steel_shear (section, grade, &shear))
-        return FALSE;
+        goto unbounded;
       cap_b = lrfd ? TRB_STEEL_PHI_B * flex.Mn : flex.Mn / TRB_STEEL_OMEGA_B;
       cap_v = lrfd ? shear.phi * shear.Vn : shear.Vn / shear.omega;
       if (!(cap_b > 0 && cap_v > 0))
-        return FALSE;
+        goto unbounded;
       for (guint i = 0; i < ref->n_str; i++)
         {
           double c = ref->factors[i * TRB_N_CASES + TRB_CASE_D] * dw;
@@ -2539,16 +2705,14 @@ candidate_shares (const Reference    *ref,
                     Cb_hi = MAX (1.0, 12.5 * x_hi / (2.5 * x_hi + 3 * q_lo[0] + 4 * q_lo[1] +
                                                      3 * q_lo[2]) * (1 + BOUND_MARGIN));
                   if (!(Cb_lo >= 1 && Cb_hi >= Cb_lo && isfinite (Cb_hi)))
-                    return FALSE;
+                    goto unbounded;
                 }
-              trb_design_steel_flexure (section, grade, ref->seg[k + 1] - ref->seg[k], Cb_lo,
-                                        &flex);
+              trb_design_steel_flexure_at (&prep, ref->seg[k + 1] - ref->seg[k], Cb_lo, &flex);
               cap_lo = lrfd ? TRB_STEEL_PHI_B * flex.Mn : flex.Mn / TRB_STEEL_OMEGA_B;
-              trb_design_steel_flexure (section, grade, ref->seg[k + 1] - ref->seg[k], Cb_hi,
-                                        &flex);
+              trb_design_steel_flexure_at (&prep, ref->seg[k + 1] - ref->seg[k], Cb_hi, &flex);
               cap_hi = lrfd ? TRB_STEEL_PHI_B * flex.Mn : flex.Mn / TRB_STEEL_OMEGA_B;
               if (!(cap_lo > 0 && cap_hi >= cap_lo))
-                return FALSE;
+                goto unbounded;
               if (m->bracing == TRB_BRACING_POINTS)
                 share_max (&sh->str_lo[0][i], &sh->str_hi[0][i], abs_lo / cap_hi,
                            abs_hi / cap_lo);
@@ -2572,7 +2736,7 @@ candidate_shares (const Reference    *ref,
                                                              section->d / 6;
 
       if (!(section->b > 0 && section->d > 0))
-        return FALSE;
+        goto unbounded;
       member_design_input (m, in, ref->beam, brace_x, &input);
       input.section = section;
       wood_options_for (m, in, &options);
@@ -2613,6 +2777,47 @@ candidate_shares (const Reference    *ref,
         }
     }
   else
+    goto unbounded;
+  bounded = TRUE;
+
+unbounded:
+  /* deflection after strength: of the candidates past the live load's one number most fail
+   * in strength. The verdict is the same in either order: a candidate is rejected when some
+   * check's lower bound is above 1 (even where strength cannot be bounded), left to its
+   * analysis when strength cannot be bounded and nothing rejects it, and bounded in full
+   * otherwise */
+  sh->live_checked = live_limit > 0 && ref->n_spans > 0;
+  sh->total_checked = total_limit > 0 && ref->n_spans > 0;
+  for (guint i = 0; sh->live_checked && i < ref->n_live; i++)
+    for (guint j = 0; j < ref->n_spans; j++)
+      {
+        double cap = ref->spans[j].judged / live_limit;
+        double d = ref->d_live[i * ref->n_spans + j] * k_EI;
+        double tol = margin (d, 0, ref->D_scale * k_EI);
+
+        share_max (&sh->live_lo[i], &sh->live_hi[i], MAX (d - tol, 0) / cap, (d + tol) / cap);
+      }
+  for (guint i = 0; sh->total_checked && i < ref->n_total; i++)
+    for (guint j = 0; j < ref->n_spans; j++)
+      {
+        const double *d = ref->d_total + 3 * (i * ref->n_spans + j);
+        double c = ref->fD_total[i] * dw;
+        double cap = ref->spans[j].judged / total_limit;
+        double at = fabs (d[1] + c * d[2]);
+        double hi = d[0] * ref->EI + fabs (c) * ref->D_u[j];
+        double tol = margin (hi, at, ref->D_scale * ref->EI);
+
+        share_max (&sh->total_lo[i], &sh->total_hi[i], MAX (at - tol, 0) / EI / cap,
+                   (hi + tol) / EI / cap);
+      }
+
+  for (guint i = 0; i < ref->n_live; i++)
+    sh->max_lo = MAX (sh->max_lo, sh->live_lo[i]);
+  for (guint i = 0; i < ref->n_total; i++)
+    sh->max_lo = MAX (sh->max_lo, sh->total_lo[i]);
+  if (reject && sh->max_lo > 1 + BOUND_MARGIN)
+    return TRUE;
+  if (!bounded)
     return FALSE;
 
   for (guint i = 0; i < ref->n_str; i++)
@@ -2710,7 +2915,10 @@ guess_section (const TrbProject  *project,
   int *span_of = NULL;
   gboolean *free_end = NULL;
   TrbBeamValues *vals = NULL;   /* part i at point k: vals[i * n_pts + k] */
+  TrbBeamValues vals_stack[192], *vals_heap = NULL;
   double *lp = NULL;            /* live load of pattern p at point k: M, V, v */
+  double lp_stack[768], *lp_heap = NULL;
+  double *f_span = NULL;
   GuessDemand *hog = NULL, *total = NULL, sag = { 0, 0 }, shear = { 0, 0 };
   double *hog_cb = NULL;          /* hogging demand and Cb of each strength entry on each
                                    * segment: hog[e * n_seg + k] */
@@ -2720,6 +2928,8 @@ guess_section (const TrbProject  *project,
   TrbLoad unit = { TRB_LOAD_UNIFORM, 0, in->length, 1.0, 1.0 };
   const GArray *combos[3];
   double live_unit = 0;
+  gboolean patterns_built = FALSE;
+  gboolean points_braced = m->bracing == TRB_BRACING_POINTS;
 
   if (m->material != TRB_MATERIAL_STEEL || cands->family == NULL ||
       (method != TRB_METHOD_ASD && method != TRB_METHOD_LRFD) ||
@@ -2749,6 +2959,7 @@ guess_section (const TrbProject  *project,
                                         (const TrbRegion *) regions->data, n_regions);
 
       patterns = trb_patterns_build ((const TrbRegion *) regions->data, n_regions, "L");
+      patterns_built = TRUE;
       for (guint reg = 0; reg < n_regions; reg++)
         parts[2 + reg] = trb_beam_solve (beam, (const TrbLoad *) split[reg]->data,
                                          split[reg]->len, NULL);
@@ -2800,14 +3011,24 @@ guess_section (const TrbProject  *project,
         if (x[at] >= spans[sp].a && x[at] <= spans[sp].b)
           span_of[at] = sp;
     }
-  vals = g_new (TrbBeamValues, n_parts * n_pts);
+  if (n_parts * n_pts <= G_N_ELEMENTS (vals_stack))
+    vals = vals_stack;
+  else
+    vals = vals_heap = g_new (TrbBeamValues, n_parts * n_pts);
   for (guint at = 0; at < n_pts; at++)
     for (guint i = 0; i < n_parts; i++)
       trb_beam_result_eval (parts[i], x[at],
                             at < n_grid && at % (GUESS_DIV + 1) == GUESS_DIV ? TRB_SIDE_LEFT
                                                                              : TRB_SIDE_RIGHT,
                             &vals[i * n_pts + at]);
-  lp = g_new0 (double, 3 * patterns->len * n_pts);
+  /* on the stack where it fits (a 3-span member: 441 values) */
+  if (3 * patterns->len * n_pts <= G_N_ELEMENTS (lp_stack))
+    {
+      lp = lp_stack;
+      memset (lp, 0, 3 * patterns->len * n_pts * sizeof (double));
+    }
+  else
+    lp = lp_heap = g_new0 (double, 3 * patterns->len * n_pts);
   for (guint p = 0; p < patterns->len; p++)
     {
       guint64 mask = g_array_index (patterns, TrbPattern, p).mask;
@@ -2834,6 +3055,13 @@ guess_section (const TrbProject  *project,
   free_end = g_new (gboolean, n_seg);
   for (guint k = 0; k < n_seg; k++)
     free_end[k] = trb_design_steel_free_end (&input, seg[k], seg[k + 1]);
+  /* each span's limits over its judged length: live, total */
+  f_span = g_new (double, 2 * n_spans + 1);
+  for (guint sp = 0; sp < n_spans; sp++)
+    {
+      f_span[2 * sp] = live_limit / spans[sp].judged;
+      f_span[2 * sp + 1] = total_limit / spans[sp].judged;
+    }
   hog = g_new0 (GuessDemand, n_str * n_seg);
   hog_cb = g_new (double, n_str * n_seg);
   total = g_new0 (GuessDemand, n_spans);
@@ -2844,59 +3072,67 @@ guess_section (const TrbProject  *project,
         double fD = combo->factors[TRB_CASE_D], fL = combo->factors[TRB_CASE_L];
 
         for (guint p = 0; p < (fL != 0 ? patterns->len : 1); p++, e_str += set == 0)
-          for (guint k = 0; k <= n_seg; k++)
-            {
-              double neg = 0, du_neg = 0, m_abs = 0, q[3] = { 0, 0, 0 };
+          {
+            const double *lpp = lp + 3 * p * n_pts;
 
-              /* the segments' grids, then the point loads as a last "segment" */
-              for (guint j = 0; k < n_seg ? j <= GUESS_DIV : j < n_pts - n_grid; j++)
-                {
-                  guint at = k < n_seg ? k * (GUESS_DIV + 1) + j : n_grid + j;
-                  const double *l = lp + 3 * (p * n_pts + at);
-                  const TrbBeamValues *d = &vals[at], *u = &vals[n_pts + at];
-                  double M = fD * d->M + fL * l[0];
+            if (set != 0)
+              {
+                /* the deflections: at every point in a span, in order */
+                for (guint at = 0; at < n_pts; at++)
+                  {
+                    int sp = span_of[at];
+                    double v, f;
 
-                  if (set == 0)
-                    {
-                      double V = fD * d->V + fL * l[1];
+                    if (sp < 0)
+                      continue;
+                    v = fD * vals[at].defl + fL * lpp[3 * at + 2];
+                    f = f_span[2 * sp + set - 1];
+                    if (set == 1)
+                      live_unit = MAX (live_unit, fabs (v) * f);
+                    else
+                      guess_take (&total[sp], fabs (v) * f,
+                                  copysign (fD * vals[n_pts + at].defl, v) * f);
+                  }
+                continue;
+              }
 
-                      guess_take (&sag, m->bracing == TRB_BRACING_POINTS ? 0 : M, fD * u->M);
-                      guess_take (&shear, fabs (V), copysign (fD * u->V, V));
-                      /* braced at points: |M| meets Lb and Cb; else hogging does */
-                      if ((m->bracing == TRB_BRACING_POINTS ? fabs (M) : -M) > neg)
-                        {
-                          neg = m->bracing == TRB_BRACING_POINTS ? fabs (M) : -M;
-                          du_neg = m->bracing == TRB_BRACING_POINTS ? copysign (fD * u->M, M)
-                                                                    : -fD * u->M;
-                        }
-                      m_abs = MAX (m_abs, fabs (M));
-                      if (k < n_seg && j > 0 && j < GUESS_DIV && j % (GUESS_DIV / 4) == 0)
-                        q[j / (GUESS_DIV / 4) - 1] = M;
-                    }
-                  else
-                    {
-                      double v = fD * d->defl + fL * l[2];
-                      int sp = span_of[at];
+            /* the segments' grids, then the point loads as a last "segment" */
+            for (guint k = 0; k <= n_seg; k++)
+              {
+                guint first = k < n_seg ? k * (GUESS_DIV + 1) : n_grid;
+                guint end = k < n_seg ? first + GUESS_DIV + 1 : n_pts;
+                double neg = 0, du_neg = 0, m_abs = 0, q[3] = { 0, 0, 0 };
 
-                      if (sp >= 0)
-                        {
-                          double f = (set == 1 ? live_limit : total_limit) / spans[sp].judged;
+                for (guint at = first; at < end; at++)
+                  {
+                    guint j = at - first;
+                    const double *l = lpp + 3 * at;
+                    const TrbBeamValues *d = &vals[at], *u = &vals[n_pts + at];
+                    double M = fD * d->M + fL * l[0];
+                    double V = fD * d->V + fL * l[1];
+                    /* braced at points: |M| meets Lb and Cb; else hogging does */
+                    double h = points_braced ? fabs (M) : -M;
 
-                          if (set == 1)
-                            live_unit = MAX (live_unit, fabs (v) * f);
-                          else
-                            guess_take (&total[sp], fabs (v) * f, copysign (fD * u->defl, v) * f);
-                        }
-                    }
-                }
-              if (set == 0 && k < n_seg)
-                {
-                  hog[e_str * n_seg + k].d0 = neg;
-                  hog[e_str * n_seg + k].du = du_neg;
-                  hog_cb[e_str * n_seg + k] = free_end[k] ? 1.0
-                                              : trb_design_steel_cb (m_abs, q[0], q[1], q[2]);
-                }
-            }
+                    guess_take (&sag, points_braced ? 0 : M, fD * u->M);
+                    guess_take (&shear, fabs (V), copysign (fD * u->V, V));
+                    if (h > neg)
+                      {
+                        neg = h;
+                        du_neg = points_braced ? copysign (fD * u->M, M) : -fD * u->M;
+                      }
+                    m_abs = MAX (m_abs, fabs (M));
+                    if (k < n_seg && j > 0 && j < GUESS_DIV && j % (GUESS_DIV / 4) == 0)
+                      q[j / (GUESS_DIV / 4) - 1] = M;
+                  }
+                if (k < n_seg)
+                  {
+                    hog[e_str * n_seg + k].d0 = neg;
+                    hog[e_str * n_seg + k].du = du_neg;
+                    hog_cb[e_str * n_seg + k] = free_end[k] ? 1.0
+                                                : trb_design_steel_cb (m_abs, q[0], q[1], q[2]);
+                  }
+              }
+          }
       }
   if (!(live_limit > 0))
     live_unit = 0;
@@ -2909,6 +3145,7 @@ guess_section (const TrbProject  *project,
       double EI = grade->E * section->Ix;
       double worst;
       TrbSteelFlexure flex;
+      TrbSteelFlexurePrep prep;
       TrbSteelShear sh;
 
       if (!candidate_allowed (m, section) || section->kind != TRB_SHAPE_W ||
@@ -2917,7 +3154,8 @@ guess_section (const TrbProject  *project,
       worst = 0;
       for (guint sp = 0; total_limit > 0 && sp < n_spans; sp++)
         worst = MAX (worst, fabs (total[sp].d0 + w * total[sp].du) / EI);
-      if (worst > 1 || !trb_design_steel_flexure (section, grade, 0, 1, &flex) ||
+      if (worst > 1 || !trb_design_steel_flexure_prepare (section, grade, &prep) ||
+          !trb_design_steel_flexure_at (&prep, 0, 1, &flex) ||
           !trb_design_steel_shear (section, grade, &sh))
         continue;
       worst = MAX (worst, (sag.d0 + w * sag.du) /
@@ -2930,7 +3168,7 @@ guess_section (const TrbProject  *project,
 
         for (guint k = 0; k < n_seg && worst <= 1; k++)
           {
-            if (!trb_design_steel_flexure (section, grade, seg[k + 1] - seg[k], 1, &flex))
+            if (!trb_design_steel_flexure_at (&prep, seg[k + 1] - seg[k], 1, &flex))
               {
                 worst = INFINITY;
                 break;
@@ -2951,6 +3189,28 @@ guess_section (const TrbProject  *project,
     }
 
 out:
+  /* what the first analysis would solve again, to restiffen: the regions, the patterns and
+   * live load on each region (where patterns are formed: built as analyse() builds them),
+   * the unit load */
+  if (in->plan != NULL && !in->plan->ready && in->plan->seed_regions == NULL &&
+      regions != NULL && parts[1] != NULL)
+    {
+      MemberPlan *plan = in->plan;
+      gboolean live = patterns_built;
+
+      for (guint reg = 0; live && reg < n_regions; reg++)
+        live = parts[2 + reg] != NULL;
+      plan->seed_regions = g_array_ref (regions);
+      plan->seed_unit = g_steal_pointer (&parts[1]);
+      if (live)
+        {
+          plan->seed_patterns = g_array_ref (patterns);
+          plan->seed_live = g_new (TrbBeamResult *, n_regions);
+          for (guint reg = 0; reg < n_regions; reg++)
+            plan->seed_live[reg] = g_steal_pointer (&parts[2 + reg]);
+          plan->n_seed_live = n_regions;
+        }
+    }
   for (guint i = 0; i < G_N_ELEMENTS (parts); i++)
     g_clear_pointer (&parts[i], trb_beam_result_free);
   trb_beam_free (beam);
@@ -2959,10 +3219,11 @@ out:
   g_free (x);
   g_free (span_of);
   g_free (free_end);
-  g_free (vals);
-  g_free (lp);
+  g_free (vals_heap);
+  g_free (lp_heap);
   g_free (hog);
   g_free (hog_cb);
+  g_free (f_span);
   g_free (total);
   return guess;
 }
@@ -3341,7 +3602,14 @@ record_input (TrbMemberResult   *r,
     return;
   r->supports = g_array_sized_new (FALSE, FALSE, sizeof (TrbSupport), in->n_supports);
   g_array_append_vals (r->supports, in->supports, in->n_supports);
-  r->loads = g_array_new (FALSE, TRUE, sizeof (TrbMemberLoad));
+  {
+    guint n = 0;
+
+    /* room for all at once: the array does not grow load by load */
+    for (guint c = 0; c < TRB_N_CASES; c++)
+      n += in->n_loads[c];
+    r->loads = g_array_sized_new (FALSE, TRUE, sizeof (TrbMemberLoad), n);
+  }
   for (guint c = 0; c < TRB_N_CASES; c++)
     for (guint i = 0; i < in->n_loads[c]; i++)
       {
@@ -3371,6 +3639,22 @@ record_sizing (TrbMemberResult   *r,
 }
 
 /* Analyses and designs one member on the given supports and loads. */
+/* Whether analyse() without E and I finds nothing wrong: the member is supported and its
+ * beam can be made (it is no mechanism and its supports are valid) */
+static gboolean
+beam_possible (const MemberInput *in)
+{
+  TrbBeam *beam;
+
+  if (in->n_supports == 0)
+    return FALSE;
+  beam = trb_beam_new (in->length, 1.0, 1.0, in->supports, in->n_supports, NULL);
+  if (beam == NULL)
+    return FALSE;
+  trb_beam_free (beam);
+  return TRUE;
+}
+
 static TrbMemberResult *
 solve_input (const TrbProject  *project,
              const TrbMember   *member,
@@ -3387,13 +3671,17 @@ solve_input (const TrbProject  *project,
     {
       const TrbSection *chosen = NULL;
 
-      /* Stability and support do not depend on the section: say so once, not per section. */
-      r = member_result_new (project, member);
-      g_strlcpy (r->section, member->section, sizeof r->section);
-      if (!analyse (project, in, NAN, NAN, 0, r, NULL, NULL) &&
-          r->status != TRB_STATUS_NOT_DESIGNED)
-        return r;
-      trb_member_result_free (r);
+      /* Stability and support do not depend on the section: say so once, not per section
+       * (analyse() without E and I; a beam that can be made is all it would find) */
+      if (!beam_possible (in))
+        {
+          r = member_result_new (project, member);
+          g_strlcpy (r->section, member->section, sizeof r->section);
+          if (!analyse (project, in, NAN, NAN, 0, r, NULL, NULL) &&
+              r->status != TRB_STATUS_NOT_DESIGNED)
+            return r;
+          trb_member_result_free (r);
+        }
 
       if (!trb_member_is_auto (member))
         {
@@ -3435,20 +3723,31 @@ standalone_input (const TrbMember *member,
                   GArray          *supports,
                   GArray         **loads)
 {
+  guint n[TRB_N_CASES] = { 0 };
+
   memset (in, 0, sizeof *in);
   in->member = member;
   in->length = member->length;
   in->repetitive_spacing = NAN;
+  /* each array sized once and filled in place, in the member's order */
+  g_array_set_size (supports, member->supports->len);
   for (guint i = 0; i < member->supports->len; i++)
-    g_array_append_val (supports,
-                        g_array_index (member->supports, TrbMemberSupport, i).support);
+    g_array_index (supports, TrbSupport, i) =
+      g_array_index (member->supports, TrbMemberSupport, i).support;
   in->supports = (const TrbSupport *) supports->data;
   in->n_supports = supports->len;
+  for (guint i = 0; i < member->loads->len; i++)
+    n[g_array_index (member->loads, TrbMemberLoad, i).lcase]++;
+  for (guint c = 0; c < TRB_N_CASES; c++)
+    {
+      g_array_set_size (loads[c], n[c]);
+      n[c] = 0;
+    }
   for (guint i = 0; i < member->loads->len; i++)
     {
       const TrbMemberLoad *ml = &g_array_index (member->loads, TrbMemberLoad, i);
 
-      g_array_append_val (loads[ml->lcase], ml->load);
+      g_array_index (loads[ml->lcase], TrbLoad, n[ml->lcase]++) = ml->load;
     }
   for (guint c = 0; c < TRB_N_CASES; c++)
     {
