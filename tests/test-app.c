@@ -15,6 +15,7 @@
 #include "trb-member-item.h"
 #include "trb-member-list.h"
 #include "trb-member-panel.h"
+#include "trb-plan-a11y.h"
 #include "trb-plan-canvas.h"
 #include "trb-project-io.h"
 #include "trb-quantity-row.h"
@@ -682,6 +683,12 @@ test_floors (void)
   g_assert_true (trb_document_get_floor (document) == roof);
   g_assert_cmpuint (gtk_drop_down_get_selected (floors), ==, 1);
   g_assert_true (trb_plan_canvas_get_selected_member (canvas) == r3);
+  {
+    /* the plan's description counts the roof's members, not the project's */
+    g_autofree char *said = trb_plan_a11y_describe (document, NULL);
+
+    g_assert_true (g_str_has_prefix (said, "Plan of Roof: 3 members, "));
+  }
 
   /* the next floor (Ctrl Page Down): the empty one; the roof's selection goes with it */
   g_assert_true (gtk_widget_activate_action (GTK_WIDGET (window), "win.next-floor", NULL));

@@ -22,6 +22,7 @@ trb_plan_a11y_describe (TrbDocument *document,
 {
   TrbProject *project;
   TrbFloor *floor;
+  GPtrArray *members;
   GString *text = g_string_new (NULL);
   guint failing = 0;
   guint n;
@@ -30,11 +31,13 @@ trb_plan_a11y_describe (TrbDocument *document,
 
   project = trb_document_get_project (document);
   floor = trb_document_get_floor (document);
-  n = project->members->len;
+  /* the plan's own: the floor shown, or every standalone beam where there is no floor */
+  members = floor != NULL ? floor->members : project->members;
+  n = members->len;
   for (guint i = 0; i < n; i++)
     {
       const TrbMemberResult *result =
-        trb_document_lookup_result (document, g_ptr_array_index (project->members, i));
+        trb_document_lookup_result (document, g_ptr_array_index (members, i));
 
       if (result != NULL && result->status != TRB_STATUS_PASS)
         failing++;
