@@ -1007,6 +1007,29 @@ plan_result (const MemberPlan *plan,
   return trb_beam_result_restiffen (kept, beam);
 }
 
+/* Each region's result kept (solved on another beam of the member's supports and loads)
+ * solved again on beam: all of them, or NULL when one cannot be. */
+static TrbBeamResult **
+restiffen_regions (TrbBeamResult *const *kept,
+                   guint                 n,
+                   const TrbBeam        *beam)
+{
+  TrbBeamResult **out = g_new0 (TrbBeamResult *, n);
+
+  for (guint reg = 0; reg < n; reg++)
+    {
+      out[reg] = kept[reg] != NULL ? trb_beam_result_restiffen (kept[reg], beam) : NULL;
+      if (out[reg] == NULL)
+        {
+          for (guint k = 0; k < reg; k++)
+            trb_beam_result_free (out[k]);
+          g_free (out);
+          return NULL;
+        }
+    }
+  return out;
+}
+
 /* The member's steel grade, NULL when it is unknown (the memo keeps the last one looked up,
  * whose name sizing asks for again and again) */
 static const TrbSteelGrade *
@@ -1196,41 +1219,19 @@ analyse (const TrbProject  *project,
 
           if (!is_patterned_case (c) || !r->has_case[c])
             continue;
+          /* the plan's, or the guess's solved for the same loads on the same regions */
           if (in->plan != NULL && in->plan->ready && in->plan->by_region[c] != NULL)
             {
-              gboolean all = TRUE;
-
-              rr.by_region[c] = g_new0 (TrbBeamResult *, n_regions);
-              for (guint reg = 0; reg < n_regions; reg++)
-                {
-                  rr.by_region[c][reg] = plan_result (in->plan, r->beam,
-                                                      in->plan->by_region[c][reg]);
-                  all = all && rr.by_region[c][reg] != NULL;
-                }
-              if (all)
+              rr.by_region[c] = restiffen_regions (in->plan->by_region[c], n_regions, r->beam);
+              if (rr.by_region[c] != NULL)
                 continue;
-              for (guint reg = 0; reg < n_regions; reg++)
-                g_clear_pointer (&rr.by_region[c][reg], trb_beam_result_free);
-              g_clear_pointer (&rr.by_region[c], g_free);
             }
           else if (c == TRB_CASE_L && in->plan != NULL && !in->plan->ready &&
                    in->plan->seed_live != NULL && in->plan->n_seed_live == n_regions)
             {
-              /* the guess's, solved for the same loads on the same regions */
-              gboolean all = TRUE;
-
-              rr.by_region[c] = g_new0 (TrbBeamResult *, n_regions);
-              for (guint reg = 0; reg < n_regions; reg++)
-                {
-                  rr.by_region[c][reg] = trb_beam_result_restiffen (in->plan->seed_live[reg],
-                                                                    r->beam);
-                  all = all && rr.by_region[c][reg] != NULL;
-                }
-              if (all)
+              rr.by_region[c] = restiffen_regions (in->plan->seed_live, n_regions, r->beam);
+              if (rr.by_region[c] != NULL)
                 continue;
-              for (guint reg = 0; reg < n_regions; reg++)
-                g_clear_pointer (&rr.by_region[c][reg], trb_beam_result_free);
-              g_clear_pointer (&rr.by_region[c], g_free);
             }
           split = trb_loads_split (in->loads[c], in->n_loads[c], regions, n_regions);
           rr.by_region[c] = g_new0 (TrbBeamResult *, n_regions);
