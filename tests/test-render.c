@@ -630,16 +630,19 @@ test_draw_stacked_loads (void)
  * area load's label used to stay at its outline's centroid, on top of the marks, sections and
  * ratios drawn at the joists' middles; now it leaves the middle band of the run, and so does
  * the label of a line load along the last joist. The labels are found by their ink: the case's
- * hue at 0.6 (draw_area_loads) and at 0.75 (draw_line_loads). */
+ * hue at 0.6 (draw_area_loads) and at 0.75 (draw_line_loads): how many pixels have it (found)
+ * and how many of those lie inside the box (device). */
 static int
-ink_rows_in_band (cairo_surface_t *s,
-                  const TrbRgba   *ink,
-                  double           y_lo,
-                  double           y_hi,
-                  int             *found)
+ink_in_box (cairo_surface_t *s,
+            const TrbRgba   *ink,
+            double           x_lo,
+            double           x_hi,
+            double           y_lo,
+            double           y_hi,
+            int             *found)
 {
   int w = cairo_image_surface_get_width (s), h = cairo_image_surface_get_height (s);
-  int in_band = 0;
+  int inside = 0;
 
   *found = 0;
   for (int y = 0; y < h; y++)
@@ -652,10 +655,10 @@ ink_rows_in_band (cairo_surface_t *s,
             && ABS (b - (int) round (255 * ink->b)) <= 6)
           {
             (*found)++;
-            in_band += y > y_lo && y < y_hi;
+            inside += x > x_lo && x < x_hi && y > y_lo && y < y_hi;
           }
       }
-  return in_band;
+  return inside;
 }
 
 static void
@@ -711,7 +714,8 @@ test_draw_load_labels_clear (void)
   area_ink.r *= 0.6;
   area_ink.g *= 0.6;
   area_ink.b *= 0.6;
-  in_band = ink_rows_in_band (s, &area_ink, y_mid - 3.5 * fs, y_mid + 3.5 * fs, &found);
+  in_band = ink_in_box (s, &area_ink, -1, G_MAXINT, y_mid - 3.5 * fs, y_mid + 3.5 * fs,
+                        &found);
   g_assert_cmpint (found, >, 10);      /* the area load's label is drawn */
   g_assert_cmpint (in_band, ==, 0);    /* and not over the joists' labels */
 
@@ -719,7 +723,8 @@ test_draw_load_labels_clear (void)
   line_ink.r *= 0.75;
   line_ink.g *= 0.75;
   line_ink.b *= 0.75;
-  in_band = ink_rows_in_band (s, &line_ink, y_mid - 3.5 * fs, y_mid + 3.5 * fs, &found);
+  in_band = ink_in_box (s, &line_ink, -1, G_MAXINT, y_mid - 3.5 * fs, y_mid + 3.5 * fs,
+                        &found);
   g_assert_cmpint (found, >, 10);      /* the line load is drawn, arrows and label */
 
   cairo_destroy (cr);
@@ -729,33 +734,6 @@ test_draw_load_labels_clear (void)
 /* Line loads along the edges of a floor (a rail, a wall on the edge joist) are drawn outside
  * the framing, load line, arrows and label, whichever way their points run: inside they lay
  * over the members and their labels. Found by their ink: the case's hue at 0.75. */
-static int
-ink_between (cairo_surface_t *s,
-             const TrbRgba   *ink,
-             double           x_lo,
-             double           x_hi,
-             int             *found)
-{
-  int w = cairo_image_surface_get_width (s), h = cairo_image_surface_get_height (s);
-  int between = 0;
-
-  *found = 0;
-  for (int y = 0; y < h; y++)
-    for (int x = 0; x < w; x++)
-      {
-        int r, g, b;
-
-        pixel (s, x, y, &r, &g, &b);
-        if (ABS (r - (int) round (255 * ink->r)) <= 6 && ABS (g - (int) round (255 * ink->g)) <= 6
-            && ABS (b - (int) round (255 * ink->b)) <= 6)
-          {
-            (*found)++;
-            between += x > x_lo && x < x_hi;
-          }
-      }
-  return between;
-}
-
 static void
 test_draw_line_loads_outside (void)
 {
@@ -806,13 +784,13 @@ test_draw_line_loads_outside (void)
       ink.r *= 0.75;
       ink.g *= 0.75;
       ink.b *= 0.75;
-      g_assert_cmpint (ink_between (s, &ink, -1, x1 - 2, &found), ==, 0);
+      g_assert_cmpint (ink_in_box (s, &ink, -1, x1 - 2, -1, G_MAXINT, &found), ==, 0);
       g_assert_cmpint (found, >, 50);      /* drawn, right of the right edge */
       trb_render_case_color (&options.style, TRB_CASE_S, &ink);
       ink.r *= 0.75;
       ink.g *= 0.75;
       ink.b *= 0.75;
-      g_assert_cmpint (ink_between (s, &ink, x0 + 2, 601, &found), ==, 0);
+      g_assert_cmpint (ink_in_box (s, &ink, x0 + 2, G_MAXINT, -1, G_MAXINT, &found), ==, 0);
       g_assert_cmpint (found, >, 50);      /* drawn, left of the left edge */
 
       cairo_destroy (cr);
