@@ -3639,7 +3639,6 @@ record_sizing (TrbMemberResult   *r,
   r->sizing = sz;
 }
 
-/* Analyses and designs one member on the given supports and loads. */
 /* Whether analyse() without E and I finds nothing wrong: the member is supported and its
  * beam can be made (it is no mechanism and its supports are valid) */
 static gboolean
@@ -3656,6 +3655,7 @@ beam_possible (const MemberInput *in)
   return TRUE;
 }
 
+/* Analyses and designs one member on the given supports and loads. */
 static TrbMemberResult *
 solve_input (const TrbProject  *project,
              const TrbMember   *member,
