@@ -14,6 +14,7 @@
 #include "trb-error.h"
 #include "trb-section.h"
 #include "trb-solve.h"
+#include "trb-solve-private.h"
 #include "trb-units.h"
 
 /* Weight densities for the self-weight of custom sections given by area: structural steel
@@ -102,17 +103,6 @@ keep_clear (gpointer data)
   for (guint c = 0; c < TRB_N_CASES; c++)
     g_clear_pointer (&keep->cases[c], trb_beam_result_free);
 }
-
-/* What a catalog or "auto" member was sized on (its length, supports, loads as analysed and
- * timber spacing), kept so that its shortlist can be made when someone shows it; shared by
- * identical members. */
-struct _TrbMemberSizing
-{
-  double  length;
-  GArray *supports;                /* TrbSupport */
-  GArray *loads[TRB_N_CASES];      /* TrbLoad */
-  double  repetitive_spacing;
-};
 
 /* A full analysis whose parts are proved finite leaves the strength entries' deflection
  * extremes, which no check and no bound reads, to trb_member_result_complete(): the flexure
@@ -251,9 +241,9 @@ trb_member_result_complete (const TrbMemberResult *result)
 /* A result for @member that reads the same analysis and design as @r (an identical member):
  * the arrays are shared by reference, the beam and case results through the keep box. The
  * member's own fields (member, bearings) are its own. */
-static TrbMemberResult *
-member_result_share (TrbMemberResult *r,
-                     const TrbMember *member)
+TrbMemberResult *
+trb_solve_priv_member_result_share (TrbMemberResult *r,
+                                    const TrbMember *member)
 {
   TrbMemberResult *c = g_new (TrbMemberResult, 1);
 
@@ -290,9 +280,9 @@ member_result_share (TrbMemberResult *r,
   return c;
 }
 
-static TrbMemberResult *
-member_result_new (const TrbProject *project,
-                   const TrbMember  *member)
+TrbMemberResult *
+trb_solve_priv_member_result_new (const TrbProject *project,
+                                  const TrbMember  *member)
 {
   TrbMemberResult *r = g_new0 (TrbMemberResult, 1);
 
@@ -376,11 +366,11 @@ analysis_finite (const TrbMemberResult *r,
          combo_set_finite (&r->total, sets_finite[2]);
 }
 
-static void G_GNUC_PRINTF (3, 4)
-set_status (TrbMemberResult *r,
-            TrbStatus        status,
-            const char      *format,
-            ...)
+void G_GNUC_PRINTF (3, 4)
+trb_solve_priv_set_status (TrbMemberResult *r,
+                           TrbStatus        status,
+                           const char      *format,
+                           ...)
 {
   va_list args;
 
@@ -515,9 +505,6 @@ region_results_prepare (RegionResults         *rr,
 /* Whether some entry of the member's sets is a combination of absent cases, which reads as
  * the result of no load: a combination without a present case of nonzero factor, or a
  * pattern that loads no region (none is built so, but it is not assumed) */
-static const GArray *combos_for (TrbComboSet     set,
-                                 const gboolean *has_case);
-
 static gboolean
 zero_needed (const TrbMemberResult *r,
              const RegionResults   *rr)
@@ -536,7 +523,7 @@ zero_needed (const TrbMemberResult *r,
     }
   for (guint k = 0; k < G_N_ELEMENTS (sets); k++)
     {
-      const GArray *combos = combos_for (sets[k], r->has_case);
+      const GArray *combos = trb_solve_priv_combos_for (sets[k], r->has_case);
 
       for (guint i = 0; i < combos->len; i++)
         {
@@ -579,26 +566,12 @@ is_patterned_case (TrbLoadCase c)
   return c == TRB_CASE_L || c == TRB_CASE_LR;
 }
 
-/* What a solve looks up again and again and that depends on nothing but its key: the wood
- * design values of a species and grade in each size. Lookups only: a memo never changes a
- * result. */
-typedef struct
-{
-  GHashTable          *grades;   /* "species\x1fgrade" -> GHashTable (section -> grade, or
-                                  * GRADE_NONE) */
-  char                *steel_name;   /* the last steel grade looked up, by its name */
-  const TrbSteelGrade *steel;
-  char                *wood_species; /* and the last species and grade, with its sizes */
-  char                *wood_grade;
-  GHashTable          *wood_sizes;
-} Memo;
-
 /* a size without design values, remembered as such */
 static const char grade_none;
 #define GRADE_NONE ((gpointer) &grade_none)
 
-static Memo *
-memo_new (void)
+Memo *
+trb_solve_priv_memo_new (void)
 {
   Memo *memo = g_new0 (Memo, 1);
 
@@ -607,8 +580,8 @@ memo_new (void)
   return memo;
 }
 
-static void
-memo_free (Memo *memo)
+void
+trb_solve_priv_memo_free (Memo *memo)
 {
   if (memo == NULL)
     return;
@@ -619,17 +592,15 @@ memo_free (Memo *memo)
   g_free (memo);
 }
 
-G_DEFINE_AUTOPTR_CLEANUP_FUNC (Memo, memo_free)
-
 /* The combinations of a set for the cases present depend on nothing else: built once for the
  * process, for every thread, and never changed. */
 #define COMBO_SETS 5
 
 static GArray *combo_cache[COMBO_SETS][1 << TRB_N_CASES];
 
-static const GArray *
-combos_for (TrbComboSet     set,
-            const gboolean *has_case)
+const GArray *
+trb_solve_priv_combos_for (TrbComboSet     set,
+                           const gboolean *has_case)
 {
   guint key = 0;
   GArray *a;
@@ -740,7 +711,7 @@ evaluate_set (TrbMemberResult     *r,
               gboolean             need_finite,
               Twins               *twins)
 {
-  const GArray *combos = combos_for (out->set, r->has_case);
+  const GArray *combos = trb_solve_priv_combos_for (out->set, r->has_case);
   gboolean patterns_on = r->patterns->len > 0;
   gboolean finite = TRUE;
   guint index[TRB_N_CASES * TRB_PATTERN_MAX_REGIONS + 1];
@@ -924,54 +895,8 @@ live_label (const TrbMemberResult *r)
   return r->has_case[TRB_CASE_L] ? "L" : "Lr";
 }
 
-/* What one member's analysis reads besides its section: its length, supports and loads in its
- * own coordinate, and the wood repetitive-member spacing. A standalone beam's come from its
- * file; a floor member's from the frame and the takedown. The design attributes are the
- * member's. */
-typedef struct
-{
-  double            length;
-  const TrbSupport *supports;
-  guint             n_supports;
-  const TrbLoad    *loads[TRB_N_CASES];
-  guint             n_loads[TRB_N_CASES];
-  double            repetitive_spacing;  /* m; NAN: from the member's "repetitive" flag */
-  Memo             *memo;                /* lookups to reuse; may be NULL */
-  const TrbMember  *member;              /* whose braces and design attributes they are */
-  struct _MemberPlan *plan;              /* sizing: what its analyses share; may be NULL */
-} MemberInput;
-
-/* What sizing's analyses of one member share whatever the section, kept from the first: its
- * regions and live-load patterns, and its load cases and per-region results other than dead
- * load with a self-weight, solved again with each section's E I by
- * trb_beam_result_restiffen(), which gives what solving them gives. */
-typedef struct _MemberPlan
-{
-  gboolean        ready;
-  gboolean        self_weight;             /* of the first: D is its own for each section */
-  TrbBeamResult  *cases[TRB_N_CASES];
-  GArray         *regions;
-  GArray         *patterns;
-  TrbBeamResult **by_region[TRB_N_CASES];
-  guint           n_regions;
-  /* from the guess, solved on a beam of unit E I, for the first analysis to restiffen
-   * instead of solving (NULL when none): the regions, the live-load patterns and L on each
-   * region, and a uniform unit load (the reference's) */
-  GArray            *seed_regions;
-  GArray            *seed_patterns;
-  TrbBeamResult    **seed_live;
-  guint              n_seed_live;
-  TrbBeamResult     *seed_unit;
-  /* the deflection checks' spans and the flexure segments (SpanExtremes) */
-  gboolean           have_cuts;
-  TrbDeflectionSpan *spans;
-  guint              n_spans;
-  double            *seg;
-  guint              n_seg;
-} MemberPlan;
-
-static void
-member_plan_clear (MemberPlan *plan)
+void
+trb_solve_priv_member_plan_clear (MemberPlan *plan)
 {
   for (guint c = 0; c < TRB_N_CASES; c++)
     {
@@ -1030,75 +955,20 @@ restiffen_regions (TrbBeamResult *const *kept,
   return out;
 }
 
-/* The member's steel grade, NULL when it is unknown (the memo keeps the last one looked up,
- * whose name sizing asks for again and again) */
-static const TrbSteelGrade *
-steel_grade_of (const TrbMember   *m,
-                const MemberInput *in,
-                const TrbSettings *s)
-{
-  const char *name = trb_member_get_steel_grade (m, s);
-  Memo *memo = in->memo;
-
-  if (memo == NULL)
-    return trb_design_steel_lookup_grade (name);
-  if (memo->steel_name == NULL || strcmp (memo->steel_name, name) != 0)
-    {
-      g_free (memo->steel_name);
-      memo->steel_name = g_strdup (name);
-      memo->steel = trb_design_steel_lookup_grade (name);
-    }
-  return memo->steel;
-}
-
-/* The extremes of the deflection sets' entries over each span the deflection checks judge,
- * found with the entries' own extremes (evaluate_set()), for design_checks(). */
-typedef struct
-{
-  TrbDeflectionSpan *spans;
-  guint              n_spans;
-  GArray            *live;    /* TrbBeamExtremes: n_spans for each entry of r->live */
-  GArray            *total;   /* the same for r->total */
-  /* and the strength entries' extremes over the flexure segments of the member's method */
-  double            *seg;     /* n_seg + 1 points */
-  guint              n_seg;
-  GArray            *strength;
-} SpanExtremes;
-
-static void
-span_extremes_clear (SpanExtremes *sx)
-{
-  g_clear_pointer (&sx->spans, g_free);
-  g_clear_pointer (&sx->live, g_array_unref);
-  g_clear_pointer (&sx->total, g_array_unref);
-  g_clear_pointer (&sx->seg, g_free);
-  g_clear_pointer (&sx->strength, g_array_unref);
-}
-
-/* Sizing's lean analysis of a section: only the entries of each set that keep marks (by
- * their place among all; NULL: every one), without envelopes; whether the entries left out
- * and the cases are finite is proved from the size of what they are made of, and unproved
- * says when it cannot be. */
-typedef struct
-{
-  const gboolean *keep[3];   /* strength, live, total */
-  gboolean        unproved;
-} Lean;
-
 /* The analysis with a given stiffness and self-weight (N/m, added to D); with E or I NAN only
  * the stability is checked. Returns FALSE, with the status set when something is wrong, when
  * there is nothing more to do. The design step runs this for each section it tries, with that
  * section's E, I and weight, on a fresh result. Reads only its arguments; sx (may be NULL)
  * gets the deflection sets' extremes over the spans. */
-static gboolean
-analyse (const TrbProject  *project,
-         const MemberInput *in,
-         double             E,
-         double             I,
-         double             self_weight,
-         TrbMemberResult   *r,
-         SpanExtremes      *sx,
-         Lean              *lean)
+gboolean
+trb_solve_priv_analyse (const TrbProject  *project,
+                        const MemberInput *in,
+                        double             E,
+                        double             I,
+                        double             self_weight,
+                        TrbMemberResult   *r,
+                        SpanExtremes      *sx,
+                        Lean              *lean)
 {
   g_autoptr(GError) error = NULL;
   const TrbSupport *beam_supports;
@@ -1112,7 +982,7 @@ analyse (const TrbProject  *project,
 
   if (in->n_supports == 0)
     {
-      set_status (r, TRB_STATUS_UNSUPPORTED, "the beam has no supports");
+      trb_solve_priv_set_status (r, TRB_STATUS_UNSUPPORTED, "the beam has no supports");
       return FALSE;
     }
 
@@ -1123,9 +993,9 @@ analyse (const TrbProject  *project,
   if (r->beam == NULL)
     {
       if (g_error_matches (error, TRB_ERROR, TRB_ERROR_UNSTABLE))
-        set_status (r, TRB_STATUS_UNSTABLE, "%s", error->message);
+        trb_solve_priv_set_status (r, TRB_STATUS_UNSTABLE, "%s", error->message);
       else
-        set_status (r, TRB_STATUS_ERROR, "%s", error->message);
+        trb_solve_priv_set_status (r, TRB_STATUS_ERROR, "%s", error->message);
       return FALSE;
     }
 
@@ -1169,8 +1039,8 @@ analyse (const TrbProject  *project,
         r->cases[c] = trb_beam_solve (r->beam, loads, n_loads, &error);
       if (r->cases[c] == NULL)
         {
-          set_status (r, TRB_STATUS_ERROR, "case %s: %s", trb_load_case_name (c),
-                      error->message);
+          trb_solve_priv_set_status (r, TRB_STATUS_ERROR, "case %s: %s", trb_load_case_name (c),
+                                     error->message);
           return FALSE;
         }
       /* the lean analysis of sizing proves them finite and reads no extreme of them */
@@ -1240,8 +1110,8 @@ analyse (const TrbProject  *project,
               rr.by_region[c][reg] = trb_beam_solve (r->beam, (const TrbLoad *) split[reg]->data,
                                                      split[reg]->len, &error);
               if (rr.by_region[c][reg] == NULL)
-                set_status (r, TRB_STATUS_ERROR, "case %s, region %u: %s",
-                            trb_load_case_name (c), reg + 1, error->message);
+                trb_solve_priv_set_status (r, TRB_STATUS_ERROR, "case %s, region %u: %s",
+                                           trb_load_case_name (c), reg + 1, error->message);
             }
           trb_loads_split_free (split, n_regions);
           if (r->status == TRB_STATUS_ERROR)
@@ -1282,7 +1152,7 @@ analyse (const TrbProject  *project,
       rr.zero = trb_beam_solve (r->beam, NULL, 0, &error);
       if (rr.zero == NULL)
         {
-          set_status (r, TRB_STATUS_ERROR, "%s", error->message);
+          trb_solve_priv_set_status (r, TRB_STATUS_ERROR, "%s", error->message);
           region_results_clear (&rr, r->regions->len);
           return FALSE;
         }
@@ -1378,7 +1248,7 @@ analyse (const TrbProject  *project,
       if (bounded && sx->n_seg > 0 && sx->n_seg == sx->n_spans &&
           memcmp (seg_ab, ab, 2 * sx->n_seg * sizeof (double)) == 0)
         {
-          twins.total = combos_for (TRB_COMBO_SET_TOTAL, r->has_case);
+          twins.total = trb_solve_priv_combos_for (TRB_COMBO_SET_TOTAL, r->has_case);
           use_twins = &twins;
         }
       sets_finite[0] = evaluate_set (r, &rr, &r->strength, seg_ab, sx->n_seg, sx->strength,
@@ -1420,8 +1290,8 @@ analyse (const TrbProject  *project,
                                    combo_set_finite (&r->total, sets_finite[2])
                                  : analysis_finite (r, sets_finite)))
     {
-      set_status (r, TRB_STATUS_ERROR, "the analysis overflows: the lengths, loads or section "
-                  "properties are out of any real range");
+      trb_solve_priv_set_status (r, TRB_STATUS_ERROR, "the analysis overflows: the lengths, loads "
+                                 "or section properties are out of any real range");
       return FALSE;
     }
 
@@ -1516,8 +1386,9 @@ finish_status (TrbMemberResult *r,
       if (!isfinite (ck->demand) || !isfinite (ck->capacity) ||
           (!isfinite (ck->ratio) && ck->capacity != 0))
         {
-          set_status (r, TRB_STATUS_ERROR, "the %s check overflows: the lengths, loads or "
-                      "section properties are out of any real range", ck->name);
+          trb_solve_priv_set_status (r, TRB_STATUS_ERROR, "the %s check overflows: the lengths, "
+                                     "loads or section properties are out of any real range",
+                                     ck->name);
           r->ratio = NAN;
           return;
         }
@@ -1532,10 +1403,10 @@ finish_status (TrbMemberResult *r,
   r->ratio = isfinite (worst) || worst == INFINITY ? worst : NAN;
 
   if (any_fail)
-    set_status (r, TRB_STATUS_FAIL, "%s: ratio %.2f", r->governing, r->ratio);
+    trb_solve_priv_set_status (r, TRB_STATUS_FAIL, "%s: ratio %.2f", r->governing, r->ratio);
   else if (!strength_checked || any_unchecked)
-    set_status (r, TRB_STATUS_NOT_DESIGNED, "some checks could not be made "
-                                            "(see \"Not checked\")");
+    trb_solve_priv_set_status (r, TRB_STATUS_NOT_DESIGNED, "some checks could not be made "
+                                                           "(see \"Not checked\")");
   else
     {
       r->status = TRB_STATUS_PASS;
@@ -1543,33 +1414,16 @@ finish_status (TrbMemberResult *r,
     }
 }
 
-static void
-wood_options_for (const TrbMember   *m,
-                  const MemberInput *in,
-                  TrbWoodOptions    *options)
-{
-  trb_design_wood_options_init (options);
-  options->wet_service = m->wet_service;
-  options->incised = m->incised;
-  /* A standalone member marked repetitive is one of three or more like members at 24 in or
-   * less tied by sheathing (NDS 2018 4.3.9); a floor's joist runs give their real spacing. */
-  if (m->repetitive)
-    options->repetitive_spacing = isnan (in->repetitive_spacing) ? 24 * TRB_IN
-                                                                 : in->repetitive_spacing;
-  if (!isnan (m->bearing_length))
-    options->bearing_length = m->bearing_length;
-}
-
 /* Every check of the member's method on one analysed section. */
-static void
-design_checks (const TrbProject   *project,
-               const TrbMember    *m,
-               const MemberInput  *in,
-               const TrbSection   *section,
-               const TrbWoodGrade *wood_grade,
-               const SpanExtremes *sx,
-               gboolean            no_detail,
-               TrbMemberResult    *r)
+void
+trb_solve_priv_design_checks (const TrbProject   *project,
+                              const TrbMember    *m,
+                              const MemberInput  *in,
+                              const TrbSection   *section,
+                              const TrbWoodGrade *wood_grade,
+                              const SpanExtremes *sx,
+                              gboolean            no_detail,
+                              TrbMemberResult    *r)
 {
   g_autoptr(GArray) demand = NULL;
   g_autoptr(GArray) brace_x = NULL;
@@ -1631,7 +1485,7 @@ design_checks (const TrbProject   *project,
     {
       TrbWoodOptions options;
 
-      wood_options_for (m, in, &options);
+      trb_solve_priv_wood_options_for (m, in, &options);
       if (r->method == TRB_METHOD_LRFD)
         trb_check_append_not_checked (r->checks, "LRFD strength",
                                       "Timber is designed by NDS 2018 ASD only: use "
@@ -1644,7 +1498,7 @@ design_checks (const TrbProject   *project,
     }
   else
     {
-      const TrbSteelGrade *grade = steel_grade_of (m, in, s);
+      const TrbSteelGrade *grade = trb_solve_priv_steel_grade_of (m, in, s);
 
       strength_checked = trb_design_steel_check (&input, grade,
                                                  r->method == TRB_METHOD_LRFD
@@ -1678,11 +1532,11 @@ custom_section (const TrbMember *m,
 }
 
 /* The wood grade for a section, or NULL with the reason in *why. */
-static const TrbWoodGrade *
-wood_grade_for (const TrbMember   *m,
-                const MemberInput *in,
-                const TrbSection  *section,
-                char             **why)
+const TrbWoodGrade *
+trb_solve_priv_wood_grade_for (const TrbMember   *m,
+                               const MemberInput *in,
+                               const TrbSection  *section,
+                               char             **why)
 {
   const TrbWoodGrade *grade;
   GHashTable *sizes = NULL;
@@ -1748,7 +1602,7 @@ solve_with_section_sx (const TrbProject  *project,
                        SpanExtremes      *keep_sx)
 {
   const TrbSettings *s = &project->settings;
-  TrbMemberResult *r = member_result_new (project, m);
+  TrbMemberResult *r = trb_solve_priv_member_result_new (project, m);
   const TrbWoodGrade *wood_grade = NULL;
   double self_weight = s->self_weight ? section->weight : 0;
   double E;
@@ -1765,43 +1619,45 @@ solve_with_section_sx (const TrbProject  *project,
 
       if (section->kind != TRB_SHAPE_SAWN && section->kind != TRB_SHAPE_GLULAM)
         {
-          set_status (r, TRB_STATUS_ERROR, "%s is not a timber section", section->designation);
+          trb_solve_priv_set_status (r, TRB_STATUS_ERROR, "%s is not a timber section",
+                                     section->designation);
           return r;
         }
-      wood_grade = wood_grade_for (m, in, section, &why);
+      wood_grade = trb_solve_priv_wood_grade_for (m, in, section, &why);
       if (wood_grade == NULL)
         {
-          set_status (r, TRB_STATUS_ERROR, "%s", why);
+          trb_solve_priv_set_status (r, TRB_STATUS_ERROR, "%s", why);
           return r;
         }
-      wood_options_for (m, in, &options);
+      trb_solve_priv_wood_options_for (m, in, &options);
       E = trb_design_wood_adjusted_e (section, wood_grade, &options, TRB_WOOD_E);
     }
   else
     {
-      const TrbSteelGrade *grade = steel_grade_of (m, in, s);
+      const TrbSteelGrade *grade = trb_solve_priv_steel_grade_of (m, in, s);
 
       if (section->kind == TRB_SHAPE_SAWN || section->kind == TRB_SHAPE_GLULAM)
         {
-          set_status (r, TRB_STATUS_ERROR, "%s is a timber section: give material=\"wood\" "
-                      "with a species and grade", section->designation);
+          trb_solve_priv_set_status (r, TRB_STATUS_ERROR, "%s is a timber section: give "
+                                     "material=\"wood\" with a species and grade",
+                                     section->designation);
           return r;
         }
       if (grade == NULL)
         {
-          set_status (r, TRB_STATUS_ERROR, "unknown steel grade \"%s\"",
-                      trb_member_get_steel_grade (m, s));
+          trb_solve_priv_set_status (r, TRB_STATUS_ERROR, "unknown steel grade \"%s\"",
+                                     trb_member_get_steel_grade (m, s));
           return r;
         }
       E = grade->E;
     }
 
-  if (analyse (project, in, E, section->Ix, self_weight, r, &sx, NULL))
-    design_checks (project, m, in, section, wood_grade, &sx, FALSE, r);
+  if (trb_solve_priv_analyse (project, in, E, section->Ix, self_weight, r, &sx, NULL))
+    trb_solve_priv_design_checks (project, m, in, section, wood_grade, &sx, FALSE, r);
   if (keep_sx != NULL)
     *keep_sx = sx;
   else
-    span_extremes_clear (&sx);
+    trb_solve_priv_span_extremes_clear (&sx);
   return r;
 }
 
@@ -1848,9 +1704,9 @@ candidate_allowed (const TrbMember  *m,
 }
 
 /* A designation is looked up in the project's own sections first, then in the catalog. */
-static const TrbSection *
-lookup_section (const TrbProject *project,
-                const char       *designation)
+const TrbSection *
+trb_solve_priv_lookup_section (const TrbProject *project,
+                               const char       *designation)
 {
   const TrbSection *section = NULL;
 
@@ -1910,7 +1766,7 @@ sizing_candidates (const TrbProject *project,
       cands->list = g_ptr_array_new ();
       for (guint i = 0; m->allowed[i] != NULL; i++)
         {
-          const TrbSection *section = lookup_section (project, m->allowed[i]);
+          const TrbSection *section = trb_solve_priv_lookup_section (project, m->allowed[i]);
 
           if (section != NULL && candidate_allowed (m, section))
             g_ptr_array_add (cands->list, (gpointer) section);
@@ -2521,15 +2377,15 @@ section_stiffness (const TrbProject    *project,
 
       if (section->kind != TRB_SHAPE_SAWN && section->kind != TRB_SHAPE_GLULAM)
         return FALSE;
-      *wood_grade = wood_grade_for (m, in, section, &why);
+      *wood_grade = trb_solve_priv_wood_grade_for (m, in, section, &why);
       if (*wood_grade == NULL)
         return FALSE;
-      wood_options_for (m, in, &options);
+      trb_solve_priv_wood_options_for (m, in, &options);
       *E = trb_design_wood_adjusted_e (section, *wood_grade, &options, TRB_WOOD_E);
     }
   else
     {
-      const TrbSteelGrade *grade = steel_grade_of (m, in, s);
+      const TrbSteelGrade *grade = trb_solve_priv_steel_grade_of (m, in, s);
 
       if (section->kind == TRB_SHAPE_SAWN || section->kind == TRB_SHAPE_GLULAM || grade == NULL)
         return FALSE;
@@ -2624,7 +2480,7 @@ candidate_shares (const Reference    *ref,
     }
   else if (ref->steel && section->kind == TRB_SHAPE_W)
     {
-      const TrbSteelGrade *grade = steel_grade_of (m, in, s);
+      const TrbSteelGrade *grade = trb_solve_priv_steel_grade_of (m, in, s);
       gboolean lrfd = ref->method == TRB_METHOD_LRFD;
       TrbSteelFlexure flex;
       TrbSteelFlexurePrep prep;
@@ -2740,7 +2596,7 @@ candidate_shares (const Reference    *ref,
         goto unbounded;
       member_design_input (m, in, ref->beam, brace_x, &input);
       input.section = section;
-      wood_options_for (m, in, &options);
+      trb_solve_priv_wood_options_for (m, in, &options);
       sh->keep_all_strength = TRUE;
       for (guint i = 0; i < ref->n_str; i++)
         {
@@ -2937,7 +2793,7 @@ guess_section (const TrbProject  *project,
       in->n_loads[TRB_CASE_LR] > 0 || in->n_loads[TRB_CASE_S] > 0 ||
       in->n_loads[TRB_CASE_L] == 0 || in->n_supports == 0)
     return NULL;
-  grade = steel_grade_of (m, in, s);
+  grade = trb_solve_priv_steel_grade_of (m, in, s);
   if (grade == NULL)
     return NULL;
   beam = trb_beam_new (in->length, 1.0, 1.0, in->supports, in->n_supports, NULL);
@@ -3048,9 +2904,9 @@ guess_section (const TrbProject  *project,
     }
 
   /* the largest demands at w = 0 of every combination and pattern, where they are */
-  combos[0] = combos_for (lrfd ? TRB_COMBO_SET_LRFD : TRB_COMBO_SET_ASD, has_case);
-  combos[1] = combos_for (TRB_COMBO_SET_LIVE, has_case);
-  combos[2] = combos_for (TRB_COMBO_SET_TOTAL, has_case);
+  combos[0] = trb_solve_priv_combos_for (lrfd ? TRB_COMBO_SET_LRFD : TRB_COMBO_SET_ASD, has_case);
+  combos[1] = trb_solve_priv_combos_for (TRB_COMBO_SET_LIVE, has_case);
+  combos[2] = trb_solve_priv_combos_for (TRB_COMBO_SET_TOTAL, has_case);
   for (guint i = 0; i < combos[0]->len; i++)
     n_str += g_array_index (combos[0], TrbCombo, i).factors[TRB_CASE_L] != 0 ? patterns->len : 1;
   free_end = g_new (gboolean, n_seg);
@@ -3191,8 +3047,8 @@ guess_section (const TrbProject  *project,
 
 out:
   /* what the first analysis would solve again, to restiffen: the regions, the patterns and
-   * live load on each region (where patterns are formed: built as analyse() builds them),
-   * the unit load */
+   * live load on each region (where patterns are formed: built as trb_solve_priv_analyse()
+   * builds them), the unit load */
   if (in->plan != NULL && !in->plan->ready && in->plan->seed_regions == NULL &&
       regions != NULL && parts[1] != NULL)
     {
@@ -3289,11 +3145,11 @@ judge_candidate (const Reference   *ref,
   lean.keep[1] = keep + ref->n_str;
   lean.keep[2] = keep + ref->n_str + ref->n_live;
 
-  r = member_result_new (project, m);
-  if (analyse (project, in, E, section->Ix,
-               project->settings.self_weight ? section->weight : 0, r, &sx, &lean))
+  r = trb_solve_priv_member_result_new (project, m);
+  if (trb_solve_priv_analyse (project, in, E, section->Ix,
+                              project->settings.self_weight ? section->weight : 0, r, &sx, &lean))
     {
-      design_checks (project, m, in, section, wood_grade, &sx, TRUE, r);
+      trb_solve_priv_design_checks (project, m, in, section, wood_grade, &sx, TRUE, r);
       if (r->status == TRB_STATUS_PASS || r->status == TRB_STATUS_FAIL)
         {
           v->status = r->status;
@@ -3302,7 +3158,7 @@ judge_candidate (const Reference   *ref,
           kind = VERDICT_DECIDED;
         }
     }
-  span_extremes_clear (&sx);
+  trb_solve_priv_span_extremes_clear (&sx);
   trb_member_result_free (r);
   return kind;
 }
@@ -3333,9 +3189,9 @@ reference_candidate (Reference         *ref,
 
   if (!section_stiffness (project, m, in, section, &E, &wood_grade))
     return VERDICT_UNDECIDED;
-  r = member_result_new (project, m);
-  if (analyse (project, in, E, section->Ix,
-               project->settings.self_weight ? section->weight : 0, r, &sx, &lean))
+  r = trb_solve_priv_member_result_new (project, m);
+  if (trb_solve_priv_analyse (project, in, E, section->Ix,
+                              project->settings.self_weight ? section->weight : 0, r, &sx, &lean))
     {
       if (reject && bundled)
         {
@@ -3346,12 +3202,12 @@ reference_candidate (Reference         *ref,
           else if (candidate_shares (ref, project, m, in, section, E, wood_grade, TRUE, &sh) &&
                    sh.max_lo > 1 + BOUND_MARGIN)
             {
-              span_extremes_clear (&sx);
+              trb_solve_priv_span_extremes_clear (&sx);
               trb_member_result_free (r);
               return VERDICT_REJECTED;
             }
         }
-      design_checks (project, m, in, section, wood_grade, &sx, TRUE, r);
+      trb_solve_priv_design_checks (project, m, in, section, wood_grade, &sx, TRUE, r);
       /* the reference made above, or made now, is kept only beside a verdict */
       if ((r->status == TRB_STATUS_PASS || r->status == TRB_STATUS_FAIL) &&
           (ref->ready || reference_init (ref, project, m, in, r, &sx)))
@@ -3364,7 +3220,7 @@ reference_candidate (Reference         *ref,
       else
         reference_clear (ref);
     }
-  span_extremes_clear (&sx);
+  trb_solve_priv_span_extremes_clear (&sx);
   trb_member_result_free (r);
   return kind;
 }
@@ -3379,15 +3235,15 @@ reference_candidate (Reference         *ref,
  * chosen (and the closest, when none passes) is analysed in full for the result.
  * With list_only, only the shortlist is made, into list_only, and NULL returned: the same
  * candidates judged the same way, without the chosen section's full result. */
-static TrbMemberResult *
-size_member (const TrbProject  *project,
-             const TrbMember   *m,
-             const MemberInput *in,
-             const TrbSection  *chosen,
-             guint              shortlist_max,
-             gboolean           use_bounds,
-             gboolean           reject,
-             GArray            *list_only)
+TrbMemberResult *
+trb_solve_priv_size_member (const TrbProject  *project,
+                            const TrbMember   *m,
+                            const MemberInput *in,
+                            const TrbSection  *chosen,
+                            guint              shortlist_max,
+                            gboolean           use_bounds,
+                            gboolean           reject,
+                            GArray            *list_only)
 {
   Candidates candidates;
   const TrbSection *section;
@@ -3424,7 +3280,7 @@ size_member (const TrbProject  *project,
               reference_clear (&ref);
               g_clear_pointer (&guess_result, trb_member_result_free);
             }
-          span_extremes_clear (&sx);
+          trb_solve_priv_span_extremes_clear (&sx);
         }
     }
   /* past the shortlist's length only for the lightest passing section, when it is chosen */
@@ -3556,7 +3412,7 @@ size_member (const TrbProject  *project,
       /* nothing passes, or the shortlist is made: the rest is the result's */
       g_clear_pointer (&closest, trb_member_result_free);
       reference_clear (&ref);
-      member_plan_clear (&plan);
+      trb_solve_priv_member_plan_clear (&plan);
       g_array_append_vals (list_only, shortlist->data, MIN (shortlist->len, shortlist_max));
       return NULL;
     }
@@ -3566,9 +3422,10 @@ size_member (const TrbProject  *project,
       /* nothing passes: the closest section may be one the bounds rejected */
       g_clear_pointer (&closest, trb_member_result_free);
       reference_clear (&ref);
-      member_plan_clear (&plan);
+      trb_solve_priv_member_plan_clear (&plan);
       in_plan.plan = NULL;
-      return size_member (project, m, in, chosen, shortlist_max, use_bounds, FALSE, NULL);
+      return trb_solve_priv_size_member (project, m, in, chosen, shortlist_max, use_bounds, FALSE,
+                                         NULL);
     }
 
   if (chosen != NULL)
@@ -3577,19 +3434,20 @@ size_member (const TrbProject  *project,
     {
       best = closest != NULL ? g_steal_pointer (&closest)
                              : solve_with_section (project, m, in, closest_section);
-      set_status (best, TRB_STATUS_FAIL, "no section of the catalog passes; the closest is "
-                  "%s (%s ratio %.2f)", best->section, best->governing, best->ratio);
+      trb_solve_priv_set_status (best, TRB_STATUS_FAIL, "no section of the catalog passes; the "
+                                 "closest is %s (%s ratio %.2f)", best->section, best->governing,
+                                 best->ratio);
     }
   else if (best == NULL)
     {
-      best = member_result_new (project, m);
+      best = trb_solve_priv_member_result_new (project, m);
       g_strlcpy (best->section, m->section, sizeof best->section);
-      set_status (best, TRB_STATUS_NOT_DESIGNED, "no catalog section fits the member's limits "
-                  "(family, depth, plies, allowed list)");
+      trb_solve_priv_set_status (best, TRB_STATUS_NOT_DESIGNED, "no catalog section fits the "
+                                 "member's limits (family, depth, plies, allowed list)");
     }
   g_clear_pointer (&closest, trb_member_result_free);
   reference_clear (&ref);
-  member_plan_clear (&plan);
+  trb_solve_priv_member_plan_clear (&plan);
   g_array_append_vals (best->shortlist, shortlist->data, MIN (shortlist->len, shortlist_max));
   return best;
 }
@@ -3639,8 +3497,8 @@ record_sizing (TrbMemberResult   *r,
   r->sizing = sz;
 }
 
-/* Whether analyse() without E and I finds nothing wrong: the member is supported and its
- * beam can be made (it is no mechanism and its supports are valid) */
+/* Whether trb_solve_priv_analyse() without E and I finds nothing wrong: the member is supported
+ * and its beam can be made (it is no mechanism and its supports are valid) */
 static gboolean
 beam_possible (const MemberInput *in)
 {
@@ -3656,12 +3514,12 @@ beam_possible (const MemberInput *in)
 }
 
 /* Analyses and designs one member on the given supports and loads. */
-static TrbMemberResult *
-solve_input (const TrbProject  *project,
-             const TrbMember   *member,
-             const MemberInput *in,
-             guint              shortlist_max,
-             gboolean           use_bounds)
+TrbMemberResult *
+trb_solve_priv_solve_input (const TrbProject  *project,
+                            const TrbMember   *member,
+                            const MemberInput *in,
+                            guint              shortlist_max,
+                            gboolean           use_bounds)
 {
   TrbMemberResult *r;
   TrbSection section;
@@ -3673,12 +3531,12 @@ solve_input (const TrbProject  *project,
       const TrbSection *chosen = NULL;
 
       /* Stability and support do not depend on the section: say so once, not per section
-       * (analyse() without E and I; a beam that can be made is all it would find) */
+       * (trb_solve_priv_analyse() without E and I; a beam that can be made is all it would find) */
       if (!beam_possible (in))
         {
-          r = member_result_new (project, member);
+          r = trb_solve_priv_member_result_new (project, member);
           g_strlcpy (r->section, member->section, sizeof r->section);
-          if (!analyse (project, in, NAN, NAN, 0, r, NULL, NULL) &&
+          if (!trb_solve_priv_analyse (project, in, NAN, NAN, 0, r, NULL, NULL) &&
               r->status != TRB_STATUS_NOT_DESIGNED)
             return r;
           trb_member_result_free (r);
@@ -3686,43 +3544,44 @@ solve_input (const TrbProject  *project,
 
       if (!trb_member_is_auto (member))
         {
-          chosen = lookup_section (project, member->section);
+          chosen = trb_solve_priv_lookup_section (project, member->section);
           if (chosen == NULL)
             {
-              r = member_result_new (project, member);
+              r = trb_solve_priv_member_result_new (project, member);
               g_strlcpy (r->section, member->section, sizeof r->section);
-              set_status (r, TRB_STATUS_ERROR, "unknown section \"%s\": not in the catalog",
-                          member->section);
+              trb_solve_priv_set_status (r, TRB_STATUS_ERROR,
+                                         "unknown section \"%s\": not in the catalog",
+                                         member->section);
               return r;
             }
         }
-      r = size_member (project, member, in, chosen, shortlist_max, use_bounds, use_bounds,
-                       NULL);
+      r = trb_solve_priv_size_member (project, member, in, chosen, shortlist_max, use_bounds,
+                                      use_bounds, NULL);
       record_input (r, in);
       record_sizing (r, in);
       return r;
     }
 
-  r = member_result_new (project, member);
+  r = trb_solve_priv_member_result_new (project, member);
   if (!project->settings.self_weight)
     g_ptr_array_add (r->notes, g_strdup ("self-weight excluded by the project settings"));
   else
     self_weight = custom_self_weight (member, r->notes);
   custom_section (member, self_weight, &section);
-  if (analyse (project, in, member->E, member->I, self_weight, r, &sx, NULL))
-    design_checks (project, member, in, &section, NULL, &sx, FALSE, r);
-  span_extremes_clear (&sx);
+  if (trb_solve_priv_analyse (project, in, member->E, member->I, self_weight, r, &sx, NULL))
+    trb_solve_priv_design_checks (project, member, in, &section, NULL, &sx, FALSE, r);
+  trb_solve_priv_span_extremes_clear (&sx);
   record_input (r, in);
   return r;
 }
 
 /* A standalone beam's input: its own supports and loads, from its file. The arrays are
  * owned by the caller. */
-static void
-standalone_input (const TrbMember *member,
-                  MemberInput     *in,
-                  GArray          *supports,
-                  GArray         **loads)
+void
+trb_solve_priv_standalone_input (const TrbMember *member,
+                                 MemberInput     *in,
+                                 GArray          *supports,
+                                 GArray         **loads)
 {
   guint n[TRB_N_CASES] = { 0 };
 
@@ -3757,23 +3616,23 @@ standalone_input (const TrbMember *member,
     }
 }
 
-static TrbMemberResult *
-solve_standalone (const TrbProject *project,
-                  const TrbMember  *member,
-                  guint             shortlist_max,
-                  gboolean          use_bounds)
+TrbMemberResult *
+trb_solve_priv_solve_standalone (const TrbProject *project,
+                                 const TrbMember  *member,
+                                 guint             shortlist_max,
+                                 gboolean          use_bounds)
 {
   g_autoptr(GArray) supports = g_array_new (FALSE, FALSE, sizeof (TrbSupport));
   GArray *loads[TRB_N_CASES];
   MemberInput in;
   TrbMemberResult *r;
-  g_autoptr(Memo) memo = memo_new ();
+  g_autoptr(Memo) memo = trb_solve_priv_memo_new ();
 
   for (guint c = 0; c < TRB_N_CASES; c++)
     loads[c] = g_array_new (FALSE, FALSE, sizeof (TrbLoad));
-  standalone_input (member, &in, supports, loads);
+  trb_solve_priv_standalone_input (member, &in, supports, loads);
   in.memo = memo;
-  r = solve_input (project, member, &in, shortlist_max, use_bounds);
+  r = trb_solve_priv_solve_input (project, member, &in, shortlist_max, use_bounds);
   for (guint c = 0; c < TRB_N_CASES; c++)
     g_array_unref (loads[c]);
   return r;
@@ -4631,10 +4490,10 @@ not_analysed_result (const TrbProject *project,
                      TrbStatus         status,
                      const char       *reason)
 {
-  TrbMemberResult *r = member_result_new (project, m);
+  TrbMemberResult *r = trb_solve_priv_member_result_new (project, m);
 
   g_strlcpy (r->section, m->section, sizeof r->section);
-  set_status (r, status, "%s", reason);
+  trb_solve_priv_set_status (r, status, "%s", reason);
   if (m->floor != NULL)
     r->reduction.factor = 1;
   return r;
@@ -4801,8 +4660,9 @@ solve_floor_member (Solver         *sv,
     entry = g_hash_table_lookup (sv->cache, key);
   if (entry == NULL)
     {
-      entry = cache_entry_new (solve_input (project, m, &in, sv->options->shortlist_max,
-                                            sv->options->bounds),
+      entry = cache_entry_new (trb_solve_priv_solve_input (project, m, &in,
+                                                           sv->options->shortlist_max,
+                                                           sv->options->bounds),
                                fs->reduction, live_a, live_b);
       if (sv->cache != NULL)
         g_hash_table_insert (sv->cache, g_bytes_new (fs->key.data, fs->key.len), entry);
@@ -4814,7 +4674,7 @@ solve_floor_member (Solver         *sv,
    * that what one member's place in the floor changes (its bearings, an incomplete load)
    * never reaches the others. */
   if (sv->cache != NULL)
-    r = member_result_share (entry->result, m);
+    r = trb_solve_priv_member_result_share (entry->result, m);
   else
     r = g_steal_pointer (&entry->result);
 
@@ -4900,8 +4760,8 @@ solve_floor_member (Solver         *sv,
       trb_frame_takedown_add (fs->takedown[f], idx, handed[f], fm->n_supports, NULL);
 
   if (fs->incomplete[idx] != NULL)
-    set_status (r, TRB_STATUS_NOT_DESIGNED, "loads incomplete: %s, which rests on it, could "
-                "not be analysed", fs->incomplete[idx]);
+    trb_solve_priv_set_status (r, TRB_STATUS_NOT_DESIGNED, "loads incomplete: %s, which rests "
+                               "on it, could not be analysed", fs->incomplete[idx]);
 
   if (sv->cache == NULL)
     cache_entry_free (entry);
@@ -5435,27 +5295,28 @@ solve_standalone_cached (Solver          *sv,
   TrbMemberResult *r;
 
   if (sv->cache == NULL)
-    return solve_standalone (sv->project, member, sv->options->shortlist_max,
-                             sv->options->bounds);
+    return trb_solve_priv_solve_standalone (sv->project, member, sv->options->shortlist_max,
+                                            sv->options->bounds);
 
   supports = g_array_new (FALSE, FALSE, sizeof (TrbSupport));
   for (guint c = 0; c < TRB_N_CASES; c++)
     loads[c] = g_array_new (FALSE, FALSE, sizeof (TrbLoad));
-  standalone_input (member, &in, supports, loads);
+  trb_solve_priv_standalone_input (member, &in, supports, loads);
   in.memo = sv->memo;
   key = member_key (member, &in, sv->options->shortlist_max, NULL);
   entry = g_hash_table_lookup (sv->cache, key);
   if (entry == NULL)
     {
       entry = g_new0 (CacheEntry, 1);
-      entry->result = solve_input (sv->project, member, &in, sv->options->shortlist_max,
-                                   sv->options->bounds);
+      entry->result = trb_solve_priv_solve_input (sv->project, member, &in,
+                                                  sv->options->shortlist_max,
+                                                  sv->options->bounds);
       g_hash_table_insert (sv->cache, g_bytes_ref (key), entry);
       solver_count (sv, entry, TRUE);
     }
   else
     solver_count (sv, entry, FALSE);
-  r = member_result_share (entry->result, member);
+  r = trb_solve_priv_member_result_share (entry->result, member);
   for (guint c = 0; c < TRB_N_CASES; c++)
     g_array_unref (loads[c]);
   return r;
@@ -5525,11 +5386,11 @@ frame_entry_stale (gpointer key,
 
 /* Solves the whole project, or only one floor's members (only_floor); with keep, reading and
  * filling that cache of earlier solves. */
-static TrbProjectResult *
-solve_project (const TrbProject      *project,
-               const TrbSolveOptions *options,
-               const TrbFloor        *only_floor,
-               TrbSolveCache         *keep)
+TrbProjectResult *
+trb_solve_priv_solve_project (const TrbProject      *project,
+                              const TrbSolveOptions *options,
+                              const TrbFloor        *only_floor,
+                              TrbSolveCache         *keep)
 {
   TrbProjectResult *pr;
   g_autoptr(GHashTable) results = g_hash_table_new (NULL, NULL);
@@ -5556,7 +5417,7 @@ solve_project (const TrbProject      *project,
     sv.cache = g_hash_table_new_full (key_hash, g_bytes_equal,
                                       (GDestroyNotify) g_bytes_unref, cache_entry_free);
   if (sv.memo == NULL)
-    sv.memo = memo_new ();
+    sv.memo = trb_solve_priv_memo_new ();
 
   pr = g_new0 (TrbProjectResult, 1);
   pr->project = project;
@@ -5598,7 +5459,7 @@ solve_project (const TrbProject      *project,
   else
     {
       g_clear_pointer (&sv.cache, g_hash_table_unref);
-      memo_free (sv.memo);
+      trb_solve_priv_memo_free (sv.memo);
     }
   return pr;
 }
@@ -5619,7 +5480,7 @@ trb_solve_cache_new (void)
                                           (GDestroyNotify) g_bytes_unref, cache_entry_free);
   cache->frames = g_hash_table_new_full (key_hash, g_bytes_equal,
                                          (GDestroyNotify) g_bytes_unref, frame_entry_free);
-  cache->memo = memo_new ();
+  cache->memo = trb_solve_priv_memo_new ();
   return cache;
 }
 
@@ -5631,7 +5492,7 @@ trb_solve_cache_free (TrbSolveCache *cache)
   g_clear_pointer (&cache->context, g_bytes_unref);
   g_hash_table_unref (cache->members);
   g_hash_table_unref (cache->frames);
-  memo_free (cache->memo);
+  trb_solve_priv_memo_free (cache->memo);
   g_free (cache);
 }
 
@@ -5693,7 +5554,7 @@ trb_solve_project_cached (const TrbProject      *project,
       trb_solve_options_init (&defaults);
       options = &defaults;
     }
-  return solve_project (project, options, NULL, cache);
+  return trb_solve_priv_solve_project (project, options, NULL, cache);
 }
 
 /**
@@ -5722,7 +5583,7 @@ trb_solve_project_full (const TrbProject      *project,
       trb_solve_options_init (&defaults);
       options = &defaults;
     }
-  return solve_project (project, options, NULL, NULL);
+  return trb_solve_priv_solve_project (project, options, NULL, NULL);
 }
 
 /**
@@ -5769,10 +5630,10 @@ trb_solve_member_full (const TrbProject *project,
 
       trb_solve_options_init (&options);
       options.shortlist_max = shortlist_max;
-      pr = solve_project (project, &options, member->floor, NULL);
+      pr = trb_solve_priv_solve_project (project, &options, member->floor, NULL);
       found = trb_project_result_find_member (pr, member);
       g_return_val_if_fail (found != NULL, NULL);
-      r = member_result_share ((TrbMemberResult *) found, member);
+      r = trb_solve_priv_member_result_share ((TrbMemberResult *) found, member);
       r->bearings = found->bearings != NULL ? g_array_ref (found->bearings) : NULL;
       r->plan_note = g_strdup (found->plan_note);
       r->reduction = found->reduction;
@@ -5781,7 +5642,7 @@ trb_solve_member_full (const TrbProject *project,
       r->message = g_strdup (found->message);
       return r;
     }
-  return solve_standalone (project, member, shortlist_max, TRUE);
+  return trb_solve_priv_solve_standalone (project, member, shortlist_max, TRUE);
 }
 
 /**
@@ -5835,11 +5696,11 @@ trb_solve_member_shortlist (const TrbProject      *project,
     return list;
   if (!trb_member_is_auto (m))
     {
-      chosen = lookup_section (project, m->section);
+      chosen = trb_solve_priv_lookup_section (project, m->section);
       if (chosen == NULL)
         return list;
     }
-  memo = memo_new ();
+  memo = trb_solve_priv_memo_new ();
   in.length = sz->length;
   in.supports = (const TrbSupport *) sz->supports->data;
   in.n_supports = sz->supports->len;
@@ -5851,7 +5712,7 @@ trb_solve_member_shortlist (const TrbProject      *project,
   in.repetitive_spacing = sz->repetitive_spacing;
   in.memo = memo;
   in.member = m;
-  size_member (project, m, &in, chosen, max, TRUE, TRUE, list);
+  trb_solve_priv_size_member (project, m, &in, chosen, max, TRUE, TRUE, list);
   return list;
 }
 
