@@ -258,7 +258,7 @@ test_self_weight_of_chosen (void)
 /* ---- sizing's shortcuts against sizing without them -------------------------------------
  *
  * Sizing judges most candidates from bounds and analyses the others with only the
- * combinations that can govern (trb-solve.c, "sizing: bounds and the lean evaluation of
+ * combinations that can govern (trb-sizing.c, "sizing: bounds and the lean evaluation of
  * candidates"). Without the shortcuts every candidate is analysed in full. The check values
  * are sizing's own results without the shortcuts: with them every number must be the same,
  * bit for bit, every shortlist (of every passing section) too. The members are drawn at
@@ -429,7 +429,7 @@ test_auto_shortcuts (void)
 }
 
 /* Steel members of dead and floor live load alone, where sizing first guesses the section it
- * will choose and analyses that one first (trb-solve.c, "a guess at the section chosen"): the
+ * will choose and analyses that one first (trb-sizing.c, "a guess at the section chosen"): the
  * same results, bit for bit, as sizing without any shortcut, whether the guess is right, too
  * light or too heavy; bracing at the supports and continuous, braces, overhangs, LRFD and ASD.
  * Made-up members, not designs. */
