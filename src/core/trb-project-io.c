@@ -21,6 +21,7 @@
 #include "trb-data-resources.h"
 #include "trb-error.h"
 #include "trb-project-io.h"
+#include "trb-project-io-private.h"
 #include "trb-units.h"
 
 G_DEFINE_AUTOPTR_CLEANUP_FUNC (xmlDoc, xmlFreeDoc)
@@ -136,17 +137,6 @@ has_attr (xmlNode    *node,
   return find_attr (node, attr) != NULL;
 }
 
-/* g_strv_contains(), the first byte compared before the rest */
-static gboolean
-names_contain (const char * const *names,
-               const char         *name)
-{
-  for (; *names != NULL; names++)
-    if ((*names)[0] == name[0] && strcmp (*names, name) == 0)
-      return TRUE;
-  return FALSE;
-}
-
 /* Every attribute must be one this element knows: a misspelt attribute would otherwise be
  * dropped in silence, and with it a load or a limit the engineer meant. */
 static gboolean
@@ -160,7 +150,7 @@ check_attributes (Loader             *ld,
         return fail_at (ld, node_line (node), TRB_ERROR_INVALID,
                         "unknown attribute \"%s:%s\" on <%s>",
                         (const char *) a->ns->prefix, (const char *) a->name, NAME (node));
-      if (!names_contain (allowed, (const char *) a->name))
+      if (!trb_project_io_priv_names_contain (allowed, (const char *) a->name))
         return fail_at (ld, node_line (node), TRB_ERROR_INVALID,
                         "unknown attribute \"%s\" on <%s>", (const char *) a->name, NAME (node));
     }
@@ -542,7 +532,7 @@ load_load (Loader     *ld,
       g_assert_not_reached ();
     }
   for (xmlAttr *a = node->properties; a != NULL; a = a->next)
-    if (!names_contain (attrs, (const char *) a->name))
+    if (!trb_project_io_priv_names_contain (attrs, (const char *) a->name))
       return fail_at (ld, node_line (node), TRB_ERROR_INVALID,
                       "attribute \"%s\" does not belong on a %s load",
                       (const char *) a->name, type);
@@ -2064,7 +2054,7 @@ proved_value (const AttrRule *rule,
     case V_PLIES:
       return plain_digits (v, 2, &n) && n >= 1 && n <= 99;
     case V_CHOICE:
-      return names_contain (rule->choices, v);
+      return trb_project_io_priv_names_contain (rule->choices, v);
     default:
       return FALSE;
     }
