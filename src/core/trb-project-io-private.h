@@ -15,6 +15,10 @@
 
 G_BEGIN_DECLS
 
+/* TRUE when @doc certainly matches the schema; FALSE when that is not proved (then libxml2's
+ * validation judges it). */
+gboolean trb_project_io_priv_schema_proved (xmlDoc *doc);
+
 /* A small helper the loader and the schema walk both call for every attribute: inline in
  * each, as it was in one file. */
 
