@@ -501,7 +501,7 @@ fail_each_call (const Fault *mode,
 }
 
 /* The calls of a save with no fault, in order (GLib 2.74, g_file_set_contents_full with
- * G_FILE_SET_CONTENTS_CONSISTENT | G_FILE_SET_CONTENTS_DURABLE, as trb-project-io.c asks):
+ * G_FILE_SET_CONTENTS_CONSISTENT | G_FILE_SET_CONTENTS_DURABLE, as trb-project-write.c asks):
  * create a temporary file beside the target, write it whole, flush it, close it, rename it over
  * the target, then flush the folder. */
 static void
