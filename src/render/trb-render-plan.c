@@ -1197,7 +1197,7 @@ line_load_side (DrawContext       *dc,
 }
 
 /* A line load's label: its text, where it sits (device, the middle of the text's edge nearest
- * the load line), its angle and the side of the line it is on (line_load_side()): a quarter
+ * the load line) and its angle, on the given side of the line (line_load_side()): a quarter
  * along the first segment (clear of the middles, where the labels of the member under it and
  * of its neighbours are; nearer the middle where the line is short), beyond the load line.
  * FALSE when no segment has a length. */
@@ -1208,13 +1208,12 @@ line_load_label (DrawContext       *dc,
                  double            *lx,
                  double            *ly,
                  double            *angle,
-                 double            *side)
+                 double             side)
 {
   double alen = 1.6 * dc->fs;
   g_autofree char *w = trb_units_format (l->w, TRB_DIM_LINE_LOAD, dc->scene->units);
 
   *text = NULL;
-  *side = line_load_side (dc, l);
   for (guint k = 0; k + 1 < l->points->len; k++)
     {
       const TrbFramePoint *a = &g_array_index (l->points, TrbFramePoint, k);
@@ -1232,8 +1231,8 @@ line_load_label (DrawContext       *dc,
                                l->label != NULL ? " " : "", l->label != NULL ? l->label : "");
       at = MIN (0.5 * len, MAX (0.25 * len, 0.5 * text_width (dc, *text, dc->fs * 0.9, FALSE)
                                             + dc->fs));
-      *lx = ax + ux * at + *side * uy * alen;
-      *ly = ay + uy * at - *side * ux * alen;
+      *lx = ax + ux * at + side * uy * alen;
+      *ly = ay + uy * at - side * ux * alen;
       *angle = atan2 (uy, ux);
       return TRUE;
     }
@@ -1247,10 +1246,11 @@ line_load_label_box (DrawContext       *dc,
                      GArray            *taken)
 {
   g_autofree char *text = NULL;
-  double lx, ly, angle, side, w, h, c, s;
+  double side = line_load_side (dc, l);
+  double lx, ly, angle, w, h, c, s;
   TrbPlanBounds box;
 
-  if (!line_load_label (dc, l, &text, &lx, &ly, &angle, &side))
+  if (!line_load_label (dc, l, &text, &lx, &ly, &angle, side))
     return;
   w = text_width (dc, text, dc->fs * 0.9, FALSE);
   h = dc->fs * 0.9 * 1.3;
@@ -2340,7 +2340,7 @@ draw_line_loads (DrawContext *dc)
               arrow_head (cr, px, py, nx, ny, 0.65 * alen);
             }
         }
-      if (line_load_label (dc, l, &t, &lx, &ly, &lang, &side))
+      if (line_load_label (dc, l, &t, &lx, &ly, &lang, side))
         {
           gboolean flip = lang > G_PI / 2 + 1e-9 || lang <= -G_PI / 2 + 1e-9;
           /* the text reaches away from the line: below its baseline once turned upright, on
